@@ -1,0 +1,200 @@
+"""The validated model: plain dataclasses holding pint quantities, ids resolved, positions known.
+
+The job-file reader (:mod:`calcreport.jobfile`) builds these; the solver reads them. Nothing here
+parses text or formats output.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, field
+from typing import Any
+
+from .units import Quantity
+
+__all__ = [
+    "Header", "RevisionEntry", "Settings", "Material", "Shape", "Part", "ConnectorSpec", "Joint",
+    "Member", "Job", "Load", "Support", "Combination",
+]
+
+
+@dataclass(frozen=True)
+class RevisionEntry:
+    """One row of the revision history kept in the job file."""
+
+    mark: str
+    date: str
+    by: str
+    description: str
+
+
+@dataclass(frozen=True)
+class Header:
+    """Who and what the calculation is for; shown in every title block."""
+
+    project: str
+    number: str
+    client: str
+    subject: str
+    prepared_by: str
+    checked_by: str
+    revision: str
+    date: str
+    prepared_date: str = ""
+    checked_date: str = ""
+    approved_by: str = ""
+    history: tuple[RevisionEntry, ...] = ()
+    notes: tuple[str, ...] = ()
+
+
+@dataclass(frozen=True)
+class Settings:
+    """Job-wide choices. Defaults are stated in the report so nothing is silent."""
+
+    units: str  # "US" or "SI"
+    method: str  # "ASD" or "LRFD"
+    spacing_step: Quantity
+    spacing_max: Quantity | None
+    spacing_min: Quantity | None
+    zones_per_half: int = 3
+    zone_module: Quantity | None = None
+    deflection_limits: dict[str, float] = field(default_factory=dict)
+    template: str = ""
+    display: dict[str, str] = field(default_factory=dict)
+    load_duration: float | None = None
+
+
+@dataclass(frozen=True)
+class Material:
+    """A material: modulus, optional design stresses and density, optional grade data."""
+
+    id: str
+    name: str
+    E: Quantity
+    family: str = "other"  # "wood", "steel", "concrete", "plywood", "other"
+    Fb: Quantity | None = None
+    Fv: Quantity | None = None
+    Fy: Quantity | None = None
+    Fu: Quantity | None = None
+    fc: Quantity | None = None  # concrete specified compressive strength f'c
+    G: float | None = None  # specific gravity (wood)
+    density: Quantity | None = None  # weight density (force / volume)
+    extra: dict[str, Any] = field(default_factory=dict)
+
+
+@dataclass(frozen=True)
+class Shape:
+    """Geometry of one part, already placed in section coordinates (inches internally).
+
+    ``kind`` is ``polygon`` (``vertices`` counter-clockwise, absolute), ``circle``
+    (``centre`` and ``radius``) or ``properties`` (``area``, ``inertia`` about its own centroid,
+    ``centroid`` and the bounding box ``bbox`` used for placement and contact).
+    All lengths are plain floats in inches so that geometry code stays fast and simple;
+    :mod:`calcreport.solve.section` turns results back into quantities.
+    """
+
+    kind: str
+    bbox: tuple[float, float, float, float]  # xmin, ymin, xmax, ymax
+    vertices: tuple[tuple[float, float], ...] = ()
+    centre: tuple[float, float] = (0.0, 0.0)
+    radius: float = 0.0
+    area: float = 0.0
+    inertia: float = 0.0
+    centroid: tuple[float, float] = (0.0, 0.0)
+    description: str = ""
+    nominal: str = ""  # e.g. "2x10" for dressed lumber, "W16x31" for a named rolled shape
+
+
+@dataclass(frozen=True)
+class Part:
+    """A piece of the built-up section."""
+
+    id: str
+    shape: Shape
+    material: Material
+    label: str = ""
+
+
+@dataclass(frozen=True)
+class ConnectorSpec:
+    """A connector as the job file gives it; ``kind`` selects the model in ``solve.connectors``."""
+
+    kind: str
+    params: dict[str, Any]
+    key: str  # key path in the job file, for messages
+
+
+@dataclass(frozen=True)
+class Joint:
+    """A fastened interface: the parts held on one side of the shear plane and their connector."""
+
+    id: str
+    holds: tuple[str, ...]
+    connector: ConnectorSpec
+    per_row: int = 1
+    label: str = ""
+    width: Quantity | None = None  # shear-plane width b override (glue lines)
+    spacing_max: Quantity | None = None
+    spacing_min: Quantity | None = None
+
+
+@dataclass(frozen=True)
+class Support:
+    """A support along the member (issue: loads along the member)."""
+
+    x: Quantity
+    kind: str = "pin"  # "pin", "roller", "fixed"
+
+
+@dataclass(frozen=True)
+class Load:
+    """A load along the member for one load case."""
+
+    case: str  # "D", "L", "Lr", "S", "R", "W" or a name of the job's own
+    kind: str  # "uniform", "point", "linear"
+    magnitude: Quantity
+    start: Quantity | None = None
+    end: Quantity | None = None
+    magnitude_end: Quantity | None = None
+    at: Quantity | None = None
+    label: str = ""
+
+
+@dataclass(frozen=True)
+class Combination:
+    """A load combination: factors by case name."""
+
+    name: str
+    factors: dict[str, float]
+    source: str = ""
+
+
+@dataclass(frozen=True)
+class Member:
+    """One built-up member: its parts, joints and the shear it carries."""
+
+    id: str
+    title: str
+    description: str
+    parts: tuple[Part, ...]
+    joints: tuple[Joint, ...]
+    reference_material: Material
+    shear: Quantity | None = None  # design shear V (shortcut when no loads are given)
+    span: Quantity | None = None
+    supports: tuple[Support, ...] = ()
+    loads: tuple[Load, ...] = ()
+    combinations: tuple[Combination, ...] = ()
+    self_weight: bool = False
+    assumptions: tuple[str, ...] = ()
+    notes: tuple[str, ...] = ()
+
+
+@dataclass(frozen=True)
+class Job:
+    """A whole job file, validated."""
+
+    path: str
+    sha256: str
+    header: Header
+    settings: Settings
+    materials: tuple[Material, ...]
+    members: tuple[Member, ...]

@@ -1,0 +1,125 @@
+"""Result records returned by the solver. Plain data: every output reads these and the steps."""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, field
+from typing import Any
+
+from ..model import Job, Member
+from ..steps import Step
+from ..units import Quantity
+
+__all__ = ["Check", "PartProps", "SectionResult", "Capacity", "JointResult", "MemberResult",
+           "JobResult", "worst"]
+
+
+def worst(statuses) -> str:
+    """"NG" if any status is NG, else "OK"."""
+    return "NG" if any(s == "NG" for s in statuses) else "OK"
+
+
+@dataclass(frozen=True)
+class Check:
+    """A demand/capacity comparison or a detailing rule, with its utilisation and status."""
+
+    key: str
+    label: str
+    demand: Quantity | float | None
+    capacity: Quantity | float | None
+    ratio: float | None
+    status: str  # "OK", "NG" or "INFO"
+    source: str = ""
+    note: str = ""
+
+
+@dataclass(frozen=True)
+class PartProps:
+    """One part's contribution to the section (transformed by modular ratio n = E / E_ref)."""
+
+    id: str
+    area: Quantity
+    n: float
+    area_transformed: Quantity
+    centroid_y: Quantity
+    inertia_own: Quantity  # about its own horizontal centroidal axis, untransformed
+    depth: Quantity
+    width: Quantity
+
+
+@dataclass(frozen=True)
+class SectionResult:
+    """Transformed-section properties about the horizontal centroidal axis."""
+
+    E_ref: Quantity
+    reference_material: str
+    area: Quantity  # transformed area
+    centroid: Quantity  # neutral axis height above the section's lowest point
+    inertia: Quantity  # transformed I about the neutral axis
+    depth: Quantity
+    bottom: Quantity  # lowest y of the section (y coordinates are as placed)
+    parts: tuple[PartProps, ...]
+    steps: tuple[Step, ...]
+
+
+@dataclass(frozen=True)
+class Capacity:
+    """A connector model's answer: design value per connector (or per length if continuous)."""
+
+    value: Quantity
+    continuous: bool
+    description: str
+    source: str
+    checks: tuple[Check, ...] = ()
+    spacing_min: Quantity | None = None  # detailing limits from the connector's standard
+    spacing_max: Quantity | None = None
+    limits_source: str = ""
+
+
+@dataclass(frozen=True)
+class JointResult:
+    """Shear flow, connector capacity and spacing at one fastened interface."""
+
+    id: str
+    label: str
+    holds: tuple[str, ...]
+    Q: Quantity
+    shear: Quantity  # design shear V used for the single spacing
+    shear_flow: Quantity  # q = V·Q/I
+    connector: str  # description of the connector
+    per_row: int
+    capacity: Quantity  # per connector, or per length for a continuous connector
+    capacity_row: Quantity  # n·F (or the continuous capacity)
+    continuous: bool
+    spacing_required: Quantity | None
+    spacing_provided: Quantity | None
+    spacing_min: Quantity | None
+    spacing_max: Quantity | None
+    utilisation: float
+    status: str
+    reasons: tuple[str, ...]
+    checks: tuple[Check, ...]
+    plane: tuple[tuple[tuple[float, float], tuple[float, float]], ...]  # shear-plane segments, in
+    plane_width: Quantity
+    steps: tuple[Step, ...]
+    schedule: Any = None  # zoned schedule (loads along the member)
+
+
+@dataclass(frozen=True)
+class MemberResult:
+    id: str
+    member: Member
+    section: SectionResult
+    shear: Quantity
+    joints: tuple[JointResult, ...]
+    checks: tuple[Check, ...]
+    steps: tuple[Step, ...]
+    status: str
+    beam: Any = None  # analysis along the member, when loads are given
+
+
+@dataclass(frozen=True)
+class JobResult:
+    job: Job
+    members: tuple[MemberResult, ...]
+    status: str
+    extra: dict[str, Any] = field(default_factory=dict)

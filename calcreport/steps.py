@@ -1,0 +1,85 @@
+"""Derivation steps: the record every output reads.
+
+A :class:`Step` is data, never text ready to print. It holds
+
+* ``label`` — what is being found ("Shear flow at the top flange joint");
+* ``symbol`` — the symbolic formula ("q = V·Q / I");
+* ``template`` — the right-hand side with named slots ("{V} · {Q} / {I}") that an output fills
+  with the formatted ``values``, giving the formula with numbers and units substituted;
+* ``values`` — the named inputs, as quantities (or plain numbers / words);
+* ``result`` — the value found;
+* ``source`` — the standard and clause, or "mechanics of materials", or "common practice, no source";
+* ``key`` — a stable dotted id (``member.B1.joint.top.q``) that the diff lines up across revisions.
+
+The solver appends steps as it computes; the PDF typesets them, the JSON serialises them and the
+diff compares them.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, field
+from typing import Union
+
+from .units import Quantity
+
+Value = Union[Quantity, float, int, str]
+
+__all__ = ["Step", "Value", "StepLog", "step"]
+
+
+@dataclass(frozen=True)
+class Step:
+    """One line of a derivation (see module docstring)."""
+
+    key: str
+    label: str
+    symbol: str
+    template: str
+    values: dict[str, Value]
+    result: Value
+    source: str = ""
+    note: str = ""
+    governs: bool = False
+
+
+def step(key: str, label: str, symbol: str, template: str, values: dict[str, Value],
+         result: Value, source: str = "", note: str = "", governs: bool = False) -> Step:
+    """Build a :class:`Step`, checking that every slot of ``template`` has a value.
+
+    Example:
+        >>> s = step("x.q", "Shear flow", "q = V·Q / I", "{V} · {Q} / {I}",
+        ...          {"V": 1, "Q": 2, "I": 4}, 0.5, "mechanics of materials")
+        >>> s.result
+        0.5
+    """
+    import string
+
+    slots = {name for _, name, _, _ in string.Formatter().parse(template) if name}
+    missing = slots - set(values)
+    if missing:
+        raise ValueError(f"step {key}: template slots without values: {sorted(missing)}")
+    return Step(key, label, symbol, template, dict(values), result, source, note, governs)
+
+
+@dataclass
+class StepLog:
+    """An ordered list of steps with a key prefix, passed down through the solver."""
+
+    prefix: str
+    steps: list[Step] = field(default_factory=list)
+
+    def add(self, name: str, label: str, symbol: str, template: str, values: dict[str, Value],
+            result: Value, source: str = "", note: str = "", governs: bool = False) -> Value:
+        """Append a step keyed ``prefix.name`` and return its result (so code reads as math)."""
+        self.steps.append(step(f"{self.prefix}.{name}", label, symbol, template, values, result,
+                               source, note, governs))
+        return result
+
+    def child(self, name: str) -> "StepLog":
+        """A log whose keys are nested under ``prefix.name`` and whose steps land here too."""
+        return _ChildLog(f"{self.prefix}.{name}", self.steps)
+
+
+class _ChildLog(StepLog):
+    def __init__(self, prefix: str, steps: list[Step]):
+        super().__init__(prefix, steps)
