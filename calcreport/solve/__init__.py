@@ -1,0 +1,104 @@
+"""Solver: validated model → results with derivation steps. Formats nothing.
+
+``solve_job(job)`` runs, per member: section properties (:mod:`.section`), design shear,
+then per joint: Q, shear flow, connector design value (:mod:`.connectors`) and spacing
+(:mod:`.spacing`).
+"""
+
+from __future__ import annotations
+
+from ..geometry import contact_segments
+from ..model import Job, Joint, Member, Settings
+from ..steps import StepLog
+from ..units import Q_, Quantity
+from . import connectors
+from .results import JobResult, JointResult, MemberResult, SectionResult, worst
+from .section import first_moment, section_properties
+from .spacing import combine_limits, continuous_check, discrete_spacing, shear_flow
+
+__all__ = ["solve_job", "solve_member", "SolveError"]
+
+
+class SolveError(ValueError):
+    """The model is valid but cannot be solved as given (names the job key)."""
+
+    def __init__(self, key: str, message: str):
+        super().__init__(message)
+        self.key = key
+
+
+def solve_job(job: Job) -> JobResult:
+    """Solve every member of ``job`` in order."""
+    members = tuple(solve_member(m, job.settings) for m in job.members)
+    return JobResult(job=job, members=members, status=worst(m.status for m in members))
+
+
+def _design_shear(member: Member, log: StepLog) -> Quantity:
+    V = member.shear
+    return log.add("V", "Design shear", "V (given)", "{V}", {"V": V}, V.to("lbf"),
+                   source="stated in the job file")
+
+
+def solve_member(member: Member, settings: Settings) -> MemberResult:
+    """Section, shear and every joint of one member."""
+    log = StepLog(f"member.{member.id}")
+    section = section_properties(member, log.child("section"))
+    beam = None
+    if member.loads:
+        from .along import analyse_member  # loads along the member
+
+        beam = analyse_member(member, section, settings, log.child("beam"))
+        V = beam.V_design
+    else:
+        V = _design_shear(member, log.child("shear"))
+    joints = tuple(solve_joint(member, section, j, V, settings, log, beam) for j in member.joints)
+    checks = tuple(beam.checks) if beam is not None else ()
+    status = worst([j.status for j in joints] + [c.status for c in checks])
+    return MemberResult(id=member.id, member=member, section=section, shear=V, joints=joints,
+                        checks=checks, steps=tuple(log.steps), status=status, beam=beam)
+
+
+def solve_joint(member: Member, section: SectionResult, joint: Joint, V: Quantity, settings: Settings,
+                mlog: StepLog, beam=None) -> JointResult:
+    """Q, shear flow, connector capacity and spacing at one joint."""
+    log = mlog.child(f"joint.{joint.id}")
+    held = [p for p in member.parts if p.id in joint.holds]
+    rest = [p for p in member.parts if p.id not in joint.holds]
+    segments = contact_segments(held, rest)
+    touching = {p.id for p in rest if contact_segments(held, [p])}
+    other = [p for p in rest if p.id in touching]
+    contact = sum(((a[0] - b[0]) ** 2 + (a[1] - b[1]) ** 2) ** 0.5 for a, b in segments)
+    if joint.width is not None:
+        b = log.add("b", "Width of the shear plane", "b (given)", "{b}", {"b": joint.width},
+                    joint.width.to("inch"), source="stated in the job file")
+    else:
+        b = log.add("b", "Width of the shear plane", "b = Σ contact lengths", "{b}", {"b": Q_(contact, "inch")},
+                    Q_(contact, "inch"), source="geometry of the placed parts")
+    Q = first_moment(section, joint.holds, log)
+    q = shear_flow(V, Q, section.inertia, log)
+    ctx = connectors.JointContext(settings.method, tuple(held), tuple(other), b, settings,
+                                  f"member[{member.id}].joint[{joint.id}]")
+    cap = connectors.design(joint.connector, ctx, log.child("connector"))
+    if cap.continuous:
+        res = continuous_check(q, cap.value, log)
+        cap_row = cap.value
+    else:
+        s_min = combine_limits(settings.spacing_min, joint.spacing_min, cap.spacing_min, pick=max)
+        s_max = combine_limits(settings.spacing_max, joint.spacing_max, cap.spacing_max, pick=min)
+        res = discrete_spacing(q, joint.per_row, cap.value, settings.spacing_step, s_min, s_max, log)
+        cap_row = (joint.per_row * cap.value).to("lbf")
+    schedule = None
+    if beam is not None and not cap.continuous:
+        from .along import joint_schedule
+
+        schedule = joint_schedule(beam, Q, section, joint, cap.value, res, settings, log.child("schedule"))
+    checks = tuple(cap.checks)
+    status = worst([res.status] + [c.status for c in checks] + ([schedule.status] if schedule else []))
+    return JointResult(
+        id=joint.id, label=joint.label, holds=joint.holds, Q=Q, shear=V, shear_flow=q,
+        connector=cap.description, per_row=joint.per_row, capacity=cap.value, capacity_row=cap_row,
+        continuous=cap.continuous, spacing_required=res.required, spacing_provided=res.provided,
+        spacing_min=res.s_min, spacing_max=res.s_max, utilisation=res.utilisation, status=status,
+        reasons=res.reasons, checks=checks, plane=tuple(segments), plane_width=b,
+        steps=tuple(s for s in log.steps if s.key.startswith(log.prefix + ".")), schedule=schedule,
+    )

@@ -1,0 +1,250 @@
+"""Read a TOML job file into a validated :class:`calcreport.model.Job`.
+
+Every problem raises :class:`calcreport.errors.JobError` naming the file, the key path, the line
+where known, and what was expected.
+"""
+
+from __future__ import annotations
+
+import hashlib
+import os
+
+try:
+    import tomllib
+except ModuleNotFoundError:  # Python < 3.11
+    import tomli as tomllib  # type: ignore[no-redef]
+
+from ..errors import JobError
+from ..geometry import contact_segments, isolated_parts, overlapping_pairs
+from ..model import ConnectorSpec, Header, Job, Joint, Material, Member, Part, RevisionEntry, Settings
+from ..solve import connectors
+from ..units import parse
+from .lines import LineIndex
+from .parts import read_part
+from .reader import Source, Table
+
+__all__ = ["load_job", "load_text", "MAX_FILE_BYTES", "MAX_MEMBERS", "MAX_PARTS", "MAX_JOINTS"]
+
+MAX_FILE_BYTES = 2_000_000
+MAX_MEMBERS = 500
+MAX_PARTS = 60
+MAX_JOINTS = 60
+FAMILIES = ("wood", "plywood", "glulam", "steel", "concrete", "aluminum", "other")
+
+
+def load_job(path: str) -> Job:
+    """Read and validate the job file at ``path``."""
+    try:
+        size = os.path.getsize(path)
+    except OSError as exc:
+        raise JobError(path, "", f"cannot read the file ({exc.strerror or exc})") from None
+    if size > MAX_FILE_BYTES:
+        raise JobError(path, "", f"file is {size:,} bytes; a job file may have at most {MAX_FILE_BYTES:,}")
+    try:
+        with open(path, "rb") as fh:
+            data = fh.read()
+    except OSError as exc:
+        raise JobError(path, "", f"cannot read the file ({exc.strerror or exc})") from None
+    return load_text(data, path)
+
+
+def load_text(data: bytes, path: str = "<job>") -> Job:
+    """Validate job-file bytes; ``path`` is used in messages only."""
+    try:
+        text = data.decode("utf-8")
+    except UnicodeDecodeError as exc:
+        raise JobError(path, "", f"expected UTF-8 text (bad byte at offset {exc.start})") from None
+    try:
+        doc = tomllib.loads(text)
+    except tomllib.TOMLDecodeError as exc:
+        msg = str(exc)
+        line = None
+        if "(at line" in msg:
+            try:
+                line = int(msg.split("(at line", 1)[1].split(",")[0])
+            except ValueError:
+                line = None
+            msg = msg.split(" (at line")[0]
+        raise JobError(path, "", f"TOML syntax error: {msg}", line) from None
+    src = Source(path, LineIndex(text))
+    root = Table(doc, src, (), "")
+    header = _header(root.table("job", required=True))
+    settings = _settings(root.table("settings") or Table({}, src, ("settings",), "settings"))
+    materials = _materials(root)
+    member_tables = root.tables("member")
+    if not member_tables:
+        raise root.error(None, "missing required key 'member' (at least one [[member]])")
+    if len(member_tables) > MAX_MEMBERS:
+        raise root.error("member", f"expected at most {MAX_MEMBERS} members, got {len(member_tables)}")
+    members: list[Member] = []
+    seen: set[str] = set()
+    for mt in member_tables:
+        m = _member(mt, materials, settings)
+        if m.id in seen:
+            raise mt.error("id", f"duplicate member id {m.id!r}")
+        seen.add(m.id)
+        members.append(m)
+    root.done()
+    return Job(path, hashlib.sha256(data).hexdigest(), header, settings, tuple(materials.values()),
+               tuple(members))
+
+
+def _header(t: Table) -> Header:
+    history = []
+    for r in t.tables("history", id_key="mark"):
+        history.append(RevisionEntry(r.text("mark", True), r.text("date"), r.text("by"), r.text("description")))
+        r.done()
+    h = Header(
+        project=t.text("project", True), number=t.text("number"), client=t.text("client"),
+        subject=t.text("subject"), prepared_by=t.text("prepared_by"), checked_by=t.text("checked_by"),
+        revision=t.text("revision", default="0"), date=t.text("date"),
+        prepared_date=t.text("prepared_date"), checked_date=t.text("checked_date"),
+        approved_by=t.text("approved_by"), history=tuple(history), notes=t.texts("notes"),
+    )
+    t.done()
+    return h
+
+
+def _settings(t: Table) -> Settings:
+    units = t.choice("units", ("US", "SI"), "US")
+    method = t.choice("method", ("ASD", "LRFD"), "ASD")
+    step = t.quantity("spacing_step", "length", default=parse("0.25 in" if units == "US" else "5 mm", "length"))
+    smax = t.quantity("spacing_max", "length")
+    smin = t.quantity("spacing_min", "length")
+    if smax is not None and smin is not None and smin > smax:
+        raise t.error("spacing_min", "expected spacing_min no larger than spacing_max")
+    if smax is not None and step > smax:
+        raise t.error("spacing_step", "expected a spacing step no larger than spacing_max")
+    zones = t.integer("zones_per_half", 3, 1, 12)
+    module = t.quantity("zone_module", "length")
+    limits = {}
+    lt = t.table("deflection_limits")
+    if lt is not None:
+        for case in list(lt.data):
+            limits[case] = lt.number(case, required=True, minimum=1, maximum=100_000)
+        lt.done()
+    display = {}
+    dt = t.table("display")
+    if dt is not None:
+        for kind, dim in (("force", "force"), ("length", "length"), ("stress", "stress"),
+                          ("shear_flow", "line_load"), ("moment", "moment")):
+            unit = dt.text(kind)
+            if unit:
+                dt.parse_quantity(kind, f"1 {unit}", dim)
+                display[kind] = unit
+        dt.done()
+    cd = t.number("load_duration", None, minimum=0.5, maximum=2.0)
+    s = Settings(units, method, step, smax, smin, zones, module, limits, t.text("template"), display, cd)
+    t.done()
+    return s
+
+
+def _materials(root: Table) -> dict[str, Material]:
+    out: dict[str, Material] = {}
+    for t in root.tables("material"):
+        mid = t.text("id", True)
+        if mid in out:
+            raise t.error("id", f"duplicate material id {mid!r}")
+        density = None
+        if t.has("density"):
+            raw = t.raw("density")
+            try:
+                density = t.parse_quantity("density", raw, "weight_density")
+            except JobError:
+                dens_mass = t.parse_quantity("density", raw, "mass_density")
+                density = (dens_mass * parse("1 gravity")).to("lbf/ft**3")
+        out[mid] = Material(
+            id=mid, name=t.text("name", default=mid), E=t.quantity("E", "stress", True),
+            family=t.choice("family", FAMILIES, "other"),
+            Fb=t.quantity("Fb", "stress"), Fv=t.quantity("Fv", "stress"), Fy=t.quantity("Fy", "stress"),
+            Fu=t.quantity("Fu", "stress"), fc=t.quantity("fc", "stress"),
+            G=t.number("G", None, minimum=0.2, maximum=1.2), density=density,
+            extra={"Fs": t.quantity("Fs", "stress"), "grade": t.text("grade")},
+        )
+        t.done()
+    if not out:
+        raise root.error(None, "missing required key 'material' (at least one [[material]])")
+    return out
+
+
+def _member(t: Table, materials: dict[str, Material], settings: Settings) -> Member:
+    mid = t.text("id", True)
+    part_tables = t.tables("part")
+    if not part_tables:
+        raise t.error(None, "missing required key 'part' (at least one [[member.part]])")
+    if len(part_tables) > MAX_PARTS:
+        raise t.error("part", f"expected at most {MAX_PARTS} parts, got {len(part_tables)}")
+    placed: dict[str, Part] = {}
+    for pt in part_tables:
+        p = read_part(pt, materials, placed)
+        placed[p.id] = p
+    parts = tuple(placed.values())
+    for a, b, area in overlapping_pairs(parts):
+        i = list(placed).index(b)
+        raise part_tables[i].error(None, f"part {b!r} overlaps part {a!r} by {area:.4g} in²; parts must only touch")
+    for pid in isolated_parts(parts):
+        i = list(placed).index(pid)
+        raise part_tables[i].error(None, f"part {pid!r} touches no other part; every part must bear on another")
+    ref_id = t.text("reference_material", default=parts[0].material.id)
+    if ref_id not in materials:
+        raise t.error("reference_material", f"expected a material id ({', '.join(materials)}), got {ref_id!r}")
+    shear = t.quantity("shear", "force", allow_zero=True)
+    joints = tuple(_joints(t, placed))
+    member = Member(
+        id=mid, title=t.text("title", default=mid), description=t.text("description"),
+        parts=parts, joints=joints, reference_material=materials[ref_id], shear=shear,
+        assumptions=t.texts("assumptions"), notes=t.texts("notes"),
+    )
+    member = _loads_hook(t, member, settings)
+    if member.shear is None and not member.loads:
+        raise t.error(None, "missing required key 'shear' (the design shear V, e.g. shear = \"4.2 kip\")")
+    t.done()
+    return member
+
+
+def _loads_hook(t: Table, member: Member, settings: Settings) -> Member:
+    """Loads along the member are read by :mod:`calcreport.jobfile.loads` when present."""
+    try:
+        from . import loads as loads_reader
+    except ImportError:
+        return member
+    return loads_reader.read_loads(t, member, settings)
+
+
+def _joints(t: Table, parts: dict[str, Part]):
+    seen: set[str] = set()
+    tables = t.tables("joint")
+    if len(tables) > MAX_JOINTS:
+        raise t.error("joint", f"expected at most {MAX_JOINTS} joints, got {len(tables)}")
+    for jt in tables:
+        jid = jt.text("id", True)
+        if jid in seen:
+            raise jt.error("id", f"duplicate joint id {jid!r}")
+        seen.add(jid)
+        holds = jt.raw("holds", True, "the list of part ids held on one side of the shear plane")
+        if isinstance(holds, str):
+            holds = [holds]
+        if not isinstance(holds, list) or not holds or not all(isinstance(h, str) for h in holds):
+            raise jt.error("holds", "expected a list of part ids, like [\"top_flange\"]")
+        for h in holds:
+            if h not in parts:
+                raise jt.error("holds", f"expected part ids ({', '.join(parts)}), got unknown {h!r}")
+        if len(set(holds)) == len(parts):
+            raise jt.error("holds", "the held parts are the whole section; a joint holds the parts on ONE side of its shear plane")
+        held = [parts[h] for h in holds]
+        rest = [p for p in parts.values() if p.id not in holds]
+        if not contact_segments(held, rest):
+            raise jt.error("holds", "the held parts touch the rest of the section along no line; "
+                           "a joint needs a shear plane")
+        ct = jt.table("connector", required=True)
+        kind = ct.choice("type", connectors.kinds(), required=True)
+        params = ct.fields(connectors.model_for(kind).FIELDS)
+        ct.done()
+        joint = Joint(
+            id=jid, holds=tuple(dict.fromkeys(holds)), connector=ConnectorSpec(kind, params, ct.label),
+            per_row=jt.integer("per_row", 1, 1, 50), label=jt.text("label"),
+            width=jt.quantity("width", "length"), spacing_max=jt.quantity("spacing_max", "length"),
+            spacing_min=jt.quantity("spacing_min", "length"),
+        )
+        jt.done()
+        yield joint

@@ -1,0 +1,227 @@
+"""Validated access to one TOML table: typed getters, unknown-key detection, located errors."""
+
+from __future__ import annotations
+
+import difflib
+import math
+from dataclasses import dataclass
+from typing import Any, Iterable
+
+from ..errors import JobError
+from ..fields import Field
+from ..units import Quantity, UnitParseError, parse
+from .lines import LineIndex
+
+__all__ = ["Source", "Table"]
+
+MAX_TEXT = 2000
+
+
+@dataclass
+class Source:
+    """The file being read: its name for messages and its line index."""
+
+    path: str
+    lines: LineIndex
+
+
+class Table:
+    """One table of the job file, with its key path for messages.
+
+    Every getter records the key as known; :meth:`done` then rejects keys nobody asked for, with a
+    did-you-mean suggestion.
+    """
+
+    def __init__(self, data: Any, src: Source, path: tuple, label: str):
+        self.src = src
+        self.path = path
+        self.label = label
+        if not isinstance(data, dict):
+            raise self._error_at(path, label, f"expected a table, got {_kind(data)}")
+        self.data = data
+        self._known: set[str] = set()
+
+    # -- errors ---------------------------------------------------------------------------
+    def _error_at(self, path: tuple, label: str, message: str) -> JobError:
+        return JobError(self.src.path, label, message, self.src.lines.line(path))
+
+    def error(self, name: str | None, message: str) -> JobError:
+        """A JobError located at key ``name`` of this table (or the table itself)."""
+        if name is None:
+            return self._error_at(self.path, self.label, message)
+        return self._error_at(self.path + (name,), self.key(name), message)
+
+    def key(self, name: str) -> str:
+        return f"{self.label}.{name}" if self.label else name
+
+    # -- getters ----------------------------------------------------------------------------
+    def has(self, name: str) -> bool:
+        return name in self.data
+
+    def raw(self, name: str, required: bool = False, what: str = "a value") -> Any:
+        self._known.add(name)
+        if name not in self.data:
+            if required:
+                raise self.error(None, f"missing required key '{name}' ({what})")
+            return None
+        return self.data[name]
+
+    def text(self, name: str, required: bool = False, default: str = "") -> str:
+        v = self.raw(name, required, "text")
+        if v is None:
+            return default
+        if isinstance(v, (int, float)) and not isinstance(v, bool):
+            v = str(v)
+        if not isinstance(v, str):
+            raise self.error(name, f"expected text, got {_kind(v)}")
+        if len(v) > MAX_TEXT:
+            raise self.error(name, f"expected text of at most {MAX_TEXT} characters, got {len(v)}")
+        return v
+
+    def texts(self, name: str) -> tuple[str, ...]:
+        v = self.raw(name)
+        if v is None:
+            return ()
+        if isinstance(v, str):
+            v = [v]
+        if not isinstance(v, list) or not all(isinstance(s, str) for s in v):
+            raise self.error(name, "expected a list of text lines")
+        if any(len(s) > MAX_TEXT for s in v):
+            raise self.error(name, f"expected lines of at most {MAX_TEXT} characters")
+        return tuple(v)
+
+    def quantity(self, name: str, dim: str, required: bool = False, positive: bool = True,
+                 default: Quantity | None = None, allow_zero: bool = False) -> Quantity | None:
+        v = self.raw(name, required, f"a {dim.replace('_', ' ')} with its unit")
+        if v is None:
+            return default
+        return self.parse_quantity(name, v, dim, positive, allow_zero)
+
+    def parse_quantity(self, name: str | tuple, v: Any, dim: str, positive: bool = True,
+                       allow_zero: bool = False) -> Quantity:
+        """Parse ``v`` as a quantity of dimension ``dim``; ``name`` may be a sub-path tuple."""
+        sub = name if isinstance(name, tuple) else (name,)
+        label = self.label + "".join(f"[{s}]" if isinstance(s, int) else f".{s}" for s in sub)
+        try:
+            q = parse(v, dim)
+        except UnitParseError as exc:
+            raise self._error_at(self.path + sub, label.lstrip("."), str(exc)) from None
+        mag = float(q.magnitude)
+        if positive and (mag < 0 or (mag == 0 and not allow_zero)):
+            raise self._error_at(self.path + sub, label.lstrip("."),
+                                 f"expected a value greater than zero, got {v!r}")
+        return q
+
+    def integer(self, name: str, default: int | None = None, minimum: int = 1,
+                maximum: int = 10_000, required: bool = False) -> int | None:
+        v = self.raw(name, required, "a whole number")
+        if v is None:
+            return default
+        if isinstance(v, bool) or not isinstance(v, int):
+            raise self.error(name, f"expected a whole number, got {_kind(v)}")
+        if not minimum <= v <= maximum:
+            raise self.error(name, f"expected a whole number from {minimum} to {maximum}, got {v}")
+        return v
+
+    def number(self, name: str, default: float | None = None, required: bool = False,
+               minimum: float | None = None, maximum: float | None = None) -> float | None:
+        v = self.raw(name, required, "a number")
+        if v is None:
+            return default
+        if isinstance(v, bool) or not isinstance(v, (int, float)) or not math.isfinite(v):
+            raise self.error(name, f"expected a plain number, got {_kind(v)}")
+        if (minimum is not None and v < minimum) or (maximum is not None and v > maximum):
+            raise self.error(name, f"expected a number from {minimum} to {maximum}, got {v}")
+        return float(v)
+
+    def boolean(self, name: str, default: bool = False) -> bool:
+        v = self.raw(name)
+        if v is None:
+            return default
+        if not isinstance(v, bool):
+            raise self.error(name, f"expected true or false, got {_kind(v)}")
+        return v
+
+    def choice(self, name: str, choices: Iterable[str], default: str | None = None,
+               required: bool = False, fold_case: bool = True) -> str | None:
+        choices = list(choices)
+        v = self.raw(name, required, "one of " + ", ".join(choices))
+        if v is None:
+            return default
+        if not isinstance(v, str):
+            raise self.error(name, f"expected one of {', '.join(choices)}, got {_kind(v)}")
+        for c in choices:
+            if v == c or (fold_case and v.lower() == c.lower()):
+                return c
+        hint = _suggest(v, choices)
+        raise self.error(name, f"expected one of {', '.join(choices)}, got {v!r}{hint}")
+
+    def table(self, name: str, required: bool = False) -> "Table | None":
+        v = self.raw(name, required, "a table")
+        if v is None:
+            return None
+        return Table(v, self.src, self.path + (name,), self.key(name))
+
+    def tables(self, name: str, id_key: str = "id") -> list["Table"]:
+        """An array of tables; each child's label uses its id when it has one."""
+        v = self.raw(name)
+        if v is None:
+            return []
+        if isinstance(v, dict):
+            v = [v]
+        if not isinstance(v, list):
+            raise self.error(name, f"expected a list of tables ([[{self.key(name)}]]), got {_kind(v)}")
+        out = []
+        for i, item in enumerate(v):
+            tag = item.get(id_key) if isinstance(item, dict) else None
+            tag = tag if isinstance(tag, str) and 0 < len(tag) <= 60 else str(i + 1)
+            out.append(Table(item, self.src, self.path + (name, i), f"{self.key(name)}[{tag}]"))
+        return out
+
+    def fields(self, fields: Iterable[Field]) -> dict[str, Any]:
+        """Read the keys declared by ``fields`` (see :class:`calcreport.fields.Field`)."""
+        out: dict[str, Any] = {}
+        for f in fields:
+            if f.kind == "text":
+                out[f.name] = self.text(f.name, f.required, f.default if f.default is not None else "")
+            elif f.kind == "int":
+                out[f.name] = self.integer(f.name, f.default, int(f.minimum if f.minimum is not None else 1),
+                                           int(f.maximum if f.maximum is not None else 10_000), f.required)
+            elif f.kind == "number":
+                out[f.name] = self.number(f.name, f.default, f.required,
+                                          f.minimum if f.minimum is not None else (0.0 if f.positive else None),
+                                          f.maximum)
+            elif f.kind == "bool":
+                out[f.name] = self.boolean(f.name, bool(f.default))
+            elif f.kind == "choice":
+                out[f.name] = self.choice(f.name, f.choices, f.default, f.required)
+            else:
+                default = parse(f.default, f.kind) if isinstance(f.default, str) else f.default
+                out[f.name] = self.quantity(f.name, f.kind, f.required, f.positive, default)
+        return out
+
+    def done(self) -> None:
+        """Reject keys that no getter asked for, suggesting the closest known key."""
+        for name in self.data:
+            if name not in self._known:
+                hint = _suggest(name, sorted(self._known))
+                raise self.error(name, f"unknown key '{name}'{hint}")
+
+
+def _suggest(word: str, options: Iterable[str]) -> str:
+    close = difflib.get_close_matches(str(word), list(options), n=1, cutoff=0.6)
+    return f" (did you mean '{close[0]}'?)" if close else ""
+
+
+def _kind(v: Any) -> str:
+    if isinstance(v, bool):
+        return f"the boolean {str(v).lower()}"
+    if isinstance(v, (int, float)):
+        return f"the number {v!r}"
+    if isinstance(v, str):
+        return f"the text {v[:40]!r}"
+    if isinstance(v, list):
+        return "a list"
+    if isinstance(v, dict):
+        return "a table"
+    return type(v).__name__

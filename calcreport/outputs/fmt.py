@@ -1,0 +1,134 @@
+"""Display units and number formatting shared by every output (terminal, JSON, PDF, diff).
+
+Outputs convert quantities to the job's unit system here, at the edge; nothing here computes
+engineering values.
+"""
+
+from __future__ import annotations
+
+import math
+import string
+from typing import Any
+
+from ..steps import Step
+from ..units import Quantity, dimension_name
+
+__all__ = ["Display", "fmt_number", "json_number"]
+
+#: dimension → (pint unit, printed symbol, JSON unit text) for each unit system.
+_SYSTEMS: dict[str, dict[str, tuple[str, str, str]]] = {
+    "US": {
+        "length": ("inch", "in", "in"),
+        "area": ("inch**2", "in²", "in^2"),
+        "volume": ("inch**3", "in³", "in^3"),
+        "inertia": ("inch**4", "in⁴", "in^4"),
+        "force": ("lbf", "lbf", "lbf"),
+        "line_load": ("lbf/inch", "lbf/in", "lbf/in"),
+        "stress": ("psi", "psi", "psi"),
+        "moment": ("lbf*ft", "lbf·ft", "lbf*ft"),
+        "weight_density": ("lbf/ft**3", "pcf", "pcf"),
+        "mass_density": ("lb/ft**3", "lb/ft³", "lb/ft^3"),
+    },
+    "SI": {
+        "length": ("mm", "mm", "mm"),
+        "area": ("mm**2", "mm²", "mm^2"),
+        "volume": ("mm**3", "mm³", "mm^3"),
+        "inertia": ("mm**4", "mm⁴", "mm^4"),
+        "force": ("kN", "kN", "kN"),
+        "line_load": ("N/mm", "N/mm", "N/mm"),
+        "stress": ("MPa", "MPa", "MPa"),
+        "moment": ("kN*m", "kN·m", "kN*m"),
+        "weight_density": ("kN/m**3", "kN/m³", "kN/m^3"),
+        "mass_density": ("kg/m**3", "kg/m³", "kg/m^3"),
+    },
+}
+
+#: user overrides (settings.display) by our key → dimension
+_OVERRIDE_DIM = {"force": "force", "length": "length", "stress": "stress", "shear_flow": "line_load",
+                 "moment": "moment"}
+
+_PRETTY = str.maketrans({"*": "·"})
+
+
+def fmt_number(x: float, sig: int = 4) -> str:
+    """``x`` with ``sig`` significant figures, thousands separators, no exponent for 1e-4 ≤ |x| < 1e12.
+
+    Example:
+        >>> fmt_number(1234.567)
+        '1,235'
+        >>> fmt_number(0.0123456)
+        '0.01235'
+    """
+    if x == 0 or not math.isfinite(x):
+        return "0" if x == 0 else str(x)
+    mag = math.floor(math.log10(abs(x)))
+    if mag < -4 or mag >= 12:
+        return f"{x:.{sig - 1}e}"
+    decimals = max(0, sig - 1 - mag)
+    text = f"{x:,.{decimals}f}"
+    return "−" + text[1:] if text.startswith("-") else text
+
+
+def json_number(x: float) -> float | int:
+    """A stable JSON number: 6 significant figures, integers stay integers."""
+    if isinstance(x, bool):
+        return x
+    if isinstance(x, int):
+        return x
+    if x == 0 or not math.isfinite(x):
+        return 0.0 if x == 0 else x
+    return float(f"{x:.6g}")
+
+
+class Display:
+    """Unit system of one job: converts and prints quantities consistently."""
+
+    def __init__(self, system: str = "US", overrides: dict[str, str] | None = None):
+        self.system = system
+        self.units = dict(_SYSTEMS[system])
+        for key, unit in (overrides or {}).items():
+            dim = _OVERRIDE_DIM[key]
+            pretty = unit.replace("**2", "²").replace("**3", "³").replace("^2", "²").translate(_PRETTY)
+            self.units[dim] = (unit, pretty, unit)
+
+    def convert(self, q: Quantity) -> tuple[float, str, str]:
+        """Magnitude in the display unit, printed symbol, JSON unit text."""
+        dim = dimension_name(q)
+        if dim in self.units:
+            unit, pretty, js = self.units[dim]
+            return float(q.to(unit).magnitude), pretty, js
+        if dim == "number":
+            return float(q.to("").magnitude), "", ""
+        base = q.to_base_units() if self.system == "SI" else q
+        return float(base.magnitude), f"{base.units:~P}", f"{base.units:~C}"
+
+    def quantity(self, q: Quantity, sig: int = 4) -> str:
+        """``"1,234 lbf"``-style text for a quantity."""
+        mag, pretty, _ = self.convert(q)
+        return f"{fmt_number(mag, sig)} {pretty}".rstrip()
+
+    def value(self, v: Any, sig: int = 4) -> str:
+        """Text for any step value: quantity, number, or words."""
+        if isinstance(v, Quantity):
+            return self.quantity(v, sig)
+        if isinstance(v, bool):
+            return "yes" if v else "no"
+        if isinstance(v, int):
+            return f"{v:,}"
+        if isinstance(v, float):
+            return fmt_number(v, sig)
+        return str(v)
+
+    def json_value(self, v: Any) -> Any:
+        """JSON form: quantities as {"value", "unit"}; numbers stable; words as they are."""
+        if isinstance(v, Quantity):
+            mag, _, js = self.convert(v)
+            return {"value": json_number(mag), "unit": js}
+        if isinstance(v, float):
+            return json_number(v)
+        return v
+
+    def substituted(self, s: Step, sig: int = 4) -> str:
+        """The step's formula with numbers and units substituted into its template."""
+        names = {name for _, name, _, _ in string.Formatter().parse(s.template) if name}
+        return s.template.format(**{k: self.value(s.values[k], sig) for k in names})

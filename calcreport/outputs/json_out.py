@@ -1,0 +1,119 @@
+"""Results as JSON: stable for git (sorted keys, 6 significant figures, no timestamps).
+
+Every quantity is ``{"value": number, "unit": "text"}`` in the job's unit system.
+"""
+
+from __future__ import annotations
+
+import json
+import os
+from dataclasses import fields, is_dataclass
+from typing import Any
+
+from .. import __version__
+from ..solve.results import Check, JobResult, JointResult, MemberResult
+from ..steps import Step
+from ..units import Quantity
+from .fmt import Display
+
+__all__ = ["to_dict", "dumps", "SCHEMA_VERSION"]
+
+SCHEMA_VERSION = 1
+
+
+def _step(s: Step, d: Display) -> dict[str, Any]:
+    return {
+        "key": s.key, "label": s.label, "symbol": s.symbol, "substituted": d.substituted(s),
+        "values": {k: d.json_value(v) for k, v in s.values.items()},
+        "result": d.json_value(s.result), "source": s.source, "note": s.note, "governs": s.governs,
+    }
+
+
+def _check(c: Check, d: Display) -> dict[str, Any]:
+    return {"key": c.key, "label": c.label, "demand": d.json_value(c.demand),
+            "capacity": d.json_value(c.capacity), "ratio": d.json_value(c.ratio),
+            "status": c.status, "source": c.source, "note": c.note}
+
+
+def _plain(v: Any, d: Display) -> Any:
+    """Generic conversion for attached records (schedules, beam results)."""
+    if isinstance(v, Quantity):
+        if getattr(v.magnitude, "shape", ()):
+            return [d.json_value(x) for x in v]
+        return d.json_value(v)
+    if isinstance(v, Step):
+        return _step(v, d)
+    if isinstance(v, Check):
+        return _check(v, d)
+    if is_dataclass(v) and not isinstance(v, type):
+        if hasattr(v, "to_json"):
+            return v.to_json(d)
+        return {f.name: _plain(getattr(v, f.name), d) for f in fields(v) if not f.name.startswith("_")}
+    if isinstance(v, dict):
+        return {str(k): _plain(x, d) for k, x in v.items()}
+    if isinstance(v, (list, tuple)):
+        return [_plain(x, d) for x in v]
+    if hasattr(v, "tolist"):
+        return _plain(v.tolist(), d)
+    return d.json_value(v)
+
+
+def _joint(j: JointResult, d: Display) -> dict[str, Any]:
+    out = {
+        "id": j.id, "label": j.label, "holds": list(j.holds), "connector": j.connector,
+        "per_row": j.per_row, "continuous": j.continuous,
+        "Q": d.json_value(j.Q), "shear": d.json_value(j.shear), "shear_flow": d.json_value(j.shear_flow),
+        "capacity": d.json_value(j.capacity), "capacity_row": d.json_value(j.capacity_row),
+        "spacing_required": d.json_value(j.spacing_required) if j.spacing_required is not None else None,
+        "spacing_provided": d.json_value(j.spacing_provided) if j.spacing_provided is not None else None,
+        "spacing_min": d.json_value(j.spacing_min) if j.spacing_min is not None else None,
+        "spacing_max": d.json_value(j.spacing_max) if j.spacing_max is not None else None,
+        "plane_width": d.json_value(j.plane_width),
+        "utilisation": d.json_value(j.utilisation), "status": j.status, "reasons": list(j.reasons),
+        "checks": [_check(c, d) for c in j.checks],
+        "steps": [_step(s, d) for s in j.steps],
+    }
+    if j.schedule is not None:
+        out["schedule"] = _plain(j.schedule, d)
+    return out
+
+
+def _member(m: MemberResult, d: Display) -> dict[str, Any]:
+    s = m.section
+    out = {
+        "id": m.id, "title": m.member.title, "status": m.status,
+        "section": {
+            "area": d.json_value(s.area), "centroid": d.json_value(s.centroid), "I": d.json_value(s.inertia),
+            "depth": d.json_value(s.depth), "E_ref": d.json_value(s.E_ref),
+            "reference_material": s.reference_material,
+            "parts": [{"id": p.id, "area": d.json_value(p.area), "n": d.json_value(p.n),
+                       "centroid": d.json_value(p.centroid_y), "I_own": d.json_value(p.inertia_own)}
+                      for p in s.parts],
+        },
+        "shear": d.json_value(m.shear),
+        "joints": [_joint(j, d) for j in m.joints],
+        "checks": [_check(c, d) for c in m.checks],
+        "steps": [_step(st, d) for st in m.steps],
+    }
+    if m.beam is not None:
+        out["along"] = _plain(m.beam, d)
+    return out
+
+
+def to_dict(result: JobResult) -> dict[str, Any]:
+    """The whole result as plain JSON-ready data."""
+    job = result.job
+    d = Display(job.settings.units, job.settings.display)
+    h = job.header
+    return {
+        "schema": SCHEMA_VERSION, "tool": {"name": "calcreport", "version": __version__},
+        "job": {"file": os.path.basename(job.path), "sha256": job.sha256, "project": h.project, "number": h.number,
+                "revision": h.revision, "units": job.settings.units, "method": job.settings.method},
+        "status": result.status,
+        "members": [_member(m, d) for m in result.members],
+    }
+
+
+def dumps(data: Any) -> str:
+    """Stable JSON text: sorted keys, two-space indent, UTF-8 kept, trailing newline."""
+    return json.dumps(data, sort_keys=True, indent=2, ensure_ascii=False) + "\n"
