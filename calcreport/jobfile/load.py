@@ -182,7 +182,7 @@ def _member(t: Table, materials: dict[str, Material], settings: Settings) -> Mem
     for a, b, area in overlapping_pairs(parts):
         i = list(placed).index(b)
         raise part_tables[i].error(None, f"part {b!r} overlaps part {a!r} by {area:.4g} in²; parts must only touch")
-    for pid in isolated_parts(parts):
+    for pid in isolated_parts(parts)[-1:]:  # the last one listed is the likely misplaced one
         i = list(placed).index(pid)
         raise part_tables[i].error(None, f"part {pid!r} touches no other part; every part must bear on another")
     ref_id = t.text("reference_material", default=parts[0].material.id)

@@ -62,6 +62,9 @@ class Table:
         self._known.add(name)
         if name not in self.data:
             if required:
+                typo = difflib.get_close_matches(name, [str(k) for k in self.data], n=1, cutoff=0.75)
+                if typo:
+                    raise self.error(typo[0], f"unknown key '{typo[0]}' (did you mean '{name}'?)")
                 raise self.error(None, f"missing required key '{name}' ({what})")
             return None
         return self.data[name]

@@ -51,22 +51,32 @@ _PRETTY = str.maketrans({"*": "·"})
 
 
 def fmt_number(x: float, sig: int = 4) -> str:
-    """``x`` with ``sig`` significant figures, thousands separators, no exponent for 1e-4 ≤ |x| < 1e12.
+    """``x`` with ``sig`` significant figures and thousands separators; from 10⁶ up (and below
+    10⁻⁴) as a mantissa × 10ⁿ with n a multiple of 3, as engineers write mm⁴ values.
 
     Example:
         >>> fmt_number(1234.567)
         '1,235'
         >>> fmt_number(0.0123456)
         '0.01235'
+        >>> fmt_number(381156269.0)
+        '381.2 × 10⁶'
     """
     if x == 0 or not math.isfinite(x):
         return "0" if x == 0 else str(x)
     mag = math.floor(math.log10(abs(x)))
-    if mag < -4 or mag >= 12:
-        return f"{x:.{sig - 1}e}"
+    if mag >= 6 or mag < -4:
+        k = 3 * math.floor(mag / 3)
+        mant = fmt_number(x / 10 ** k, sig)
+        return f"{mant} × 10{str(k).translate(_SUPER)}"
     decimals = max(0, sig - 1 - mag)
+    if decimals == 0:
+        x = round(x, -(mag - sig + 1))
     text = f"{x:,.{decimals}f}"
     return "−" + text[1:] if text.startswith("-") else text
+
+
+_SUPER = str.maketrans("-0123456789", "⁻⁰¹²³⁴⁵⁶⁷⁸⁹")
 
 
 def json_number(x: float) -> float | int:

@@ -27,6 +27,7 @@ __all__ = ["JointContext", "ConnectorError", "model_for", "kinds", "design"]
 #: type name in the job file → module implementing it (imported on first use).
 _MODULES: dict[str, str] = {
     "given": "calcreport.solve.connectors.given",
+    "given_line": "calcreport.solve.connectors.given_line",
     "shank": "calcreport.solve.connectors.shank",
     "glue": "calcreport.solve.connectors.glue",
 }

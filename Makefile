@@ -1,0 +1,29 @@
+# Two entry points for a fresh machine with Python 3.11+:
+#   make demo   — create .venv, install, solve every demo job and build its report into out/
+#   make test   — create .venv, install with test extras, run the test suite
+PYTHON ?= python3
+VENV   := .venv
+BIN    := $(VENV)/bin
+STAMP  := $(VENV)/.installed
+
+.PHONY: demo test bench clean
+
+$(STAMP): pyproject.toml
+	$(PYTHON) -m venv $(VENV)
+	$(BIN)/python -m pip install -q --upgrade pip
+	$(BIN)/python -m pip install -q -e '.[test]'
+	touch $(STAMP)
+
+demo: $(STAMP)
+	$(BIN)/calcreport check jobs/*.toml
+	@if $(BIN)/calcreport build --help >/dev/null 2>&1; then \
+	  $(BIN)/calcreport build jobs/*.toml -o out/ && echo "reports written to out/"; fi
+
+test: $(STAMP)
+	$(BIN)/python -m pytest
+
+bench: $(STAMP)
+	@for f in benchmarks/*.py; do echo "== $$f"; $(BIN)/python $$f || exit 1; done
+
+clean:
+	rm -rf $(VENV) out .pytest_cache .hypothesis

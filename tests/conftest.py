@@ -1,0 +1,66 @@
+"""Shared fixtures: a tiny job-file builder and a CLI runner."""
+
+from __future__ import annotations
+
+import io
+import sys
+import textwrap
+from contextlib import redirect_stderr, redirect_stdout
+from pathlib import Path
+
+import pytest
+
+ROOT = Path(__file__).resolve().parent.parent
+sys.path.insert(0, str(ROOT))
+
+HEADER = """
+[job]
+project = "Test project"
+number = "T-1"
+revision = "A"
+date = "2026-01-01"
+
+[settings]
+units = "US"
+method = "ASD"
+"""
+
+MATERIALS = """
+[[material]]
+id = "wood"
+family = "wood"
+E = "1600 ksi"
+Fv = "180 psi"
+"""
+
+
+def job_text(body: str, settings: str = "", materials: str = MATERIALS) -> str:
+    """A complete job file around ``body`` (members), with optional extra settings lines."""
+    return HEADER + textwrap.dedent(settings) + textwrap.dedent(materials) + textwrap.dedent(body)
+
+
+@pytest.fixture
+def write_job(tmp_path):
+    def _write(text: str, name: str = "job.toml") -> str:
+        p = tmp_path / name
+        p.write_text(text, encoding="utf-8")
+        return str(p)
+    return _write
+
+
+def run_cli(*args: str) -> tuple[int, str, str]:
+    """Run the command line in-process; returns (exit code, stdout, stderr)."""
+    from calcreport.cli import main
+
+    out, err = io.StringIO(), io.StringIO()
+    with redirect_stdout(out), redirect_stderr(err):
+        try:
+            code = main(list(args))
+        except SystemExit as exc:  # argparse
+            code = exc.code if isinstance(exc.code, int) else 2
+    return code, out.getvalue(), err.getvalue()
+
+
+@pytest.fixture
+def cli():
+    return run_cli
