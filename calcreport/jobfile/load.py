@@ -109,6 +109,8 @@ def _settings(t: Table) -> Settings:
     units = t.choice("units", ("US", "SI"), "US")
     method = t.choice("method", ("ASD", "LRFD"), "ASD")
     step = t.quantity("spacing_step", "length", default=parse("0.25 in" if units == "US" else "5 mm", "length"))
+    if not parse("1/64 in", "length") <= step <= parse("4 ft", "length"):
+        raise t.error("spacing_step", "expected a spacing step from 1/64 in (0.4 mm) to 4 ft (1.2 m)")
     smax = t.quantity("spacing_max", "length")
     smin = t.quantity("spacing_min", "length")
     if smax is not None and smin is not None and smin > smax:
