@@ -15,7 +15,20 @@ import pint
 
 __all__ = ["ureg", "Q_", "Quantity", "DIMENSIONS", "UnitParseError", "parse", "dimension_name"]
 
-ureg = pint.UnitRegistry(autoconvert_offset_to_baseunit=True)
+def _registry() -> pint.UnitRegistry:
+    """The registry, loaded from pint's definition cache when it can be (about 0.2 s faster to
+    start; see benchmarks/cold_start.py). CALCREPORT_NO_UNIT_CACHE=1 turns the cache off."""
+    import os
+
+    if os.environ.get("CALCREPORT_NO_UNIT_CACHE") != "1":
+        try:
+            return pint.UnitRegistry(autoconvert_offset_to_baseunit=True, cache_folder=":auto:")
+        except Exception:  # an unwritable or damaged cache must never stop the tool
+            pass
+    return pint.UnitRegistry(autoconvert_offset_to_baseunit=True)
+
+
+ureg = _registry()
 # Trade units (common practice, no source): pounds per linear foot, kips per linear foot,
 # pounds per square foot, pounds per cubic foot.
 ureg.define("plf = lbf / ft")
