@@ -148,8 +148,8 @@ def _bearing(log: StepLog, p: dict, part: Part, which: str, f: Fastener, t: floa
     fe = hankinson(fpar, fperp, theta)
     log.add(sym, f"Dowel bearing strength at the load angle, {which} member",
             f"{sym}θ = Fe∥·Fe⊥ / (Fe∥·sin²θ + Fe⊥·cos²θ)",
-            "{par} × {perp} / ({par} × sin²{th} + {perp} × cos²{th})",
-            {"par": fpar_q, "perp": fperp_q, "th": Q_(theta, "degree")}, Q_(fe, "psi"),
+            "{par} × {perp} / ({par} × sin²({th}°) + {perp} × cos²({th}°))",
+            {"par": fpar_q, "perp": fperp_q, "th": float(theta)}, Q_(fe, "psi"),
             source=f"{NDS} §12.3.3.2, Appendix J (Hankinson formula)")
     return fe
 

@@ -134,12 +134,16 @@ def adjust(log: StepLog, Z: float, p: dict, ctx, *, D: float, fastener: str, sid
                 "1 + {gamma} × {s}/2 × (1/({Em} × {Am}) + 1/({Es} × {As}))",
                 {"gamma": Q_(gamma, "lbf/in"), "s": s, "Em": Q_(Em, "psi"), "Am": Q_(Am, "in**2"),
                  "Es": Q_(Es, "psi"), "As": Q_(As, "in**2")}, g["u"], source=f"{SRC} Eq. 11.3-1")
+        log.add("Cg_REA", "Ratio of member stiffnesses", "REA = min(Es·As / (Em·Am), Em·Am / (Es·As))",
+                "min({Es} × {As} / ({Em} × {Am}), {Em} × {Am} / ({Es} × {As}))",
+                {"Em": Q_(Em, "psi"), "Am": Q_(Am, "in**2"), "Es": Q_(Es, "psi"), "As": Q_(As, "in**2")},
+                g["REA"], source=f"{SRC} Eq. 11.3-1", note="gross areas of the two members")
         log.add("Cg_m", "Group action term m", "m = u − √(u² − 1)", "{u} − √({u}² − 1)", {"u": g["u"]},
                 g["m"], source=f"{SRC} Eq. 11.3-1")
         cg = log.add("Cg", "Group action factor", "Cg = [m(1−m^2n) / (n[(1+REA·m^n)(1+m) − 1 + m^2n])]·(1+REA)/(1−m)",
-                     "n = {n}, REA = {REA}, m = {m}", {"n": n, "REA": g["REA"], "m": g["m"]}, g["Cg"],
-                     source=f"{SRC} Eq. 11.3-1",
-                     note=f"{n} fasteners in a row acting together; gross areas of the two members")
+                     "[{m} × (1 − {m}^(2×{n})) / ({n} × [(1 + {REA} × {m}^{n}) × (1 + {m}) − 1 + {m}^(2×{n})])]"
+                     " × (1 + {REA}) / (1 − {m})", {"n": n, "REA": g["REA"], "m": g["m"]}, g["Cg"],
+                     source=f"{SRC} Eq. 11.3-1", note="fasteners in one row acting together (row_count)")
         factors.append(("Cg", cg))
     else:
         why = ("each fastener transfers its own tributary shear flow along the member, so no row of "
