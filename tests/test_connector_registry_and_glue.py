@@ -74,7 +74,7 @@ def test_glue_rolling_shear_governs_on_plywood_face():
 def test_glue_rolling_shear_from_material_extra_and_missing():
     web, fl = box_beam()
     from dataclasses import replace
-    web2 = replace(web, material=replace(web.material, extra={"rolling_shear": "53 psi"}))
+    web2 = replace(web, material=replace(web.material, extra={"Fs": Q_(53, "psi"), "grade": ""}))
     cap, _ = run("glue", {"tau": Q_(95, "psi")}, context([fl], [web2], width=1.5))
     assert cap.value.to("lbf/in").magnitude == pytest.approx(53 * 1.5)
     cap, _ = run("glue", {"tau": Q_(95, "psi")}, context([fl], [web], width=1.5))

@@ -167,3 +167,15 @@ def test_lag_screw_deducts_tip_and_checks_4d():
     cap, log = run("lag_screw", {"size": "1/2", "length": Q_(5, "in")}, context([top], [bot]))
     assert step(log, "lm").result.magnitude == pytest.approx(5 - 1.5 - 0.5)  # tip E = D assumed
     assert next(c for c in cap.checks if c.key.endswith("penetration")).status == "OK"
+
+
+def test_plywood_specific_gravity_by_grade():
+    # NDS-2018 Table 12.3.3B (from memory): Structural I plywood G = 0.50; other grades 0.42.
+    from calcreport.model import Material
+    s1 = Material("ply", "Structural I plywood, 15/32 in", Q_(1.8e6, "psi"), family="plywood", extra={"grade": ""})
+    other = Material("ply2", "Rated sheathing", Q_(1.8e6, "psi"), family="plywood", extra={"grade": "C-D"})
+    fl = rect("fl", 0, 10.5, 1.5, 12, wood())
+    for mat, g in ((s1, 0.50), (other, 0.42)):
+        web = rect("web", 1.5, 0, 1.5 + 15 / 32, 12, mat)
+        _, log = run("nail", {"size": "10d common"}, context([fl], [web], width=1.5))
+        assert step(log, "G_side").result == g

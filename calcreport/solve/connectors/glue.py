@@ -3,8 +3,8 @@
 When one of the glued parts is plywood glued on its face (the panel lies flat against the plane,
 as a plywood web glued to the side of a lumber flange), the shear crosses the panel's plies and the
 governing stress is the plywood's *rolling shear*. The allowable rolling shear comes from the
-``rolling_shear`` key or the plywood material's ``extra["rolling_shear"]`` (with
-``extra["rolling_shear_source"]``), e.g. from the panel design specification the job follows
+``rolling_shear`` key or the plywood material's rolling-shear stress ``Fs`` (job file
+``[[material]] Fs``, held in ``Material.extra["Fs"]``), e.g. from the panel design specification the job follows
 (APA Panel Design Specification, rolling shear Fs of the plywood). The capacity is then the lesser
 of τ_allow·b and Fs_rolling·C·b. Without a rolling-shear value the line is designed on τ_allow and
 an INFO check says rolling shear was not checked.
@@ -24,7 +24,7 @@ FIELDS = (
     Field("tau", "stress", required=True, help="allowable shear stress of the glue line (usually that of the wood)"),
     Field("source", "text", default="allowable shear stress as stated in the job", help="where tau comes from"),
     Field("name", "text", default="glue line", help="what the adhesive is"),
-    Field("rolling_shear", "stress", help="allowable rolling shear of plywood glued on its face (default: the plywood material's extra.rolling_shear)"),
+    Field("rolling_shear", "stress", help="allowable rolling shear of plywood glued on its face (default: the plywood material's Fs)"),
     Field("rolling_source", "text", help="where the rolling shear value comes from"),
     Field("rolling_factor", "number", default=1.0, maximum=1.0,
           help="reduction the panel specification requires at this glue line (1.0: none)"),
@@ -59,10 +59,12 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
         return Capacity(value=q_tau, continuous=True, description=p["name"], source=p["source"])
     fs = p.get("rolling_shear")
     src = p.get("rolling_source")
-    if fs is None and "rolling_shear" in ply.material.extra:
-        raw = ply.material.extra["rolling_shear"]
+    extra = ply.material.extra
+    raw = extra.get("Fs") if extra.get("Fs") is not None else extra.get("rolling_shear")
+    if fs is None and raw is not None:
         fs = parse(raw, "stress") if isinstance(raw, str) else raw
-        src = src or ply.material.extra.get("rolling_shear_source")
+        src = src or extra.get("rolling_shear_source") or (
+            f"rolling shear Fs of material {ply.material.id} ({ply.material.name}) as given in the job")
     if fs is None:
         chk = Check(f"{ctx.key}.connector.rolling_shear", f"Rolling shear in plywood part {ply.id} not checked",
                     None, None, None, "INFO", source="panel design specification (e.g. APA PDS), value not given",

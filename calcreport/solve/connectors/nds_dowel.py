@@ -90,11 +90,25 @@ def _thickness(log: StepLog, name: str, label: str, given, part: Part, c, why: s
     return t
 
 
+def plywood_g(mat) -> tuple[float, str]:
+    """Specific gravity of a wood structural panel without a G: Structural I and Marine plywood
+    0.50, other plywood grades 0.42 (the lower, used when the grade is not stated).
+    Source: NDS-2018 Table 12.3.3B (from memory). The grade is read from the material's ``grade``
+    (or, failing that, its name)."""
+    text = f"{mat.extra.get('grade') or ''} {mat.name}".lower()
+    if "structural i" in text or "structural 1" in text or "marine" in text:
+        return 0.50, f"material {mat.id}: Structural I / Marine plywood, NDS-2018 Table 12.3.3B (from memory)"
+    return 0.42, (f"material {mat.id}: plywood of other or unstated grade, NDS-2018 Table 12.3.3B "
+                  "(from memory; the lower panel value)")
+
+
 def _specific_gravity(log: StepLog, p: dict, part: Part, which: str, key: str) -> float:
     if p.get(f"G_{which}") is not None:
         g, src = p[f"G_{which}"], "given for this connector"
     elif part.material.G is not None:
         g, src = part.material.G, f"material {part.material.id}"
+    elif part.material.family == "plywood" and not p.get("species"):
+        g, src = plywood_g(part.material)
     elif p.get("species"):
         g = species_g(p["species"])
         if g is None:
