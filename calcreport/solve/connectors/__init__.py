@@ -30,6 +30,13 @@ _MODULES: dict[str, str] = {
     "given_line": "calcreport.solve.connectors.given_line",
     "shank": "calcreport.solve.connectors.shank",
     "glue": "calcreport.solve.connectors.glue",
+    "nail": "calcreport.solve.connectors.nail",
+    "wood_screw": "calcreport.solve.connectors.wood_screw",
+    "lag_screw": "calcreport.solve.connectors.lag_screw",
+    "wood_bolt": "calcreport.solve.connectors.wood_bolt",
+    "steel_bolt": "calcreport.solve.connectors.aisc_bolt",
+    "fillet_weld": "calcreport.solve.connectors.fillet_weld",
+    "stud": "calcreport.solve.connectors.stud",
 }
 
 

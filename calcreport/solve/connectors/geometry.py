@@ -1,0 +1,145 @@
+"""Where the shear plane of a joint lies, and how thick each part is there.
+
+Connector models need ply thicknesses (side and main member of a nailed or bolted joint, the
+plates of a bolted or welded steel joint, the slab of a stud joint). The job may give them; when it
+does not, they are measured from the placed geometry of :class:`calcreport.model.Part`:
+
+* The shear plane is found where a held part's bounding box touches an other part's bounding box.
+  Touching along a horizontal line (one's top is the other's bottom, x ranges overlapping) gives a
+  **horizontal** plane — stacked flanges, a cover plate on a flange, a flange plate on a web edge.
+  Touching along a vertical line gives a **vertical** plane — a web beside a flange (box beams).
+* A part's thickness *perpendicular to the plane* is the run of material from the plane into the
+  part along lines normal to the plane, sampled across the contact; the smallest run is used
+  (for a polygon this finds a rolled shape's flange, not its full depth). Circles and
+  property-only shapes use the bounding box.
+* A part's extent *along the plane* is its bounding-box extent in the plane's direction.
+
+All lengths are plain floats in inches (as in :class:`calcreport.model.Shape`).
+Source: geometry of the placed section (no standard involved).
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+from ...model import Part
+
+__all__ = ["Contact", "find_contact", "thickness_normal", "extent_along", "plate_thickness"]
+
+TOL = 1e-6
+
+
+@dataclass(frozen=True)
+class Contact:
+    """A contact between a held part and an other part."""
+
+    orientation: str  # "horizontal" or "vertical"
+    held: Part
+    other: Part
+    at: float  # y of a horizontal plane or x of a vertical plane (in)
+    lo: float  # contact extent along the plane (in)
+    hi: float
+    held_side: int  # +1 if the held part lies above (or right of) the plane, else -1
+
+
+def _overlap(a0: float, a1: float, b0: float, b1: float) -> tuple[float, float]:
+    return max(a0, b0), min(a1, b1)
+
+
+def find_contact(held: tuple[Part, ...], other: tuple[Part, ...]) -> Contact | None:
+    """The first (widest) contact between a held part and an other part, or None.
+
+    Example:
+        >>> from calcreport.model import Part, Shape, Material
+        >>> from calcreport.units import Q_
+        >>> m = Material("w", "wood", Q_(1.6e6, "psi"))
+        >>> top = Part("t", Shape("polygon", (0, 1.5, 3.5, 3.0)), m)
+        >>> bot = Part("b", Shape("polygon", (0, 0, 3.5, 1.5)), m)
+        >>> c = find_contact((top,), (bot,)); (c.orientation, c.at, c.hi - c.lo)
+        ('horizontal', 1.5, 3.5)
+    """
+    best: Contact | None = None
+    scale = 1.0
+    for p in (*held, *other):
+        x0, y0, x1, y1 = p.shape.bbox
+        scale = max(scale, abs(x1 - x0), abs(y1 - y0))
+    tol = max(TOL, 1e-6 * scale)
+    for h in held:
+        hx0, hy0, hx1, hy1 = h.shape.bbox
+        for o in other:
+            ox0, oy0, ox1, oy1 = o.shape.bbox
+            cands = []
+            lo, hi = _overlap(hx0, hx1, ox0, ox1)
+            if hi - lo > tol:
+                if abs(hy0 - oy1) <= tol:
+                    cands.append(Contact("horizontal", h, o, hy0, lo, hi, +1))
+                if abs(hy1 - oy0) <= tol:
+                    cands.append(Contact("horizontal", h, o, hy1, lo, hi, -1))
+            lo, hi = _overlap(hy0, hy1, oy0, oy1)
+            if hi - lo > tol:
+                if abs(hx0 - ox1) <= tol:
+                    cands.append(Contact("vertical", h, o, hx0, lo, hi, +1))
+                if abs(hx1 - ox0) <= tol:
+                    cands.append(Contact("vertical", h, o, hx1, lo, hi, -1))
+            for c in cands:
+                if best is None or (c.hi - c.lo) > (best.hi - best.lo):
+                    best = c
+    return best
+
+
+def _runs_polygon(part: Part, c: Contact, side: int, samples: int = 9) -> list[float]:
+    from shapely.geometry import LineString, Polygon
+
+    poly = Polygon(part.shape.vertices)
+    if not poly.is_valid or poly.area <= 0:
+        return []
+    x0, y0, x1, y1 = part.shape.bbox
+    reach = 2.0 * max(x1 - x0, y1 - y0) + 1.0
+    runs = []
+    width = c.hi - c.lo
+    for i in range(samples):
+        t = c.lo + width * (i + 0.5) / samples
+        if c.orientation == "horizontal":
+            line = LineString([(t, c.at), (t, c.at + side * reach)])
+        else:
+            line = LineString([(c.at, t), (c.at + side * reach, t)])
+        inter = line.intersection(poly)
+        if inter.is_empty:
+            continue
+        pieces = list(getattr(inter, "geoms", [inter]))
+        for piece in pieces:
+            coords = list(piece.coords)
+            if len(coords) < 2:
+                continue
+            ds = [abs((pt[1] if c.orientation == "horizontal" else pt[0]) - c.at) for pt in coords]
+            if min(ds) <= 1e-6 * reach:
+                runs.append(max(ds))
+    return runs
+
+
+def thickness_normal(part: Part, c: Contact) -> float:
+    """Thickness of ``part`` measured perpendicular to the contact plane, from the plane inward (in).
+
+    The smallest run over samples across the contact is returned (polygons); bounding box
+    otherwise. Source: geometry.
+    """
+    side = c.held_side if part is c.held else -c.held_side
+    if part.shape.kind == "polygon" and len(part.shape.vertices) >= 3:
+        runs = _runs_polygon(part, c, side)
+        if runs:
+            return min(runs)
+    x0, y0, x1, y1 = part.shape.bbox
+    return (y1 - y0) if c.orientation == "horizontal" else (x1 - x0)
+
+
+def extent_along(part: Part, c: Contact) -> float:
+    """Bounding-box extent of ``part`` in the direction of the plane (in). Source: geometry."""
+    x0, y0, x1, y1 = part.shape.bbox
+    return (x1 - x0) if c.orientation == "horizontal" else (y1 - y0)
+
+
+def plate_thickness(part: Part, c: Contact) -> float:
+    """Plate thickness of ``part`` at the contact: the lesser of its run normal to the plane and
+    its extent along the plane (a web standing on edge against a flange has thickness t_w along
+    the plane). Source: geometry."""
+    return min(thickness_normal(part, c), extent_along(part, c))

@@ -1,0 +1,38 @@
+"""Bolts in wood, NDS 2018 chapter 12: ``type = "wood_bolt"``.
+
+A through bolt in single shear (two members) or double shear (``planes = 2``, the held part in
+the middle). Fyb = 45,000 psi unless given (NDS bolt tables' basis).
+"""
+
+from __future__ import annotations
+
+from ...fields import Field
+from ...model import ConnectorSpec
+from ...steps import StepLog
+from ..results import Capacity
+from . import ConnectorError
+from .nds_catalog import FYB_BOLT
+from .nds_dowel import Fastener, design_dowel
+from .nds_factors import COMMON_FIELDS
+
+KIND = "wood_bolt"
+FIELDS = (
+    Field("diameter", "length", required=True, help="bolt diameter D (1/4 in to 1 in)"),
+    Field("Fyb", "stress", help="bending yield strength (default 45,000 psi)"),
+    Field("name", "text", help="how the report names the bolt"),
+) + COMMON_FIELDS
+
+
+def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
+    """Lateral design value of one bolt in wood. Source: NDS-2018 §12.3, Table 11.3.1, §12.5.1."""
+    p = spec.params
+    D = p["diameter"].to("in").magnitude
+    if not 0.25 <= D <= 1.0:
+        raise ConnectorError(f"{ctx.key}.connector.diameter",
+                             "expected a bolt diameter from 1/4 in to 1 in (NDS-2018 §12.3 yield equations)")
+    if p.get("Fyb") is not None:
+        fyb, fsrc = p["Fyb"].to("psi").magnitude, "given for this connector"
+    else:
+        fyb, fsrc = FYB_BOLT, "NDS-2018 bolt tables (12A-12I) footnote, Fyb = 45,000 psi (from memory)"
+    f = Fastener("bolt", p.get("name") or "bolt in wood", D, D, None, fyb, fsrc)
+    return design_dowel(spec, ctx, log, f)
