@@ -128,7 +128,7 @@ def _range_max(d: Demand, starts: np.ndarray, ends: np.ndarray) -> np.ndarray:
 
 def _allowed(cap: np.ndarray, cap_row: float, inc: float, kmin: int, kmax: int) -> np.ndarray:
     """Largest allowed spacing index k (spacing k·inc) with k·inc ≤ n·F/q; 0 where none."""
-    with np.errstate(divide="ignore"):
+    with np.errstate(divide="ignore", over="ignore"):
         s_req = np.where(cap > 0, cap_row / np.where(cap > 0, cap, 1.0), _INF)
     k = np.floor(np.minimum(s_req / inc, kmax) * (1 + _EPS) + _EPS)
     k = np.minimum(k, kmax)
