@@ -157,7 +157,7 @@ def _segments(length: float, supports: list[fe.FESupport]) -> list[tuple[float, 
 def _fe_loads(loads: list[Load], length: float, keyfmt: str) -> list[tuple[str, fe.FELoad]]:
     out = []
     for i, ld in enumerate(loads):
-        key = keyfmt.format(i=i + 1)
+        key = ld.key or keyfmt.format(i=i + 1)
         if ld.kind == "point":
             if ld.at is None:
                 raise BeamInputError(key, "a point load needs its position 'at'")

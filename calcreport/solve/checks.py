@@ -64,7 +64,8 @@ def bending_checks(M: Quantity, I: Quantity, fibres: list[Fibre],
 
 
 def shear_stress_check(name: str, V: Quantity, Q: Quantity, I: Quantity, b: Quantity,
-                       allowable: Quantity | None, log: StepLog | None = None) -> Check:
+                       allowable: Quantity | None, log: StepLog | None = None,
+                       label: str | None = None) -> Check:
     """Horizontal shear stress at a level, τ = V·Q/(I·b) (transformed Q and I, actual width b),
     against the allowable shear stress of the material there.
 
@@ -75,18 +76,19 @@ def shear_stress_check(name: str, V: Quantity, Q: Quantity, I: Quantity, b: Quan
     """
     log = log or StepLog("checks")
     tau = (abs(V) * Q / (I * b)).to("psi")
-    log.add(f"shear.{name}", f"Horizontal shear stress, {name}", "τ = V·Q / (I·b)",
+    label = label or f"Horizontal shear stress, {name}"
+    log.add(f"shear.{name}", label, "τ = V·Q / (I·b)",
             "{V} · {Q} / ({I} · {b})", {"V": abs(V), "Q": Q, "I": I, "b": b}, tau,
             source=SOURCE_SHEAR)
     ratio = None if allowable is None else float((tau / allowable).to("").magnitude)
-    return Check(f"shear.{name}", f"Horizontal shear stress, {name}", tau,
+    return Check(f"shear.{name}", label, tau,
                  None if allowable is None else allowable.to("psi"), ratio, _status(ratio),
                  SOURCE_SHEAR)
 
 
 def deflection_check(name: str, delta: Quantity, length: Quantity, limit: float,
                      cantilever: bool = False, log: StepLog | None = None,
-                     note: str = "") -> Check:
+                     note: str = "", label: str | None = None) -> Check:
     """Deflection against span/limit (a cantilever or overhang uses twice its length).
 
     Example:
@@ -96,11 +98,12 @@ def deflection_check(name: str, delta: Quantity, length: Quantity, limit: float,
     log = log or StepLog("checks")
     ell = 2 * length if cantilever else length
     allow = (ell / limit).to("inch")
-    log.add(f"deflection.{name}", f"Allowed deflection, {name}", "Δ_allow = ℓ / ratio",
+    label = label or f"Deflection, {name}"
+    log.add(f"deflection.{name}", f"Allowed {label[0].lower()}{label[1:]}", "Δ_allow = ℓ / ratio",
             "{l} / {r}", {"l": ell, "r": limit}, allow, source=SOURCE_DEFLECTION,
             note=note)
     ratio = float((abs(delta) / allow).to("").magnitude)
-    return Check(f"deflection.{name}", f"Deflection, {name}", abs(delta).to("inch"), allow,
+    return Check(f"deflection.{name}", label, abs(delta).to("inch"), allow,
                  ratio, _status(ratio), SOURCE_DEFLECTION, note)
 
 
@@ -119,6 +122,7 @@ def deflection_checks(beam, limits: dict[str, float], log: StepLog | None = None
         return out
     names = [d.name for d in beam.cases]
     for key, ratio in limits.items():
+        what = "total load" if key == "total" else f"load case {key}"
         if key == "total":
             variable = [c for c in names if c not in ("D", "W")]
             sets = [({"D": 1.0, c: 1.0}, f"D + {c}") for c in variable] or [({"D": 1.0}, "D")]
@@ -134,5 +138,6 @@ def deflection_checks(beam, limits: dict[str, float], log: StepLog | None = None
                     worst, label = dl, text
             out.append(deflection_check(f"{key}.segment{seg.index + 1}", worst, seg.length, ratio,
                                         seg.kind in ("overhang", "cantilever"), log,
-                                        note=f"{label}, {seg.kind} {seg.index + 1}"))
+                                        note=f"governed by {label}",
+                                        label=f"Deflection, {what} ({seg.kind} {seg.index + 1})"))
     return out

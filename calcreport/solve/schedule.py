@@ -30,6 +30,8 @@ __all__ = ["Zone", "Schedule", "zoned_schedule", "SOURCE_SPACING", "SOURCE_RULES
 SOURCE_SPACING = "mechanics of materials (q = V·Q/I; spacing s = n·F/q)"
 SOURCE_RULES = "common practice, no source (spacing rounded down to the increment; zoning rules)"
 _IN = "inch"
+#: Most module-grid points along the member (work and memory grow with its square).
+MAX_GRID = 2400
 
 
 @dataclass(frozen=True)
@@ -67,6 +69,7 @@ class Schedule:
     demand: Quantity  # q(x) (lbf/inch)
     reason: str = ""
     steps: tuple = ()
+    status: str = "OK"  # "NG" when no schedule satisfies the rules
 
 
 def zoned_schedule(x: Quantity, q: Quantity, length: Quantity, capacity_row: Quantity,
@@ -97,6 +100,13 @@ def zoned_schedule(x: Quantity, q: Quantity, length: Quantity, capacity_row: Qua
     smin = inc if spacing_min is None else max(spacing_min.to(_IN).magnitude, inc)
     smax = spacing_max.to(_IN).magnitude
     mod = None if module is None else module.to(_IN).magnitude
+    if (mod or inc) * MAX_GRID < L:
+        coarse = float(np.ceil(L / MAX_GRID / inc)) * inc
+        log.add("module", "Zone module coarsened to bound the work", "m = ⌈L / (N_grid·Δ)⌉·Δ",
+                "⌈{L} / ({n} × {inc})⌉ × {inc}", {"L": length, "n": MAX_GRID, "inc": increment},
+                Q_(coarse, _IN), source=SOURCE_RULES)
+        mod = coarse
+        module = Q_(coarse, _IN)
     d = Demand(xs, qs, L)
     peak = float(qs.max()) if qs.size else 0.0
     kpeak = int(np.argmax(qs)) if qs.size else 0
@@ -126,7 +136,8 @@ def zoned_schedule(x: Quantity, q: Quantity, length: Quantity, capacity_row: Qua
                 {"sreq": s_req if s_req is not None else "none", "x": Q_(xs[kpeak], _IN),
                  "smin": Q_(smin, _IN)}, "NG", source=SOURCE_RULES)
         return Schedule(False, (), None, ratio=None, count_single=None, spacing_single=None,
-                        saving=None, reason=why, steps=tuple(log.steps[first:]), **common)
+                        saving=None, reason=why, steps=tuple(log.steps[first:]), status="NG",
+                        **common)
     zones = []
     for k, (a, b, s, n) in enumerate(lay.zones):
         qm = d.max_over(a, b)

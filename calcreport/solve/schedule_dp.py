@@ -143,16 +143,17 @@ def _chain(d: Demand, P: int, u: float, inc: float, kmin: int, kmax: int, cap_ro
     kbest = _allowed(R, cap_row, inc, kmin, kmax)
     cost = np.full((P + 1, P + 1), _INF)
     kcost = np.zeros((P + 1, P + 1), int)
-    ii, jj = np.indices(cost.shape)
-    span = jj - ii
-    if own_module:  # zone length a multiple of its spacing k·inc (u = inc)
-        for k in range(kmax, kmin - 1, -1):
-            ok = (span > 0) & (span % k == 0) & (kbest >= k)
-            c = np.where(ok, span // max(k, 1), _INF)
-            better = c < cost
-            cost = np.where(better, c, cost)
-            kcost = np.where(better, k, kcost)
+    if own_module:  # zone length a multiple of its spacing k·inc (u = inc): diagonals d = m·k
+        for k in range(min(kmax, P), kmin - 1, -1):
+            for m in range(1, P // k + 1):
+                i = np.arange(P + 1 - m * k)
+                j = i + m * k
+                better = (kbest[i, j] >= k) & (m < cost[i, j])
+                cost[i[better], j[better]] = m
+                kcost[i[better], j[better]] = k
     else:
+        ii, jj = np.indices(cost.shape)
+        span = jj - ii
         ok = (span > 0) & (kbest > 0)
         cost = np.where(ok, np.ceil(span * u / np.maximum(kbest, 1) / inc - _EPS), _INF)
         kcost = np.where(ok, kbest, 0)
