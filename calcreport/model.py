@@ -157,6 +157,7 @@ class Load:
     magnitude_end: Quantity | None = None
     at: Quantity | None = None
     label: str = ""
+    key: str = ""  # job-file key path, for messages
 
 
 @dataclass(frozen=True)

@@ -198,7 +198,7 @@ def _member(t: Table, materials: dict[str, Material], settings: Settings) -> Mem
         assumptions=t.texts("assumptions"), notes=t.texts("notes"),
     )
     member = _loads_hook(t, member, settings)
-    if member.shear is None and not member.loads:
+    if member.shear is None and not member.loads and not member.self_weight:
         raise t.error(None, "missing required key 'shear' (the design shear V, e.g. shear = \"4.2 kip\")")
     t.done()
     return member

@@ -15,6 +15,7 @@ from ..solve.results import Check, JobResult, JointResult, MemberResult
 from ..steps import Step
 from ..units import Quantity
 from .fmt import Display
+from .json_along import along_json, schedule_json
 
 __all__ = ["to_dict", "dumps", "SCHEMA_VERSION"]
 
@@ -74,7 +75,7 @@ def _joint(j: JointResult, d: Display) -> dict[str, Any]:
         "steps": [_step(s, d) for s in j.steps],
     }
     if j.schedule is not None:
-        out["schedule"] = _plain(j.schedule, d)
+        out["schedule"] = schedule_json(j.schedule, d)
     return out
 
 
@@ -96,7 +97,7 @@ def _member(m: MemberResult, d: Display) -> dict[str, Any]:
         "steps": [_step(st, d) for st in m.steps],
     }
     if m.beam is not None:
-        out["along"] = _plain(m.beam, d)
+        out["along"] = along_json(m.beam, d)
     return out
 
 

@@ -44,7 +44,7 @@ def solve_member(member: Member, settings: Settings) -> MemberResult:
     log = StepLog(f"member.{member.id}")
     section = section_properties(member, log.child("section"))
     beam = None
-    if member.loads:
+    if member.loads or member.self_weight:
         from .along import analyse_member  # loads along the member
 
         beam = analyse_member(member, section, settings, log.child("beam"))

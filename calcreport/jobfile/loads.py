@@ -1,0 +1,160 @@
+"""Loads along the member: span, supports, loads by case, combinations, self-weight.
+
+Keys (all optional; see docs/loads.md)::
+
+    [[member]]
+    span = "20 ft"              # member length, x measured from the left end
+    self_weight = true          # adds Σ part area × material density as dead load D
+
+    [[member.support]]          # none given: a pin at each end (simple span)
+    at = "0 ft"
+    type = "pin"                # pin, roller or fixed
+
+    [[member.load]]
+    case = "D"                  # D, L, Lr, S, R, W or a case name of the job's own
+    kind = "uniform"            # uniform, point or linear
+    w = "250 plf"               # uniform; optional from / to for a partial load
+    # point:  P = "2 kip", at = "6 ft"
+    # linear: w_start = "100 plf", w_end = "300 plf", optional from / to
+
+    [[member.combination]]      # none given: ASCE 7-22 basic combinations of settings.method
+    name = "D + L"
+    factors = { D = 1.0, L = 1.0 }
+"""
+
+from __future__ import annotations
+
+from dataclasses import replace
+
+from ..model import Combination, Load, Member, Settings, Support
+from ..solve.combinations import STANDARD_CASES
+from ..units import Q_
+from .reader import Table
+
+__all__ = ["read_loads", "MAX_LOADS", "MAX_SUPPORTS", "MAX_COMBINATIONS"]
+
+MAX_LOADS = 200
+MAX_SUPPORTS = 20
+MAX_COMBINATIONS = 100
+SUPPORT_TYPES = ("pin", "roller", "fixed")
+LOAD_KINDS = ("uniform", "point", "linear")
+
+
+def read_loads(t: Table, member: Member, settings: Settings) -> Member:
+    """Read span, supports, loads, combinations and self-weight of one member table."""
+    load_tables = t.tables("load")
+    support_tables = t.tables("support")
+    combo_tables = t.tables("combination")
+    self_weight = t.boolean("self_weight", False)
+    span = t.quantity("span", "length")
+    if span is None:
+        for name, items in (("load", load_tables), ("support", support_tables),
+                            ("combination", combo_tables)):
+            if items:
+                raise t.error(None, f"missing required key 'span' (the member length, needed by "
+                                    f"[[{t.key(name)}]]), like span = \"20 ft\"")
+        if self_weight:
+            raise t.error("self_weight", "self_weight needs the member length: add span = \"20 ft\"")
+        return member
+    for name, items, cap in (("load", load_tables, MAX_LOADS), ("support", support_tables, MAX_SUPPORTS),
+                             ("combination", combo_tables, MAX_COMBINATIONS)):
+        if len(items) > cap:
+            raise t.error(name, f"expected at most {cap} entries, got {len(items)}")
+    if not load_tables and not self_weight:
+        raise t.error("span", "a span needs loads: add [[member.load]] tables or self_weight = true")
+    supports = tuple(_support(st, span) for st in support_tables) or (
+        Support(Q_(0.0, "inch")), Support(span.to("inch")))
+    if not any(s.kind == "fixed" for s in supports) and len(
+            {round(float(s.x.to("inch").magnitude), 9) for s in supports}) < 2:
+        target = support_tables[-1] if support_tables else t
+        raise target.error(None, "the member needs one fixed support or supports at two different "
+                                 "places")
+    loads = tuple(_load(lt, span) for lt in load_tables)
+    if self_weight:
+        for p in member.parts:
+            if p.material.density is None:
+                raise t.error("self_weight", f"self_weight needs a density for material "
+                                             f"{p.material.id!r} (part {p.id!r}), like density = \"35 pcf\"")
+    cases = {ld.case for ld in loads} | ({"D"} if self_weight else set())
+    combos = tuple(_combination(ct, cases) for ct in combo_tables)
+    names = [c.name for c in combos]
+    for ct, c in zip(combo_tables, combos):
+        if names.count(c.name) > 1:
+            raise ct.error("name", f"duplicate combination name {c.name!r}")
+    if not combos:
+        own = sorted(cases - set(STANDARD_CASES))
+        if own:
+            lt = next(lt for lt, ld in zip(load_tables, loads) if ld.case in own)
+            raise lt.error("case", f"case {own[0]!r} is in no standard combination; list the "
+                                   f"combinations with [[{t.key('combination')}]] tables")
+    return replace(member, span=span, supports=supports, loads=loads, combinations=combos,
+                   self_weight=self_weight)
+
+
+def _position(t: Table, name: str, span, required: bool = False):
+    q = t.quantity(name, "length", required=required, allow_zero=True)
+    if q is not None and q > span * (1 + 1e-12):
+        raise t.error(name, f"expected a position within the span (0 to {span:~P}), got {t.data[name]!r}")
+    return q
+
+
+def _support(t: Table, span) -> Support:
+    s = Support(_position(t, "at", span, required=True), t.choice("type", SUPPORT_TYPES, "pin"))
+    t.done()
+    return s
+
+
+def _case(t: Table) -> str:
+    case = t.text("case", required=True).strip()
+    if not case or len(case) > 24 or not all(ch.isalnum() or ch in "_-" for ch in case):
+        raise t.error("case", f"expected a load case name (D, L, Lr, S, R, W or a short name of "
+                              f"letters and digits), got {t.data['case']!r}")
+    for std in STANDARD_CASES:
+        if case.lower() == std.lower():
+            return std
+    return case
+
+
+def _load(t: Table, span) -> Load:
+    case = _case(t)
+    kind = t.choice("kind", LOAD_KINDS, required=True)
+    label = t.text("label")
+    if kind == "point":
+        ld = Load(case, kind, t.quantity("P", "force", required=True, positive=False),
+                  at=_position(t, "at", span, required=True), label=label, key=t.label)
+    else:
+        start = _position(t, "from", span)
+        end = _position(t, "to", span)
+        if start is not None and end is not None and not start < end:
+            raise t.error("to", "expected 'to' beyond 'from'")
+        if kind == "uniform":
+            w1 = t.quantity("w", "line_load", required=True, positive=False)
+            w2 = None
+        else:
+            w1 = t.quantity("w_start", "line_load", required=True, positive=False)
+            w2 = t.quantity("w_end", "line_load", required=True, positive=False)
+        ld = Load(case, kind, w1, start=start, end=end, magnitude_end=w2, label=label, key=t.label)
+        if (end is not None and end.to("inch").magnitude <= 0) or (
+                start is not None and start >= span * (1 - 1e-12)):
+            raise t.error("from" if start is not None else "to", "the load has no length on the member")
+    t.done()
+    return ld
+
+
+def _combination(t: Table, cases: set[str]) -> Combination:
+    name = t.text("name", required=True)
+    ft = t.table("factors", required=True)
+    factors: dict[str, float] = {}
+    for raw in list(ft.data):
+        case = next((s for s in STANDARD_CASES if s.lower() == str(raw).lower()), str(raw))
+        f = ft.number(raw, required=True, minimum=-10.0, maximum=10.0)
+        if case not in cases:
+            raise ft.error(raw, f"no loads of case {case!r} on this member (cases: "
+                                f"{', '.join(sorted(cases)) or 'none'})")
+        factors[case] = f
+    ft.done()
+    if not factors:
+        raise t.error("factors", "expected at least one case factor, like factors = { D = 1.2, L = 1.6 }")
+    source = t.text("source", default="stated in the job file")
+    t.done()
+    return Combination(name, factors, source)

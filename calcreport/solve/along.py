@@ -1,0 +1,160 @@
+"""Loads along the member, wired into the solver: analysis, design shear, member checks and the
+zoned connector schedule of each joint.
+
+:func:`analyse_member` runs the stiffness analysis for the member's loads (plus self-weight) under
+its combinations (the job's own, or ASCE 7-22 basic combinations for the method in the settings);
+:func:`joint_schedule` turns the shear envelope into q(x) = |V(x)|·Q/I at a joint and optimises
+its zoned schedule.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+from ..model import Combination, Joint, Load, Member, Settings
+from ..steps import StepLog
+from ..units import Q_, Quantity
+from .beam import BeamInputError, BeamResult, analyse, self_weight
+from .checks import Fibre, bending_checks, deflection_checks, shear_stress_check
+from .combinations import SOURCE_ASD, SOURCE_LRFD, standard_combinations
+from .results import Check, SectionResult
+from .schedule import Schedule, zoned_schedule
+from .section import first_moment_above
+
+__all__ = ["AlongResult", "analyse_member", "joint_schedule", "DEFAULT_DEFLECTION_LIMITS"]
+
+#: Used when the job sets no deflection limits (IBC 2021 Table 1604.3 floor members, from memory).
+DEFAULT_DEFLECTION_LIMITS = {"L": 360.0, "total": 240.0}
+
+
+@dataclass(frozen=True)
+class AlongResult:
+    """The member's analysis along its length and what the joints and report read from it."""
+
+    analysis: BeamResult
+    V_design: Quantity  # largest |V| over all combinations and patterns
+    V_governing: str
+    M_design: Quantity  # largest |M|
+    M_governing: str
+    combinations: tuple[Combination, ...]
+    combinations_source: str
+    self_weight: Quantity | None
+    deflection_limits: dict[str, float]
+    checks: tuple[Check, ...]
+
+
+def _error(exc: BeamInputError):
+    from . import SolveError
+
+    return SolveError(exc.key, str(exc))
+
+
+def analyse_member(member: Member, section: SectionResult, settings: Settings,
+                   log: StepLog) -> AlongResult:
+    """Analyse the member for its loads; design shear and moment; member checks.
+
+    Sources: matrix structural analysis (stiffness method); ASCE 7-22 §2.3.1 / §2.4.1 basic
+    combinations (unless the job lists its own); mechanics of materials for stresses.
+    """
+    loads = list(member.loads)
+    sw = None
+    if member.self_weight:
+        sw = self_weight([(pp.area, p.material.density) for pp, p in zip(section.parts, member.parts)],
+                         log)
+        loads.append(Load("D", "uniform", sw, label="self-weight", key=f"member[{member.id}].self_weight"))
+    cases = list(dict.fromkeys(ld.case for ld in loads))
+    if member.combinations:
+        combos, source = tuple(member.combinations), "stated in the job file"
+    else:
+        combos = tuple(standard_combinations(settings.method, cases))
+        source = SOURCE_LRFD if settings.method == "LRFD" else SOURCE_ASD
+    log.add("combinations", "Load combinations", "n_comb", "{count} combinations of cases {cases}",
+            {"count": len(combos), "cases": ", ".join(cases)}, len(combos), source=source,
+            note="only combinations whose leading case is present; or-alternatives expanded"
+            if not member.combinations else "")
+    if not combos:
+        from . import SolveError
+
+        raise SolveError(f"member[{member.id}]", "no load combination applies to the cases given; "
+                                                  "list [[member.combination]] tables")
+    EI = (section.E_ref * section.inertia).to("lbf*inch**2")
+    log.add("EI", "Flexural rigidity of the transformed section", "EI = E_ref · I",
+            "{E} · {I}", {"E": section.E_ref, "I": section.inertia}, EI,
+            source="mechanics of materials: transformed section")
+    from ..model import Support
+
+    supports = list(member.supports) or [Support(Q_(0.0, "inch")), Support(member.span)]
+    try:
+        beam = analyse(member.span, supports, loads, list(combos), EI=EI, log=log)
+    except BeamInputError as exc:
+        raise _error(exc) from None
+    env = beam.envelope
+    vabs = env.V_abs.to("lbf").magnitude
+    kv = int(vabs.argmax())
+    mpos, mneg = env.M_max.to("lbf*inch").magnitude, env.M_min.to("lbf*inch").magnitude
+    kp, kn = int(mpos.argmax()), int(mneg.argmin())
+    if abs(mneg[kn]) > abs(mpos[kp]):
+        M, Mby = Q_(abs(mneg[kn]), "lbf*inch"), env.M_min_by[kn]
+    else:
+        M, Mby = Q_(abs(mpos[kp]), "lbf*inch"), env.M_max_by[kp]
+    limits = dict(settings.deflection_limits) or dict(DEFAULT_DEFLECTION_LIMITS)
+    checks = _member_checks(member, section, M, env.V_abs[kv], limits, beam, log.child("checks"))
+    return AlongResult(beam, env.V_abs[kv], env.V_abs_by[kv], M, Mby, combos, source, sw, limits,
+                       tuple(checks))
+
+
+def _member_checks(member, section, M, V, limits, beam, log) -> list[Check]:
+    bottom = section.bottom.to("inch").magnitude
+    ybar = section.centroid.to("inch").magnitude
+    fibres: dict[str, Fibre] = {}
+    for part, props in zip(member.parts, section.parts):
+        mat = part.material
+        if mat.Fb is None:
+            continue
+        c = max(abs(part.shape.bbox[3] - bottom - ybar), abs(part.shape.bbox[1] - bottom - ybar))
+        old = fibres.get(mat.id)
+        if old is None or c > old.c.magnitude:
+            fibres[mat.id] = Fibre(mat.id, Q_(c, "inch"), props.n, mat.Fb)
+    checks = bending_checks(M, section.inertia, list(fibres.values()), log) if fibres else []
+    na = _neutral_axis_shear(member, section, V, log)
+    if na is not None:
+        checks.append(na)
+    checks += deflection_checks(beam, limits, log)
+    return checks
+
+
+def _neutral_axis_shear(member, section, V, log) -> Check | None:
+    """τ at the neutral axis where the parts cut there all give Fv (mechanics of materials)."""
+    from shapely.geometry import LineString
+
+    from ..geometry import outline
+
+    y = section.centroid.to("inch").magnitude + section.bottom.to("inch").magnitude
+    cut = [p for p in member.parts if p.shape.bbox[1] < y < p.shape.bbox[3]]
+    if not cut or any(p.material.Fv is None or p.shape.kind == "properties" for p in cut):
+        return None
+    b = sum(outline(p.shape).intersection(LineString([(p.shape.bbox[0] - 1, y),
+                                                      (p.shape.bbox[2] + 1, y)])).length for p in cut)
+    try:
+        Qna = first_moment_above(member, section, section.centroid.to("inch").magnitude)
+    except ValueError:
+        return None
+    Fv = min((p.material.Fv for p in cut), key=lambda q: q.to("psi").magnitude)
+    return shear_stress_check("neutral_axis", V, Q_(abs(Qna), "inch**3"), section.inertia,
+                              Q_(b, "inch"), Fv, log, label="Horizontal shear stress at the neutral axis")
+
+
+def joint_schedule(along: AlongResult, Q: Quantity, section: SectionResult, joint: Joint,
+                   F: Quantity, res, settings: Settings, log: StepLog) -> Schedule:
+    """Zoned schedule of one joint from q(x) = |V(x)|·Q/I over the shear envelope.
+
+    ``res`` is the joint's single-spacing result (its s_min, s_max are the governing limits).
+    Source: mechanics of materials (q = V·Q/I); zoning rules: common practice, no source.
+    """
+    env = along.analysis.envelope
+    q = (env.V_abs * Q / section.inertia).to("lbf/inch")
+    nF = (joint.per_row * F).to("lbf")
+    s_max = res.s_max if res.s_max is not None else along.analysis.length
+    return zoned_schedule(env.x, q, along.analysis.length, nF, settings.spacing_step, res.s_min,
+                          s_max, settings.zones_per_half, settings.zone_module,
+                          governing=env.V_abs_by, log=log)

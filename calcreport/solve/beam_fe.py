@@ -1,0 +1,227 @@
+"""Stiffness (finite-element) analysis of a straight beam on point supports, in plain floats.
+
+Euler-Bernoulli beam elements with Hermite cubic shape functions; two degrees of freedom per node
+(deflection v, positive DOWN, and slope θ = dv/dx, positive clockwise). Nodes are placed at the
+member ends, at every support, at every point load, at the ends of every distributed load and on a
+fine regular mesh between them.
+
+Exactness (matrix structural analysis, stiffness method): the Hermite cubics are the homogeneous
+solutions of EI·v'''' = w, so with consistent (work-equivalent) load vectors the nodal deflections
+and slopes are exact for any load; the element end forces k·d − f_eq are therefore exact too, and
+shear and moment at each node follow exactly from them. Because load ends are nodes, a distributed
+load is linear (trapezoidal) inside every element.
+
+Sign conventions (as in beam tables, e.g. AISC Manual 15th ed. Table 3-23): loads w, P positive
+downward; reactions positive upward; V positive when the part left of a cut is pushed up
+(dV/dx = −w, so V(0+) = R_left); M positive sagging (dM/dx = V); deflection positive downward.
+
+Everything here is float arithmetic in one consistent unit system chosen by the caller
+(:mod:`calcreport.solve.beam` uses inch and lbf). No quantities, no text.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+import numpy as np
+
+__all__ = ["FESupport", "FELoad", "Mesh", "FESolution", "build_mesh", "load_vector", "solve",
+           "StructureError"]
+
+
+class StructureError(ValueError):
+    """The supports do not hold the beam (a mechanism) or lie off the member."""
+
+
+@dataclass(frozen=True)
+class FESupport:
+    x: float
+    fixed: bool = False  # True: deflection and slope restrained; False: deflection only
+
+
+@dataclass(frozen=True)
+class FELoad:
+    """``kind`` "point" (``w1`` is the force at ``a``) or "dist" (w1 at ``a`` to w2 at ``b``)."""
+
+    kind: str
+    a: float
+    w1: float
+    b: float = 0.0
+    w2: float = 0.0
+
+
+@dataclass(frozen=True)
+class Mesh:
+    x: np.ndarray  # node positions, sorted, unique
+    length: float
+    supports: tuple[FESupport, ...]
+    support_nodes: tuple[int, ...]
+    jump_nodes: frozenset[int]  # interior nodes where V may jump (supports, point loads)
+
+
+def _snap(values: list[float], length: float) -> list[float]:
+    tol = 1e-9 * max(length, 1.0)
+    out: list[float] = []
+    for v in sorted(values):
+        if not out or v - out[-1] > tol:
+            out.append(v)
+    return out
+
+
+def build_mesh(length: float, supports: list[FESupport], loads: list[FELoad],
+               extra: list[float] = (), divisions: int = 240) -> Mesh:
+    """Nodes at ends, supports, load points/ends and ``extra`` points, refined so that no element
+    is longer than ``length / divisions``.
+
+    Raises:
+        StructureError: if a support lies off the member or the supports form a mechanism.
+    """
+    if length <= 0:
+        raise StructureError("the member length must be greater than zero")
+    tol = 1e-9 * length
+    if any(s.x < -tol or s.x > length + tol for s in supports):
+        raise StructureError("a support lies outside the member")
+    if not any(s.fixed for s in supports) and len({round(s.x / tol) for s in supports}) < 2:
+        raise StructureError("the beam needs one fixed support or at least two supports")
+    key: list[float] = [0.0, length] + [min(max(s.x, 0.0), length) for s in supports]
+    jumps: list[float] = [s.x for s in supports]
+    for ld in loads:
+        key.append(ld.a)
+        if ld.kind == "point":
+            jumps.append(ld.a)
+        else:
+            key.append(ld.b)
+    key += [float(e) for e in extra if 0.0 <= e <= length]
+    key = _snap([min(max(k, 0.0), length) for k in key], length)
+    hmax = length / max(divisions, 1)
+    xs: list[float] = []
+    for a, b in zip(key[:-1], key[1:]):
+        n = max(1, int(np.ceil((b - a) / hmax - 1e-9)))
+        xs.extend(a + (b - a) * np.arange(n) / n)
+    xs.append(key[-1])
+    x = np.asarray(xs, dtype=float)
+
+    def node(at: float) -> int:
+        return int(np.argmin(np.abs(x - at)))
+
+    sup_nodes = tuple(node(s.x) for s in supports)
+    jump = frozenset(node(j) for j in jumps) - {0, len(x) - 1}
+    return Mesh(x, length, tuple(supports), sup_nodes, jump)
+
+
+def _element_k(h: float) -> np.ndarray:
+    """Stiffness of an Euler-Bernoulli element of length h with EI = 1 (matrix structural analysis)."""
+    return np.array([[12.0, 6 * h, -12.0, 6 * h],
+                     [6 * h, 4 * h * h, -6 * h, 2 * h * h],
+                     [-12.0, -6 * h, 12.0, -6 * h],
+                     [6 * h, 2 * h * h, -6 * h, 4 * h * h]]) / h ** 3
+
+
+def _dist_on_elements(mesh: Mesh, ld: FELoad) -> tuple[np.ndarray, np.ndarray]:
+    """Intensity at the left (wa) and right (wb) end of every element for one distributed load."""
+    x = mesh.x
+    xl, xr = x[:-1], x[1:]
+    span = ld.b - ld.a
+    inside = (xl >= ld.a - 1e-9 * mesh.length) & (xr <= ld.b + 1e-9 * mesh.length)
+
+    def w(at: np.ndarray) -> np.ndarray:
+        return ld.w1 + (ld.w2 - ld.w1) * (at - ld.a) / span if span > 0 else np.zeros_like(at)
+
+    return np.where(inside, w(xl), 0.0), np.where(inside, w(xr), 0.0)
+
+
+def load_vector(mesh: Mesh, loads: list[FELoad]) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
+    """Consistent nodal load vector and element end intensities (wa, wb) for ``loads``.
+
+    Consistent load vector of a linearly varying load w1→w2 on an element of length h
+    (matrix structural analysis, work-equivalent loads):
+    [h(21w1+9w2)/60, h²(3w1+2w2)/60, h(9w1+21w2)/60, −h²(2w1+3w2)/60].
+    """
+    n = len(mesh.x)
+    f = np.zeros(2 * n)
+    wa = np.zeros(n - 1)
+    wb = np.zeros(n - 1)
+    for ld in loads:
+        if ld.kind == "point":
+            f[2 * int(np.argmin(np.abs(mesh.x - ld.a)))] += ld.w1
+        else:
+            a, b = _dist_on_elements(mesh, ld)
+            wa += a
+            wb += b
+    h = np.diff(mesh.x)
+    fe = np.stack([h * (21 * wa + 9 * wb) / 60, h * h * (3 * wa + 2 * wb) / 60,
+                   h * (9 * wa + 21 * wb) / 60, -h * h * (2 * wa + 3 * wb) / 60], axis=1)
+    for e in range(n - 1):
+        f[2 * e:2 * e + 4] += fe[e]
+    return f, wa, wb
+
+
+@dataclass(frozen=True)
+class FESolution:
+    """Results at the nodes for each right-hand side (last axis = load set)."""
+
+    v: np.ndarray  # deflection at nodes (n, m), positive down, computed with EI = 1 → divide by EI
+    V_left: np.ndarray  # shear just left of each node (n, m); node 0 holds V just right
+    V_right: np.ndarray  # shear just right of each node (n, m); last node holds V just left
+    M: np.ndarray  # moment at nodes (n, m)
+    reactions: np.ndarray  # (supports, 2, m): upward force, and moment (clockwise on the beam)
+
+
+def solve(mesh: Mesh, loadsets: list[list[FELoad]]) -> FESolution:
+    """Solve the beam for several load sets at once (one factorisation, many right-hand sides).
+
+    Deflections are for EI = 1; divide by the actual EI. Forces do not depend on EI for a beam of
+    constant EI.
+    """
+    n = len(mesh.x)
+    ndof = 2 * n
+    h = np.diff(mesh.x)
+    K = np.zeros((ndof, ndof))
+    ks = [_element_k(he) for he in h]
+    for e, k in enumerate(ks):
+        K[2 * e:2 * e + 4, 2 * e:2 * e + 4] += k
+    fixed_dofs: list[int] = []
+    for s, nd in zip(mesh.supports, mesh.support_nodes):
+        fixed_dofs.append(2 * nd)
+        if s.fixed:
+            fixed_dofs.append(2 * nd + 1)
+    fixed_dofs = sorted(set(fixed_dofs))
+    free = np.setdiff1d(np.arange(ndof), fixed_dofs)
+    m = len(loadsets)
+    F = np.zeros((ndof, m))
+    WA = np.zeros((n - 1, m))
+    WB = np.zeros((n - 1, m))
+    for j, ls in enumerate(loadsets):
+        F[:, j], WA[:, j], WB[:, j] = load_vector(mesh, ls)
+    D = np.zeros((ndof, m))
+    Kff = K[np.ix_(free, free)]
+    if np.linalg.matrix_rank(Kff) < len(free):
+        raise StructureError("the supports do not hold the beam (it is a mechanism)")
+    D[free] = np.linalg.solve(Kff, F[free])
+    R = K @ D - F  # nodal forces the supports must supply, in the DOF directions (down, clockwise)
+    # element end forces: k d - f_eq
+    Vl = np.zeros((n, m))
+    Vr = np.zeros((n, m))
+    M = np.zeros((n, m))
+    for e, k in enumerate(ks):
+        he = h[e]
+        wa, wb = WA[e], WB[e]
+        feq = np.stack([he * (21 * wa + 9 * wb) / 60, he * he * (3 * wa + 2 * wb) / 60,
+                        he * (9 * wa + 21 * wb) / 60, -he * he * (2 * wa + 3 * wb) / 60])
+        Fe = k @ D[2 * e:2 * e + 4] - feq
+        Vr[e] = -Fe[0]
+        M[e] = Fe[1]
+        Vl[e + 1] = Fe[2]
+        M[e + 1] = -Fe[3]
+    Vl[0] = Vr[0]
+    Vr[-1] = Vl[-1]
+    reac = np.zeros((len(mesh.supports), 2, m))
+    seen: set[int] = set()
+    for i, (s, nd) in enumerate(zip(mesh.supports, mesh.support_nodes)):
+        if nd in seen:
+            continue
+        seen.add(nd)
+        reac[i, 0] = -R[2 * nd]  # upward force on the beam
+        if s.fixed:
+            reac[i, 1] = -R[2 * nd + 1]  # moment on the beam, counter-clockwise positive
+    return FESolution(D[0::2], Vl, Vr, M, reac)

@@ -1,0 +1,174 @@
+"""Zoned connector schedule for one joint, with economy figures and derivation steps.
+
+Input is the shear-flow demand q(x) = |V(x)|·Q/I along the member (the envelope over the load
+combinations) and the capacity of one row of connectors n·F. The schedule has the fewest
+connectors the rules of :mod:`calcreport.solve.schedule_dp` allow (exact dynamic programme):
+
+* spacing a multiple of the increment, within [s_min, s_max], and s ≤ n·F/q(x) over each zone;
+* zone lengths in multiples of the module (default: the zone's own spacing), built from the
+  member ends; one central zone takes the remainder;
+* at most Z distinct zones per half span; symmetric demand gives a mirrored schedule;
+* N = 1 + Σ ceil(ℓᵢ/sᵢ): one connector at x = 0, then each zone's connectors at its spacing.
+
+Economy figures: N_min = ∫ max(q/(n·F), 1/s_max) dx (no schedule can use fewer connectors, since
+every gap is ≤ n·F/q and ≤ s_max), N/N_min, and N_single for one spacing taken from the peak
+shear flow (rounded down to the increment, capped by s_max) over the whole length.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+import numpy as np
+
+from ..steps import StepLog
+from ..units import Q_, Quantity
+from .schedule_dp import Demand, optimise
+
+__all__ = ["Zone", "Schedule", "zoned_schedule", "SOURCE_SPACING", "SOURCE_RULES"]
+
+SOURCE_SPACING = "mechanics of materials (q = V·Q/I; spacing s = n·F/q)"
+SOURCE_RULES = "common practice, no source (spacing rounded down to the increment; zoning rules)"
+_IN = "inch"
+#: Most module-grid points along the member (work and memory grow with its square).
+MAX_GRID = 2400
+
+
+@dataclass(frozen=True)
+class Zone:
+    start: Quantity
+    end: Quantity
+    spacing: Quantity
+    count: int  # connector rows in (start, end]; the first zone also counts the one at x = 0
+    demand_max: Quantity  # largest q in the zone
+    spacing_required: Quantity | None  # n·F / q_max (None where q = 0)
+    governing: str  # combination governing the largest q in the zone
+
+
+@dataclass(frozen=True)
+class Schedule:
+    """A zoned schedule (``zones`` empty when no schedule can satisfy the rules)."""
+
+    feasible: bool
+    zones: tuple[Zone, ...]
+    count: int | None  # N
+    count_min: float  # N_min (continuous lower bound)
+    ratio: float | None  # N / N_min
+    count_single: int | None  # N with one spacing from the peak shear flow
+    spacing_single: Quantity | None
+    saving: float | None  # 1 − N / N_single
+    symmetric: bool
+    zones_per_half: int
+    module: Quantity | None
+    increment: Quantity
+    spacing_min: Quantity
+    spacing_max: Quantity
+    capacity_row: Quantity
+    length: Quantity
+    x: Quantity  # demand grid (inch) as given
+    demand: Quantity  # q(x) (lbf/inch)
+    reason: str = ""
+    steps: tuple = ()
+    status: str = "OK"  # "NG" when no schedule satisfies the rules
+
+
+def zoned_schedule(x: Quantity, q: Quantity, length: Quantity, capacity_row: Quantity,
+                   increment: Quantity, spacing_min: Quantity | None, spacing_max: Quantity,
+                   zones_per_half: int = 3, module: Quantity | None = None,
+                   governing: tuple[str, ...] = (), log: StepLog | None = None) -> Schedule:
+    """Fewest-connector zoned schedule for a joint (see the module docstring for the rules).
+
+    Args:
+        x, q: demand grid and shear flow q(x) (arrays; a position may appear twice at a jump).
+        length: member length.
+        capacity_row: n·F, design value of one row of connectors.
+        increment: spacings are whole multiples of this.
+        spacing_min, spacing_max: detailing limits (s_min defaults to the increment).
+        zones_per_half: Z, most distinct zones per half span.
+        module: zone lengths in multiples of this (``None``: each zone's own spacing).
+        governing: combination name per x (from the shear envelope), for the zone records.
+
+    Source: mechanics of materials (s = n·F/q); rules: common practice, no source.
+    """
+    log = log or StepLog("schedule")
+    first = len(log.steps)
+    xs = np.asarray(x.to(_IN).magnitude, float)
+    qs = np.abs(np.asarray(q.to("lbf/inch").magnitude, float))
+    L = length.to(_IN).magnitude
+    nF = capacity_row.to("lbf").magnitude
+    inc = increment.to(_IN).magnitude
+    smin = inc if spacing_min is None else max(spacing_min.to(_IN).magnitude, inc)
+    smax = spacing_max.to(_IN).magnitude
+    mod = None if module is None else module.to(_IN).magnitude
+    if (mod or inc) * MAX_GRID < L:
+        coarse = float(np.ceil(L / MAX_GRID / inc)) * inc
+        log.add("module", "Zone module coarsened to bound the work", "m = ⌈L / (N_grid·Δ)⌉·Δ",
+                "⌈{L} / ({n} × {inc})⌉ × {inc}", {"L": length, "n": MAX_GRID, "inc": increment},
+                Q_(coarse, _IN), source=SOURCE_RULES)
+        mod = coarse
+        module = Q_(coarse, _IN)
+    d = Demand(xs, qs, L)
+    peak = float(qs.max()) if qs.size else 0.0
+    kpeak = int(np.argmax(qs)) if qs.size else 0
+    q_peak = Q_(peak, "lbf/inch")
+    log.add("q_peak", "Largest shear flow along the member", "q_max", "max of |V(x)|·Q/I",
+            {}, q_peak, source=SOURCE_SPACING)
+    s_req = Q_(nF / peak, _IN) if peak > 0 else None
+    if s_req is not None:
+        log.add("s_req_peak", "Spacing required at the largest shear flow", "s = n·F / q_max",
+                "{nF} / {q}", {"nF": capacity_row, "q": q_peak}, s_req, source=SOURCE_SPACING)
+    n_min = d.bound(nF, smax)
+    log.add("N_min", "Fewest connectors any layout could use (continuous bound)",
+            "N_min = ∫ max(q/(n·F), 1/s_max) dx", "over L = {L}, n·F = {nF}, s_max = {smax}",
+            {"L": length, "nF": capacity_row, "smax": spacing_max}, n_min, source=SOURCE_RULES)
+    s1 = np.floor(min(nF / peak if peak > 0 else np.inf, smax) / inc * (1 + 1e-9) + 1e-9) * inc
+    n_single = int(1 + np.ceil(L / s1 - 1e-9)) if s1 >= smin - 1e-9 and s1 > 0 else None
+    common = dict(count_min=n_min, symmetric=False, zones_per_half=zones_per_half, module=module,
+                  increment=increment, spacing_min=Q_(smin, _IN), spacing_max=spacing_max,
+                  capacity_row=capacity_row, length=length, x=x, demand=q)
+    lay = optimise(d, nF, inc, smin, smax, zones_per_half, mod)
+    if lay is None or n_single is None:
+        why = ("the shear flow needs a spacing below the minimum"
+               if s_req is not None and s_req.to(_IN).magnitude < smin else
+               "no spacing satisfies the limits")
+        log.add("none", "No schedule within the spacing limits", "s_req < s_min",
+                "required {sreq} at x = {x}; minimum {smin}",
+                {"sreq": s_req if s_req is not None else "none", "x": Q_(xs[kpeak], _IN),
+                 "smin": Q_(smin, _IN)}, "NG", source=SOURCE_RULES)
+        return Schedule(False, (), None, ratio=None, count_single=None, spacing_single=None,
+                        saving=None, reason=why, steps=tuple(log.steps[first:]), status="NG",
+                        **common)
+    zones = []
+    for k, (a, b, s, n) in enumerate(lay.zones):
+        qm = d.max_over(a, b)
+        inside = np.where((xs >= a - 1e-9) & (xs <= b + 1e-9))[0]
+        j = int(inside[np.argmax(qs[inside])]) if inside.size else kpeak
+        gov = governing[j] if j < len(governing) else ""
+        cnt = n + (1 if k == 0 else 0)
+        z = Zone(Q_(a, _IN), Q_(b, _IN), Q_(s, _IN), cnt, Q_(qm, "lbf/inch"),
+                 Q_(nF / qm, _IN) if qm > 0 else None, gov)
+        zones.append(z)
+        log.add(f"zone.{k + 1}", f"Zone {k + 1}",
+                "s ≤ n·F / q_max,zone", "{s} ≤ {nF} / {q} = {sreq}; {n} connectors from {a} to {b}",
+                {"s": z.spacing, "nF": capacity_row, "q": z.demand_max,
+                 "sreq": z.spacing_required if z.spacing_required is not None else "no limit",
+                 "n": cnt, "a": z.start, "b": z.end}, z.spacing, source=SOURCE_SPACING,
+                note=f"governed by {gov}" if gov else "")
+    ratio = lay.count / n_min if n_min > 0 else None
+    saving = 1.0 - lay.count / n_single
+    log.add("N", "Connectors in the zoned schedule", "N = 1 + Σ ceil(ℓᵢ / sᵢ)",
+            "{zones} zones, {sym}", {"zones": len(zones),
+                                      "sym": "symmetric" if lay.symmetric else "not symmetric"},
+            lay.count, source=SOURCE_RULES, governs=True)
+    log.add("ratio", "Schedule against the continuous bound", "N / N_min", "{N} / {Nmin}",
+            {"N": lay.count, "Nmin": n_min}, ratio if ratio is not None else "n/a",
+            source=SOURCE_RULES)
+    log.add("N_single", "Connectors with one spacing from the peak shear flow",
+            "N_1 = 1 + ceil(L / s_1)", "s_1 = {s1} over L = {L}", {"s1": Q_(s1, _IN), "L": length},
+            n_single, source=SOURCE_RULES)
+    log.add("saving", "Connectors saved by zoning", "1 − N / N_1", "1 − {N} / {N1}",
+            {"N": lay.count, "N1": n_single}, saving, source=SOURCE_RULES)
+    common["symmetric"] = lay.symmetric
+    return Schedule(True, tuple(zones), lay.count, ratio=ratio, count_single=n_single,
+                    spacing_single=Q_(s1, _IN), saving=saving, steps=tuple(log.steps[first:]),
+                    **common)
