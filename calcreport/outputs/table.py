@@ -41,10 +41,29 @@ def render_member(m: MemberResult, d: Display) -> list[str]:
         for c in j.checks:
             if c.status == "NG":
                 lines.append(f"  {j.id}: {c.label} — NG")
-    for c in m.checks:
-        if c.status == "NG":
-            lines.append(f"  {c.label} — NG")
+        if j.schedule is not None:
+            lines += _schedule_lines(j.id, j.schedule, d)
+    if m.checks:
+        rows = [["member check", "demand", "capacity", "ratio", "status"]]
+        for c in m.checks:
+            rows.append([c.label, d.value(c.demand) if c.demand is not None else "—",
+                         d.value(c.capacity) if c.capacity is not None else "—",
+                         f"{c.ratio:.2f}" if c.ratio is not None else "—", c.status])
+        lines += ["  " + r for r in _cols(rows, {1, 2, 3})]
     return lines
+
+
+def _schedule_lines(joint_id: str, sch, d: Display) -> list[str]:
+    """Zones of a joint's schedule and its economy figures."""
+    if not sch.feasible:
+        return [f"  {joint_id} schedule: none satisfies the rules — {sch.reason}"]
+    zones = ", ".join(f"{d.quantity(z.start, 3)}–{d.quantity(z.end, 3)} @ {d.quantity(z.spacing, 3)}"
+                      for z in sch.zones)
+    ratio = f"{sch.ratio:.2f}" if sch.ratio is not None else "—"
+    saving = f"{100 * sch.saving:.0f} %" if sch.saving is not None else "—"
+    return [f"  {joint_id} schedule: {zones}",
+            f"  {joint_id} connectors: N = {sch.count} rows (N_min = {sch.count_min:.1f}, N/N_min = {ratio}); "
+            f"one spacing from peak: {sch.count_single} rows (saving {saving})"]
 
 
 def render_job(result: JobResult) -> str:
