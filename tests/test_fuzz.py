@@ -21,12 +21,16 @@ KEYS = ["id", "shape", "width", "depth", "thickness", "size", "flat", "upright",
         "area", "inertia", "centroid", "material", "on", "below", "left_of", "right_of", "at", "align",
         "offset", "holds", "per_row", "type", "value", "source", "name", "tau", "planes", "shear", "E",
         "Fv", "G", "density", "units", "method", "spacing_step", "spacing_max", "spacing_min", "project",
-        "label", "title", "family", "reference_material", "width", "template", "revision", "mark"]
+        "label", "title", "family", "reference_material", "width", "template", "revision", "mark",
+        "span", "self_weight", "case", "kind", "w", "P", "from", "to", "w_start", "w_end", "factors",
+        "zones_per_half", "zone_module", "size", "segment", "welds", "G_side", "group", "threads", "deck"]
 VALUES = ["1 in", "0 in", "-2 in", "2x10", "2x99", "10 kip", "1600 ksi", "rect", "lumber", "plate", "bar",
           "polygon", "rolled", "given", "shank", "glue", "given_line", "wood", "web", "fl", "top", "US",
           "SI", "ASD", "LRFD", "1e308 in", "nan in", "inf kip", "1/0 in", "in", "", "ǝʃᴉɟ", "<b>&</b>",
           "1-1/2 in", "5 plf", "3 psf", "__import__('os')", "1 in * 2 in", "9" * 400 + " in", "centre",
-          "left", "top", "1 in ** 99"]
+          "left", "top", "1 in ** 99", "uniform", "point", "linear", "D", "L", "S", "W", "28 ft", "1e9 ft",
+          "16d common", "10d box", "5/16 in", "nail", "steel_bolt", "fillet_weld", "stud", "wood_screw",
+          "300 plf", "-300 plf", "pin", "fixed", "roller"]
 
 scalar = st.one_of(
     st.sampled_from(VALUES), st.integers(-10**6, 10**6), st.floats(allow_nan=False, allow_infinity=False),
@@ -54,7 +58,8 @@ def toml_table(header: str, d: dict) -> str:
 
 table = st.dictionaries(key, value, max_size=7)
 document = st.tuples(table, table, st.lists(table, max_size=3), st.lists(table, max_size=3),
-                     st.lists(table, max_size=5), st.lists(table, max_size=3), table)
+                     st.lists(table, max_size=5), st.lists(table, max_size=3), table,
+                     st.lists(table, max_size=3), st.lists(table, max_size=2))
 
 
 def _check_case(tmp_path, text: str) -> None:
@@ -73,7 +78,7 @@ def _check_case(tmp_path, text: str) -> None:
                                                                   HealthCheck.too_slow])
 @given(doc=document)
 def test_random_structure(tmp_path, doc):
-    job, sett, mats, members, parts, joints, conn = doc
+    job, sett, mats, members, parts, joints, conn, loads, supports = doc
     job = {"project": "P", **job}
     text = toml_table("[job]", job) + toml_table("[settings]", sett)
     text += "".join(toml_table("[[material]]", m) for m in (mats or [{"id": "wood", "E": "1600 ksi"}]))
@@ -82,6 +87,8 @@ def test_random_structure(tmp_path, doc):
         text += "".join(toml_table("[[member.part]]", p) for p in parts)
         for j in joints:
             text += toml_table("[[member.joint]]", j) + toml_table("[member.joint.connector]", conn)
+        text += "".join(toml_table("[[member.load]]", ld) for ld in loads)
+        text += "".join(toml_table("[[member.support]]", sp) for sp in supports)
     _check_case(tmp_path, text)
 
 
