@@ -167,7 +167,8 @@ def render_pdf(result: JobResult, template: Template | None = None, changed_keys
         doc = ReportDoc(buf, tpl, styles, info, maker, title=f"{h.project} — {h.subject}".strip(" —"),
                         author=h.prepared_by or "calcreport", subject=h.subject or h.project, keywords=keywords,
                         creator=f"calcreport {__version__}")
-        ctx = Ctx(result, display, styles, tpl, doc.width, frozenset(changed_keys), revision_mark)
+        ctx = Ctx(result, display, styles, tpl, doc.width, frozenset(changed_keys), revision_mark,
+                  doc.frame_height)
         doc.build(_story(ctx, info, sections), canvasmaker=maker)
         pdf = buf.getvalue()
         stable = info.total == doc.page and info.sections == doc.seen_sections

@@ -5,7 +5,7 @@ from __future__ import annotations
 from reportlab.platypus import Paragraph
 
 from ...solve.results import Check, MemberResult
-from .common import Ctx, grid, para
+from .common import Ctx, heading, grid, para
 from .styles import esc
 
 __all__ = ["results_story", "checks_rows"]
@@ -37,10 +37,10 @@ def checks_rows(checks: list[tuple[str, Check]], ctx: Ctx) -> list[list]:
 
 def results_story(m: MemberResult, ctx: Ctx) -> list:
     st, w = ctx.styles, ctx.width
-    out: list = [Paragraph("Results", st.h2)]
+    out: list = [*heading("Results", st.h2)]
     if m.joints:
-        out.append(grid(_joint_rows(m, ctx), [0.12 * w, 0.12 * w, 0.20 * w, 0.11 * w, 0.11 * w, 0.14 * w,
-                                              0.10 * w, 0.10 * w], st))
+        out.append(grid(_joint_rows(m, ctx), [0.11 * w, 0.12 * w, 0.20 * w, 0.11 * w, 0.11 * w, 0.14 * w,
+                                              0.12 * w, 0.09 * w], st))
         for j in m.joints:
             for reason in j.reasons:
                 out.append(para(f"Joint {j.id}: {reason}", st.small))
@@ -48,7 +48,7 @@ def results_story(m: MemberResult, ctx: Ctx) -> list:
         out.append(Paragraph("This member has no fastened joints.", st.body))
     checks = [(f"joint {j.id}", c) for j in m.joints for c in j.checks] + [("member", c) for c in m.checks]
     if checks:
-        out.append(Paragraph("Checks", st.h3))
+        out.extend(heading("Checks", st.h3))
         out.append(grid(checks_rows(checks, ctx), [0.11 * w, 0.27 * w, 0.12 * w, 0.12 * w, 0.08 * w, 0.08 * w,
                                                    0.22 * w], st))
     out.append(Paragraph(f"Member {esc(m.id)}: <b>{m.status}</b>", st.body) if m.status == "OK" else

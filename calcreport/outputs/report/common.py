@@ -6,7 +6,7 @@ from dataclasses import dataclass
 from typing import Any, Sequence
 
 from reportlab.lib import colors
-from reportlab.platypus import Paragraph, Table, TableStyle
+from reportlab.platypus import CondPageBreak, Paragraph, Table, TableStyle
 
 from ...solve.results import JobResult
 from ..fmt import Display
@@ -14,7 +14,7 @@ from .pages import RULE, MarginMark
 from .styles import Styles, esc
 from .template import Template
 
-__all__ = ["Ctx", "para", "grid", "status_cell", "marked_cell", "OK_COLOUR", "NG_COLOUR", "GOVERNS_TINT"]
+__all__ = ["Ctx", "para", "heading", "grid", "status_cell", "marked_cell", "OK_COLOUR", "NG_COLOUR", "GOVERNS_TINT"]
 
 OK_COLOUR = colors.HexColor("#1d6b35")
 NG_COLOUR = colors.HexColor("#b3261e")
@@ -33,6 +33,7 @@ class Ctx:
     width: float  # frame width in points
     changed_keys: frozenset[str] = frozenset()
     revision_mark: str = ""
+    frame_height: float = 600.0
 
     def is_changed(self, key: str) -> bool:
         """True when ``key`` or anything below it (``key.x``, ``key[x]``) is in ``changed_keys``."""
@@ -61,6 +62,11 @@ def para(text: object, style, markup: str = "") -> Paragraph:
     return Paragraph(body, style)
 
 
+def heading(text: str, style, need: float = 110.0) -> list:
+    """A heading that starts a new sheet when less than ``need`` points remain (no orphans)."""
+    return [CondPageBreak(need), para(text, style)]
+
+
 def marked_cell(ctx: "Ctx", key: str, cell: Any, style=None) -> Any:
     """``cell`` with the revision triangle in the margin when ``key`` changed."""
     marks = ctx.mark(key)
@@ -77,8 +83,12 @@ def status_cell(status: str, st: Styles) -> Paragraph:
 
 
 def grid(rows: Sequence[Sequence[Any]], widths: Sequence[float], st: Styles, header_rows: int = 1,
-         extra: Sequence[tuple] = (), zebra: bool = True) -> Table:
-    """A table in our style: thin rules, tinted header repeated on every page, rows never split."""
+         extra: Sequence[tuple] = (), zebra: bool = True, frame_height: float = 560.0) -> Table:
+    """A table in our style: thin rules, tinted header repeated on every page.
+
+    Rows are kept whole; only a table with a row taller than half of ``frame_height`` (when given)
+    may split inside rows, so that nothing is ever too tall to place.
+    """
     data = []
     ng = []
     for r, row in enumerate(rows):
@@ -93,7 +103,12 @@ def grid(rows: Sequence[Sequence[Any]], widths: Sequence[float], st: Styles, hea
             else:
                 cells.append(cell)
         data.append(cells)
-    t = Table(data, colWidths=list(widths), repeatRows=header_rows, hAlign="LEFT", splitInRow=1)
+    split = 0
+    if frame_height:
+        probe = Table(data, colWidths=list(widths))
+        probe.wrap(sum(widths), 1e7)
+        split = int(max(probe._rowHeights, default=0) > 0.5 * frame_height)
+    t = Table(data, colWidths=list(widths), repeatRows=header_rows, hAlign="LEFT", splitInRow=split)
     cmds = [
         ("VALIGN", (0, 0), (-1, -1), "TOP"),
         ("LEFTPADDING", (0, 0), (-1, -1), 3),

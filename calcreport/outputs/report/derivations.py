@@ -10,7 +10,7 @@ from reportlab.platypus import Paragraph
 
 from ...solve.results import MemberResult
 from ...steps import Step
-from .common import GOVERNS_TINT, Ctx, grid, para
+from .common import GOVERNS_TINT, Ctx, heading, grid, para
 from .styles import esc
 
 __all__ = ["derivation_story", "group_steps", "step_rows"]
@@ -56,11 +56,12 @@ def step_rows(steps: list[Step], ctx: Ctx, number_prefix: str) -> tuple[list[lis
     for i, s in enumerate(steps, 1):
         r = len(rows)
         tag = '  <font color="#7a5a00"><b>[governs]</b></font>' if s.governs else ""
+        sub, res = d.substituted(s), ctx.q(s.result)
+        line = f"= <b>{esc(res)}</b>" if sub.strip() == res else f"= {esc(sub)}   = <b>{esc(res)}</b>"
         body = [
             Paragraph(f"<b>{esc(s.label)}</b>{tag}", st.cell),
             para(s.symbol, st.formula),
-            Paragraph("= " + esc(d.substituted(s)), st.formula),
-            Paragraph("= <b>" + esc(ctx.q(s.result)) + "</b>", st.formula),
+            Paragraph(line, st.formula),
         ]
         if s.note:
             body.append(para(s.note, st.caption))
@@ -75,12 +76,13 @@ def step_rows(steps: list[Step], ctx: Ctx, number_prefix: str) -> tuple[list[lis
 def derivation_story(m: MemberResult, ctx: Ctx, section_no: str) -> list:
     """Headings and one table per group of steps; rows split across pages with repeated headers."""
     st = ctx.styles
-    out: list = [Paragraph("Derivation", st.h2),
+    out: list = [*heading("Derivation", st.h2),
                  Paragraph("Each step gives the formula, the formula with the numbers substituted, the result "
                            "and its source. Steps that govern are tinted.", st.small)]
     w = ctx.width
     for g, (_, title, steps) in enumerate(group_steps(m), 1):
-        out.append(para(f"{section_no}.{g}  {title}", st.h3))
+        out += heading(f"{section_no}.{g}  {title}", st.h3)
         rows, extra = step_rows(steps, ctx, f"{section_no}.{g}.")
-        out.append(grid(rows, [0.09 * w, 0.63 * w, 0.28 * w], st, extra=extra, zebra=False))
+        out.append(grid(rows, [0.09 * w, 0.63 * w, 0.28 * w], st, extra=extra, zebra=False,
+                        frame_height=ctx.frame_height))
     return out

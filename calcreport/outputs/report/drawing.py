@@ -136,7 +136,8 @@ def section_drawing(m: MemberResult, ctx: Ctx) -> tuple[Drawing, str]:
         return ox + x * k, oy + y * k
 
     families = []
-    labels_left = []
+    labels_left: list[tuple[str, float, float]] = []
+    labels_right: list[tuple[str, float, float]] = []
     for p in parts:
         fam = p.material.family if p.material.family in FAMILY_STYLE else "other"
         if fam not in families:
@@ -168,13 +169,15 @@ def section_drawing(m: MemberResult, ctx: Ctx) -> tuple[Drawing, str]:
             dr.add(Rect(rp.x - tw / 2 - 1.5, rp.y - 2.5, tw + 3, 8.5, fillColor=colors.white,
                         strokeColor=None, fillOpacity=0.85))
             dr.add(String(rp.x, rp.y, text, fontName=bold, fontSize=6.5, textAnchor="middle"))
-        else:
+        elif rp.x <= ox + (xmin + xmax) / 2 * k:
             labels_left.append((text, rp.x, rp.y))
+        else:
+            labels_right.append((text, rp.x, rp.y))
 
     # neutral axis (dash-dot) with its label
     ybar = float((m.section.bottom + m.section.centroid).to("inch").magnitude)
     _, ny = P(0, ybar)
-    lx0, lx1 = P(xmin, 0)[0] - 14, P(xmax, 0)[0] + 14
+    lx0, lx1 = P(xmin, 0)[0] - 14, P(xmax, 0)[0] + 9
     dr.add(Line(lx0, ny, lx1, ny, strokeColor=colors.HexColor("#1f3a93"), strokeWidth=0.8,
                 strokeDashArray=[7, 2, 1.2, 2]))
     na_text = f"N.A.  ȳ = {d.quantity(m.section.centroid)}"
@@ -200,9 +203,6 @@ def section_drawing(m: MemberResult, ctx: Ctx) -> tuple[Drawing, str]:
     dr.add(Line(dim_x, by_bot, dim_x, by_top, strokeColor=dim, strokeWidth=0.6))
     for t in _ticks(dim_x, by_bot, dim_x, by_top, dim):
         dr.add(t)
-    g = Group(String(0, 0, d.quantity(m.section.depth), fontName=font, fontSize=6.8, textAnchor="middle"))
-    g.transform = (0, 1, -1, 0, dim_x - 3, (by_bot + by_top) / 2)
-    dr.add(g)
     wx0, wy = P(xmin, ymin)
     wx1, _ = P(xmax, ymin)
     dim_y = wy - 14
@@ -215,7 +215,7 @@ def section_drawing(m: MemberResult, ctx: Ctx) -> tuple[Drawing, str]:
                   fontSize=6.8, textAnchor="middle"))
 
     # shear planes with connector symbols, joint ids in a right column
-    wanted, anchors = [], []
+    wanted, anchors, ys = [], [], []
     for j in m.joints:
         cont = j.continuous
         for (a, b) in j.plane:
@@ -240,14 +240,38 @@ def section_drawing(m: MemberResult, ctx: Ctx) -> tuple[Drawing, str]:
         if j.plane:
             (a, b) = j.plane[0]
             (x0, y0), (x1, y1) = P(*a), P(*b)
-            anchors.append(((x0 + x1) / 2, (y0 + y1) / 2, plain(j.id)[:28]))
+            anchors.append(((x0 + x1) / 2, (y0 + y1) / 2, plain(j.id)[:28], True))
             wanted.append((y0 + y1) / 2)
+    for text, px, py in labels_right:
+        anchors.append((px, py, text, False))
+        wanted.append(py)
     if anchors:
         ys = _pack(wanted, BOTTOM - 30, height - 6, gap=10)
         col_x = dim_x + 16
-        for (ax, ay, text), y in zip(anchors, ys):
-            dr.add(Line(ax, ay, col_x - 2, y + 2, strokeColor=PLANE, strokeWidth=0.4))
-            dr.add(String(col_x, y, text, fontName=bold, fontSize=6.5, fillColor=PLANE))
+        for (ax, ay, text, is_joint), y in zip(anchors, ys):
+            col = PLANE if is_joint else colors.black
+            dr.add(Line(ax, ay, col_x - 2, y + 2, strokeColor=PLANE if is_joint else colors.HexColor("#555555"),
+                        strokeWidth=0.4))
+            if not is_joint:
+                dr.add(Circle(ax, ay, 0.9, fillColor=colors.black, strokeColor=None))
+            dr.add(String(col_x, y, text, fontName=bold, fontSize=6.5, fillColor=col))
+
+    # depth text: where no leader or the neutral axis crosses the dimension line
+    depth_text = d.quantity(m.section.depth)
+    half = stringWidth(depth_text, font, 6.8) / 2 + 3
+    busy = [ny] + [ay for ax, ay, _, _ in anchors] + list(ys if anchors else [])
+    best_y, best_gap = (by_bot + by_top) / 2, -1.0
+    for f in (0.5, 0.35, 0.65, 0.2, 0.8):
+        yc = by_bot + (by_top - by_bot) * f
+        gap = min((abs(yc - b) for b in busy), default=1e9) - half
+        if gap > best_gap + 1e-9:
+            best_y, best_gap = yc, gap
+        if gap >= 4:
+            best_y = yc
+            break
+    g = Group(String(0, 0, depth_text, fontName=font, fontSize=6.8, textAnchor="middle"))
+    g.transform = (0, 1, -1, 0, dim_x - 3, best_y)
+    dr.add(g)
 
     # legend and scale bar along the bottom
     x = 4.0

@@ -12,7 +12,7 @@ from reportlab.platypus import Paragraph
 from ...model import Member
 from ...solve.results import MemberResult
 from ...units import Q_
-from .common import Ctx, grid, marked_cell, para
+from .common import Ctx, heading, grid, marked_cell, para
 
 __all__ = ["description_story", "assumptions_story", "inputs_story", "ELASTIC_ASSUMPTIONS"]
 
@@ -33,7 +33,7 @@ def _inch(v: float) -> Q_:
 
 def description_story(m: MemberResult, ctx: Ctx) -> list:
     st = ctx.styles
-    out: list = [Paragraph("Description", st.h2)]
+    out: list = [*heading("Description", st.h2)]
     text = m.member.description or "(no description given in the job file)"
     out.append(para(text, st.body))
     for n in m.member.notes:
@@ -43,7 +43,7 @@ def description_story(m: MemberResult, ctx: Ctx) -> list:
 
 def assumptions_story(m: MemberResult, ctx: Ctx) -> list:
     st = ctx.styles
-    out: list = [Paragraph("Assumptions", st.h2)]
+    out: list = [*heading("Assumptions", st.h2)]
     rows = [["No.", "Assumption"]]
     items = list(ELASTIC_ASSUMPTIONS) + list(m.member.assumptions)
     for i, a in enumerate(items, 1):
@@ -147,9 +147,9 @@ def _shear_and_settings(m: MemberResult, ctx: Ctx):
 def inputs_story(m: MemberResult, ctx: Ctx) -> list:
     st = ctx.styles
     return [
-        Paragraph("Inputs", st.h2),
-        Paragraph("Parts of the section", st.h3), _parts_table(m.member, ctx),
-        Paragraph("Materials", st.h3), _materials_table(m.member, ctx),
-        Paragraph("Connectors", st.h3), _connectors_table(m, ctx),
-        Paragraph("Design shear and settings", st.h3), _shear_and_settings(m, ctx),
+        *heading("Inputs", st.h2),
+        *heading("Parts of the section", st.h3), _parts_table(m.member, ctx),
+        *heading("Materials", st.h3), _materials_table(m.member, ctx),
+        *heading("Connectors", st.h3), _connectors_table(m, ctx),
+        *heading("Design shear and settings", st.h3), _shear_and_settings(m, ctx),
     ]

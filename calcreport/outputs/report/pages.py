@@ -100,11 +100,13 @@ class ReportDoc(BaseDocTemplate):
         self.tpl, self.styles, self.info = template, styles, info
         self.current_subject = info.subject
         self.seen_sections: dict[str, int] = {}
+        self._subject_page = 0
         left, right, top, bottom = template.margins
         w, h = template.pagesize
         super().__init__(target, pagesize=(w, h), leftMargin=left, rightMargin=right, topMargin=top,
                          bottomMargin=bottom, invariant=1, **kw)
-        frame = Frame(left, bottom + FOOTER_H + 4, w - left - right, h - top - bottom - TITLE_H - GAP - FOOTER_H - 4,
+        self.frame_height = h - top - bottom - TITLE_H - GAP - FOOTER_H - 4
+        frame = Frame(left, bottom + FOOTER_H + 4, w - left - right, self.frame_height,
                       id="body", leftPadding=0, rightPadding=0, topPadding=0, bottomPadding=0)
         self.addPageTemplates([PageTemplate("sheet", frames=[frame], onPageEnd=self._furniture)])
         self._canvasmaker = canvasmaker
@@ -116,7 +118,9 @@ class ReportDoc(BaseDocTemplate):
     def afterFlowable(self, flowable):
         if isinstance(flowable, SectionStart):
             self.seen_sections.setdefault(flowable.sid, self.page)
-            self.current_subject = flowable.subject
+            if self._subject_page != self.page:  # the first section begun on a sheet names it
+                self.current_subject = flowable.subject
+                self._subject_page = self.page
 
     # -- drawing ----------------------------------------------------------------------------
     def _furniture(self, canv, doc):
@@ -179,15 +183,13 @@ class ReportDoc(BaseDocTemplate):
             c.setFont(st.fonts.regular, s)
             c.drawString(fx, y1 - 24 - i * 8.2, t)
         c.setFillColor(colors.black)
-        # project column
+        # project column: project, subject, member / part
         px, pw = cf + 5, cs - cf - 10
         self._label(c, px, y1 - 8, "Project")
         self._value(c, px, y1 - 17.5, info.project, pw, 8.6, bold=True)
-        self._label(c, px, y1 - 26, "Job no.")
-        self._value(c, px + 28, y1 - 26, info.number, pw * 0.45 - 28, 7.4)
-        self._label(c, px + pw * 0.5, y1 - 26, "Subject")
-        self._value(c, px + pw * 0.5 + 30, y1 - 26, info.subject, pw * 0.5 - 30, 7.4)
-        self._label(c, px, y1 - 37, "Member / part")
+        self._label(c, px, y1 - 25.5, "Subject")
+        self._value(c, px + 30, y1 - 26, info.subject, pw - 30, 7.4)
+        self._label(c, px, y1 - 36, "Member / part")
         self._value(c, px, y1 - 46, self.current_subject, pw, 8.0)
         # sheet column
         sx, sw = cs + 5, x1 - cs - 10
@@ -196,15 +198,15 @@ class ReportDoc(BaseDocTemplate):
         self._value(c, sx, y1 - 21, f"Sheet {self.page} of {total}", sw, 9.5, bold=True)
         self._label(c, sx, y1 - 33, "Revision")
         self._value(c, sx, y1 - 45, info.revision or "—", sw, 11, bold=True)
-        # bottom strip
+        # bottom strip: prepared, checked, job number
         third = width / 3
         for i, (lab, name, date) in enumerate((("Prepared", info.prepared, info.prepared_date),
                                                 ("Checked", info.checked, info.checked_date))):
             bx = x0 + 5 + i * third
             self._label(c, bx, row - 10, lab)
             self._value(c, bx + 36, row - 10.5, f"{name or '—'}   {date}".strip(), third - 44, 7.4)
-        self._label(c, x0 + 5 + 2 * third, row - 10, "File")
-        self._value(c, x0 + 5 + 2 * third + 20, row - 10.5, info.job_file, third - 30, 7.0)
+        self._label(c, x0 + 5 + 2 * third, row - 10, "Job no.")
+        self._value(c, x0 + 5 + 2 * third + 30, row - 10.5, info.number or "—", third - 40, 7.4)
 
     def _footer(self, c):
         tpl, info, st = self.tpl, self.info, self.styles
@@ -216,7 +218,9 @@ class ReportDoc(BaseDocTemplate):
         c.line(left, y, w - right, y)
         c.setFont(st.fonts.mono, 6.6)
         c.setFillColor(GREY)
-        c.drawString(left, y - 9, f"job SHA-256 {info.sha_short}")
+        t, size = fit_text(f"{info.job_file}  SHA-256 {info.sha_short}", st.fonts.mono, 6.6, (w - left - right) * 0.42)
+        c.setFont(st.fonts.mono, size)
+        c.drawString(left, y - 9, t)
         c.setFont(st.fonts.regular, 6.6)
         c.drawRightString(w - right, y - 9, f"calcreport {info.version} — not valid unless reviewed, "
                           "signed and sealed by a licensed engineer")

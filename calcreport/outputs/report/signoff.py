@@ -5,7 +5,7 @@ from __future__ import annotations
 from reportlab.lib import colors
 from reportlab.platypus import KeepTogether, Paragraph, Spacer, Table, TableStyle
 
-from .common import Ctx, para
+from .common import Ctx, heading, para
 from .pages import RULE
 from .styles import esc
 
@@ -81,10 +81,10 @@ def signoff_story(ctx: Ctx) -> list:
 
 def limitations_story(ctx: Ctx) -> list:
     st = ctx.styles
-    out: list = [Paragraph("Limitations and cautions", st.h2)]
+    out: list = [*heading("Limitations and cautions", st.h2)]
     for i, c in enumerate(CAUTIONS, 1):
         out.append(para(f"{i}. {c}", st.body))
-    out.append(Paragraph("This tool does not check:", st.h3))
+    out.extend(heading("This tool does not check:", st.h3))
     for item in NOT_CHECKED:
         out.append(Paragraph("• " + esc(item), st.body))
     return out
