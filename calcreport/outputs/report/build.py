@@ -9,6 +9,7 @@ deterministic: reportlab's invariant mode, a creation date from the job (``[job]
 
 from __future__ import annotations
 
+import hashlib
 import io
 import os
 import re
@@ -93,6 +94,9 @@ def _canvasmaker(extra: dict[str, str], stamp: TimeStamp):
             info.invariant = 1
             self._doc.info = info
             self._doc._timeStamp = stamp
+            sig = self._doc.signature = hashlib.md5(usedforsecurity=False)  # file id from our date only
+            sig.update(b"a reportlab document")
+            sig.update(ascii(stamp.t).encode("ascii"))
             self.setCreator(f"calcreport {__version__}")
             self.setProducer(f"calcreport {__version__} (ReportLab)")
 

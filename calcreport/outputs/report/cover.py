@@ -4,7 +4,6 @@ from __future__ import annotations
 
 import os
 
-from reportlab.lib import colors
 from reportlab.platypus import Flowable, Paragraph, Spacer, Table, TableStyle
 
 from ...solve.results import MemberResult
@@ -125,5 +124,4 @@ def cover_story(ctx: Ctx, info: PageInfo, sections: list[tuple[str, str]]) -> li
     story.append(Spacer(1, 6))
     story.append(Paragraph("This report is not valid unless reviewed, signed and sealed by a licensed "
                            "professional engineer. Limitations and cautions are listed at the end.", st.small))
-    _ = colors
     return story

@@ -294,8 +294,9 @@ def section_drawing(m: MemberResult, ctx: Ctx) -> tuple[Drawing, str]:
     dr.add(String(x + 19, y + 1.5, "shear plane, connector", fontName=font, fontSize=6.5))
     x += 100
     _scale_bar(dr, ctx, x, y, k, font)
-    caption = (f"Section of {m.id} to scale 1:{ratio:g} when printed at 100 %. Parts are tinted by material "
-               "family; dashed outlines are parts given by properties (outline not known).")
+    caption = f"Section of {m.id} to scale 1:{ratio:g} when printed at 100 %. Parts are tinted by material family."
+    if any(p.shape.kind == "properties" for p in parts):
+        caption += " Dashed outlines are parts given by their properties (only the bounding box is known)."
     return dr, caption
 
 
