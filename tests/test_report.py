@@ -219,3 +219,14 @@ def test_render_does_not_touch_the_disk(tmp_path, monkeypatch):
     pdf = render_pdf(solve_file(str(DEMO)))
     assert pdf.startswith(b"%PDF-") and pdf.rstrip().endswith(b"%%EOF")
     assert os.listdir(tmp_path) == []
+
+
+@pytest.mark.parametrize("job", sorted((ROOT / "jobs").glob("*.toml")), ids=lambda p: p.stem)
+def test_every_demo_job_builds(job, tmp_path):
+    result = solve_file(str(job))
+    out = build_pdf(result, tmp_path / "r.pdf")
+    pages = pages_text(out)
+    flat = squash("".join(pages))
+    assert squash(f"Sheet {len(pages)} of {len(pages)}") in flat
+    for m in result.members:
+        assert squash(f"Member {m.id}") in flat and squash(f"Section of {m.id} to scale") in flat

@@ -103,7 +103,7 @@ def _materials_table(member: Member, ctx: Ctx):
         name = f"{mat.id} — {mat.name}" + (" (reference)" if mat.id == member.reference_material.id else "")
         rows.append([marked_cell(ctx, f"material[{mat.id}]", name), mat.family, ctx.q(mat.E),
                      "; ".join(stresses) or "—", "; ".join(other) or "—"])
-    return grid(rows, [0.32 * w, 0.10 * w, 0.13 * w, 0.25 * w, 0.20 * w], ctx.styles)
+    return grid(rows, [0.30 * w, 0.10 * w, 0.16 * w, 0.25 * w, 0.19 * w], ctx.styles)
 
 
 def _connectors_table(m: MemberResult, ctx: Ctx):
