@@ -108,8 +108,15 @@ def _pack(wanted: list[float], lo: float, hi: float, gap: float = 9.0, fixed: tu
     over = max(placed.values(), default=lo) - hi
     if over > 0:
         for i in placed:
-            placed[i] -= over
+            placed[i] = max(lo, placed[i] - over)
     return [placed[i] for i in range(len(wanted))]
+
+
+def _label_fits(part, k: float, font: str) -> bool:
+    """Whether the part's id fits inside its outline at scale ``k`` (else it is labelled outside)."""
+    x0, y0, x1, y1 = part.shape.bbox
+    tw = stringWidth(plain(part.id)[:24], font, 6.5)
+    return (x1 - x0) * k > tw + 6 and (y1 - y0) * k > 10
 
 
 def section_drawing(m: MemberResult, ctx: Ctx) -> tuple[Drawing, str]:
@@ -127,10 +134,23 @@ def section_drawing(m: MemberResult, ctx: Ctx) -> tuple[Drawing, str]:
     fit = min(avail_w / sw, avail_h / sh)  # points per inch of section
     ratio = nice_ratio(72.0 / fit)
     k = 72.0 / ratio
+    # labels outside the section need room: grow the drawing (scale unchanged), then tighten the gap
+    mid = (xmin + xmax) / 2
+    out_parts = [p for p in parts if not _label_fits(p, k, bold)]
+    n_left = sum(1 for p in out_parts if (p.shape.bbox[0] + p.shape.bbox[2]) / 2 <= mid)
+    outside = max(n_left, len(out_parts) - n_left + len(m.joints))
     height = sh * k + BOTTOM + TOP
+    need = outside * 10.0 + BOTTOM + TOP
+    cap = max(height, ctx.frame_height - 40)
+    lift = 0.0
+    if need > height:
+        new_h = min(need, cap)
+        lift = (new_h - height) / 2
+        height = new_h
+    gap = max(5.5, min(10.0, (height - TOP - 10) / max(outside, 1)))
     dr = Drawing(ctx.width, height)
     ox = LEFT + (avail_w - sw * k) / 2 - xmin * k
-    oy = BOTTOM - ymin * k
+    oy = BOTTOM + lift - ymin * k
 
     def P(x: float, y: float) -> tuple[float, float]:
         return ox + x * k, oy + y * k
@@ -186,12 +206,12 @@ def section_drawing(m: MemberResult, ctx: Ctx) -> tuple[Drawing, str]:
 
     # part labels that did not fit inside their part: left column with leaders
     if labels_left:
-        ys = _pack([y for _, _, y in labels_left], BOTTOM, height - 6, fixed=(ny + 4,))
+        ys = _pack([y for _, _, y in labels_left], 26, height - 6, gap=gap, fixed=(ny + 4,))
         col_x = lx0 - 6
         for (text, px, py), y in zip(labels_left, ys):
             dr.add(Line(col_x + 1, y + 2, px, py, strokeColor=colors.HexColor("#555555"), strokeWidth=0.4))
             dr.add(Circle(px, py, 0.9, fillColor=colors.black, strokeColor=None))
-            dr.add(String(col_x, y, text, fontName=bold, fontSize=6.5, textAnchor="end"))
+            dr.add(String(col_x, y, text, fontName=bold, fontSize=min(6.5, gap - 1), textAnchor="end"))
 
     # overall depth (right) and width (below)
     bx, by_top = P(xmax, ymax)
@@ -246,7 +266,7 @@ def section_drawing(m: MemberResult, ctx: Ctx) -> tuple[Drawing, str]:
         anchors.append((px, py, text, False))
         wanted.append(py)
     if anchors:
-        ys = _pack(wanted, BOTTOM - 30, height - 6, gap=10)
+        ys = _pack(wanted, 26, height - 6, gap=gap)
         col_x = dim_x + 16
         for (ax, ay, text, is_joint), y in zip(anchors, ys):
             col = PLANE if is_joint else colors.black
@@ -254,7 +274,7 @@ def section_drawing(m: MemberResult, ctx: Ctx) -> tuple[Drawing, str]:
                         strokeWidth=0.4))
             if not is_joint:
                 dr.add(Circle(ax, ay, 0.9, fillColor=colors.black, strokeColor=None))
-            dr.add(String(col_x, y, text, fontName=bold, fontSize=6.5, fillColor=col))
+            dr.add(String(col_x, y, text, fontName=bold, fontSize=min(6.5, gap - 1), fillColor=col))
 
     # depth text: where no leader or the neutral axis crosses the dimension line
     depth_text = d.quantity(m.section.depth)
