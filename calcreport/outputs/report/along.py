@@ -6,7 +6,7 @@
 * each joint's ``schedule`` (``JointResult.schedule``) as a table of zones — start, end, spacing,
   count — read from ``schedule.zones`` whose items are ``(start, end, spacing, count)`` tuples or
   objects with those attributes (quantities, or plain floats in inches);
-* the beam analysis (``MemberResult.beam``): V and M envelope charts when ``beam.envelope`` has
+* the beam analysis (``MemberResult.beam``): V and M envelope charts when ``beam.envelope`` (or ``beam.analysis.envelope``) has
   ``x`` with ``V_max``/``V_min`` and ``M_max``/``M_min`` as array quantities.
 
 The loads developer replaces or extends :func:`beam_figures` and :func:`schedule_figures` (e.g. a
@@ -90,6 +90,8 @@ def beam_figures(m: MemberResult, ctx: Ctx) -> list[Flowable]:
     """Shear and moment envelopes when the beam result carries them; a note otherwise."""
     st = ctx.styles
     env = getattr(m.beam, "envelope", None)
+    if env is None:  # AlongResult keeps the beam analysis under .analysis
+        env = getattr(getattr(m.beam, "analysis", None), "envelope", None)
     x = getattr(env, "x", None)
     out: list[Flowable] = []
     for name, lo, hi in (("Shear V", "V_min", "V_max"), ("Bending moment M", "M_min", "M_max")):
