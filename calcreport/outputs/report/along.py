@@ -1,0 +1,110 @@
+"""Extension point for loads along the member: figures and schedule tables for one member.
+
+``member_figures(m, ctx)`` is called for every member after its results. It returns flowables
+(charts, tables). Today it renders generically:
+
+* each joint's ``schedule`` (``JointResult.schedule``) as a table of zones — start, end, spacing,
+  count — read from ``schedule.zones`` whose items are ``(start, end, spacing, count)`` tuples or
+  objects with those attributes (quantities, or plain floats in inches);
+* the beam analysis (``MemberResult.beam``): V and M envelope charts when ``beam.envelope`` (or ``beam.analysis.envelope``) has
+  ``x`` with ``V_max``/``V_min`` and ``M_max``/``M_min`` as array quantities.
+
+The loads developer replaces or extends :func:`beam_figures` and :func:`schedule_figures` (e.g. a
+zone elevation); :func:`.plots.line_chart` draws x–y charts with labelled axes.
+"""
+
+from __future__ import annotations
+
+from typing import Any
+
+from reportlab.platypus import Flowable, KeepTogether, Paragraph
+
+from ...solve.results import JointResult, MemberResult
+from ...units import Q_, Quantity
+from .common import Ctx, grid, para
+from .plots import Series, line_chart, series_values
+
+__all__ = ["member_figures", "beam_figures", "schedule_figures", "zone_rows"]
+
+
+def member_figures(m: MemberResult, ctx: Ctx) -> list[Flowable]:
+    """Flowables for the analysis along the member and the joints' zoned schedules (may be empty)."""
+    out: list[Flowable] = []
+    if m.beam is not None:
+        out += beam_figures(m, ctx)
+    for j in m.joints:
+        if j.schedule is not None:
+            out += schedule_figures(j, ctx)
+    if out:
+        out.insert(0, Paragraph("Along the member", ctx.styles.h2))
+    return out
+
+
+def _get(obj: Any, name: str, index: int) -> Any:
+    if isinstance(obj, (tuple, list)):
+        return obj[index] if index < len(obj) else None
+    if isinstance(obj, dict):
+        return obj.get(name)
+    return getattr(obj, name, None)
+
+
+def _len_text(v: Any, ctx: Ctx) -> str:
+    if v is None:
+        return "—"
+    if isinstance(v, Quantity):
+        return ctx.q(v, 4)
+    if isinstance(v, (int, float)):
+        return ctx.q(Q_(float(v), "inch"), 4)
+    return str(v)
+
+
+def zone_rows(schedule: Any, ctx: Ctx) -> list[list]:
+    """Rows (header first) of a zoned schedule: start, end, spacing, count."""
+    zones = getattr(schedule, "zones", schedule)
+    rows = [["Zone", "From", "To", "Spacing", "Connectors (rows)"]]
+    for i, z in enumerate(zones or (), 1):
+        count = _get(z, "count", 3)
+        rows.append([str(i), _len_text(_get(z, "start", 0), ctx), _len_text(_get(z, "end", 1), ctx),
+                     _len_text(_get(z, "spacing", 2), ctx), "—" if count is None else ctx.q(count)])
+    return rows
+
+
+def schedule_figures(j: JointResult, ctx: Ctx) -> list[Flowable]:
+    st, w = ctx.styles, ctx.width
+    title = para(f"Connector schedule — joint {j.id}", st.h3)
+    rows = zone_rows(j.schedule, ctx)
+    out: list[Flowable] = [KeepTogether([title, grid(rows, [0.1 * w, 0.2 * w, 0.2 * w, 0.2 * w, 0.3 * w], st)])]
+    total = getattr(j.schedule, "count", None)
+    status = getattr(j.schedule, "status", None)
+    note = []
+    if total is not None:
+        note.append(f"total {ctx.q(total)} connector rows")
+    if status:
+        note.append(f"status {status}")
+    if note:
+        out.append(para("; ".join(note), st.small))
+    return out
+
+
+def beam_figures(m: MemberResult, ctx: Ctx) -> list[Flowable]:
+    """Shear and moment envelopes when the beam result carries them; a note otherwise."""
+    st = ctx.styles
+    env = getattr(m.beam, "envelope", None)
+    if env is None:  # AlongResult keeps the beam analysis under .analysis
+        env = getattr(getattr(m.beam, "analysis", None), "envelope", None)
+    x = getattr(env, "x", None)
+    out: list[Flowable] = []
+    for name, lo, hi in (("Shear V", "V_min", "V_max"), ("Bending moment M", "M_min", "M_max")):
+        a, b = getattr(env, lo, None), getattr(env, hi, None)
+        if not (isinstance(x, Quantity) and isinstance(a, Quantity) and isinstance(b, Quantity)):
+            continue
+        xs, xu = series_values(ctx.display, x)
+        ys_hi, yu = series_values(ctx.display, b)
+        ys_lo, _ = series_values(ctx.display, a)
+        chart = line_chart([Series("maximum", xs, ys_hi), Series("minimum", xs, ys_lo, dashed=True)],
+                           f"x along the member ({xu})", f"{name.split()[-1]} ({yu})", ctx.width, 150,
+                           st.fonts, title=f"{name} envelope")
+        out.append(KeepTogether([chart, para(f"{name} envelope over the load combinations.", st.caption)]))
+    if not out:
+        out.append(para("The analysis along the member is given step by step in the derivation.", st.small))
+    return out

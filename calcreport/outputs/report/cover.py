@@ -1,0 +1,127 @@
+"""Cover sheet: title, seal box, job data, summary of members, revision history and contents."""
+
+from __future__ import annotations
+
+import os
+
+from reportlab.platypus import Flowable, Paragraph, Spacer, Table, TableStyle
+
+from ...solve.results import MemberResult
+from .common import Ctx, grid, para
+from .pages import GREY, PageInfo
+from .styles import esc
+
+__all__ = ["cover_story", "governing_text", "SealBox"]
+
+
+class SealBox(Flowable):
+    """An empty framed box reserved for the engineer's seal and signature."""
+
+    def __init__(self, width: float, height: float, font: str):
+        super().__init__()
+        self.width, self.height, self.font = width, height, font
+
+    def wrap(self, aw, ah):
+        return self.width, self.height
+
+    def draw(self):
+        c = self.canv
+        c.saveState()
+        c.setLineWidth(0.9)
+        c.rect(0, 0, self.width, self.height)
+        c.setFont(self.font, 6.5)
+        c.setFillColor(GREY)
+        c.drawCentredString(self.width / 2, 6, "ENGINEER'S SEAL AND SIGNATURE")
+        c.restoreState()
+
+
+def governing_text(m: MemberResult, ctx: Ctx) -> str:
+    """The member's highest utilisation (joint or check), described in words and numbers."""
+    best = None  # (ratio, text)
+    for j in m.joints:
+        if j.continuous:
+            text = (f"joint {j.id}: q = {ctx.q(j.shear_flow)} against {ctx.q(j.capacity_row)} (continuous); "
+                    f"utilisation {ctx.q(j.utilisation, 3)}")
+        else:
+            text = (f"joint {j.id}: q = {ctx.q(j.shear_flow)}; s = {ctx.q(j.spacing_provided, 3)} "
+                    f"(required {ctx.q(j.spacing_required)}); utilisation {ctx.q(j.utilisation, 3)}")
+        if j.status == "NG" and j.reasons:
+            text += " — " + "; ".join(j.reasons)
+        key = (j.status == "NG", j.utilisation)
+        if best is None or key > best[0]:
+            best = (key, text)
+        for c in j.checks:
+            if c.ratio is not None or c.status == "NG":
+                ck = (c.status == "NG", c.ratio or 0.0)
+                if ck > best[0]:
+                    best = (ck, f"joint {j.id}: {c.label}, ratio {ctx.q(c.ratio, 3)}")
+    for c in m.checks:
+        if c.ratio is not None or c.status == "NG":
+            ck = (c.status == "NG", c.ratio or 0.0)
+            if best is None or ck > best[0]:
+                best = (ck, f"{c.label}: {ctx.q(c.demand)} against {ctx.q(c.capacity)}, ratio {ctx.q(c.ratio, 3)}")
+    return best[1] if best else "no joints or checks"
+
+
+def cover_story(ctx: Ctx, info: PageInfo, sections: list[tuple[str, str]]) -> list:
+    st, job = ctx.styles, ctx.result.job
+    h = job.header
+    story: list = []
+    seal_w = 2.3 * 72
+    left_w = ctx.width - seal_w - 14
+    status = ctx.result.status
+    colour = "#1d6b35" if status == "OK" else "#b3261e"
+    intro = [
+        Paragraph("Structural calculation", st.h3),
+        para(h.subject or h.project, st.h1),
+        para(h.project, st.body),
+        Paragraph(f'Overall result: <font color="{colour}"><b>{esc(status)}</b></font>'
+                  + ("" if status == "OK" else " — see the members marked NG below"), st.body),
+        Spacer(1, 4),
+    ]
+    facts = [
+        ("Client", h.client or "—"), ("Job number", h.number or "—"),
+        ("Design method", f"{job.settings.method}"), ("Units", f"{job.settings.units}"),
+        ("Revision", f"{h.revision}   {h.date}".strip()),
+        ("Job file", os.path.basename(job.path)), ("Job file SHA-256", job.sha256),
+    ]
+    ft = Table([[para(k, st.cell_bold), para(v, st.cell)] for k, v in facts],
+               colWidths=[78, left_w - 78], hAlign="LEFT")
+    ft.setStyle(TableStyle([("VALIGN", (0, 0), (-1, -1), "TOP"), ("LEFTPADDING", (0, 0), (-1, -1), 0),
+                            ("TOPPADDING", (0, 0), (-1, -1), 1), ("BOTTOMPADDING", (0, 0), (-1, -1), 1.5)]))
+    top = Table([[intro + [ft], SealBox(seal_w, seal_w, st.fonts.regular)]],
+                colWidths=[left_w + 14, seal_w], hAlign="LEFT")
+    top.setStyle(TableStyle([("VALIGN", (0, 0), (-1, -1), "TOP"), ("LEFTPADDING", (0, 0), (-1, -1), 0),
+                             ("RIGHTPADDING", (0, 0), (-1, -1), 0)]))
+    story.append(top)
+
+    story.append(Paragraph("Summary of members", st.h2))
+    w = ctx.width
+    rows = [["Member", "Title", "Governing result", "Status"]]
+    for m in ctx.result.members:
+        rows.append([m.id, m.member.title, governing_text(m, ctx), m.status])
+    story.append(grid(rows, [0.11 * w, 0.24 * w, 0.55 * w, 0.10 * w], st))
+
+    story.append(Paragraph("Revision history", st.h2))
+    hist = [["Rev.", "Date", "By", "Description"]]
+    for r in h.history:
+        hist.append([r.mark, r.date, r.by, r.description])
+    if len(hist) == 1:
+        hist.append([h.revision, h.date, h.prepared_by, "(no history given in the job file)"])
+    story.append(grid(hist, [0.08 * w, 0.14 * w, 0.18 * w, 0.60 * w], st))
+    if h.notes:
+        story.append(Paragraph("Notes", st.h2))
+        for n in h.notes:
+            story.append(para(n, st.body))
+
+    story.append(Paragraph("Contents", st.h2))
+    toc = [["Section", "Sheet"]]
+    for sid, title in sections:
+        sheet = info.sections.get(sid)
+        toc.append([title, str(sheet) if sheet else "—"])
+    story.append(grid(toc, [0.85 * w, 0.15 * w], st, zebra=False,
+                      extra=[("ALIGN", (1, 0), (1, -1), "RIGHT")]))
+    story.append(Spacer(1, 6))
+    story.append(Paragraph("This report is not valid unless reviewed, signed and sealed by a licensed "
+                           "professional engineer. Limitations and cautions are listed at the end.", st.small))
+    return story

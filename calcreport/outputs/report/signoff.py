@@ -1,0 +1,90 @@
+"""End of the report: reviewer sign-off with room for comments, then limitations and cautions."""
+
+from __future__ import annotations
+
+from reportlab.lib import colors
+from reportlab.platypus import KeepTogether, Paragraph, Spacer, Table, TableStyle
+
+from .common import Ctx, heading, para
+from .pages import RULE
+from .styles import esc
+
+__all__ = ["signoff_story", "limitations_story", "NOT_CHECKED", "CAUTIONS"]
+
+CAUTIONS = (
+    "This report is a design aid. It is not valid until a licensed professional engineer has reviewed "
+    "the inputs, assumptions and results, and signed and sealed it.",
+    "Local building codes and the authority having jurisdiction govern. Design values, adjustment factors "
+    "and detailing limits must be confirmed against the edition of the standard adopted where the work is built.",
+    "Connector design values given in the job file are used as stated; their source is the engineer's responsibility.",
+    "Results assume the elastic behaviour stated in each member's assumptions; they are not valid beyond the "
+    "elastic range or where connectors slip appreciably.",
+)
+
+NOT_CHECKED = (
+    "bending and shear stresses in the parts themselves, unless a check above states them",
+    "lateral-torsional buckling and lateral bracing of the compression flange",
+    "local buckling, web buckling, web crippling and web yielding under concentrated loads",
+    "bearing at supports and under point loads; stiffeners",
+    "the connection of the member to its supports and to other members",
+    "deflection and camber, unless a check above states them",
+    "long-term creep and shrinkage, and load-duration effects beyond the factors stated",
+    "vibration and dynamic or impact loads",
+    "fire resistance",
+    "durability, decay, corrosion and protection of connectors (waterfront exposure in particular)",
+    "connector withdrawal, head pull-through, edge and end distances and splitting of wood, "
+    "unless a check above states them",
+    "fatigue of welds and connectors",
+    "fabrication and erection tolerances, and construction loads",
+    "stability of the structure as a whole and load paths beyond this member",
+)
+
+
+def _signature_table(ctx: Ctx) -> Table:
+    st, h = ctx.styles, ctx.result.job.header
+    w = ctx.width
+    rows = [[para("Role", st.cell_bold), para("Name", st.cell_bold), para("Signature", st.cell_bold),
+             para("Date", st.cell_bold)]]
+    for role, name, date in (("Prepared by", h.prepared_by, h.prepared_date),
+                             ("Checked by", h.checked_by, h.checked_date),
+                             ("Approved by", h.approved_by, "")):
+        rows.append([para(role, st.cell), para(name or "", st.cell), "", para(date or "", st.cell)])
+    t = Table(rows, colWidths=[0.17 * w, 0.30 * w, 0.33 * w, 0.20 * w], rowHeights=[None, 30, 30, 30],
+              hAlign="LEFT")
+    t.setStyle(TableStyle([
+        ("VALIGN", (0, 1), (-1, -1), "BOTTOM"),
+        ("BOX", (0, 0), (-1, -1), 0.7, colors.black),
+        ("LINEBELOW", (0, 0), (-1, -1), 0.4, RULE),
+        ("LINEBEFORE", (1, 0), (-1, -1), 0.4, RULE),
+        ("BACKGROUND", (0, 0), (-1, 0), st.tint),
+        ("LINEBELOW", (2, 1), (2, -1), 0.6, colors.black),
+    ]))
+    return t
+
+
+def signoff_story(ctx: Ctx) -> list:
+    st, w = ctx.styles, ctx.width
+    comments = Table([[para("Checker's comments", st.cell_bold)]] + [[""] for _ in range(7)],
+                     colWidths=[w], rowHeights=[None] + [20] * 7, hAlign="LEFT")
+    comments.setStyle(TableStyle([("BOX", (0, 0), (-1, -1), 0.7, colors.black),
+                                  ("LINEBELOW", (0, 1), (-1, -2), 0.3, RULE),
+                                  ("BACKGROUND", (0, 0), (-1, 0), st.tint)]))
+    return [
+        Paragraph("Review and sign-off", st.h1),
+        Paragraph("By signing, the checker confirms that the inputs match the drawings and the brief, the "
+                  "assumptions are appropriate, and the results have been reviewed.", st.body),
+        KeepTogether([_signature_table(ctx), Spacer(1, 10), comments]),
+        Spacer(1, 8),
+        Paragraph(f"Job file SHA-256: <font name=\"{st.fonts.mono}\">{esc(ctx.result.job.sha256)}</font>", st.small),
+    ]
+
+
+def limitations_story(ctx: Ctx) -> list:
+    st = ctx.styles
+    out: list = [*heading("Limitations and cautions", st.h2)]
+    for i, c in enumerate(CAUTIONS, 1):
+        out.append(para(f"{i}. {c}", st.body))
+    out.extend(heading("This tool does not check:", st.h3))
+    for item in NOT_CHECKED:
+        out.append(Paragraph("• " + esc(item), st.body))
+    return out

@@ -1,0 +1,182 @@
+"""Fonts, paragraph styles and safe text for the PDF report.
+
+Every piece of text from a job file goes through :func:`esc` before it becomes Paragraph markup:
+it is XML-escaped (so ``<b>`` or ``&`` print literally), characters the embedded DejaVu fonts lack
+(CJK and other scripts) are set in a CID fallback font, and control characters are dropped.
+Words too long for a line are broken by the Paragraph itself (``splitLongWords``).
+"""
+
+from __future__ import annotations
+
+import unicodedata
+from dataclasses import dataclass
+from functools import lru_cache
+from pathlib import Path
+from xml.sax.saxutils import escape
+
+from reportlab.lib import colors
+from reportlab.lib.enums import TA_LEFT
+from reportlab.lib.styles import ParagraphStyle
+from reportlab.pdfbase import pdfmetrics
+from reportlab.pdfbase.ttfonts import TTFont
+
+__all__ = ["FONT_DIR", "Fonts", "register_fonts", "Styles", "make_styles", "esc", "plain", "fit_text",
+           "FALLBACK_FONT"]
+
+FONT_DIR = Path(__file__).resolve().parents[2] / "data" / "fonts"
+#: Non-embedded CID font for scripts DejaVu does not cover (CJK); viewers supply the glyphs.
+FALLBACK_FONT = "HeiseiKakuGo-W5"
+
+
+@dataclass(frozen=True)
+class Fonts:
+    """Registered font names used by every style."""
+
+    regular: str
+    bold: str
+    mono: str
+
+
+def register_fonts(regular: Path | None = None, bold: Path | None = None, mono: Path | None = None) -> Fonts:
+    """Register the TrueType fonts (bundled DejaVu unless a template gives others); idempotent."""
+    files = {
+        "regular": regular or FONT_DIR / "DejaVuSans.ttf",
+        "bold": bold or FONT_DIR / "DejaVuSans-Bold.ttf",
+        "mono": mono or FONT_DIR / "DejaVuSansMono.ttf",
+    }
+    names = {}
+    for role, path in files.items():
+        name = _font_name(Path(path), role)
+        if name not in pdfmetrics.getRegisteredFontNames():
+            pdfmetrics.registerFont(TTFont(name, str(path)))
+        names[role] = name
+    pdfmetrics.registerFontFamily(names["regular"], normal=names["regular"], bold=names["bold"],
+                                  italic=names["regular"], boldItalic=names["bold"])
+    _register_fallback()
+    _BODY[0] = names["regular"]
+    return Fonts(names["regular"], names["bold"], names["mono"])
+
+
+def _font_name(path: Path, role: str) -> str:
+    stem = "".join(c for c in path.stem if c.isalnum() or c == "-")
+    return f"CR-{stem}" if path.parent == FONT_DIR else f"CR-{role}-{stem}"
+
+
+@lru_cache(maxsize=1)
+def _register_fallback() -> bool:
+    from reportlab.pdfbase.cidfonts import UnicodeCIDFont
+
+    try:
+        pdfmetrics.registerFont(UnicodeCIDFont(FALLBACK_FONT))
+        return True
+    except Exception:  # pragma: no cover - reportlab without CID data
+        return False
+
+
+@lru_cache(maxsize=8)
+def _covered(font_name: str) -> frozenset[int]:
+    font = pdfmetrics.getFont(font_name)
+    return frozenset(getattr(font.face, "charToGlyph", {}).keys())
+
+
+def _clean(text: str) -> str:
+    """Drop control characters (keep tabs as spaces); NFC-normalise."""
+    text = unicodedata.normalize("NFC", str(text))
+    return "".join(" " if c in "\t\r\n" else c for c in text if c in "\t\r\n" or unicodedata.category(c)[0] != "C")
+
+
+_BODY = ["CR-DejaVuSans"]
+
+
+def esc(text: object) -> str:
+    """Paragraph-markup-safe text: escaped, with uncovered characters in the fallback font."""
+    text = _clean(text)
+    try:
+        covered = _covered(_BODY[0])
+    except KeyError:
+        return escape(text)
+    out: list[str] = []
+    run: list[str] = []
+    fallback = _register_fallback()
+    for c in text:
+        if ord(c) in covered or c == " " or not fallback:
+            if run:
+                out.append(f'<font name="{FALLBACK_FONT}">{escape("".join(run))}</font>')
+                run = []
+            out.append(escape(c))
+        else:
+            run.append(c)
+    if run:
+        out.append(f'<font name="{FALLBACK_FONT}">{escape("".join(run))}</font>')
+    return "".join(out)
+
+
+def plain(text: object) -> str:
+    """Text for direct canvas drawing (no markup): control characters dropped."""
+    return _clean(text)
+
+
+def fit_text(text: str, font: str, size: float, width: float, min_size: float = 5.5) -> tuple[str, float]:
+    """Shrink ``text`` down to ``min_size`` to fit ``width``; then cut it with an ellipsis."""
+    text = plain(text)
+    s = size
+    while s > min_size and pdfmetrics.stringWidth(text, font, s) > width:
+        s -= 0.25
+    if pdfmetrics.stringWidth(text, font, s) <= width:
+        return text, s
+    lo, hi = 0, len(text)
+    while lo < hi:
+        mid = (lo + hi + 1) // 2
+        if pdfmetrics.stringWidth(text[:mid] + "…", font, s) <= width:
+            lo = mid
+        else:
+            hi = mid - 1
+    return text[:lo] + "…", s
+
+
+@dataclass(frozen=True)
+class Styles:
+    """Paragraph styles and colours of one report."""
+
+    fonts: Fonts
+    accent: colors.Color
+    tint: colors.Color
+    body: ParagraphStyle
+    small: ParagraphStyle
+    cell: ParagraphStyle
+    cell_bold: ParagraphStyle
+    cell_right: ParagraphStyle
+    formula: ParagraphStyle
+    h1: ParagraphStyle
+    h2: ParagraphStyle
+    h3: ParagraphStyle
+    caption: ParagraphStyle
+
+
+def make_styles(fonts: Fonts, accent: colors.Color, size: float = 9.0) -> Styles:
+    """The report's styles: one sans family, modest sizes, accent colour for headings only."""
+    tint = colors.Color(accent.red + (1 - accent.red) * 0.88, accent.green + (1 - accent.green) * 0.88,
+                        accent.blue + (1 - accent.blue) * 0.88)
+    base = ParagraphStyle("body", fontName=fonts.regular, fontSize=size, leading=size * 1.3,
+                          alignment=TA_LEFT, splitLongWords=1, spaceAfter=size * 0.45)
+
+    def derive(name: str, **kw) -> ParagraphStyle:
+        return ParagraphStyle(name, parent=base, **kw)
+
+    return Styles(
+        fonts=fonts, accent=accent, tint=tint, body=base,
+        small=derive("small", fontSize=size - 1.5, leading=(size - 1.5) * 1.3),
+        cell=derive("cell", fontSize=size - 1, leading=(size - 1) * 1.25, spaceAfter=0),
+        cell_bold=derive("cell_bold", fontName=fonts.bold, fontSize=size - 1, leading=(size - 1) * 1.25,
+                         spaceAfter=0),
+        cell_right=derive("cell_right", fontSize=size - 1, leading=(size - 1) * 1.25, spaceAfter=0,
+                          alignment=2),
+        formula=derive("formula", fontName=fonts.regular, fontSize=size, leading=size * 1.35, spaceAfter=0),
+        h1=derive("h1", fontName=fonts.bold, fontSize=size + 6, leading=(size + 6) * 1.25, textColor=accent,
+                  spaceBefore=0, spaceAfter=size * 0.8),
+        h2=derive("h2", fontName=fonts.bold, fontSize=size + 2.5, leading=(size + 2.5) * 1.3, textColor=accent,
+                  spaceBefore=size * 1.1, spaceAfter=size * 0.5),
+        h3=derive("h3", fontName=fonts.bold, fontSize=size + 0.5, leading=(size + 0.5) * 1.3,
+                  spaceBefore=size * 0.7, spaceAfter=size * 0.3),
+        caption=derive("caption", fontSize=size - 1.5, leading=(size - 1.5) * 1.3, textColor=colors.HexColor("#444444")),
+    )
