@@ -121,6 +121,7 @@ class ConnectorSpec:
     kind: str
     params: dict[str, Any]
     key: str  # key path in the job file, for messages
+    given: tuple[str, ...] = ()  # keys the job file states (the rest are defaults)
 
 
 @dataclass(frozen=True)

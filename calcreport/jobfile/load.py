@@ -241,9 +241,10 @@ def _joints(t: Table, parts: dict[str, Part]):
         ct = jt.table("connector", required=True)
         kind = ct.choice("type", connectors.kinds(), required=True)
         params = ct.fields(connectors.model_for(kind).FIELDS)
+        given = tuple(k for k in ct.data if k != "type")
         ct.done()
         joint = Joint(
-            id=jid, holds=tuple(dict.fromkeys(holds)), connector=ConnectorSpec(kind, params, ct.label),
+            id=jid, holds=tuple(dict.fromkeys(holds)), connector=ConnectorSpec(kind, params, ct.label, given),
             per_row=jt.integer("per_row", 1, 1, 50), label=jt.text("label"),
             width=jt.quantity("width", "length"), spacing_max=jt.quantity("spacing_max", "length"),
             spacing_min=jt.quantity("spacing_min", "length"),

@@ -62,6 +62,7 @@ def _plain(v: Any, d: Display) -> Any:
 def _joint(j: JointResult, d: Display) -> dict[str, Any]:
     out = {
         "id": j.id, "label": j.label, "holds": list(j.holds), "connector": j.connector,
+        "connector_source": j.connector_source,
         "per_row": j.per_row, "continuous": j.continuous,
         "Q": d.json_value(j.Q), "shear": d.json_value(j.shear), "shear_flow": d.json_value(j.shear_flow),
         "capacity": d.json_value(j.capacity), "capacity_row": d.json_value(j.capacity_row),

@@ -96,7 +96,7 @@ def solve_joint(member: Member, section: SectionResult, joint: Joint, V: Quantit
     status = worst([res.status] + [c.status for c in checks] + ([schedule.status] if schedule else []))
     return JointResult(
         id=joint.id, label=joint.label, holds=joint.holds, Q=Q, shear=V, shear_flow=q,
-        connector=cap.description, per_row=joint.per_row, capacity=cap.value, capacity_row=cap_row,
+        connector=cap.description, connector_source=cap.source, per_row=joint.per_row, capacity=cap.value, capacity_row=cap_row,
         continuous=cap.continuous, spacing_required=res.required, spacing_provided=res.provided,
         spacing_min=res.s_min, spacing_max=res.s_max, utilisation=res.utilisation, status=status,
         reasons=res.reasons, checks=checks, plane=tuple(segments), plane_width=b,

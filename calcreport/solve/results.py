@@ -86,6 +86,7 @@ class JointResult:
     shear: Quantity  # design shear V used for the single spacing
     shear_flow: Quantity  # q = V·Q/I
     connector: str  # description of the connector
+    connector_source: str  # standard/clause or stated source of its design value
     per_row: int
     capacity: Quantity  # per connector, or per length for a continuous connector
     capacity_row: Quantity  # n·F (or the continuous capacity)

@@ -108,12 +108,13 @@ def _materials_table(member: Member, ctx: Ctx):
 
 def _connectors_table(m: MemberResult, ctx: Ctx):
     w = ctx.width
-    rows = [["Joint", "Holds", "Connector (as given)", "Per row", "Source"]]
+    rows = [["Joint", "Holds", "Connector (as given)", "Per row", "Source of its design value"]]
+    sources = {jr.id: jr.connector_source for jr in m.joints}
     for j in m.member.joints:
         params = j.connector.params
         given = [f"type = {j.connector.kind}"]
         for k, v in params.items():
-            if k == "source" or v is None or v == "":
+            if k == "source" or v is None or v == "" or (j.connector.given and k not in j.connector.given):
                 continue
             given.append(f"{k} = {ctx.q(v)}")
         for k, v in (("spacing_min", j.spacing_min), ("spacing_max", j.spacing_max), ("width", j.width)):
@@ -121,7 +122,7 @@ def _connectors_table(m: MemberResult, ctx: Ctx):
                 given.append(f"{k} = {ctx.q(v)}")
         jid = j.id + (f" — {j.label}" if j.label else "")
         rows.append([marked_cell(ctx, f"member[{m.id}].joint[{j.id}]", jid), ", ".join(j.holds),
-                     "; ".join(given), str(j.per_row), str(params.get("source", "") or "see derivation")])
+                     "; ".join(given), str(j.per_row), str(params.get("source", "") or sources.get(j.id) or "see derivation")])
     return grid(rows, [0.18 * w, 0.12 * w, 0.30 * w, 0.08 * w, 0.32 * w], ctx.styles)
 
 
