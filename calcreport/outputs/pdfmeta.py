@@ -1,0 +1,66 @@
+"""calcreport's own entries in a PDF's document information dictionary.
+
+Every PDF calcreport writes carries ``/CalcreportJobSHA256`` (SHA-256 of the job file bytes,
+:attr:`calcreport.model.Job.sha256`) and ``/CalcreportVersion`` so ``calcreport verify`` can tell
+which job file and which tool version made it.
+
+reportlab (4.x/5.x) has setters for the standard entries only (``setTitle``, ``setSubject`` …),
+no public call for extra keys. :func:`stamp` therefore swaps the canvas's document information
+object for a subclass that appends our keys when the PDF is written, so the file is written once,
+directly, and stays byte-for-byte reproducible with ``invariant=1``.
+"""
+
+from __future__ import annotations
+
+from typing import Mapping
+
+__all__ = ["KEY_JOB_SHA256", "KEY_VERSION", "KEY_BASE_SHA256", "KEY_DOCUMENT", "stamp", "job_metadata"]
+
+KEY_JOB_SHA256 = "CalcreportJobSHA256"
+KEY_VERSION = "CalcreportVersion"
+KEY_BASE_SHA256 = "CalcreportBaseJobSHA256"  # change reports: the older revision's job file
+KEY_DOCUMENT = "CalcreportDocument"  # "calculation report", "change report"
+
+
+def job_metadata(job_sha256: str, document: str, base_sha256: str = "") -> dict[str, str]:
+    """Our entries for a document built from a job file with hash ``job_sha256``."""
+    from .. import __version__
+
+    out = {KEY_JOB_SHA256: job_sha256, KEY_VERSION: __version__, KEY_DOCUMENT: document}
+    if base_sha256:
+        out[KEY_BASE_SHA256] = base_sha256
+    return out
+
+
+def stamp(canvas, entries: Mapping[str, str]) -> None:
+    """Add ``entries`` (names without the leading slash) to the info dictionary of ``canvas``.
+
+    Works for a bare :class:`reportlab.pdfgen.canvas.Canvas` and for the canvas a platypus
+    document template passes to its page callbacks (call it from ``onFirstPage``).
+    """
+    from reportlab.pdfbase.pdfdoc import PDFInfo, PDFName, PDFString
+    from reportlab.pdfbase.pdfdoc import format as pdf_format
+
+    for name in entries:
+        if not name or not name.isalnum():
+            raise ValueError(f"PDF info key must be letters and digits, got {name!r}")
+    doc = canvas._doc  # reportlab keeps the document being written here (no public accessor)
+    current = doc.info
+    extra = dict(getattr(current, "calcreport_extra", {}))
+    extra.update(entries)
+
+    class _Info(type(current) if isinstance(current, PDFInfo) else PDFInfo):  # type: ignore[misc]
+        calcreport_extra = extra
+
+        def format(self, document):
+            text = super().format(document)
+            end = text.rstrip().rfind(b">>")
+            if end < 0:  # not a dictionary: leave it alone rather than write a broken file
+                return text
+            add = b"".join(b"\n" + pdf_format(PDFName(k), document) + b" " + pdf_format(PDFString(v), document)
+                           for k, v in sorted(self.calcreport_extra.items()))
+            return text[:end] + add + b"\n" + text[end:]
+
+    info = _Info()
+    info.__dict__.update(current.__dict__)
+    doc.info = info

@@ -1,0 +1,92 @@
+"""The ``diff`` and ``verify`` commands (registered by :func:`calcreport.cli._add_optional_commands`).
+
+Only argparse wiring lives here; the work is in :mod:`.review_io`, :mod:`.diff`, :mod:`.diff_text`,
+:mod:`.change_report` and :mod:`.verify`, imported when a command runs.
+
+Exit codes of ``diff``: 0 no result changed (inputs may have), 1 some result changed, 2 invalid
+input or usage. Exit codes of ``verify``: 0 match, 1 mismatch, 2 unreadable PDF or invalid job.
+"""
+
+from __future__ import annotations
+
+import sys
+
+__all__ = ["register", "EXIT_SAME", "EXIT_CHANGED", "EXIT_MATCH", "EXIT_MISMATCH", "EXIT_INVALID"]
+
+EXIT_SAME, EXIT_CHANGED = 0, 1
+EXIT_MATCH, EXIT_MISMATCH = 0, 1
+EXIT_INVALID = 2
+
+
+def _fail(message: str) -> int:
+    print(message.replace("\n", " "), file=sys.stderr)
+    return EXIT_INVALID
+
+
+def _cmd_diff(args) -> int:
+    from ..errors import JobError
+    from . import review_io
+    from .diff import compute_diff
+    from .diff_text import diff_to_dict, render_diff
+    from .json_out import dumps
+
+    if args.since is not None and len(args.jobs) != 1:
+        return _fail("calcreport diff: error: with --since give exactly one JOB.toml (see --help)")
+    if args.since is None and len(args.jobs) != 2:
+        return _fail("calcreport diff: error: expected OLD.toml NEW.toml, or JOB.toml --since REV (see --help)")
+    try:
+        if args.since is not None:
+            new = review_io.side_from_file(args.jobs[0])
+            old = review_io.side_from_git(args.jobs[0], args.since)
+        else:
+            old = review_io.side_from_file(args.jobs[0])
+            new = review_io.side_from_file(args.jobs[1])
+    except JobError as exc:
+        return _fail(str(exc))
+    diff = compute_diff(old, new)
+    if args.pdf:
+        from .change_report import write_change_report
+
+        try:
+            write_change_report(diff, args.pdf)
+        except OSError as exc:
+            return _fail(f"{args.pdf}: cannot write the change report ({exc.strerror or exc})")
+    sys.stdout.write(dumps(diff_to_dict(diff)) if args.json else render_diff(diff))
+    return EXIT_CHANGED if diff.results_changed else EXIT_SAME
+
+
+def _cmd_verify(args) -> int:
+    from ..errors import JobError
+    from .verify import render_verdict, verify
+
+    try:
+        verdict = verify(args.pdf, args.job)
+    except JobError as exc:
+        return _fail(str(exc))
+    sys.stdout.write(render_verdict(verdict))
+    return EXIT_MATCH if verdict.match else EXIT_MISMATCH
+
+
+def register(sub) -> None:
+    """Add ``diff`` and ``verify`` to the ``calcreport`` sub-command parser."""
+    d = sub.add_parser(
+        "diff", help="show what changed between two revisions of a job",
+        description="Compare two revisions of a job file: changed results first (spacing, utilisation, "
+        "status, section properties, Q, q, capacities and every derivation step, by step key), then "
+        "changed inputs by key path (\"12 in\" and \"1 ft\" are the same input), then added and removed "
+        "members, parts, joints, loads and materials. Values are shown in the new job's units. "
+        "Exit 0 no result changed, 1 some result changed, 2 invalid input.")
+    d.add_argument("jobs", nargs="+", metavar="JOB.toml",
+                   help="OLD.toml NEW.toml; or one JOB.toml with --since")
+    d.add_argument("--since", metavar="REV",
+                   help="compare JOB.toml with its version at git revision REV (commit, tag, branch, HEAD~1)")
+    d.add_argument("--json", action="store_true", help="print the diff as JSON (schema in docs/review.md)")
+    d.add_argument("--pdf", metavar="OUT.pdf", help="also write a change report PDF for reviewers")
+    d.set_defaults(func=_cmd_diff)
+    v = sub.add_parser(
+        "verify", help="check that a PDF report was built from exactly this job file",
+        description="Compare the job-file SHA-256 stamped in a calcreport PDF with the job file. "
+        "Exit 0 match, 1 mismatch, 2 unreadable PDF or invalid job file.")
+    v.add_argument("pdf", metavar="REPORT.pdf")
+    v.add_argument("job", metavar="JOB.toml")
+    v.set_defaults(func=_cmd_verify)

@@ -1,0 +1,114 @@
+"""Read the two revisions a review compares: job files on disk, or an older revision from git.
+
+Every job is fully validated (:func:`calcreport.jobfile.load_text`) and solved; problems raise
+:class:`calcreport.errors.JobError` so the command line prints one line and exits 2.
+"""
+
+from __future__ import annotations
+
+import os
+import subprocess
+
+try:
+    import tomllib
+except ModuleNotFoundError:  # Python < 3.11
+    import tomli as tomllib  # type: ignore[no-redef]
+
+from ..errors import JobError
+from ..jobfile import load_text
+from ..jobfile.load import MAX_FILE_BYTES
+from ..solve.results import JobResult
+from .diff import Side
+
+__all__ = ["side_from_file", "side_from_bytes", "side_from_git", "git_show", "solve_loaded"]
+
+GIT_TIMEOUT_S = 30
+
+
+def solve_loaded(job) -> JobResult:
+    """Solve a validated job, turning solver/connector errors into a located JobError."""
+    from ..solve import SolveError, solve_job
+    from ..solve.connectors import ConnectorError
+
+    try:
+        return solve_job(job)
+    except (ConnectorError, SolveError) as exc:
+        raise JobError(job.path, exc.key, str(exc)) from None
+
+
+def side_from_bytes(data: bytes, label: str) -> Side:
+    """Validate, solve and keep the raw TOML of job-file bytes; ``label`` names it in messages."""
+    job = load_text(data, label)
+    doc = tomllib.loads(data.decode("utf-8"))  # cannot fail: load_text has read it already
+    return Side(label, job, solve_loaded(job), doc)
+
+
+def _read(path: str) -> bytes:
+    try:
+        size = os.path.getsize(path)
+        if size > MAX_FILE_BYTES:
+            raise JobError(path, "", f"file is {size:,} bytes; a job file may have at most {MAX_FILE_BYTES:,}")
+        with open(path, "rb") as fh:
+            return fh.read()
+    except OSError as exc:
+        raise JobError(path, "", f"cannot read the file ({exc.strerror or exc})") from None
+
+
+def side_from_file(path: str) -> Side:
+    """A revision read from a job file on disk."""
+    return side_from_bytes(_read(path), path)
+
+
+def _git(args: list[str], cwd: str, path: str) -> bytes:
+    try:
+        done = subprocess.run(["git", *args], cwd=cwd, capture_output=True, timeout=GIT_TIMEOUT_S,
+                              check=False)
+    except FileNotFoundError:
+        raise JobError(path, "", "git is not installed or not on PATH (needed for --since)") from None
+    except subprocess.TimeoutExpired:
+        raise JobError(path, "", f"git did not answer within {GIT_TIMEOUT_S} s") from None
+    if done.returncode != 0:
+        msg = done.stderr.decode("utf-8", "replace").strip().splitlines()
+        raise _GitError(msg[0] if msg else f"git {args[0]} failed")
+    return done.stdout
+
+
+class _GitError(Exception):
+    pass
+
+
+def git_show(path: str, rev: str) -> tuple[bytes, str]:
+    """The bytes of ``path`` as committed at ``rev``, and the label ``REV:repo/relative/path``.
+
+    Raises:
+        JobError: not inside a git repository, or the revision or the path does not exist there.
+    """
+    if not rev or rev.startswith("-"):
+        raise JobError(path, "", f"expected a git revision after --since, got {rev!r}")
+    real = os.path.realpath(path)
+    if not os.path.isfile(real):
+        raise JobError(path, "", "cannot read the file (No such file or directory)")
+    folder = os.path.dirname(real)
+    try:
+        top = _git(["rev-parse", "--show-toplevel"], folder, path).decode("utf-8").strip()
+    except _GitError:
+        raise JobError(path, "", "not inside a git repository (needed for --since)") from None
+    rel = os.path.relpath(real, os.path.realpath(top)).replace(os.sep, "/")
+    try:
+        _git(["rev-parse", "--verify", "--quiet", f"{rev}^{{commit}}"], top, path)
+    except _GitError:
+        raise JobError(path, "", f"git revision {rev!r} not found in {top}") from None
+    try:
+        data = _git(["show", f"{rev}:{rel}"], top, path)
+    except _GitError:
+        raise JobError(path, "", f"{rel} does not exist at git revision {rev!r}") from None
+    if len(data) > MAX_FILE_BYTES:
+        raise JobError(f"{rev}:{rel}", "", f"file is {len(data):,} bytes; a job file may have at most "
+                       f"{MAX_FILE_BYTES:,}")
+    return data, f"{rev}:{rel}"
+
+
+def side_from_git(path: str, rev: str) -> Side:
+    """The revision of job file ``path`` committed at git revision ``rev``."""
+    data, label = git_show(path, rev)
+    return side_from_bytes(data, label)
