@@ -8,6 +8,7 @@ from __future__ import annotations
 import json
 import os
 from dataclasses import fields, is_dataclass
+from pathlib import Path
 from typing import Any
 
 from .. import __version__
@@ -17,22 +18,29 @@ from ..units import Quantity
 from .fmt import Display
 from .json_along import along_json, schedule_json
 
-__all__ = ["to_dict", "dumps", "SCHEMA_VERSION"]
+__all__ = ["to_dict", "dumps", "write_results_json", "json_path_for", "SCHEMA_VERSION"]
 
 SCHEMA_VERSION = 1
+
+
+def _scalar(v: Any, d: Display) -> Any:
+    """A step/check value as JSON; numpy scalars (np.int64, np.bool_) become plain Python first."""
+    if not isinstance(v, (Quantity, str, bool, int, float)) and hasattr(v, "item"):
+        v = v.item()
+    return d.json_value(v)
 
 
 def _step(s: Step, d: Display) -> dict[str, Any]:
     return {
         "key": s.key, "label": s.label, "symbol": s.symbol, "substituted": d.substituted(s),
-        "values": {k: d.json_value(v) for k, v in s.values.items()},
-        "result": d.json_value(s.result), "source": s.source, "note": s.note, "governs": s.governs,
+        "values": {k: _scalar(v, d) for k, v in s.values.items()},
+        "result": _scalar(s.result, d), "source": s.source, "note": s.note, "governs": s.governs,
     }
 
 
 def _check(c: Check, d: Display) -> dict[str, Any]:
-    return {"key": c.key, "label": c.label, "demand": d.json_value(c.demand),
-            "capacity": d.json_value(c.capacity), "ratio": d.json_value(c.ratio),
+    return {"key": c.key, "label": c.label, "demand": _scalar(c.demand, d),
+            "capacity": _scalar(c.capacity, d), "ratio": _scalar(c.ratio, d),
             "status": c.status, "source": c.source, "note": c.note}
 
 
@@ -54,7 +62,7 @@ def _plain(v: Any, d: Display) -> Any:
         return {str(k): _plain(x, d) for k, x in v.items()}
     if isinstance(v, (list, tuple)):
         return [_plain(x, d) for x in v]
-    if hasattr(v, "tolist"):
+    if hasattr(v, "tolist") and not isinstance(v, (str, bool, int, float)):
         return _plain(v.tolist(), d)
     return d.json_value(v)
 
@@ -119,3 +127,26 @@ def to_dict(result: JobResult) -> dict[str, Any]:
 def dumps(data: Any) -> str:
     """Stable JSON text: sorted keys, two-space indent, UTF-8 kept, trailing newline."""
     return json.dumps(data, sort_keys=True, indent=2, ensure_ascii=False) + "\n"
+
+
+def json_path_for(pdf_path: str | os.PathLike) -> Path:
+    """Where ``build --json`` writes the results: beside the PDF, same name, ``.json``."""
+    return Path(pdf_path).with_suffix(".json")
+
+
+def write_results_json(result: JobResult, pdf_path: str | os.PathLike) -> Path:
+    """Write the stable results JSON next to ``pdf_path`` atomically; return its path.
+
+    The text is the same as ``calcreport check --json`` for one job: sorted keys, 6 significant
+    figures, no timestamps, only the job file's base name. A temporary file in the same folder is
+    renamed over the target, so a reader never sees a half-written file.
+    """
+    out = json_path_for(pdf_path)
+    tmp = out.with_name(f".{out.name}.{os.getpid()}.tmp")
+    try:
+        tmp.write_text(dumps(to_dict(result)), encoding="utf-8", newline="\n")
+        os.replace(tmp, out)
+    finally:
+        if tmp.exists():
+            tmp.unlink()
+    return out

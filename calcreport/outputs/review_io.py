@@ -6,8 +6,10 @@ Every job is fully validated (:func:`calcreport.jobfile.load_text`) and solved; 
 
 from __future__ import annotations
 
+import hashlib
 import os
 import subprocess
+from dataclasses import dataclass
 
 try:
     import tomllib
@@ -18,9 +20,10 @@ from ..errors import JobError
 from ..jobfile import load_text
 from ..jobfile.load import MAX_FILE_BYTES
 from ..solve.results import JobResult
-from .diff import Side
+from .diff import Side, changed_keys, compute_diff
 
-__all__ = ["side_from_file", "side_from_bytes", "side_from_git", "git_show", "solve_loaded"]
+__all__ = ["side_from_file", "side_from_bytes", "side_from_git", "git_show", "solve_loaded", "RevisionMarks",
+           "revision_marks", "revision_marks_since"]
 
 GIT_TIMEOUT_S = 30
 
@@ -112,3 +115,32 @@ def side_from_git(path: str, rev: str) -> Side:
     """The revision of job file ``path`` committed at git revision ``rev``."""
     data, label = git_show(path, rev)
     return side_from_bytes(data, label)
+
+
+@dataclass(frozen=True)
+class RevisionMarks:
+    """What the build report marks: keys that changed and the letter drawn in the triangle."""
+
+    changed_keys: frozenset[str]
+    mark: str
+
+
+def revision_marks(old: Side, new: Side) -> RevisionMarks:
+    """Changed keys from ``old`` to ``new`` (see :func:`.diff.changed_keys`); mark = new revision."""
+    return RevisionMarks(changed_keys(compute_diff(old, new)), new.job.header.revision)
+
+
+def revision_marks_since(job_path: str, rev: str, new_result: JobResult | None = None) -> RevisionMarks:
+    """Revision marks for ``build --since REV``: the job file now against its version at git ``rev``.
+
+    ``new_result`` is the already solved job (saves solving it twice); it must come from the
+    same bytes as the file, which is checked by hash.
+    """
+    if new_result is None:
+        new = side_from_file(job_path)
+    else:
+        data = _read(job_path)
+        if hashlib.sha256(data).hexdigest() != new_result.job.sha256:
+            raise JobError(job_path, "", "the file changed while the report was being built; run again")
+        new = Side(job_path, new_result.job, new_result, tomllib.loads(data.decode("utf-8")))
+    return revision_marks(side_from_git(job_path, rev), new)
