@@ -117,3 +117,23 @@ def test_history_entries_are_matched_by_mark():
     b = {"job": {"history": [{"mark": "A", "description": "first"}, {"mark": "B", "description": "second"}]}}
     _, added, _ = diff_inputs(a, b)
     assert [(e.kind, e.id) for e in added] == [("history", "B")]
+
+
+def test_result_values_compare_quantities_arrays_and_words():
+    """1 ft = 12 in (NIST SP 811, App. B.8); arrays element-wise with the same tolerance."""
+    import numpy as np
+
+    from calcreport.outputs.diff import same_value
+    from calcreport.units import Q_
+
+    assert same_value(Q_(1.0, "ft"), Q_(12.0, "inch"))
+    assert not same_value(Q_(1.0, "ft"), Q_(12.1, "inch"))
+    assert not same_value(Q_(1.0, "ft"), Q_(1.0, "lbf"))
+    assert same_value(Q_(np.array([1.0, 2.0]), "ft"), Q_(np.array([12.0, 24.0]), "inch"))
+    assert not same_value(Q_(np.array([1.0, 2.0]), "ft"), Q_(np.array([12.0, 25.0]), "inch"))
+    assert same_value(np.array([0.5, 1.0]), np.array([0.5, 1.0]))
+    assert not same_value(np.array([0.5, 1.0]), np.array([0.5]))
+    assert same_value(0.9504, 0.95040004)      # within 1e-6 relative
+    assert not same_value(0.9504, 0.9505)
+    assert same_value("OK", "OK") and not same_value("OK", "NG")
+    assert not same_value(None, Q_(1.0, "inch"))

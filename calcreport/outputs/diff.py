@@ -141,6 +141,14 @@ def same_value(a: Any, b: Any, rtol: float = RESULT_RTOL) -> bool:
             ma, mb = np.asarray(ma, dtype=float), np.asarray(mb, dtype=float)
             return ma.shape == mb.shape and bool(np.allclose(ma, mb, rtol=rtol, atol=1e-12))
         return _close(float(ma), float(mb), rtol)
+    if getattr(a, "shape", ()) or getattr(b, "shape", ()):  # plain numpy arrays (results along the member)
+        import numpy as np
+
+        try:
+            xa, xb = np.asarray(a, dtype=float), np.asarray(b, dtype=float)
+        except (TypeError, ValueError):
+            return bool(np.array_equal(np.asarray(a), np.asarray(b)))
+        return xa.shape == xb.shape and bool(np.allclose(xa, xb, rtol=rtol, atol=1e-12))
     if isinstance(a, bool) or isinstance(b, bool):
         return type(a) is type(b) and a == b
     if isinstance(a, (int, float)) and isinstance(b, (int, float)):
