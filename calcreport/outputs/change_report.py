@@ -137,7 +137,7 @@ def _title_block(c: Canvas, side: Side, sheet: int, total: int, font: str, bold:
         for (label, text), x, limit in ((left, x0, split - x0), (right, split, x1 - split)):
             c.setFont(font, 6.5)
             c.setFillColor(RULE)
-            c.drawString(x + 3, y + 9.5, label.upper())
+            c.drawString(x + 3, y + 8.5, label.upper())
             c.setFillColor(colors.black)
             c.setFont(bold if i == 0 else font, 8.5)
             c.drawString(x + 42, y + 4.5, _fit(c, text or "—", font, 8.5, limit - 46))
