@@ -8,7 +8,8 @@ from pathlib import Path
 from calcreport.cli import main
 
 ROOT = Path(__file__).resolve().parent.parent
-DEMO = ROOT / "jobs" / "boathouse-door-header.toml"
+# a fixed copy of the first demo job (invented data), so demo edits do not move these tests
+DEMO = ROOT / "tests" / "data" / "review-box-header.toml"
 
 #: a part added on top of the west web (touches it, overlaps nothing)
 CAP_PART = '''
