@@ -25,6 +25,11 @@ def register(sub) -> None:
     b.add_argument("-o", "--output", metavar="OUT",
                    help="where to write: for one job a file path (a path ending in / or an existing folder "
                    "means a folder); for several jobs a folder. Default: ./out/<job-name>.pdf")
+    b.add_argument("--since", metavar="REV",
+                   help="mark what changed since git revision REV (commit, tag, branch) with a revision "
+                   "triangle carrying the job's revision letter (see docs/review.md)")
+    b.add_argument("--json", action="store_true",
+                   help="also write the results JSON beside each PDF (same name, .json; stable for git)")
     b.set_defaults(func=cmd_build)
 
 
@@ -72,20 +77,30 @@ def cmd_build(args) -> int:
     from .template import load_template
 
     rendered = []
-    for r in results:
+    for path, r in zip(args.jobs, results):
         try:
             tpl = load_template(r.job.settings.template, r.job.path)
+            keys, mark = frozenset(), ""
+            if args.since is not None:
+                from ..review_io import revision_marks_since
+
+                marks = revision_marks_since(path, args.since, r)
+                keys, mark = marks.changed_keys, marks.mark
         except JobError as exc:
             print(str(exc).replace("\n", " "), file=sys.stderr)
             return EXIT_INVALID
-        rendered.append(render_pdf(r, tpl))
+        rendered.append(render_pdf(r, tpl, keys, mark))
     worst = EXIT_OK
     for r, pdf, out in zip(results, rendered, paths):
         try:
             write_atomic(pdf, out)
+            if args.json:
+                from ..json_out import write_results_json
+
+                write_results_json(r, out)
         except OSError as exc:
             print(f"{out}: cannot write the report ({exc.strerror or exc})", file=sys.stderr)
             return EXIT_INVALID
-        print(f"wrote {out}  [{r.status}]")
+        print(f"wrote {out}" + (f" and {out.with_suffix('.json').name}" if args.json else "") + f"  [{r.status}]")
         worst = max(worst, EXIT_NG if r.status == "NG" else EXIT_OK)
     return worst
