@@ -60,7 +60,9 @@ def test_no_change_pdf_says_so(tmp_path, capsys):
 
 
 def test_unwritable_pdf_path_exit_2_nothing_written(tmp_path, capsys):
-    target = tmp_path / "no-such-folder" / "c.pdf"
+    blocker = tmp_path / "a-file"
+    blocker.write_text("not a folder", encoding="utf-8")
+    target = blocker / "c.pdf"
     code, out, err = run(["diff", str(DEMO), str(DEMO), "--pdf", str(target)], capsys)
     assert code == 2 and out == "" and "cannot write the change report" in err and err.count("\n") == 1
-    assert not target.parent.exists()
+    assert sorted(p.name for p in tmp_path.iterdir()) == ["a-file"]

@@ -49,6 +49,8 @@ def _cmd_diff(args) -> int:
 
         try:
             write_change_report(diff, args.pdf)
+        except JobError as exc:  # the new job's report template
+            return _fail(str(exc))
         except OSError as exc:
             return _fail(f"{args.pdf}: cannot write the change report ({exc.strerror or exc})")
     sys.stdout.write(dumps(diff_to_dict(diff)) if args.json else render_diff(diff))
