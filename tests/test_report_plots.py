@@ -40,3 +40,21 @@ def test_line_chart_draws_labelled_axes(tmp_path):
     text = pypdf.PdfReader(str(out)).pages[0].extract_text()
     for s in ("x along the member (ft)", "V (kip)", "Shear V envelope", "maximum", "minimum"):
         assert s in text
+
+
+def test_ridge_beam_report_has_the_four_figures(tmp_path):
+    """Loads along the member: loading diagram, V/M envelopes, q(x) against n·F/s, zone elevation."""
+    from pathlib import Path
+
+    from pypdf import PdfReader
+
+    from calcreport.cli import main
+
+    root = Path(__file__).resolve().parent.parent
+    out = tmp_path / "ridge.pdf"
+    assert main(["build", str(root / "jobs" / "pavilion-ridge-box-beam.toml"), "-o", str(out)]) in (0, 1)
+    text = " ".join((p.extract_text() or "") for p in PdfReader(str(out)).pages)
+    text = " ".join(text.split())
+    for caption in ("Loads by case", "Shear V envelope", "Bending moment M envelope",
+                    "demand and provided capacity", "Elevation of the member", "rows"):
+        assert caption in text, caption

@@ -43,6 +43,7 @@ class Zone:
     demand_max: Quantity  # largest q in the zone
     spacing_required: Quantity | None  # n·F / q_max (None where q = 0)
     governing: str  # combination governing the largest q in the zone
+    capacity: Quantity | None = None  # provided shear-flow capacity n·F / s of the zone
 
 
 @dataclass(frozen=True)
@@ -146,7 +147,7 @@ def zoned_schedule(x: Quantity, q: Quantity, length: Quantity, capacity_row: Qua
         gov = governing[j] if j < len(governing) else ""
         cnt = n + (1 if k == 0 else 0)
         z = Zone(Q_(a, _IN), Q_(b, _IN), Q_(s, _IN), cnt, Q_(qm, "lbf/inch"),
-                 Q_(nF / qm, _IN) if qm > 0 else None, gov)
+                 Q_(nF / qm, _IN) if qm > 0 else None, gov, Q_(nF / s, "lbf/inch"))
         zones.append(z)
         log.add(f"zone.{k + 1}", f"Zone {k + 1}",
                 "s ≤ n·F / q_max,zone", "{s} ≤ {nF} / {q} = {sreq}; {n} connectors from {a} to {b}",

@@ -21,7 +21,8 @@ from reportlab.platypus import Flowable, KeepTogether, Paragraph
 
 from ...solve.results import JointResult, MemberResult
 from ...units import Q_, Quantity
-from .common import Ctx, grid, para
+from .common import Ctx, grid, heading, para
+from .figures_along import demand_capacity_chart, loading_diagram, zone_elevation
 from .plots import Series, line_chart, series_values
 
 __all__ = ["member_figures", "beam_figures", "schedule_figures", "zone_rows"]
@@ -30,13 +31,27 @@ __all__ = ["member_figures", "beam_figures", "schedule_figures", "zone_rows"]
 def member_figures(m: MemberResult, ctx: Ctx) -> list[Flowable]:
     """Flowables for the analysis along the member and the joints' zoned schedules (may be empty)."""
     out: list[Flowable] = []
+    load_fig = loading_diagram(m.member, ctx.q, ctx.styles.fonts, ctx.width, ctx.display.system)
+    if load_fig is not None:
+        out.append(KeepTogether([load_fig, para("Loads by case (downward positive) on the member, with its "
+                                                "supports and spans.", ctx.styles.caption)]))
     if m.beam is not None:
         out += beam_figures(m, ctx)
     for j in m.joints:
         if j.schedule is not None:
             out += schedule_figures(j, ctx)
+            chart = demand_capacity_chart(j, ctx.display, ctx.styles.fonts, ctx.width)
+            elev = zone_elevation(j, m.member, ctx.q, ctx.styles.fonts, ctx.width)
+            if chart is not None:
+                out.append(KeepTogether([chart, para(
+                    f"Shear flow q(x) = V(x)·Q/I at joint {j.id} from the envelope, against the capacity "
+                    "n·F/s that each zone provides.", ctx.styles.caption)]))
+            if elev is not None:
+                out.append(KeepTogether([elev, para(
+                    f"Elevation of the member: connector rows of joint {j.id} by zone, with each zone's "
+                    "spacing (above) and length and number of rows (below).", ctx.styles.caption)]))
     if out:
-        out.insert(0, Paragraph("Along the member", ctx.styles.h2))
+        out[0:0] = heading("Along the member", ctx.styles.h2, need=260)
     return out
 
 

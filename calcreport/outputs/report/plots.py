@@ -85,7 +85,11 @@ def line_chart(series: Sequence[Series], x_label: str, y_label: str, width: floa
     ys = [p[1] for d in data for p in d] + [0.0]
     xt, yt = nice_ticks(min(xs), max(xs)), nice_ticks(min(ys), max(ys))
     lp.data = data
-    lp.xValueAxis.valueMin, lp.xValueAxis.valueMax = xt[0], xt[-1]
+    # x spans exactly the data (the member), with round ticks inside it
+    x_lo, x_hi = min(xs), max(xs)
+    if x_hi > x_lo:
+        xt = [t for t in xt if x_lo - 1e-9 <= t <= x_hi + 1e-9] or [x_lo, x_hi]
+    lp.xValueAxis.valueMin, lp.xValueAxis.valueMax = x_lo, x_hi
     lp.yValueAxis.valueMin, lp.yValueAxis.valueMax = yt[0], yt[-1]
     lp.xValueAxis.valueSteps, lp.yValueAxis.valueSteps = xt, yt
     for axis in (lp.xValueAxis, lp.yValueAxis):
