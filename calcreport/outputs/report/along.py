@@ -36,6 +36,7 @@ def member_figures(m: MemberResult, ctx: Ctx) -> list[Flowable]:
         out.append(KeepTogether([load_fig, para("Loads by case (downward positive) on the member, with its "
                                                 "supports and spans.", ctx.styles.caption)]))
     if m.beam is not None:
+        out += combinations_table(m, ctx)
         out += beam_figures(m, ctx)
     for j in m.joints:
         if j.schedule is not None:
@@ -76,19 +77,36 @@ def _len_text(v: Any, ctx: Ctx) -> str:
 def zone_rows(schedule: Any, ctx: Ctx) -> list[list]:
     """Rows (header first) of a zoned schedule: start, end, spacing, count."""
     zones = getattr(schedule, "zones", schedule)
-    rows = [["Zone", "From", "To", "Spacing", "Connectors (rows)"]]
+    rows = [["Zone", "From", "To", "Spacing", "Rows", "Governing combination"]]
     for i, z in enumerate(zones or (), 1):
         count = _get(z, "count", 3)
         rows.append([str(i), _len_text(_get(z, "start", 0), ctx), _len_text(_get(z, "end", 1), ctx),
-                     _len_text(_get(z, "spacing", 2), ctx), "—" if count is None else ctx.q(count)])
+                     _len_text(_get(z, "spacing", 2), ctx), "—" if count is None else ctx.q(count),
+                     str(_get(z, "governing", 6) or "—")])
     return rows
+
+
+def combinations_table(m: MemberResult, ctx: Ctx) -> list[Flowable]:
+    """Every load combination used for the envelopes, with its factors and source."""
+    combos = getattr(m.beam, "combinations", None) or ()
+    if not combos:
+        return []
+    st, w = ctx.styles, ctx.width
+    rows = [["Combination", "Factors", "Source"]]
+    for c in combos:
+        factors = " + ".join(f"{ctx.q(f, 3)}·{case}" for case, f in c.factors.items())
+        rows.append([para(c.name, st.cell), para(factors, st.cell), para(c.source or "job file", st.cell)])
+    title = para("Load combinations", st.h3)
+    note = para("Each zone of a schedule names the combination that governs its largest shear flow.", st.small)
+    return [KeepTogether([title, grid(rows, [0.30 * w, 0.30 * w, 0.40 * w], st)]), note]
 
 
 def schedule_figures(j: JointResult, ctx: Ctx) -> list[Flowable]:
     st, w = ctx.styles, ctx.width
     title = para(f"Connector schedule — joint {j.id}", st.h3)
     rows = zone_rows(j.schedule, ctx)
-    out: list[Flowable] = [KeepTogether([title, grid(rows, [0.1 * w, 0.2 * w, 0.2 * w, 0.2 * w, 0.3 * w], st)])]
+    widths = [0.07 * w, 0.15 * w, 0.15 * w, 0.14 * w, 0.09 * w, 0.40 * w]
+    out: list[Flowable] = [KeepTogether([title, grid(rows, widths, st)])]
     total = getattr(j.schedule, "count", None)
     status = getattr(j.schedule, "status", None)
     note = []
