@@ -80,6 +80,10 @@ def solve_joint(member: Member, section: SectionResult, joint: Joint, V: Quantit
                                   f"member[{member.id}].joint[{joint.id}]")
     cap = connectors.design(joint.connector, ctx, log.child("connector"))
     if cap.continuous:
+        if joint.connector.kind == "glue":
+            log.add("tau", "Shear stress on the glue line", "τ = V·Q / (I·b)", "{V} × {Q} / ({I} × {b})",
+                    {"V": V, "Q": Q, "I": section.inertia, "b": b}, (V * Q / (section.inertia * b)).to("psi"),
+                    source="mechanics of materials: shear formula τ = V·Q/(I·b)")
         res = continuous_check(q, cap.value, log)
         cap_row = cap.value
     else:
