@@ -3,12 +3,20 @@
 from __future__ import annotations
 
 import io
+import os
 import sys
 import textwrap
 from contextlib import redirect_stderr, redirect_stdout
 from pathlib import Path
 
 import pytest
+from hypothesis import settings as hypothesis_settings
+
+# CI runs the property and fuzz tests with a fixed seed sequence so a green run stays green;
+# local runs explore new cases each time (set CI=true to reproduce CI's cases).
+hypothesis_settings.register_profile("ci", derandomize=True, print_blob=True)
+if os.environ.get("CI"):
+    hypothesis_settings.load_profile("ci")
 
 ROOT = Path(__file__).resolve().parent.parent
 sys.path.insert(0, str(ROOT))

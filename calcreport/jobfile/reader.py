@@ -191,9 +191,11 @@ class Table:
                 out[f.name] = self.integer(f.name, f.default, int(f.minimum if f.minimum is not None else 1),
                                            int(f.maximum if f.maximum is not None else 10_000), f.required)
             elif f.kind == "number":
-                out[f.name] = self.number(f.name, f.default, f.required,
-                                          f.minimum if f.minimum is not None else (0.0 if f.positive else None),
-                                          f.maximum)
+                v = self.number(f.name, f.default, f.required,
+                                f.minimum if f.minimum is not None else (0.0 if f.positive else None), f.maximum)
+                if f.positive and f.minimum is None and v is not None and v <= 0:
+                    raise self.error(f.name, f"expected a number greater than zero, got {v!r}")
+                out[f.name] = v
             elif f.kind == "bool":
                 out[f.name] = self.boolean(f.name, bool(f.default))
             elif f.kind == "choice":
