@@ -42,7 +42,7 @@ def solve_file(path: str):
         return solve_job(job)
     except (ConnectorError, SolveError) as exc:
         raise JobError(path, exc.key, str(exc)) from None
-    except (ArithmeticError, ValueError, TypeError) as exc:  # a defect of ours: still one line, exit 2
+    except (ArithmeticError, ValueError, TypeError, RecursionError) as exc:  # a defect of ours: still one line, exit 2
         raise JobError(path, "", f"internal error while solving ({type(exc).__name__}: {exc}); "
                        "please report it with the job file") from None
 

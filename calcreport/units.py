@@ -55,6 +55,10 @@ DIMENSIONS: dict[str, tuple[str, str]] = {
 
 _MIXED_FRACTION = re.compile(r"^\s*(\d+)\s*-\s*(\d+)\s*/\s*(\d+)(?=\s|[a-zA-Z\"']|$)")
 _SAFE = re.compile(r"^[0-9A-Za-z_ .+\-*/^()°µμ²³⁴'\"]*$")
+_POWER = re.compile(r"\*\*|\^")
+#: What may follow a power operator: one small literal exponent (``in^2``, ``ft ** -1``), not a
+#: bracket or another power, so no text can ask pint for a number with millions of digits.
+_EXPONENT = re.compile(r"\s*[+-]?\d{1,2}(\.\d{1,3})?(?!\s*(\*\*|\^|\d|\.))")
 
 
 class UnitParseError(ValueError):
@@ -118,8 +122,14 @@ def parse(text: object, expected: str | None = None) -> Quantity:
         return Q_(float(text), "")
     if len(text) > 80 or not _SAFE.match(text):
         raise UnitParseError(f"expected {what}, got {text[:40]!r}")
+    norm = _normalise(text)
+    for m in _POWER.finditer(norm):
+        exp = _EXPONENT.match(norm, m.end())
+        if norm[:m.start()].rstrip().endswith(")") or exp is None or abs(float(exp.group(0))) > 12:
+            raise UnitParseError(f"expected {what}, got {text!r} (a power must be a unit or number "
+                                 "raised to a plain exponent from -12 to 12, like in^4)")
     try:
-        q = Q_(_normalise(text))
+        q = Q_(norm)
     except Exception as exc:  # pint raises several kinds; the message is ours
         raise UnitParseError(f"expected {what}, could not read {text!r} ({type(exc).__name__})") from None
     if not isinstance(q, pint.Quantity):
@@ -127,7 +137,7 @@ def parse(text: object, expected: str | None = None) -> Quantity:
     mag = q.magnitude
     try:
         finite = float(mag) == float(mag) and abs(float(mag)) != float("inf")
-    except (TypeError, ValueError):
+    except (TypeError, ValueError, ArithmeticError):
         finite = False
     if not finite:
         raise UnitParseError(f"expected {what}, got {text!r}")

@@ -23,12 +23,14 @@ from .lines import LineIndex
 from .parts import read_part
 from .reader import Source, Table
 
-__all__ = ["load_job", "load_text", "MAX_FILE_BYTES", "MAX_MEMBERS", "MAX_PARTS", "MAX_JOINTS"]
+__all__ = ["load_job", "load_text", "MAX_FILE_BYTES", "MAX_MEMBERS", "MAX_PARTS", "MAX_JOINTS",
+           "MAX_MATERIALS"]
 
 MAX_FILE_BYTES = 2_000_000
 MAX_MEMBERS = 500
 MAX_PARTS = 60
 MAX_JOINTS = 60
+MAX_MATERIALS = 200
 FAMILIES = ("wood", "plywood", "glulam", "steel", "concrete", "aluminum", "other")
 
 
@@ -66,6 +68,9 @@ def load_text(data: bytes, path: str = "<job>") -> Job:
                 line = None
             msg = msg.split(" (at line")[0]
         raise JobError(path, "", f"TOML syntax error: {msg}", line) from None
+    except RecursionError:  # tomllib recurses once per level of [ or { nesting
+        raise JobError(path, "", "TOML nested too deeply (arrays or inline tables inside each other "
+                       "hundreds of levels deep)") from None
     src = Source(path, LineIndex(text))
     root = Table(doc, src, (), "")
     header = _header(root.table("job", required=True))
@@ -143,7 +148,10 @@ def _settings(t: Table) -> Settings:
 
 def _materials(root: Table) -> dict[str, Material]:
     out: dict[str, Material] = {}
-    for t in root.tables("material"):
+    tables = root.tables("material")
+    if len(tables) > MAX_MATERIALS:
+        raise root.error("material", f"expected at most {MAX_MATERIALS} materials, got {len(tables)}")
+    for t in tables:
         mid = t.text("id", True)
         if mid in out:
             raise t.error("id", f"duplicate material id {mid!r}")

@@ -31,11 +31,15 @@ from ..solve.combinations import STANDARD_CASES
 from ..units import Q_
 from .reader import Table
 
-__all__ = ["read_loads", "MAX_LOADS", "MAX_SUPPORTS", "MAX_COMBINATIONS"]
+__all__ = ["read_loads", "MAX_LOADS", "MAX_SUPPORTS", "MAX_COMBINATIONS", "MAX_SPAN_FT", "MIN_SPAN_IN"]
 
 MAX_LOADS = 200
 MAX_SUPPORTS = 20
 MAX_COMBINATIONS = 100
+#: Longest member the tool accepts (2,000 ft ≈ 610 m, far beyond any built-up member; a longer
+#: span is a typing slip) and the shortest (1 in). Common practice, no source.
+MAX_SPAN_FT = 2000
+MIN_SPAN_IN = 1.0
 SUPPORT_TYPES = ("pin", "roller", "fixed")
 LOAD_KINDS = ("uniform", "point", "linear")
 
@@ -56,6 +60,9 @@ def read_loads(t: Table, member: Member, settings: Settings) -> Member:
         if self_weight:
             raise t.error("self_weight", "self_weight needs the member length: add span = \"20 ft\"")
         return member
+    if not MIN_SPAN_IN <= float(span.to("inch").magnitude) <= MAX_SPAN_FT * 12:
+        raise t.error("span", f"expected a span from {MIN_SPAN_IN:g} in to {MAX_SPAN_FT:,} ft (610 m), "
+                              f"got {t.data['span']!r}")
     for name, items, cap in (("load", load_tables, MAX_LOADS), ("support", support_tables, MAX_SUPPORTS),
                              ("combination", combo_tables, MAX_COMBINATIONS)):
         if len(items) > cap:

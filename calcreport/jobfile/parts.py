@@ -29,12 +29,20 @@ __all__ = ["read_part", "SHAPES", "MAX_VERTICES"]
 SHAPES = ("rect", "plate", "lumber", "bar", "polygon", "rolled")
 PLACEMENTS = ("on", "below", "left_of", "right_of", "at")
 MAX_VERTICES = 2000
+#: Smallest part dimension (0.001 in = 0.025 mm): thinner is a typing slip, and it would make the
+#: section's area vanish (common practice, no source).
+MIN_DIMENSION = 1e-3
 _IN = "inch"
 
 
 def _len(t: Table, name: str, required: bool = True) -> float | None:
     q = t.quantity(name, "length", required=required)
-    return None if q is None else float(q.to(_IN).magnitude)
+    if q is None:
+        return None
+    v = float(q.to(_IN).magnitude)
+    if v < MIN_DIMENSION:
+        raise t.error(name, f"expected at least {MIN_DIMENSION:g} in (0.025 mm), got {t.data[name]!r}")
+    return v
 
 
 def _box(w: float, h: float, **kw) -> Shape:
@@ -56,7 +64,7 @@ def _read_polygon(t: Table) -> Shape:
     from shapely.geometry import Polygon
 
     poly = Polygon(verts)
-    if not poly.is_valid or poly.area <= 1e-9:
+    if not poly.is_valid or poly.area <= MIN_DIMENSION ** 2:
         raise t.error("points", "expected a simple polygon with area (edges must not cross)")
     if poly.exterior.is_ccw is False:
         verts.reverse()
@@ -95,6 +103,9 @@ def _read_shape(t: Table, kind: str) -> Shape:
     # rolled: given by its properties
     area = float(t.quantity("area", "area", required=True).to("inch**2").magnitude)
     inertia = float(t.quantity("inertia", "inertia", required=True).to("inch**4").magnitude)
+    if area < MIN_DIMENSION ** 2 or inertia < MIN_DIMENSION ** 4:
+        raise t.error("area" if area < MIN_DIMENSION ** 2 else "inertia",
+                      "expected a rolled shape of at least 1e-6 in² and 1e-12 in⁴")
     depth, width = _len(t, "depth"), _len(t, "width")
     cy = _len(t, "centroid", required=False)
     cy = depth / 2 if cy is None else cy
