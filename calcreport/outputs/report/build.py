@@ -1,8 +1,8 @@
 """Assemble the PDF report of one solved job and write it atomically.
 
-``build_pdf(result, out_path)`` lays the story out twice — the first pass counts the sheets and
-records where each section starts, the second prints "Sheet N of M" and the contents — and writes
-the bytes through a temporary file in the target folder and ``os.replace``. The output is
+``build_pdf(result, out_path)`` lays the story out once — "Sheet N of M" and the contents' sheet
+numbers are PDF forms defined when the last sheet is done (see :mod:`.pages`) — and writes the
+bytes through a temporary file in the target folder and ``os.replace``. The output is
 deterministic: reportlab's invariant mode, a creation date from the job (``[job] date``, else
 ``SOURCE_DATE_EPOCH``, else 2000-01-01) and no random ids.
 """
@@ -37,9 +37,7 @@ from .signoff import limitations_story, signoff_story
 from .styles import esc, make_styles, register_fonts
 from .template import Template, load_template
 
-__all__ = ["build_pdf", "render_pdf", "write_atomic", "report_sections", "MAX_PASSES"]
-
-MAX_PASSES = 4
+__all__ = ["build_pdf", "render_pdf", "write_atomic", "report_sections"]
 
 
 class _Info(PDFInfo):
@@ -165,20 +163,15 @@ def render_pdf(result: JobResult, template: Template | None = None, changed_keys
     keywords = ", ".join(x for x in (h.number, f"revision {h.revision}" if h.revision else "",
                                      *(f"member {m.id}" for m in result.members), "shear flow",
                                      "connector spacing", "calcreport") if x)
-    pdf = b""
-    for _ in range(MAX_PASSES):
-        buf = io.BytesIO()
-        doc = ReportDoc(buf, tpl, styles, info, maker, title=f"{h.project} — {h.subject}".strip(" —"),
-                        author=h.prepared_by or "calcreport", subject=h.subject or h.project, keywords=keywords,
-                        creator=f"calcreport {__version__}")
-        ctx = Ctx(result, display, styles, tpl, doc.width, frozenset(changed_keys), revision_mark,
-                  doc.frame_height)
-        doc.build(_story(ctx, info, sections), canvasmaker=maker)
-        pdf = buf.getvalue()
-        stable = info.total == doc.page and info.sections == doc.seen_sections
-        info.total, info.sections = doc.page, dict(doc.seen_sections)
-        if stable:
-            break
+    info.deferred = True  # one layout pass (see module docstring)
+    buf = io.BytesIO()
+    doc = ReportDoc(buf, tpl, styles, info, maker, title=f"{h.project} — {h.subject}".strip(" —"),
+                    author=h.prepared_by or "calcreport", subject=h.subject or h.project, keywords=keywords,
+                    creator=f"calcreport {__version__}")
+    ctx = Ctx(result, display, styles, tpl, doc.width, frozenset(changed_keys), revision_mark,
+              doc.frame_height)
+    doc.build(_story(ctx, info, sections), canvasmaker=maker)
+    pdf = buf.getvalue()
     return pdf
 
 

@@ -117,6 +117,9 @@ def cover_story(ctx: Ctx, info: PageInfo, sections: list[tuple[str, str]]) -> li
     story.append(Paragraph("Contents", st.h2))
     toc = [["Section", "Sheet"]]
     for sid, title in sections:
+        if info.deferred:  # one layout pass: the number is a form filled in at the end
+            toc.append([title, info.sheet_ref(sid, st.cell.fontName, st.cell.fontSize)])
+            continue
         sheet = info.sections.get(sid)
         toc.append([title, str(sheet) if sheet else "—"])
     story.append(grid(toc, [0.85 * w, 0.15 * w], st, zebra=False,

@@ -1,7 +1,11 @@
 """Page furniture: the title block on every sheet, the footer, section marks and revision marks.
 
-The document is laid out twice (see :mod:`.build`): the first pass counts the sheets and notes on
-which sheet each section starts; the second pass prints "Sheet N of M" and the contents.
+One layout pass: what is known only at the end — "Sheet N of M" and the contents' sheet numbers —
+is drawn through PDF forms (XObjects). Each sheet references the form ``crsheetN`` and each
+contents row a form ``crtocK`` (:class:`SheetRef`); the document defines the forms once the last
+sheet is laid out (:meth:`ReportDoc._endBuild`), before the file is saved. With
+``PageInfo.deferred`` false the text is drawn directly from ``PageInfo.total`` and
+``PageInfo.sections``, for callers that lay out more than once.
 """
 
 from __future__ import annotations
@@ -14,7 +18,8 @@ from reportlab.platypus import BaseDocTemplate, Flowable, Frame, PageTemplate
 from .styles import Styles, fit_text, plain
 from .template import Template
 
-__all__ = ["PageInfo", "ReportDoc", "SectionStart", "MarginMark", "TITLE_H", "FOOTER_H", "GREY", "RULE"]
+__all__ = ["PageInfo", "ReportDoc", "SectionStart", "SheetRef", "MarginMark", "TITLE_H", "FOOTER_H", "GREY",
+           "RULE"]
 
 TITLE_H = 70.0
 FOOTER_H = 22.0
@@ -42,6 +47,35 @@ class PageInfo:
     version: str
     total: int | None = None  # sheets, known after the first pass
     sections: dict[str, int] = field(default_factory=dict)  # section id → first sheet
+    deferred: bool = False  # one pass: sheet numbers through forms defined at the end
+    refs: dict[str, tuple[str, str, float]] = field(default_factory=dict)  # form → (section, font, size)
+
+    def sheet_ref(self, sid: str, font: str, size: float) -> "SheetRef":
+        """A contents cell showing the first sheet of section ``sid`` (filled in at the end)."""
+        name = f"crtoc{len(self.refs) + 1}"
+        self.refs[name] = (sid, font, size)
+        return SheetRef(name, size)
+
+
+class SheetRef(Flowable):
+    """A sheet number (set like a table cell's text) drawn from the form ``name``, defined after
+    the layout."""
+
+    def __init__(self, name: str, size: float):
+        super().__init__()
+        self.name, self.size = name, size
+        self.width, self.height = 0.0, size * 1.25
+
+    def wrap(self, aw, ah):
+        self.width = aw
+        return aw, self.height
+
+    def draw(self):
+        c = self.canv
+        c.saveState()
+        c.translate(0, self.height - self.size)
+        c.doForm(self.name)
+        c.restoreState()
 
 
 class SectionStart(Flowable):
@@ -110,6 +144,34 @@ class ReportDoc(BaseDocTemplate):
                       id="body", leftPadding=0, rightPadding=0, topPadding=0, bottomPadding=0)
         self.addPageTemplates([PageTemplate("sheet", frames=[frame], onPageEnd=self._furniture)])
         self._canvasmaker = canvasmaker
+
+    def _endBuild(self):
+        """Finish the last sheet, then define the deferred forms (the totals are known) and save."""
+        if not self.info.deferred:
+            return super()._endBuild()
+        self._doSave = 0
+        super()._endBuild()
+        c, total, info = self.canv, self.page, self.info
+        _, _, x1, _ = self._sheet_box()
+        for n in range(1, total + 1):
+            c.beginForm(f"crsheet{n}", -10, -10, x1 + 10, 30)
+            self._value(c, 0, 0, f"Sheet {n} of {total}", x1, 9.5, bold=True)
+            c.endForm()
+        for name, (sid, font, size) in info.refs.items():
+            sheet = self.seen_sections.get(sid)
+            c.beginForm(name, -10, -10, 200, 30)
+            c.setFont(font, size)
+            c.drawString(0, 0, str(sheet) if sheet else "—")
+            c.endForm()
+        c.save()
+
+    def _sheet_box(self) -> tuple[float, float, float, float]:
+        """Where the sheet number goes: x, y of its baseline, its width, 0."""
+        left, right, top, _ = self.tpl.margins
+        w, h = self.tpl.pagesize
+        width = w - left - right
+        cs = w - right - width * 0.17
+        return cs + 5, h - top - 21, width * 0.17 - 10, 0.0
 
     @property
     def body_width(self) -> float:
@@ -194,8 +256,15 @@ class ReportDoc(BaseDocTemplate):
         # sheet column
         sx, sw = cs + 5, x1 - cs - 10
         self._label(c, sx, y1 - 8, "Sheet")
-        total = str(info.total) if info.total else "?"
-        self._value(c, sx, y1 - 21, f"Sheet {self.page} of {total}", sw, 9.5, bold=True)
+        if info.deferred:
+            bx, by, _, _ = self._sheet_box()
+            c.saveState()
+            c.translate(bx, by)
+            c.doForm(f"crsheet{self.page}")
+            c.restoreState()
+        else:
+            total = str(info.total) if info.total else "?"
+            self._value(c, sx, y1 - 21, f"Sheet {self.page} of {total}", sw, 9.5, bold=True)
         self._label(c, sx, y1 - 33, "Revision")
         self._value(c, sx, y1 - 45, info.revision or "—", sw, 11, bold=True)
         # bottom strip: prepared, checked, job number
