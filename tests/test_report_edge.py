@@ -151,16 +151,21 @@ def test_cli_build_exit_codes_and_paths(tmp_path, monkeypatch, cli):
     assert sorted(p.name for p in (tmp_path / "many").iterdir()) == ["boathouse-door-header.pdf", "report-mixed.pdf"]
 
 
-def test_cli_invalid_input_writes_nothing(tmp_path, monkeypatch, cli):
+def test_cli_invalid_job_writes_nothing_the_others_are_written(tmp_path, monkeypatch, cli):
     monkeypatch.chdir(tmp_path)
     bad = write(tmp_path, "[job]\nproject = 1\n", "bad.toml")
     (tmp_path / "out").mkdir()
     (tmp_path / "out" / "bad.pdf").write_bytes(b"earlier")
-    code, out, err = cli("build", str(DEMO), str(bad))
+    code, out, err = cli("build", "-j", "1", str(DEMO), str(bad))
     assert code == 2
-    assert err.count("\n") == 1 and "bad.toml" in err
+    # each job of a batch is built on its own: the invalid one writes nothing (its earlier report
+    # stays), the valid one is written, and the summary names the failure on one line
+    assert "1 of 2 jobs not built" in err and err.count("bad.toml") == 1
     assert (tmp_path / "out" / "bad.pdf").read_bytes() == b"earlier"
-    assert not (tmp_path / "out" / "boathouse-door-header.pdf").exists()  # nothing half-written
+    assert (tmp_path / "out" / "boathouse-door-header.pdf").is_file()
+    assert sorted(p.name for p in (tmp_path / "out").iterdir()) == ["bad.pdf", "boathouse-door-header.pdf"]
+    code, out, err = cli("build", str(bad))  # one job: just its one-line error
+    assert code == 2 and err.count("\n") == 1 and err.startswith(str(bad))
 
 
 @pytest.mark.parametrize("value, message", [

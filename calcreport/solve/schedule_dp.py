@@ -117,13 +117,12 @@ def _range_max(d: Demand, starts: np.ndarray, ends: np.ndarray) -> np.ndarray:
     E = np.where(np.arange(n)[None, :] >= si[:, None], qe[None, :], 0.0) if n else np.zeros(
         (len(starts), 0))
     run = np.maximum.accumulate(E, axis=1) if n else E
-    out = np.full((len(starts), len(ends)), -1.0)
-    for i in range(len(starts)):
-        pt = d.at(starts[i])
-        for_j = ej >= si[i]
-        cols = np.where(ej[for_j] > si[i], run[i, np.maximum(ej[for_j] - 1, 0)], 0.0)
-        out[i, for_j] = np.maximum(cols, pt)
-    return out
+    pt = np.array([d.at(a) for a in starts])
+    if n:
+        cols = np.where(ej[None, :] > si[:, None], run[:, np.maximum(ej - 1, 0)], 0.0)
+    else:
+        cols = np.zeros((len(starts), len(ends)))
+    return np.where(ej[None, :] >= si[:, None], np.maximum(cols, pt[:, None]), -1.0)
 
 
 def _allowed(cap: np.ndarray, cap_row: float, inc: float, kmin: int, kmax: int) -> np.ndarray:

@@ -1,4 +1,6 @@
-"""``calcreport build``: one PDF calculation report per job file.
+"""``calcreport build``: one PDF calculation report per job file (a folder: each *.toml in it).
+
+Each job is built independently and atomically (:mod:`.batch`), several at a time with ``-j``.
 
 Registered by :func:`calcreport.cli._add_optional_commands`. Nothing from the PDF stack is imported
 here at module level, so ``calcreport check`` stays light.
@@ -6,6 +8,7 @@ here at module level, so ``calcreport check`` stays light.
 
 from __future__ import annotations
 
+import os
 import sys
 from pathlib import Path
 
@@ -16,15 +19,19 @@ EXIT_OK, EXIT_NG, EXIT_INVALID = 0, 1, 2
 
 def register(sub) -> None:
     b = sub.add_parser(
-        "build", help="write a PDF calculation report per job file",
+        "build", help="write a PDF calculation report per job file (or per job in a folder)",
         description="Solve each job file and write its calculation report as PDF: title block on every "
         "sheet, seal box, inputs, section drawing to scale, step-by-step derivation, results, sign-off and "
-        "limitations. Exit 0 all OK, 1 some NG (the reports are still written and show NG), "
-        "2 invalid input (nothing written).")
-    b.add_argument("jobs", nargs="+", metavar="JOB.toml")
+        "limitations. A folder stands for every *.toml job in it (sorted by name). Each job is built on "
+        "its own and written atomically: an invalid job writes nothing and is listed in a summary at the "
+        "end, the other jobs are still written. Exit code: the worst of all jobs — 0 all OK, 1 some NG "
+        "(the reports are still written and show NG), 2 some job invalid or not written.")
+    b.add_argument("jobs", nargs="+", metavar="JOB.toml|FOLDER")
     b.add_argument("-o", "--output", metavar="OUT",
                    help="where to write: for one job a file path (a path ending in / or an existing folder "
                    "means a folder); for several jobs a folder. Default: ./out/<job-name>.pdf")
+    b.add_argument("-j", "--jobs", dest="workers", type=_workers, metavar="N", default=None,
+                   help="build N jobs at a time in separate processes (default: the number of cores)")
     b.add_argument("--since", metavar="REV",
                    help="mark what changed since git revision REV (commit, tag, branch) with a revision "
                    "triangle carrying the job's revision letter (see docs/review.md)")
@@ -33,15 +40,28 @@ def register(sub) -> None:
     b.set_defaults(func=cmd_build)
 
 
-def output_paths(jobs: list[str], output: str | None) -> list[Path]:
-    """The PDF path of each job (see ``--output``); raises ValueError for a clash or misuse."""
+def _workers(text: str) -> int:
+    import argparse
+
+    try:
+        n = int(text)
+    except ValueError:
+        n = 0
+    if not 1 <= n <= 256:
+        raise argparse.ArgumentTypeError(f"expected a number of processes from 1 to 256, got {text!r}")
+    return n
+
+
+def output_paths(jobs: list[str], output: str | None, folder: bool = False) -> list[Path]:
+    """The PDF path of each job (see ``--output``; ``folder``: -o names a folder even for one job);
+    raises ValueError for a clash or misuse."""
     stems = [Path(j).stem for j in jobs]
     if output is None:
         folder = Path("out")
     else:
         out = Path(output)
-        is_folder = output.endswith(("/", "\\")) or out.is_dir() or len(jobs) > 1
-        if len(jobs) > 1 and out.exists() and not out.is_dir():
+        is_folder = output.endswith(("/", "\\")) or out.is_dir() or len(jobs) > 1 or folder
+        if (len(jobs) > 1 or folder) and out.exists() and not out.is_dir():
             raise ValueError(f"{output}: with several jobs, -o must be a folder")
         if not is_folder:
             if out.suffix.lower() != ".pdf":
@@ -58,49 +78,26 @@ def output_paths(jobs: list[str], output: str | None) -> list[Path]:
 
 
 def cmd_build(args) -> int:
-    from ...cli import solve_file
-    from ...errors import JobError
+    from .batch import Task, default_workers, expand_jobs, run_jobs
 
     try:
-        paths = output_paths(args.jobs, args.output)
+        jobs = expand_jobs(args.jobs)
+        paths = output_paths(jobs, args.output, folder=any(os.path.isdir(j) for j in args.jobs))
     except ValueError as exc:
         print(f"calcreport build: {exc}", file=sys.stderr)
         return EXIT_INVALID
-    results = []
-    for path in args.jobs:  # everything is validated before anything is written
-        try:
-            results.append(solve_file(path))
-        except JobError as exc:
-            print(str(exc).replace("\n", " "), file=sys.stderr)
-            return EXIT_INVALID
-    from .build import render_pdf, write_atomic
-    from .template import load_template
-
-    rendered = []
-    for path, r in zip(args.jobs, results):
-        try:
-            tpl = load_template(r.job.settings.template, r.job.path)
-            keys, mark = frozenset(), ""
-            if args.since is not None:
-                from ..review_io import revision_marks_since
-
-                marks = revision_marks_since(path, args.since, r)
-                keys, mark = marks.changed_keys, marks.mark
-        except JobError as exc:
-            print(str(exc).replace("\n", " "), file=sys.stderr)
-            return EXIT_INVALID
-        rendered.append(render_pdf(r, tpl, keys, mark))
-    worst = EXIT_OK
-    for r, pdf, out in zip(results, rendered, paths):
-        try:
-            write_atomic(pdf, out)
-            if args.json:
-                from ..json_out import write_results_json
-
-                write_results_json(r, out)
-        except OSError as exc:
-            print(f"{out}: cannot write the report ({exc.strerror or exc})", file=sys.stderr)
-            return EXIT_INVALID
-        print(f"wrote {out}" + (f" and {out.with_suffix('.json').name}" if args.json else "") + f"  [{r.status}]")
-        worst = max(worst, EXIT_NG if r.status == "NG" else EXIT_OK)
-    return worst
+    tasks = [Task(j, p, args.since, args.json) for j, p in zip(jobs, paths)]
+    workers = args.workers or default_workers()
+    outcomes = run_jobs(tasks, workers)
+    failed = [o for o in outcomes if o.code == EXIT_INVALID]
+    for o in outcomes:
+        if o.code != EXIT_INVALID:
+            print(o.line)
+    if len(tasks) == 1:
+        for o in failed:
+            print(o.line, file=sys.stderr)
+    elif failed:
+        print(f"calcreport build: {len(failed)} of {len(tasks)} jobs not built:", file=sys.stderr)
+        for o in failed:
+            print(f"  {o.line}", file=sys.stderr)
+    return max((o.code for o in outcomes), default=EXIT_OK)

@@ -1,0 +1,158 @@
+"""Building many reports: one job per task, each solved, rendered and written atomically on its own.
+
+``build_one`` is the unit of work (a top-level function, so a process pool can run it): it never
+raises for a bad job — it returns the exit code and the line to print. ``run_jobs`` runs the tasks
+in order in this process (one worker) or in a :class:`concurrent.futures.ProcessPoolExecutor`,
+shows a progress line on a terminal and returns the outcomes in job order.
+"""
+
+from __future__ import annotations
+
+import os
+import sys
+from dataclasses import dataclass
+from pathlib import Path
+from typing import Callable, TextIO
+
+__all__ = ["Task", "Outcome", "expand_jobs", "build_one", "run_jobs", "default_workers"]
+
+EXIT_OK, EXIT_NG, EXIT_INVALID = 0, 1, 2
+
+
+@dataclass(frozen=True)
+class Task:
+    job: str
+    out: Path
+    since: str | None = None
+    json: bool = False
+
+
+@dataclass(frozen=True)
+class Outcome:
+    job: str
+    code: int  # 0 OK, 1 NG (report written), 2 invalid or not written
+    line: str  # "wrote …" for stdout, or the one-line error for stderr
+
+
+def expand_jobs(items: list[str]) -> list[str]:
+    """Job files from the command line; a folder stands for its *.toml files, sorted by name.
+
+    Raises ValueError for a folder without job files.
+    """
+    jobs: list[str] = []
+    for item in items:
+        if os.path.isdir(item):
+            found = sorted(str(p) for p in Path(item).glob("*.toml") if p.is_file())
+            if not found:
+                raise ValueError(f"{item}: folder has no *.toml job files")
+            jobs += found
+        else:
+            jobs.append(item)
+    return jobs
+
+
+def default_workers() -> int:
+    """Processes for a batch: the cores this process may use."""
+    try:
+        return max(1, len(os.sched_getaffinity(0)))
+    except (AttributeError, OSError):
+        return max(1, os.cpu_count() or 1)
+
+
+def _one_line(text: str) -> str:
+    return " ".join(str(text).split())
+
+
+def build_one(task: Task) -> Outcome:
+    """Solve, render and write one report; every failure becomes exit 2 with one line."""
+    from ...cli import solve_file
+    from ...errors import JobError
+
+    try:
+        r = solve_file(task.job)
+        from .build import render_pdf, write_atomic
+        from .template import load_template
+
+        tpl = load_template(r.job.settings.template, r.job.path)
+        keys, mark = frozenset(), ""
+        if task.since is not None:
+            from ..review_io import revision_marks_since
+
+            marks = revision_marks_since(task.job, task.since, r)
+            keys, mark = marks.changed_keys, marks.mark
+        pdf = render_pdf(r, tpl, keys, mark)
+    except JobError as exc:
+        return Outcome(task.job, EXIT_INVALID, _one_line(exc))
+    except Exception as exc:  # a defect of ours: still one line, exit 2, nothing written
+        return Outcome(task.job, EXIT_INVALID, _one_line(
+            f"{task.job}: internal error while building the report ({type(exc).__name__}: {exc}); "
+            "please report it with the job file"))
+    try:
+        write_atomic(pdf, task.out)
+        if task.json:
+            from ..json_out import write_results_json
+
+            write_results_json(r, task.out)
+    except OSError as exc:
+        return Outcome(task.job, EXIT_INVALID, _one_line(f"{task.out}: cannot write the report "
+                                                         f"({exc.strerror or exc})"))
+    extra = f" and {task.out.with_suffix('.json').name}" if task.json else ""
+    return Outcome(task.job, EXIT_NG if r.status == "NG" else EXIT_OK, f"wrote {task.out}{extra}  [{r.status}]")
+
+
+class _Progress:
+    """'[3/12] building name…' on one \\r-updated line, only when ``stream`` is a terminal."""
+
+    def __init__(self, total: int, stream: TextIO):
+        self.total, self.stream, self.done = total, stream, 0
+        try:
+            self.on = total > 1 and stream.isatty()
+        except (AttributeError, ValueError):
+            self.on = False
+        self.width = 0
+
+    def show(self, text: str) -> None:
+        if not self.on:
+            return
+        line = f"[{self.done}/{self.total}] {text}"[:100]
+        self.stream.write("\r" + line.ljust(self.width))
+        self.stream.flush()
+        self.width = len(line)
+
+    def clear(self) -> None:
+        if self.on and self.width:
+            self.stream.write("\r" + " " * self.width + "\r")
+            self.stream.flush()
+
+
+def run_jobs(tasks: list[Task], workers: int, stream: TextIO | None = None,
+             work: Callable[[Task], Outcome] = build_one) -> list[Outcome]:
+    """Run every task (``workers`` processes when more than one) and return outcomes in task order."""
+    stream = stream if stream is not None else sys.stderr
+    progress = _Progress(len(tasks), stream)
+    outcomes: dict[int, Outcome] = {}
+    workers = max(1, min(workers, len(tasks)))
+    try:
+        if workers == 1:
+            for i, t in enumerate(tasks):
+                progress.show(f"building {Path(t.job).name}…")
+                outcomes[i] = work(t)
+                progress.done += 1
+        else:
+            from concurrent.futures import ProcessPoolExecutor, as_completed
+
+            with ProcessPoolExecutor(max_workers=workers) as pool:
+                futures = {pool.submit(work, t): i for i, t in enumerate(tasks)}
+                progress.show(f"building {len(tasks)} jobs on {workers} processes…")
+                for f in as_completed(futures):
+                    i = futures[f]
+                    try:
+                        outcomes[i] = f.result()
+                    except Exception as exc:  # a worker died (killed, out of memory): that job only
+                        outcomes[i] = Outcome(tasks[i].job, EXIT_INVALID, _one_line(
+                            f"{tasks[i].job}: the build process failed ({type(exc).__name__}: {exc})"))
+                    progress.done += 1
+                    progress.show(f"built {Path(tasks[i].job).name}")
+    finally:
+        progress.clear()
+    return [outcomes[i] for i in range(len(tasks))]
