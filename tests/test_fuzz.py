@@ -1,7 +1,10 @@
 """Fuzzed job files: the command line never shows a traceback; every failure is exit 2 with one line
 naming the file (and key). Two generators: random TOML structure built from our key vocabulary with
-random values, units and unicode; and mutated copies of the demo jobs. Together well over 2,000
-cases per run (common practice for robustness testing, no source)."""
+random values, units and unicode; and mutated copies of the demo jobs (run through `check`), and a smaller number of mutated demo
+jobs run through `build` to a temporary folder, which must then hold the one report (exit 0/1) or
+nothing at all (exit 2), never a temporary file. Together over 2,000 cases per run (common practice
+for robustness testing, no source). The example counts keep the file within about a minute and a
+half on two cores."""
 
 from __future__ import annotations
 
@@ -74,7 +77,7 @@ def _check_case(tmp_path, text: str) -> None:
         assert out == ""
 
 
-@settings(max_examples=1000, deadline=None, suppress_health_check=[HealthCheck.function_scoped_fixture,
+@settings(max_examples=900, deadline=None, suppress_health_check=[HealthCheck.function_scoped_fixture,
                                                                   HealthCheck.too_slow])
 @given(doc=document)
 def test_random_structure(tmp_path, doc):
@@ -123,12 +126,33 @@ def mutate(text: str, rng: random.Random, n: int) -> str:
     return "\n".join(lines) + "\n"
 
 
-@settings(max_examples=1200, deadline=None, suppress_health_check=[HealthCheck.function_scoped_fixture,
+@settings(max_examples=1060, deadline=None, suppress_health_check=[HealthCheck.function_scoped_fixture,
                                                                   HealthCheck.too_slow])
 @given(seed=st.integers(0, 2**32 - 1), which=st.integers(0, 100), n=st.integers(1, 6))
 def test_mutated_demo_jobs(tmp_path, seed, which, n):
     text = DEMOS[which % len(DEMOS)]
     _check_case(tmp_path, mutate(text, random.Random(seed), n))
+
+
+@settings(max_examples=60, deadline=None, suppress_health_check=[HealthCheck.function_scoped_fixture,
+                                                                HealthCheck.too_slow])
+@given(seed=st.integers(0, 2**32 - 1), which=st.integers(0, 100), n=st.integers(1, 4))
+def test_mutated_demo_jobs_build(tmp_path_factory, seed, which, n):
+    base = tmp_path_factory.mktemp("build")
+    job = base / "fuzz.toml"
+    job.write_text(mutate(DEMOS[which % len(DEMOS)], random.Random(seed), n), encoding="utf-8")
+    out = base / "out"
+    code, stdout, err = run_cli("build", str(job), "-o", str(out) + "/")
+    assert code in (0, 1, 2), (code, err)
+    assert "Traceback" not in err and "internal error" not in err, err
+    written = sorted(p.name for p in out.iterdir()) if out.exists() else []
+    if code == 2:
+        lines = err.strip().splitlines()
+        assert len(lines) == 1 and lines[0].startswith(str(job)), err
+        assert stdout == "" and written == []
+    else:
+        assert written == ["fuzz.pdf"] and err == ""
+        assert (out / "fuzz.pdf").read_bytes().startswith(b"%PDF-")
 
 
 def test_entry_point_is_main():
