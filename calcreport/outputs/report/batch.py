@@ -141,6 +141,11 @@ def run_jobs(tasks: list[Task], workers: int, stream: TextIO | None = None,
         else:
             from concurrent.futures import ProcessPoolExecutor, as_completed
 
+            if work is build_one:  # import once here: forked workers inherit the loaded modules
+                from ...jobfile import load_job  # noqa: F401
+                from ...solve import solve_job  # noqa: F401
+                from . import build  # noqa: F401
+
             with ProcessPoolExecutor(max_workers=workers) as pool:
                 futures = {pool.submit(work, t): i for i, t in enumerate(tasks)}
                 progress.show(f"building {len(tasks)} jobs on {workers} processes…")
