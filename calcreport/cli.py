@@ -11,7 +11,13 @@ import os
 import sys
 from pathlib import Path
 
-from . import __version__
+# The matrices here are small (a beam's stiffness, a few hundred unknowns): a multi-threaded BLAS
+# only pays thread start-up, ~0.3 s on a cold run with a busy core (benchmarks/cold_start.py).
+# Set before anything imports numpy; an explicit setting in the environment wins.
+for _var in ("OPENBLAS_NUM_THREADS", "OMP_NUM_THREADS", "MKL_NUM_THREADS"):
+    os.environ.setdefault(_var, "1")
+
+from . import __version__  # noqa: E402
 
 __all__ = ["main"]
 
