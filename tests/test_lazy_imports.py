@@ -19,3 +19,28 @@ def test_check_does_not_import_reportlab():
     r = subprocess.run([sys.executable, "-c", code], cwd=ROOT, capture_output=True, text=True)
     assert r.returncode == 0, r.stderr
     assert r.stdout.strip() == "0 []", r.stdout
+
+
+def test_build_of_an_invalid_job_stops_before_the_pdf_stack(tmp_path):
+    bad = tmp_path / "bad.toml"
+    bad.write_text("[job]\nproject = 1\n", encoding="utf-8")
+    code = ("import sys, io, contextlib\n"
+            "from calcreport.cli import main\n"
+            "with contextlib.redirect_stderr(io.StringIO()):\n"
+            f"    rc = main(['build', {str(bad)!r}, '-o', {str(tmp_path / 'out')!r} + '/'])\n"
+            "heavy = sorted(m for m in sys.modules if m.split('.')[0] in ('reportlab', 'pypdf'))\n"
+            "print(rc, heavy)\n")
+    r = subprocess.run([sys.executable, "-c", code], cwd=ROOT, capture_output=True, text=True)
+    assert r.returncode == 0, r.stderr
+    assert r.stdout.strip() == "2 []", r.stdout
+    assert not (tmp_path / "out").exists()
+
+
+def test_cli_limits_blas_threads_unless_the_environment_says_otherwise():
+    code = "import os, calcreport.cli; print(os.environ['OPENBLAS_NUM_THREADS'])"
+    env = {k: v for k, v in __import__("os").environ.items() if k != "OPENBLAS_NUM_THREADS"}
+    r = subprocess.run([sys.executable, "-c", code], cwd=ROOT, capture_output=True, text=True, env=env)
+    assert r.stdout.strip() == "1", r.stderr
+    env["OPENBLAS_NUM_THREADS"] = "3"
+    r = subprocess.run([sys.executable, "-c", code], cwd=ROOT, capture_output=True, text=True, env=env)
+    assert r.stdout.strip() == "3", r.stderr
