@@ -42,6 +42,29 @@ class Demand:
         self.x = np.asarray(x, float)[order]
         self.q = np.abs(np.asarray(q, float)[order])
         self.length = float(length)
+        # largest q of each group of samples at one position (both sides of a jump)
+        n = len(self.x)
+        starts = np.flatnonzero(np.r_[True, np.diff(self.x) > _EPS]) if n else np.zeros(0, int)
+        gmax = np.maximum.reduceat(self.q, starts) if n else np.zeros(0)
+        self._gmax = np.repeat(gmax, np.diff(np.r_[starts, n])) if n else np.zeros(0)
+
+    def at_many(self, b: np.ndarray) -> np.ndarray:
+        """:meth:`at` for an array of positions (vectorised, same values)."""
+        b = np.asarray(b, float)
+        n = len(self.x)
+        lo = np.searchsorted(self.x, b - _EPS, "left")
+        hi = np.searchsorted(self.x, b + _EPS, "right")
+        out = np.empty(b.shape)
+        exact = hi > lo
+        out[exact] = self._gmax[lo[exact]]
+        edge = ~exact & ((lo == 0) | (lo >= n))
+        out[edge] = self.q[np.minimum(lo[edge], n - 1)]
+        mid = ~exact & ~edge
+        l1 = lo[mid]
+        x0, x1 = self.x[l1 - 1], self.x[l1]
+        t = (b[mid] - x0) / (x1 - x0)
+        out[mid] = self.q[l1 - 1] + t * (self.q[l1] - self.q[l1 - 1])
+        return out
 
     def at(self, b: float) -> float:
         lo = np.searchsorted(self.x, b - _EPS, "left")
@@ -62,8 +85,19 @@ class Demand:
         return max(inner, self.at(a), self.at(b))
 
     def elementary(self, B: np.ndarray) -> np.ndarray:
-        """Largest q on each [B[k], B[k+1]]."""
-        return np.array([self.max_over(a, b) for a, b in zip(B[:-1], B[1:])])
+        """Largest q on each [B[k], B[k+1]] (vectorised :meth:`max_over`)."""
+        B = np.asarray(B, float)
+        a, b = B[:-1], B[1:]
+        lo = np.searchsorted(self.x, a + _EPS, "right")
+        hi = np.searchsorted(self.x, b - _EPS, "left")
+        inner = np.zeros(len(a))
+        ok = hi > lo
+        if ok.any():
+            idx = np.empty(2 * int(ok.sum()), int)
+            idx[0::2], idx[1::2] = lo[ok], hi[ok]
+            red = np.maximum.reduceat(np.r_[self.q, 0.0], idx)  # q[lo:hi] per interval
+            inner[ok] = red[0::2]
+        return np.maximum(inner, np.maximum(self.at_many(a), self.at_many(b)))
 
     def bound(self, cap_row: float, s_max: float) -> float:
         """∫ max(q/(n·F), 1/s_max) dx, exact for the piecewise-linear q."""
@@ -93,9 +127,9 @@ def is_symmetric(d: Demand, rtol: float = 1e-6) -> bool:
     peak = float(d.q.max()) if d.q.size else 0.0
     if peak == 0.0:
         return True
-    return all(abs(d.at(d.length - x) - qq) <= rtol * peak + 1e-12
-               for x, qq in zip(d.x, d.q)) and all(
-        abs(d.at(x) - d.at(d.length - x)) <= rtol * peak + 1e-12 for x in d.x)
+    tol = rtol * peak + 1e-12
+    mirrored = d.at_many(d.length - d.x)
+    return bool(np.all(np.abs(mirrored - d.q) <= tol) and np.all(np.abs(d.at_many(d.x) - mirrored) <= tol))
 
 
 @dataclass(frozen=True)
@@ -117,7 +151,7 @@ def _range_max(d: Demand, starts: np.ndarray, ends: np.ndarray) -> np.ndarray:
     E = np.where(np.arange(n)[None, :] >= si[:, None], qe[None, :], 0.0) if n else np.zeros(
         (len(starts), 0))
     run = np.maximum.accumulate(E, axis=1) if n else E
-    pt = np.array([d.at(a) for a in starts])
+    pt = d.at_many(starts)
     if n:
         cols = np.where(ej[None, :] > si[:, None], run[:, np.maximum(ej - 1, 0)], 0.0)
     else:
@@ -190,11 +224,30 @@ def _central(length: float, a: float, b: float, qmax: float, cap_row, inc, kmin,
     return float(np.ceil((b - a) / (k * inc) - _EPS)), k
 
 
+_MEMO: dict[tuple, "Layout | None"] = {}
+_MEMO_MAX = 64
+
+
 def optimise(d: Demand, cap_row: float, inc: float, s_min: float, s_max: float,
              zones_per_half: int = 3, module: float | None = None,
              symmetric: bool | None = None) -> Layout | None:
     """Fewest-connector schedule under the module rules, or ``None`` when none exists
-    (demand needs a spacing below s_min somewhere)."""
+    (demand needs a spacing below s_min somewhere).
+
+    Joints with the same demand and rules (the two flanges of a symmetric box beam) share one
+    solution: results are remembered by the exact inputs.
+    """
+    key = (d.x.tobytes(), d.q.tobytes(), d.length, cap_row, inc, s_min, s_max, zones_per_half, module,
+           symmetric)
+    if key not in _MEMO:
+        if len(_MEMO) >= _MEMO_MAX:
+            _MEMO.pop(next(iter(_MEMO)))
+        _MEMO[key] = _optimise(d, cap_row, inc, s_min, s_max, zones_per_half, module, symmetric)
+    return _MEMO[key]
+
+
+def _optimise(d: Demand, cap_row: float, inc: float, s_min: float, s_max: float,
+              zones_per_half: int, module: float | None, symmetric: bool | None) -> Layout | None:
     L = d.length
     kmin = max(1, int(np.ceil(s_min / inc - _EPS)))
     kmax = int(np.floor(s_max / inc + _EPS))

@@ -82,6 +82,22 @@ def status_cell(status: str, st: Styles) -> Paragraph:
     return Paragraph(f'<font color="{colour.hexval()}"><b>{esc(status)}</b></font>', st.cell)
 
 
+def _may_be_tall(data, widths, limit: float) -> bool:
+    """Cheap upper bound on a row's height (generous: ~0.35 em per character on 8 pt text at
+    11 pt leading) — only tables that might hold a row taller than ``limit`` get a trial layout."""
+    for row in data:
+        for cell, w in zip(row, widths):
+            items = cell if isinstance(cell, (list, tuple)) else [cell]
+            for item in items:
+                text = item.getPlainText() if hasattr(item, "getPlainText") else ""
+                if not text:
+                    continue
+                lines = text.count("\n") + 1 + len(text) * 4.5 / max(w - 6, 10)
+                if lines * 11 > limit:
+                    return True
+    return False
+
+
 def grid(rows: Sequence[Sequence[Any]], widths: Sequence[float], st: Styles, header_rows: int = 1,
          extra: Sequence[tuple] = (), zebra: bool = True, frame_height: float = 560.0) -> Table:
     """A table in our style: thin rules, tinted header repeated on every page.
@@ -104,7 +120,7 @@ def grid(rows: Sequence[Sequence[Any]], widths: Sequence[float], st: Styles, hea
                 cells.append(cell)
         data.append(cells)
     split = 0
-    if frame_height:
+    if frame_height and _may_be_tall(data, widths, 0.5 * frame_height):
         probe = Table(data, colWidths=list(widths))
         probe.wrap(sum(widths), 1e7)
         split = int(max(probe._rowHeights, default=0) > 0.5 * frame_height)
