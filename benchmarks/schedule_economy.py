@@ -15,7 +15,11 @@ Run:  PYTHONPATH=$PWD python benchmarks/schedule_economy.py
 
 from __future__ import annotations
 
+import sys
 import time
+from pathlib import Path
+
+sys.path.insert(0, str(Path(__file__).resolve().parent.parent))  # run from a checkout without installing
 
 from calcreport.model import Combination, Load, Support
 from calcreport.solve.beam import analyse

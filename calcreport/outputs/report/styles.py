@@ -90,9 +90,14 @@ _BODY = ["CR-DejaVuSans"]
 
 def esc(text: object) -> str:
     """Paragraph-markup-safe text: escaped, with uncovered characters in the fallback font."""
+    return _esc(str(text), _BODY[0])
+
+
+@lru_cache(maxsize=16384)
+def _esc(text: str, body_font: str) -> str:  # report text repeats a lot (labels, units, sources)
     text = _clean(text)
     try:
-        covered = _covered(_BODY[0])
+        covered = _covered(body_font)
     except KeyError:
         return escape(text)
     out: list[str] = []
