@@ -108,7 +108,7 @@ def parse(text: object, expected: str | None = None) -> Quantity:
         UnitParseError: with a message that says what was expected.
 
     Example:
-        >>> parse("1-1/2 in", "length").to("mm").magnitude
+        >>> round(parse("1-1/2 in", "length").to("mm").magnitude, 6)
         38.1
     """
     example = DIMENSIONS[expected][1] if expected else '"5.5 in"'

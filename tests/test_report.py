@@ -187,8 +187,9 @@ def test_zone_schedule_hook_renders_a_table(tmp_path):
     flat = squash("".join(pages_text(out)))
     assert squash(f"Connector schedule — joint {m.joints[0].id}") in flat
     assert squash("Zone From To Spacing") in flat
-    for text in ("36.00 in", "132.0 in", "2.500 in", "6.000 in"):
-        assert squash(text) in flat
+    # positions along the member in the drawing convention (feet-inches), spacings in inches
+    for text in ("3'-0\"", "11'-0\"", "2.500 in", "6.000 in"):
+        assert squash(text) in flat, text
 
 
 def test_revision_marks_beside_changed_rows(tmp_path):

@@ -13,7 +13,7 @@ from typing import Any
 from ..steps import Step
 from ..units import Quantity, dimension_name
 
-__all__ = ["Display", "fmt_number", "json_number"]
+__all__ = ["Display", "fmt_number", "json_number", "feet_inches"]
 
 #: dimension → (pint unit, printed symbol, JSON unit text) for each unit system.
 _SYSTEMS: dict[str, dict[str, tuple[str, str, str]]] = {
@@ -90,6 +90,24 @@ def json_number(x: float) -> float | int:
     return float(f"{x:.6g}")
 
 
+def feet_inches(inches: float) -> str:
+    """``134.25`` → ``11'-2 1/4"``; under a foot ``9 1/2"`` (nearest 1/16 in; common practice).
+
+    Example:
+        >>> print(feet_inches(134.25), feet_inches(9.5), feet_inches(36.0))
+        11'-2 1/4" 9 1/2" 3'-0"
+    """
+    sign = "−" if inches < 0 else ""
+    sixteenths = int(round(abs(inches) * 16))
+    feet, rest = divmod(sixteenths, 12 * 16)
+    whole, frac = divmod(rest, 16)
+    text = str(whole)
+    if frac:
+        g = math.gcd(frac, 16)
+        text += f" {frac // g}/{16 // g}"
+    return f"{sign}{feet}'-{text}\"" if feet else f"{sign}{text}\""
+
+
 class Display:
     """Unit system of one job: converts and prints quantities consistently."""
 
@@ -116,6 +134,14 @@ class Display:
         """``"1,234 lbf"``-style text for a quantity."""
         mag, pretty, _ = self.convert(q)
         return f"{fmt_number(mag, sig)} {pretty}".rstrip()
+
+    def position(self, q: Quantity) -> str:
+        """A position or length along the member as drawings give it: feet-inches to 1/16 in
+        (``11'-2 1/4"``) in US units; millimetres, or metres from 1 m, in SI."""
+        if self.system == "SI":
+            mm = float(q.to("mm").magnitude)
+            return f"{fmt_number(mm / 1000, 4)} m" if abs(mm) >= 1000 else f"{fmt_number(mm, 3)} mm"
+        return feet_inches(float(q.to("inch").magnitude))
 
     def value(self, v: Any, sig: int = 4) -> str:
         """Text for any step value: quantity, number, or words."""

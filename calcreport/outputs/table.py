@@ -57,7 +57,7 @@ def _schedule_lines(joint_id: str, sch, d: Display) -> list[str]:
     """Zones of a joint's schedule and its economy figures."""
     if not sch.feasible:
         return [f"  {joint_id} schedule: none satisfies the rules — {sch.reason}"]
-    zones = ", ".join(f"{d.quantity(z.start, 3)}–{d.quantity(z.end, 3)} @ {d.quantity(z.spacing, 3)}"
+    zones = ", ".join(f"{d.position(z.start)} to {d.position(z.end)} @ {d.quantity(z.spacing, 3)}"
                       for z in sch.zones)
     ratio = f"{sch.ratio:.2f}" if sch.ratio is not None else "—"
     saving = f"{100 * sch.saving:.0f} %" if sch.saving is not None else "—"

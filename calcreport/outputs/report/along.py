@@ -31,7 +31,8 @@ __all__ = ["member_figures", "beam_figures", "schedule_figures", "zone_rows"]
 def member_figures(m: MemberResult, ctx: Ctx) -> list[Flowable]:
     """Flowables for the analysis along the member and the joints' zoned schedules (may be empty)."""
     out: list[Flowable] = []
-    load_fig = loading_diagram(m.member, ctx.q, ctx.styles.fonts, ctx.width, ctx.display.system)
+    load_fig = loading_diagram(m.member, ctx.q, ctx.display.position, ctx.styles.fonts, ctx.width,
+                               ctx.display.system)
     if load_fig is not None:
         out.append(KeepTogether([load_fig, para("Loads by case (downward positive) on the member, with its "
                                                 "supports and spans.", ctx.styles.caption)]))
@@ -42,7 +43,7 @@ def member_figures(m: MemberResult, ctx: Ctx) -> list[Flowable]:
         if j.schedule is not None:
             out += schedule_figures(j, ctx)
             chart = demand_capacity_chart(j, ctx.display, ctx.styles.fonts, ctx.width)
-            elev = zone_elevation(j, m.member, ctx.q, ctx.styles.fonts, ctx.width)
+            elev = zone_elevation(j, m.member, ctx.q, ctx.display.position, ctx.styles.fonts, ctx.width)
             if chart is not None:
                 out.append(KeepTogether([chart, para(
                     f"Shear flow q(x) = V(x)·Q/I at joint {j.id} from the envelope, against the capacity "
@@ -64,6 +65,13 @@ def _get(obj: Any, name: str, index: int) -> Any:
     return getattr(obj, name, None)
 
 
+def _pos_text(v: Any, ctx: Ctx) -> str:
+    """A position along the member in the drawing convention (feet-inches in US units)."""
+    if isinstance(v, Quantity):
+        return ctx.display.position(v)
+    return _len_text(v, ctx)
+
+
 def _len_text(v: Any, ctx: Ctx) -> str:
     if v is None:
         return "—"
@@ -80,7 +88,7 @@ def zone_rows(schedule: Any, ctx: Ctx) -> list[list]:
     rows = [["Zone", "From", "To", "Spacing", "Rows", "Governing combination"]]
     for i, z in enumerate(zones or (), 1):
         count = _get(z, "count", 3)
-        rows.append([str(i), _len_text(_get(z, "start", 0), ctx), _len_text(_get(z, "end", 1), ctx),
+        rows.append([str(i), _pos_text(_get(z, "start", 0), ctx), _pos_text(_get(z, "end", 1), ctx),
                      _len_text(_get(z, "spacing", 2), ctx), "—" if count is None else ctx.q(count),
                      str(_get(z, "governing", 6) or "—")])
     return rows

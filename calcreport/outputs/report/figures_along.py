@@ -71,7 +71,7 @@ def _dim(dr: Drawing, x0: float, x1: float, y: float, text: str, font: str, size
                    fillColor=DIM_INK))
 
 
-def loading_diagram(member: Member, fmt_q, fonts, width: float, system: str = "US") -> Drawing | None:
+def loading_diagram(member: Member, fmt_q, fmt_pos, fonts, width: float, system: str = "US") -> Drawing | None:
     """Member line, supports, loads by case (uniform, linear, point) and span dimension strings.
 
     ``fmt_q`` turns a quantity into display text (the report's ``Ctx.q``).
@@ -95,7 +95,7 @@ def loading_diagram(member: Member, fmt_q, fonts, width: float, system: str = "U
     if marks[-1] < L - 1e-9:
         marks = marks + [L]
     for a, b in zip(marks, marks[1:]):
-        _dim(dr, left + a * sx, left + b * sx, 10, fmt_q(Q_(b - a, "inch").to(member.span.units)), fonts.regular)
+        _dim(dr, left + a * sx, left + b * sx, 10, fmt_pos(Q_(b - a, "inch")), fonts.regular)
     for i, case in enumerate(cases):
         base = y_beam + 6 + band * i
         col = colors.HexColor(PALETTE[i % len(PALETTE)])
@@ -150,7 +150,7 @@ def demand_capacity_chart(j: JointResult, display, fonts, width: float) -> Drawi
                       title=f"Shear flow at joint {j.id}: demand and provided capacity")
 
 
-def zone_elevation(j: JointResult, member: Member, fmt_q, fonts, width: float) -> Drawing | None:
+def zone_elevation(j: JointResult, member: Member, fmt_q, fmt_pos, fonts, width: float) -> Drawing | None:
     """Elevation of the member with a tick at every connector row and a dimension string per zone."""
     sch = j.schedule
     if sch is None or not getattr(sch, "feasible", False) or not sch.zones:
@@ -174,7 +174,7 @@ def zone_elevation(j: JointResult, member: Member, fmt_q, fonts, width: float) -
         for x in rows:
             dr.add(Line(left + x * sx, y0 + 3, left + x * sx, y0 + h - 3, strokeColor=col, strokeWidth=0.35))
         _dim(dr, left + a * sx, left + b * sx, y0 + h + 8, f"@ {fmt_q(z.spacing, 3)}", fonts.regular, 6)
-        _dim(dr, left + a * sx, left + b * sx, 12, fmt_q(Q_(b - a, "inch").to(member.span.units if member.span is not None else "inch")), fonts.regular, 6)
+        _dim(dr, left + a * sx, left + b * sx, 12, fmt_pos(Q_(b - a, "inch")), fonts.regular, 6)
         dr.add(String(left + (a + b) / 2 * sx, 3, plain(f"{z.count} rows"), fontName=fonts.regular, fontSize=5.5,
                       textAnchor="middle", fillColor=DIM_INK))
     return dr
