@@ -136,3 +136,16 @@ tau = "150 psi"
     assert j.utilisation == pytest.approx(tau / 150)
     assert j.continuous and j.status == "OK"
     assert j.spacing_provided is None  # continuous: no spacing
+
+
+def test_shear_stress_on_a_fastened_plane():
+    # τ = V·Q/(I·b) on the joint's plane against the smallest Fv there (mechanics of materials,
+    # shear formula); the material here states Fv = 180 psi.
+    body = BOX.format(V="2 kip", tw="2 in", h="10 in", bf="8 in", tf="2 in", d="0.25 in", tau="15 ksi")
+    j = solve_job(load_text(job_text(body).encode())).members[0].joints[0]
+    yb = (16 * 11 + 20 * 5) / 36
+    I = 8 * 8 / 12 + 16 * (11 - yb) ** 2 + 2 * 1000 / 12 + 20 * (5 - yb) ** 2
+    tau = 2000 * 16 * (11 - yb) / (I * 2.0)
+    (check,) = [c for c in j.checks if c.label.startswith("Horizontal shear stress")]
+    assert check.demand.to("psi").magnitude == pytest.approx(tau)
+    assert check.ratio == pytest.approx(tau / 180)

@@ -58,6 +58,23 @@ def solve_member(member: Member, settings: Settings) -> MemberResult:
                         checks=checks, steps=tuple(log.steps), status=status, beam=beam)
 
 
+def _plane_shear(joint: Joint, held, other, V: Quantity, Q: Quantity, section: SectionResult,
+                 b: Quantity, log: StepLog) -> tuple:
+    """Horizontal shear stress on the joint's plane, τ = V·Q/(I·b), against the smallest Fv of the
+    parts that meet there (mechanics of materials, shear formula). Skipped for glue lines (their
+    capacity is that check) and where no part at the plane states Fv."""
+    if joint.connector.kind == "glue":
+        return ()
+    fvs = [p.material.Fv for p in (*held, *other) if p.material.Fv is not None]
+    if not fvs:
+        return ()
+    from .checks import shear_stress_check
+
+    Fv = min(fvs, key=lambda q: float(q.to("psi").magnitude))
+    return (shear_stress_check(f"joint.{joint.id}", V, Q, section.inertia, b, Fv, log,
+                               label=f"Horizontal shear stress on the plane of joint {joint.id}"),)
+
+
 def solve_joint(member: Member, section: SectionResult, joint: Joint, V: Quantity, settings: Settings,
                 mlog: StepLog, beam=None) -> JointResult:
     """Q, shear flow, connector capacity and spacing at one joint."""
@@ -96,7 +113,7 @@ def solve_joint(member: Member, section: SectionResult, joint: Joint, V: Quantit
         from .along import joint_schedule
 
         schedule = joint_schedule(beam, Q, section, joint, cap.value, res, settings, log.child("schedule"))
-    checks = tuple(cap.checks)
+    checks = tuple(cap.checks) + _plane_shear(joint, held, other, V, Q, section, b, log)
     status = worst([res.status] + [c.status for c in checks] + ([schedule.status] if schedule else []))
     return JointResult(
         id=joint.id, label=joint.label, holds=joint.holds, Q=Q, shear=V, shear_flow=q,
