@@ -23,7 +23,7 @@ from ...solve.results import JointResult, MemberResult
 from ...units import Q_, Quantity
 from .common import Ctx, grid, heading, para
 from .figures_along import demand_capacity_chart, loading_diagram, zone_elevation
-from .plots import Series, line_chart, series_values
+from .plots import Series, line_chart, positions, series_values
 
 __all__ = ["member_figures", "beam_figures", "schedule_figures", "zone_rows"]
 
@@ -139,7 +139,7 @@ def beam_figures(m: MemberResult, ctx: Ctx) -> list[Flowable]:
         a, b = getattr(env, lo, None), getattr(env, hi, None)
         if not (isinstance(x, Quantity) and isinstance(a, Quantity) and isinstance(b, Quantity)):
             continue
-        xs, xu = series_values(ctx.display, x)
+        xs, xu = positions(ctx.display, x)
         ys_hi, yu = series_values(ctx.display, b)
         ys_lo, _ = series_values(ctx.display, a)
         chart = line_chart([Series("maximum", xs, ys_hi), Series("minimum", xs, ys_lo, dashed=True)],

@@ -14,7 +14,7 @@ from ...model import Member
 from ...solve.results import JointResult
 from ...units import Q_
 from ..fmt import fmt_number
-from .plots import PALETTE, Series, line_chart, series_values
+from .plots import PALETTE, Series, line_chart, positions, series_values
 from .styles import plain
 
 __all__ = ["loading_diagram", "demand_capacity_chart", "zone_elevation"]
@@ -134,14 +134,14 @@ def demand_capacity_chart(j: JointResult, display, fonts, width: float) -> Drawi
     sch = j.schedule
     if sch is None or not getattr(sch, "feasible", False) or not sch.zones:
         return None
-    xs, xu = series_values(display, sch.x)
+    xs, xu = positions(display, sch.x)
     ys, yu = series_values(display, sch.demand)
     step_x: list[float] = []
     step_y: list[float] = []
     for z in sch.zones:
         if z.capacity is None:
             continue
-        (a, b), _ = series_values(display, [z.start, z.end])
+        (a, b), _ = positions(display, [z.start, z.end])
         (c,), _ = series_values(display, [z.capacity])
         step_x += [a, b]
         step_y += [c, c]

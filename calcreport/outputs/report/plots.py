@@ -23,7 +23,7 @@ from ...units import Quantity
 from ..fmt import Display, fmt_number
 from .styles import Fonts, plain
 
-__all__ = ["Series", "line_chart", "series_values", "nice_ticks", "PALETTE"]
+__all__ = ["Series", "line_chart", "series_values", "positions", "nice_ticks", "PALETTE"]
 
 PALETTE = ("#1f3a93", "#b3261e", "#2e7d32", "#8d6a33", "#6a1b9a", "#00838f")
 
@@ -49,6 +49,14 @@ def series_values(display: Display, values: Sequence[Quantity] | Quantity) -> tu
     return out, unit
 
 
+def positions(display: Display, values: Sequence[Quantity] | Quantity) -> tuple[list[float], str]:
+    """Positions along the member for a chart's x axis: feet (US) or metres (SI), and the unit."""
+    unit = "m" if display.system == "SI" else "ft"
+    if isinstance(values, Quantity) and getattr(values.magnitude, "shape", ()):
+        return [float(v) for v in values.to(unit).magnitude], unit
+    return [float(v.to(unit).magnitude) for v in values], unit
+
+
 def nice_ticks(lo: float, hi: float, count: int = 5) -> list[float]:
     """Round tick values covering [lo, hi] (1, 2, 2.5 or 5 times a power of ten apart)."""
     if not (math.isfinite(lo) and math.isfinite(hi)):
@@ -66,6 +74,16 @@ def nice_ticks(lo: float, hi: float, count: int = 5) -> list[float]:
             break
         t += step
     return ticks
+
+
+def _tick(v: float) -> str:
+    """Axis tick text: 3 significant figures without trailing zeros (10, 2.5, −4,000)."""
+    if not v:
+        return "0"
+    text = fmt_number(v, 3)
+    if "." in text and "×" not in text:
+        text = text.rstrip("0").rstrip(".")
+    return text
 
 
 def line_chart(series: Sequence[Series], x_label: str, y_label: str, width: float, height: float,
@@ -95,7 +113,7 @@ def line_chart(series: Sequence[Series], x_label: str, y_label: str, width: floa
     for axis in (lp.xValueAxis, lp.yValueAxis):
         axis.labels.fontName = fonts.regular
         axis.labels.fontSize = 6.5
-        axis.labelTextFormat = lambda v: fmt_number(v, 3) if v else "0"
+        axis.labelTextFormat = _tick
         axis.strokeWidth = 0.6
     lp.yValueAxis.visibleGrid = 1
     lp.yValueAxis.gridStrokeColor = colors.HexColor("#dddddd")
