@@ -62,7 +62,8 @@ def schedule_json(s, d: Display) -> dict[str, Any]:
         "zones": [{"start": d.json_value(z.start), "end": d.json_value(z.end),
                    "spacing": d.json_value(z.spacing), "count": z.count,
                    "demand_max": d.json_value(z.demand_max),
-                   "spacing_required": _opt(z.spacing_required, d), "governing": z.governing}
+                   "spacing_required": _opt(z.spacing_required, d), "governing": z.governing,
+                   "capacity": _opt(z.capacity, d)}
                   for z in s.zones],
         "count": s.count, "count_min": d.json_value(s.count_min), "ratio": _opt(s.ratio, d),
         "count_single": s.count_single, "spacing_single": _opt(s.spacing_single, d),
