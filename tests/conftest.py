@@ -42,6 +42,31 @@ Fv = "180 psi"
 """
 
 
+# The reference T-section of several tests: an 8 × 2 in flange on a 2 × 10 in web, one material.
+# Closed form (parallel-axis theorem; Gere & Goodno, Mechanics of Materials, 9th ed., §12.5 — from
+# memory): ȳ = (16·11 + 20·5)/36 from the bottom; I = 8·2³/12 + 16·(11 − ȳ)² + 2·10³/12 + 20·(5 − ȳ)²;
+# Q of the flange about the neutral axis = 16·(11 − ȳ).
+TEE_YBAR = (16 * 11 + 20 * 5) / 36
+TEE_I = 8 * 8 / 12 + 16 * (11 - TEE_YBAR) ** 2 + 2 * 1000 / 12 + 20 * (5 - TEE_YBAR) ** 2
+TEE_Q_FLANGE = 16 * (11 - TEE_YBAR)
+TEE_PARTS = """
+[[member.part]]
+id = "web"
+shape = "rect"
+width = "2 in"
+depth = "10 in"
+material = "wood"
+
+[[member.part]]
+id = "fl"
+shape = "rect"
+width = "8 in"
+depth = "2 in"
+material = "wood"
+on = "web"
+"""
+
+
 def job_text(body: str, settings: str = "", materials: str = MATERIALS) -> str:
     """A complete job file around ``body`` (members), with optional extra settings lines."""
     return HEADER + textwrap.dedent(settings) + textwrap.dedent(materials) + textwrap.dedent(body)

@@ -4,28 +4,14 @@ from __future__ import annotations
 
 import pytest
 
-from tests.conftest import job_text
+from tests.conftest import TEE_PARTS, job_text
 
 GOOD = """
 [[member]]
 id = "M"
 shear = "1 kip"
 
-[[member.part]]
-id = "web"
-shape = "rect"
-width = "2 in"
-depth = "10 in"
-material = "wood"
-
-[[member.part]]
-id = "fl"
-shape = "rect"
-width = "8 in"
-depth = "2 in"
-material = "wood"
-on = "web"
-
+""" + TEE_PARTS + """
 [[member.joint]]
 id = "j"
 holds = ["fl"]

@@ -11,7 +11,7 @@ import json
 
 import pytest
 
-from tests.conftest import job_text
+from tests.conftest import TEE_PARTS, job_text
 
 MEMBER = """
 [[member]]
@@ -28,21 +28,7 @@ case = "L"
 kind = "uniform"
 w = "200 plf"
 
-[[member.part]]
-id = "web"
-shape = "rect"
-width = "2 in"
-depth = "10 in"
-material = "wood"
-
-[[member.part]]
-id = "fl"
-shape = "rect"
-width = "8 in"
-depth = "2 in"
-material = "wood"
-on = "web"
-
+""" + TEE_PARTS + """
 [[member.joint]]
 id = "j"
 holds = ["fl"]

@@ -16,7 +16,7 @@ import pytest
 from calcreport.jobfile import load_text
 from calcreport.jobfile.lumber import dressed_size
 from calcreport.solve import solve_job
-from tests.conftest import job_text
+from tests.conftest import TEE_I, TEE_PARTS, TEE_YBAR, job_text
 
 
 def solve(body: str, settings: str = "", materials: str | None = None):
@@ -117,28 +117,10 @@ right_of = "b"
 
 
 def test_tee_centroid_and_inertia():
-    # T: flange 8×2 on web 2×10. ȳ = (16·11 + 20·5)/36 = 7.667 in from the bottom;
-    # I = 8·2³/12 + 16·(11 − ȳ)² + 2·10³/12 + 20·(5 − ȳ)² (parallel-axis theorem).
-    parts = """
-[[member.part]]
-id = "web"
-shape = "rect"
-width = "2 in"
-depth = "10 in"
-material = "wood"
-[[member.part]]
-id = "fl"
-shape = "rect"
-width = "8 in"
-depth = "2 in"
-material = "wood"
-on = "web"
-"""
-    s = section_of(member(parts))
-    yb = (16 * 11 + 20 * 5) / 36
-    expected = 8 * 8 / 12 + 16 * (11 - yb) ** 2 + 2 * 1000 / 12 + 20 * (5 - yb) ** 2
-    assert s.centroid.to("in").magnitude == pytest.approx(yb)
-    assert s.inertia.to("in**4").magnitude == pytest.approx(expected)
+    # T: flange 8×2 on web 2×10 — closed form in tests/conftest.py (parallel-axis theorem).
+    s = section_of(member(TEE_PARTS))
+    assert s.centroid.to("in").magnitude == pytest.approx(TEE_YBAR)
+    assert s.inertia.to("in**4").magnitude == pytest.approx(TEE_I)
 
 
 @pytest.mark.parametrize("nominal, area, ixx", [

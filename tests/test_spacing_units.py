@@ -11,7 +11,7 @@ from calcreport.jobfile import load_text
 from calcreport.solve import solve_job
 from calcreport.solve.spacing import round_down
 from calcreport.units import Q_, parse
-from tests.conftest import job_text
+from tests.conftest import TEE_I, TEE_PARTS, TEE_Q_FLANGE, job_text
 
 BOX = """
 [[member]]
@@ -49,9 +49,7 @@ def test_shank_capacity_and_rounding():
     j = solve_job(load_text(job_text(body).encode())).members[0].joints[0]
     F = 15000 * math.pi * 0.25 ** 2 / 4
     assert j.capacity.to("lbf").magnitude == pytest.approx(F)
-    yb = (16 * 11 + 20 * 5) / 36
-    I = 8 * 8 / 12 + 16 * (11 - yb) ** 2 + 2 * 1000 / 12 + 20 * (5 - yb) ** 2
-    q = 2000 * 16 * (11 - yb) / I
+    q = 2000 * TEE_Q_FLANGE / TEE_I
     s_req = 2 * F / q
     assert j.spacing_required.to("in").magnitude == pytest.approx(s_req)
     assert j.spacing_provided.to("in").magnitude == pytest.approx(math.floor(s_req / 0.25) * 0.25)
@@ -108,19 +106,7 @@ def test_glue_line_stress_check():
 [[member]]
 id = "T"
 shear = "2.5 kip"
-[[member.part]]
-id = "web"
-shape = "rect"
-width = "2 in"
-depth = "10 in"
-material = "wood"
-[[member.part]]
-id = "fl"
-shape = "rect"
-width = "8 in"
-depth = "2 in"
-material = "wood"
-on = "web"
+""" + TEE_PARTS + """
 [[member.joint]]
 id = "g"
 holds = ["fl"]
@@ -129,9 +115,7 @@ type = "glue"
 tau = "150 psi"
 """
     j = solve_job(load_text(job_text(body).encode())).members[0].joints[0]
-    yb = (16 * 11 + 20 * 5) / 36
-    I = 8 * 8 / 12 + 16 * (11 - yb) ** 2 + 2 * 1000 / 12 + 20 * (5 - yb) ** 2
-    tau = 2500 * 16 * (11 - yb) / (I * 2.0)
+    tau = 2500 * TEE_Q_FLANGE / (TEE_I * 2.0)
     assert j.plane_width.to("in").magnitude == pytest.approx(2.0)
     assert j.utilisation == pytest.approx(tau / 150)
     assert j.continuous and j.status == "OK"
@@ -143,9 +127,7 @@ def test_shear_stress_on_a_fastened_plane():
     # shear formula); the material here states Fv = 180 psi.
     body = BOX.format(V="2 kip", tw="2 in", h="10 in", bf="8 in", tf="2 in", d="0.25 in", tau="15 ksi")
     j = solve_job(load_text(job_text(body).encode())).members[0].joints[0]
-    yb = (16 * 11 + 20 * 5) / 36
-    I = 8 * 8 / 12 + 16 * (11 - yb) ** 2 + 2 * 1000 / 12 + 20 * (5 - yb) ** 2
-    tau = 2000 * 16 * (11 - yb) / (I * 2.0)
+    tau = 2000 * TEE_Q_FLANGE / (TEE_I * 2.0)
     (check,) = [c for c in j.checks if c.label.startswith("Horizontal shear stress")]
     assert check.demand.to("psi").magnitude == pytest.approx(tau)
     assert check.ratio == pytest.approx(tau / 180)
