@@ -9,7 +9,6 @@ from functools import lru_cache
 
 from shapely.geometry import Polygon, box
 from shapely.geometry.base import BaseGeometry
-from shapely.ops import unary_union
 
 from .model import Part, Shape
 

@@ -17,7 +17,7 @@ from __future__ import annotations
 
 from typing import Any
 
-from reportlab.platypus import Flowable, KeepTogether, Paragraph
+from reportlab.platypus import Flowable, KeepTogether
 
 from ...solve.results import JointResult, MemberResult
 from ...units import Q_, Quantity

@@ -7,8 +7,6 @@ revision-marker hook can flag rows whose key (or a key below it) changed.
 
 from __future__ import annotations
 
-from reportlab.platypus import Paragraph
-
 from ...model import Member
 from ...solve.results import MemberResult
 from ...units import Q_

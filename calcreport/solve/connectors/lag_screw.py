@@ -11,9 +11,8 @@ from ...fields import Field
 from ...model import ConnectorSpec
 from ...steps import StepLog
 from ..results import Capacity
-from . import ConnectorError
-from .nds_catalog import CATALOG_SOURCE, LAG_SCREWS, fyb_lag_screw
-from .nds_dowel import Fastener, design_dowel
+from .nds_catalog import LAG_SCREWS, fyb_lag_screw
+from .nds_dowel import Fastener, design_dowel, screw_diameters
 from .nds_factors import COMMON_FIELDS
 
 KIND = "lag_screw"
@@ -33,19 +32,9 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
     """Lateral design value of one lag screw. Source: NDS-2018 §12.3, Table 11.3.1, §12.5.1."""
     p = spec.params
     key = f"{ctx.key}.connector"
-    if p.get("size"):
-        s = LAG_SCREWS.get(p["size"].strip().lower().replace("in", "").replace('"', "").strip())
-        if s is None:
-            raise ConnectorError(f"{key}.size", "expected a lag screw diameter such as \"3/8\", \"1/2\", \"5/8\", \"3/4\"")
-        D, Dr, src = s.D, s.Dr, CATALOG_SOURCE
-    elif p.get("diameter") is not None:
-        D = p["diameter"].to("in").magnitude
-        Dr = p["root_diameter"].to("in").magnitude if p.get("root_diameter") is not None else D
-        src = "job file"
-    else:
-        raise ConnectorError(f"{key}.size", "expected size (e.g. \"1/2\") or diameter")
-    threads = bool(p.get("threads_in_plane"))
-    Dy = Dr if threads else D
+    size = (p.get("size") or "").strip().lower().replace("in", "").replace('"', "").strip()
+    D, Dr, Dy, threads, dy_note = screw_diameters(p, key, LAG_SCREWS, size, '"1/2", "3/8", "5/8", "3/4"',
+                                                  "a lag screw diameter", threads_default=False)
     tip = p["tip_length"].to("in").magnitude if p.get("tip_length") is not None else D
     if p.get("Fyb") is not None:
         fyb, fsrc = p["Fyb"].to("psi").magnitude, "given for this connector"
@@ -53,6 +42,5 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
         fyb, fsrc = fyb_lag_screw(D), "NDS-2018 Tables 12J/12K footnote, Fyb by diameter (from memory)"
     f = Fastener("lag_screw", p.get("name") or "lag screw", D, Dy, p["length"].to("in").magnitude, fyb, fsrc,
                  min_pen=4.0, tip=tip, reduced_rd=(D >= 0.25 and Dy < 0.25),
-                 dy_note=("root diameter Dr, threads in the shear plane" if threads else "shank diameter") + f" ({src})"
-                 + ("; tip length E = D assumed (conservative)" if p.get("tip_length") is None else ""))
+                 dy_note=dy_note + ("; tip length E = D assumed (conservative)" if p.get("tip_length") is None else ""))
     return design_dowel(spec, ctx, log, f)

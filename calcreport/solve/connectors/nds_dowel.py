@@ -32,7 +32,34 @@ from .nds_catalog import species_g
 from .nds_factors import adjust
 from .nds_yield import NDS, fe_parallel, fe_perpendicular, fe_small, fe_steel, hankinson, log_yield_modes, yield_modes
 
-__all__ = ["Fastener", "design_dowel"]
+__all__ = ["Fastener", "design_dowel", "screw_diameters"]
+
+
+def screw_diameters(p: dict, key: str, catalog: dict, size_key: str, example: str, what: str,
+                    threads_default: bool):
+    """Shank D, root Dr and the diameter Dy used in the yield equations (Dr when the threads lie
+    in the shear plane) of a screw or lag screw, from its catalogue size or given diameters.
+
+    Source: NDS-2018 §12.3.7 (dowel diameter of threaded fasteners: root diameter where threads
+    are in the shear plane); sizes from the NDS screw tables via ``catalog``.
+    Returns ``(D, Dr, Dy, threads, note)`` in inches.
+    """
+    from .nds_catalog import CATALOG_SOURCE
+
+    if p.get("size"):
+        s = catalog.get(size_key)
+        if s is None:
+            raise ConnectorError(f"{key}.size", f"expected {what} such as {example}")
+        D, Dr, src = s.D, s.Dr, CATALOG_SOURCE
+    elif p.get("diameter") is not None:
+        D = p["diameter"].to("in").magnitude
+        Dr = p["root_diameter"].to("in").magnitude if p.get("root_diameter") is not None else D
+        src = "job file"
+    else:
+        raise ConnectorError(f"{key}.size", f"expected size (e.g. {example.split(',')[0]}) or diameter")
+    threads = bool(p.get("threads_in_plane", threads_default))
+    note = ("root diameter Dr, threads in the shear plane" if threads else "shank diameter") + f" ({src})"
+    return D, Dr, (Dr if threads else D), threads, note
 
 
 @dataclass(frozen=True)

@@ -11,9 +11,8 @@ from ...fields import Field
 from ...model import ConnectorSpec
 from ...steps import StepLog
 from ..results import Capacity
-from . import ConnectorError
-from .nds_catalog import CATALOG_SOURCE, WOOD_SCREWS, fyb_wood_screw
-from .nds_dowel import Fastener, design_dowel
+from .nds_catalog import WOOD_SCREWS, fyb_wood_screw
+from .nds_dowel import Fastener, design_dowel, screw_diameters
 from .nds_factors import COMMON_FIELDS
 
 KIND = "wood_screw"
@@ -32,24 +31,13 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
     """Lateral design value of one wood screw. Source: NDS-2018 §12.3, Table 11.3.1."""
     p = spec.params
     key = f"{ctx.key}.connector"
-    if p.get("size"):
-        s = WOOD_SCREWS.get(p["size"].strip().lower().replace(" ", "").replace("gauge", "g").replace("#", ""))
-        if s is None:
-            raise ConnectorError(f"{key}.size", "expected a wood screw gauge such as \"8g\", \"10g\", \"12g\", \"14g\"")
-        D, Dr, src = s.D, s.Dr, CATALOG_SOURCE
-    elif p.get("diameter") is not None:
-        D = p["diameter"].to("in").magnitude
-        Dr = p["root_diameter"].to("in").magnitude if p.get("root_diameter") is not None else D
-        src = "job file"
-    else:
-        raise ConnectorError(f"{key}.size", "expected size (e.g. \"10g\") or diameter")
-    threads = p.get("threads_in_plane", True)
-    Dy = Dr if threads else D
+    size = (p.get("size") or "").strip().lower().replace(" ", "").replace("gauge", "g").replace("#", "")
+    D, Dr, Dy, threads, dy_note = screw_diameters(p, key, WOOD_SCREWS, size, '"10g", "8g", "12g", "14g"',
+                                                  "a wood screw gauge", threads_default=True)
     if p.get("Fyb") is not None:
         fyb, fsrc = p["Fyb"].to("psi").magnitude, "given for this connector"
     else:
         fyb, fsrc = fyb_wood_screw(D), "NDS-2018 Table 12L footnote, Fyb by diameter (from memory)"
     f = Fastener("wood_screw", p.get("name") or "wood screw", D, Dy, p["length"].to("in").magnitude, fyb, fsrc,
-                 min_pen=6.0, reduced_rd=(D >= 0.25 and Dy < 0.25),
-                 dy_note=("root diameter Dr, threads in the shear plane" if threads else "shank diameter") + f" ({src})")
+                 min_pen=6.0, reduced_rd=(D >= 0.25 and Dy < 0.25), dy_note=dy_note)
     return design_dowel(spec, ctx, log, f)
