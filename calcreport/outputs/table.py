@@ -50,6 +50,7 @@ def render_member(m: MemberResult, d: Display) -> list[str]:
                          d.value(c.capacity) if c.capacity is not None else "—",
                          f"{c.ratio:.2f}" if c.ratio is not None else "—", c.status])
         lines += ["  " + r for r in _cols(rows, {1, 2, 3})]
+        lines += [f"  {c.label}: {c.note}" for c in m.checks if c.status == "INFO" and c.note]
     return lines
 
 

@@ -60,10 +60,14 @@ def solve_member(member: Member, settings: Settings) -> MemberResult:
 
 def _plane_shear(joint: Joint, held, other, V: Quantity, Q: Quantity, section: SectionResult,
                  b: Quantity, log: StepLog) -> tuple:
-    """Horizontal shear stress on the joint's plane, τ = V·Q/(I·b), against the smallest Fv of the
-    parts that meet there (mechanics of materials, shear formula). Skipped for glue lines (their
-    capacity is that check) and where no part at the plane states Fv."""
-    if joint.connector.kind == "glue":
+    """Horizontal shear stress at the level of a horizontal joint plane, τ = V·Q/(I·b), against the
+    smallest Fv of the parts that meet there (mechanics of materials, shear formula). This is the
+    stress in the material just beside the plane (a web under a nailed flange). Skipped for glue
+    lines (their capacity is that check), for vertical planes (a web nailed to the side of a flange:
+    the stress that matters there is the web's panel shear at the neutral axis) and where no part
+    at the plane states Fv."""
+    segments = contact_segments(list(held), list(other))
+    if joint.connector.kind == "glue" or not segments or any(abs(a[1] - b_[1]) > 1e-6 for a, b_ in segments):
         return ()
     fvs = [p.material.Fv for p in (*held, *other) if p.material.Fv is not None]
     if not fvs:
@@ -72,7 +76,7 @@ def _plane_shear(joint: Joint, held, other, V: Quantity, Q: Quantity, section: S
 
     Fv = min(fvs, key=lambda q: float(q.to("psi").magnitude))
     return (shear_stress_check(f"joint.{joint.id}", V, Q, section.inertia, b, Fv, log,
-                               label=f"Horizontal shear stress on the plane of joint {joint.id}"),)
+                               label=f"Horizontal shear stress at the level of joint {joint.id}"),)
 
 
 def solve_joint(member: Member, section: SectionResult, joint: Joint, V: Quantity, settings: Settings,

@@ -123,6 +123,9 @@ def _member_checks(member, section, M, V, limits, beam, log) -> list[Check]:
     return checks
 
 
+SOURCE_NOT_CHECKED = "not checked by the tool; check by hand (e.g. panel shear of plywood webs)"
+
+
 def _neutral_axis_shear(member, section, V, log) -> Check | None:
     """τ at the neutral axis where the parts cut there all give Fv (mechanics of materials)."""
     from shapely.geometry import LineString
@@ -131,8 +134,14 @@ def _neutral_axis_shear(member, section, V, log) -> Check | None:
 
     y = section.centroid.to("inch").magnitude + section.bottom.to("inch").magnitude
     cut = [p for p in member.parts if p.shape.bbox[1] < y < p.shape.bbox[3]]
-    if not cut or any(p.material.Fv is None or p.shape.kind == "properties" for p in cut):
+    if not cut:
         return None
+    missing = sorted({p.material.id for p in cut if p.material.Fv is None})
+    if missing or any(p.shape.kind == "properties" for p in cut):
+        why = (f"no Fv given for material {', '.join(missing)}" if missing
+               else "a part given by its properties is cut there")
+        return Check("shear.neutral_axis", "Horizontal shear stress at the neutral axis", None, None, None,
+                     "INFO", SOURCE_NOT_CHECKED, note=f"not checked: {why}")
     b = sum(outline(p.shape).intersection(LineString([(p.shape.bbox[0] - 1, y),
                                                       (p.shape.bbox[2] + 1, y)])).length for p in cut)
     try:
