@@ -152,3 +152,43 @@ def test_bad_load_input_one_line_exit_2(name, old, new, words, write_job, cli):
     assert len(lines) == 1 and "Traceback" not in err and lines[0].startswith(path + ":")
     for w in words:
         assert w in lines[0], (w, lines[0])
+
+
+def test_load_duration_per_combination_for_wood_connectors():
+    # NDS 2018 §2.3.2 / Table 2.3.2 (from memory): C_D = 0.9 for dead load alone, 1.15 for snow.
+    # A nail value taken with C_D = 1.15 must still carry the dead-load-only combination with
+    # C_D = 0.9: its shear counts × 1.15/0.9. Simple span, w_D = 60 plf, w_S = 4 plf, L = 10 ft:
+    # D alone gives V = 300 lbf → 383.3 lbf equivalent; D + S gives 320 lbf. D alone governs.
+    from calcreport.jobfile import load_text
+    from calcreport.solve import solve_job
+    from tests.conftest import job_text
+
+    body = """
+[[member]]
+id = "M"
+span = "10 ft"
+
+[[member.load]]
+case = "D"
+kind = "uniform"
+w = "60 plf"
+
+[[member.load]]
+case = "S"
+kind = "uniform"
+w = "4 plf"
+""" + TEE_PARTS + """
+[[member.joint]]
+id = "j"
+holds = ["fl"]
+
+[member.joint.connector]
+type = "nail"
+size = "16d common"
+CD = 1.15
+"""
+    mats = '\n[[material]]\nid = "wood"\nfamily = "wood"\nE = "1600 ksi"\nG = 0.50\n'
+    j = solve_job(load_text(job_text(body, materials=mats).encode())).members[0].joints[0]
+    assert j.shear.to("lbf").magnitude == pytest.approx(300 * 1.15 / 0.9, rel=1e-6)
+    assert j.schedule is not None and j.schedule.feasible, j.schedule.reason
+    assert j.schedule.zones[0].governing.startswith("ASD 1")

@@ -96,10 +96,17 @@ def solve_joint(member: Member, section: SectionResult, joint: Joint, V: Quantit
         b = log.add("b", "Width of the shear plane", "b = Σ contact lengths", "{b}", {"b": Q_(contact, "inch")},
                     Q_(contact, "inch"), source="geometry of the placed parts")
     Q = first_moment(section, joint.holds, log)
-    q = shear_flow(V, Q, section.inertia, log)
     ctx = connectors.JointContext(settings.method, tuple(held), tuple(other), b, settings,
                                   f"member[{member.id}].joint[{joint.id}]")
     cap = connectors.design(joint.connector, ctx, log.child("connector"))
+    demand = None
+    if beam is not None and cap.duration_factor is not None and settings.method == "ASD":
+        from .along import duration_demand
+
+        demand = duration_demand(beam, cap.duration_factor, log.child("duration"))
+        if demand is not None:
+            V = demand[2]
+    q = shear_flow(V, Q, section.inertia, log)
     if cap.continuous:
         if joint.connector.kind == "glue":
             log.add("tau", "Shear stress on the glue line", "τ = V·Q / (I·b)", "{V} × {Q} / ({I} × {b})",
@@ -116,7 +123,8 @@ def solve_joint(member: Member, section: SectionResult, joint: Joint, V: Quantit
     if beam is not None and not cap.continuous:
         from .along import joint_schedule
 
-        schedule = joint_schedule(beam, Q, section, joint, cap.value, res, settings, log.child("schedule"))
+        schedule = joint_schedule(beam, Q, section, joint, cap.value, res, settings, log.child("schedule"),
+                                  demand=demand)
     checks = tuple(cap.checks) + _plane_shear(joint, held, other, V, Q, section, b, log)
     status = worst([res.status] + [c.status for c in checks] + ([schedule.status] if schedule else []))
     return JointResult(

@@ -16,7 +16,7 @@ from ..steps import StepLog
 from ..units import Q_, Quantity
 from .beam import BeamInputError, BeamResult, analyse, self_weight
 from .checks import Fibre, bending_checks, deflection_checks, shear_stress_check
-from .combinations import SOURCE_ASD, SOURCE_LRFD, standard_combinations
+from .combinations import SOURCE_ASD, SOURCE_DURATION, SOURCE_LRFD, duration_factor, standard_combinations
 from .results import Check, SectionResult
 from .schedule import Schedule, zoned_schedule
 from .section import first_moment_above
@@ -153,17 +153,47 @@ def _neutral_axis_shear(member, section, V, log) -> Check | None:
                               Q_(b, "inch"), Fv, log, label="Horizontal shear stress at the neutral axis")
 
 
+def duration_demand(along: AlongResult, cd_used: float, log: StepLog):
+    """Shear demand normalised for wood load duration (ASD), or ``None`` when no combination needs it.
+
+    The connector's value holds one C_D (``cd_used``). A combination whose shortest-duration load
+    has a smaller C_D,c (dead load alone: 0.9) must be checked with that smaller factor: its shear
+    is scaled by C_D,used / C_D,c ≥ 1 before the envelope is taken. The tool never takes more
+    duration credit than the engineer set (factors below 1 are not applied).
+    Source: NDS 2018 §2.3.2 and Table 2.3.2.
+    """
+    weights: dict[str, float] = {}
+    for i, cb in enumerate(along.combinations, 1):
+        cd_c, case = duration_factor(cb)
+        log.add(f"CD.{i}", f"Load duration factor of {cb.name}", "C_D,c",
+                "shortest-duration load in the combination: {case}", {"case": case or "—"}, cd_c,
+                source=SOURCE_DURATION)
+        weights[cb.name] = max(1.0, cd_used / cd_c)
+    if all(w == 1.0 for w in weights.values()):
+        return None
+    Vw, by = along.analysis.shear_abs_weighted(weights)
+    k = int(Vw.magnitude.argmax())
+    V_eff = log.add("V", "Design shear for these wood connectors, with load duration",
+                    "V' = max over c of |V_c|·C_D / C_D,c", "{V} in {by} at x = {x}, with C_D = {cd}",
+                    {"V": Vw[k], "by": by[k], "x": along.analysis.envelope.x[k], "cd": cd_used}, Vw[k],
+                    source=SOURCE_DURATION, governs=True,
+                    note="a combination with a longer-duration load governs once its smaller C_D is used")
+    return Vw, by, V_eff
+
+
 def joint_schedule(along: AlongResult, Q: Quantity, section: SectionResult, joint: Joint,
-                   F: Quantity, res, settings: Settings, log: StepLog) -> Schedule:
+                   F: Quantity, res, settings: Settings, log: StepLog, demand=None) -> Schedule:
     """Zoned schedule of one joint from q(x) = |V(x)|·Q/I over the shear envelope.
 
-    ``res`` is the joint's single-spacing result (its s_min, s_max are the governing limits).
+    ``res`` is the joint's single-spacing result (its s_min, s_max are the governing limits);
+    ``demand`` the load-duration-normalised shear of :func:`duration_demand`, when it applies.
     Source: mechanics of materials (q = V·Q/I); zoning rules: common practice, no source.
     """
     env = along.analysis.envelope
-    q = (env.V_abs * Q / section.inertia).to("lbf/inch")
+    V_abs, by = (env.V_abs, env.V_abs_by) if demand is None else (demand[0], demand[1])
+    q = (V_abs * Q / section.inertia).to("lbf/inch")
     nF = (joint.per_row * F).to("lbf")
     s_max = res.s_max if res.s_max is not None else along.analysis.length
     return zoned_schedule(env.x, q, along.analysis.length, nF, settings.spacing_step, res.s_min,
                           s_max, settings.zones_per_half, settings.zone_module,
-                          governing=env.V_abs_by, log=log)
+                          governing=by, log=log)

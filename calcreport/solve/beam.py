@@ -107,6 +107,22 @@ class BeamResult:
     EI: Quantity | None = None
     _basis: dict = field(default_factory=dict, repr=False, compare=False)
 
+    def shear_abs_weighted(self, weight: dict[str, float]) -> tuple[Quantity, tuple[str, ...]]:
+        """max over combinations c and span patterns of |V_c(x)|·weight[c] at each x, and the
+        combination (with pattern) that governs there. Used for load-duration-normalised demand."""
+        b = self._basis
+        cols, names, w = [], [], []
+        for cb in b["combinations"]:
+            live = any(c in LIVE_TYPE for c in cb.factors)
+            for pat in (b["patterns"] if live else b["patterns"][:1]):
+                cols.append(_coefficients(b["keys"], cb.factors, pat))
+                names.append(cb.name if pat.name == "all" else f"{cb.name} [{pat.name}]")
+                w.append(weight.get(cb.name, 1.0))
+        if not cols:
+            return self.envelope.V_abs, self.envelope.V_abs_by
+        vals = np.abs(b["V"] @ np.stack(cols, axis=1)) * np.array(w)[None, :]
+        return Q_(vals.max(1), _LBF), tuple(names[k] for k in vals.argmax(1))
+
     def deflection_max(self, factors: dict[str, float], segment: int) -> Quantity | None:
         """Largest |deflection| within ``segment`` for ``factors`` (service loads), over all
         span patterns of the live-type cases; ``None`` without EI."""
@@ -274,7 +290,8 @@ def analyse(length: Quantity, supports: list[Support], loads: list[Load],
     env = _envelope(x_q, V, M, keys, combinations, patterns)
     seg_q = tuple(Segment(j, Q_(a, _IN), Q_(b, _IN), k) for j, (a, b, k) in enumerate(segs))
     seg_mask = [(mesh.x[idx_a] >= a - 1e-9) & (mesh.x[idx_a] <= b + 1e-9) for a, b, _ in segs]
-    basis = {"keys": keys, "v": v, "EI": EIf, "patterns": patterns, "seg_mask": seg_mask}
+    basis = {"keys": keys, "v": v, "V": V, "EI": EIf, "patterns": patterns, "seg_mask": seg_mask,
+             "combinations": list(combinations)}
     _log(log, length, supports, seg_q, case_d, comb_d, env, patterns, EI)
     return BeamResult(length, tuple(supports), seg_q, case_d, comb_d, env,
                       tuple(p.name for p in patterns), tuple(log.steps[first_step:]), EI, basis)

@@ -146,3 +146,23 @@ def span_patterns(n_segments: int) -> list[Pattern]:
             out.append(Pattern(s, "all" if s == full else "segments " + ",".join(
                 str(i + 1) for i in s)))
     return out
+
+
+#: Load duration factor C_D by load case, NDS 2018 Table 2.3.2 (from memory): permanent (dead) 0.9,
+#: ten years (occupancy live) 1.0, two months (snow) 1.15, seven days (roof live) 1.25, ten minutes
+#: (wind) 1.6. Rain has no row: taken as ten years (1.0), and a case named by the job as permanent
+#: (0.9) — both conservative assumptions, no source.
+DURATION = {"D": 0.9, "L": 1.0, "S": 1.15, "Lr": 1.25, "W": 1.6, "R": 1.0}
+SOURCE_DURATION = "NDS 2018 §2.3.2, Table 2.3.2 (C_D of the shortest-duration load in the combination)"
+
+
+def duration_factor(combination: Combination) -> tuple[float, str]:
+    """C_D of a combination: that of its shortest-duration load (NDS 2018 §2.3.2), and that case."""
+    best, case = 0.0, ""
+    for c, f in combination.factors.items():
+        if f == 0:
+            continue
+        cd = DURATION.get(c, 0.9)
+        if cd > best:
+            best, case = cd, c
+    return (best or 0.9), case

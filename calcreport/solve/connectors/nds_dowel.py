@@ -272,12 +272,13 @@ def design_dowel(spec: ConnectorSpec, ctx, log: StepLog, f: Fastener, *, toe_nai
                 "{Z}", {"Z": Q_(gov.Z, "lbf")}, Q_(gov.Z, "lbf"), source=f"{NDS} §12.3.1",
                 note=f"mode {gov.mode} governs").magnitude
     steel_side = side.material.family == "steel"
-    Zp, _ = adjust(log.child("adj"), Z, p, ctx, D=D, fastener=f.kind, side=side, main=main,
+    Zp, used = adjust(log.child("adj"), Z, p, ctx, D=D, fastener=f.kind, side=side, main=main,
                    steel_side=steel_side, toe_nail=toe_nail, diaphragm=diaphragm)
     smin, smax, lsrc = _detailing(checks, key, f, c, ls, lm, theta)
     return Capacity(value=Q_(Zp, "lbf"), continuous=False, description=f.description,
                     source=f"{NDS} §12.3 yield limit equations, Table 11.3.1 adjustment",
-                    checks=tuple(checks), spacing_min=smin, spacing_max=smax, limits_source=lsrc)
+                    checks=tuple(checks), spacing_min=smin, spacing_max=smax, limits_source=lsrc,
+                    duration_factor=used.get("CD"))
 
 
 def _detailing(checks: list[Check], key: str, f: Fastener, c, ls: float, lm: float, theta: float):

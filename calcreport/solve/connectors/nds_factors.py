@@ -87,8 +87,8 @@ def _factor(log: StepLog, name: str, label: str, value: float, note: str, clause
 
 
 def adjust(log: StepLog, Z: float, p: dict, ctx, *, D: float, fastener: str, side: Part,
-           main: Part, steel_side: bool, toe_nail: bool = False, diaphragm: bool = False) -> tuple[float, list[str]]:
-    """Apply the NDS-2018 Table 11.3.1 factors to Z (lbf) → (Z' in lbf, names of factors used).
+           main: Part, steel_side: bool, toe_nail: bool = False, diaphragm: bool = False) -> tuple[float, dict[str, float]]:
+    """Apply the NDS-2018 Table 11.3.1 factors to Z (lbf) → (Z' in lbf, the factors used by name).
 
     ``fastener`` is "nail", "wood_screw", "lag_screw" or "bolt" (Ctn and Cdi apply to nails only;
     Cg to D ≥ 1/4 in). Source: NDS-2018 Table 11.3.1, §11.3, §12.5.
@@ -185,4 +185,4 @@ def adjust(log: StepLog, Z: float, p: dict, ctx, *, D: float, fastener: str, sid
     vals = {"Z": Q_(Z, "lbf"), **{f"f{i}": f for i, (_, f) in enumerate(factors)}}
     log.add("Z_adj", "Adjusted lateral design value" + (" (ASD)" if asd else " (LRFD)"),
             "Z' = Z · " + " · ".join(names), tmpl, vals, Q_(Z * prod, "lbf"), source=f"{SRC} Table 11.3.1")
-    return Z * prod, names
+    return Z * prod, dict(factors)
