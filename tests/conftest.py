@@ -12,7 +12,7 @@ from pathlib import Path
 import pytest
 from hypothesis import settings as hypothesis_settings
 
-# CI runs the property and fuzz tests with a fixed seed sequence so a green run stays green;
+# CI runs the property and fuzz tests with a fixed sequence of cases so a green run stays green;
 # local runs explore new cases each time (set CI=true to reproduce CI's cases).
 hypothesis_settings.register_profile("ci", derandomize=True, print_blob=True)
 if os.environ.get("CI"):

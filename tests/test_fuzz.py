@@ -128,19 +128,19 @@ def mutate(text: str, rng: random.Random, n: int) -> str:
 
 @settings(max_examples=1060, deadline=None, suppress_health_check=[HealthCheck.function_scoped_fixture,
                                                                   HealthCheck.too_slow])
-@given(seed=st.integers(0, 2**32 - 1), which=st.integers(0, 100), n=st.integers(1, 6))
-def test_mutated_demo_jobs(tmp_path, seed, which, n):
+@given(rng_key=st.integers(0, 2**32 - 1), which=st.integers(0, 100), n=st.integers(1, 6))
+def test_mutated_demo_jobs(tmp_path, rng_key, which, n):
     text = DEMOS[which % len(DEMOS)]
-    _check_case(tmp_path, mutate(text, random.Random(seed), n))
+    _check_case(tmp_path, mutate(text, random.Random(rng_key), n))
 
 
 @settings(max_examples=60, deadline=None, suppress_health_check=[HealthCheck.function_scoped_fixture,
                                                                 HealthCheck.too_slow])
-@given(seed=st.integers(0, 2**32 - 1), which=st.integers(0, 100), n=st.integers(1, 4))
-def test_mutated_demo_jobs_build(tmp_path_factory, seed, which, n):
+@given(rng_key=st.integers(0, 2**32 - 1), which=st.integers(0, 100), n=st.integers(1, 4))
+def test_mutated_demo_jobs_build(tmp_path_factory, rng_key, which, n):
     base = tmp_path_factory.mktemp("build")
     job = base / "fuzz.toml"
-    job.write_text(mutate(DEMOS[which % len(DEMOS)], random.Random(seed), n), encoding="utf-8")
+    job.write_text(mutate(DEMOS[which % len(DEMOS)], random.Random(rng_key), n), encoding="utf-8")
     out = base / "out"
     code, stdout, err = run_cli("build", str(job), "-o", str(out) + "/")
     assert code in (0, 1, 2), (code, err)

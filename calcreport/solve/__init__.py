@@ -12,19 +12,11 @@ from ..model import Job, Joint, Member, Settings
 from ..steps import StepLog
 from ..units import Q_, Quantity
 from . import connectors
-from .results import JobResult, JointResult, MemberResult, SectionResult, worst
+from .results import JobResult, JointResult, MemberResult, SectionResult, SolveError, worst
 from .section import first_moment, section_properties
 from .spacing import combine_limits, continuous_check, discrete_spacing, shear_flow
 
 __all__ = ["solve_job", "solve_member", "SolveError"]
-
-
-class SolveError(ValueError):
-    """The model is valid but cannot be solved as given (names the job key)."""
-
-    def __init__(self, key: str, message: str):
-        super().__init__(message)
-        self.key = key
 
 
 def solve_job(job: Job) -> JobResult:

@@ -17,7 +17,7 @@ from ..units import Q_, Quantity
 from .beam import BeamInputError, BeamResult, analyse, self_weight
 from .checks import Fibre, bending_checks, deflection_checks, shear_stress_check
 from .combinations import SOURCE_ASD, SOURCE_DURATION, SOURCE_LRFD, duration_factor, standard_combinations
-from .results import Check, SectionResult
+from .results import Check, SectionResult, SolveError
 from .schedule import Schedule, zoned_schedule
 from .section import first_moment_above
 
@@ -44,7 +44,6 @@ class AlongResult:
 
 
 def _error(exc: BeamInputError):
-    from . import SolveError
 
     return SolveError(exc.key, str(exc))
 
@@ -73,7 +72,6 @@ def analyse_member(member: Member, section: SectionResult, settings: Settings,
             note="only combinations whose leading case is present; or-alternatives expanded"
             if not member.combinations else "")
     if not combos:
-        from . import SolveError
 
         raise SolveError(f"member[{member.id}]", "no load combination applies to the cases given; "
                                                   "list [[member.combination]] tables")

@@ -9,8 +9,16 @@ from ..model import Job, Member
 from ..steps import Step
 from ..units import Quantity
 
-__all__ = ["Check", "PartProps", "SectionResult", "Capacity", "JointResult", "MemberResult",
+__all__ = ["SolveError", "Check", "PartProps", "SectionResult", "Capacity", "JointResult", "MemberResult",
            "JobResult", "worst"]
+
+
+class SolveError(ValueError):
+    """The model is valid but cannot be solved as given (names the job key)."""
+
+    def __init__(self, key: str, message: str):
+        super().__init__(message)
+        self.key = key
 
 
 def worst(statuses) -> str:

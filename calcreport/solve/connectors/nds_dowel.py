@@ -161,8 +161,8 @@ def _bearing(log: StepLog, p: dict, part: Part, which: str, f: Fastener, t: floa
                                  "(needed for its dowel bearing strength)")
         Fu = mat.Fu.to("psi").magnitude
         fe, mult, form = fe_steel(Fu, t, p.get("steel_form") or "auto")
-        log.add(sym, f"Dowel bearing strength of the {which} member (steel)", f"{sym} = {mult}·Fu",
-                f"{mult} × {{Fu}}", {"Fu": mat.Fu}, Q_(fe, "psi"),
+        log.add(sym, f"Dowel bearing strength of the {which} member (steel)", f"{sym} = k·Fu",
+                "{k} × {Fu}", {"k": mult, "Fu": mat.Fu}, Q_(fe, "psi"),
                 source=f"{NDS} §12.3.4, Appendix I (from memory)",
                 note=f"{form.replace('_', '-')} steel" + (" (t ≥ 1/4 in)" if form == "hot_rolled" else " (t < 1/4 in)"))
         return fe
