@@ -48,6 +48,9 @@ def read_stamp(pdf_path: str) -> PdfStamp:
         import pypdf
     except ModuleNotFoundError:
         raise JobError(pdf_path, "", "reading PDFs needs the pypdf package (pip install pypdf)") from None
+    import logging
+
+    logging.getLogger("pypdf").setLevel(logging.ERROR + 10)  # our one-line message says what is wrong
     try:
         with open(pdf_path, "rb") as fh:
             reader = pypdf.PdfReader(fh)

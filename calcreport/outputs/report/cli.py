@@ -28,8 +28,8 @@ def register(sub) -> None:
         "(the reports are still written and show NG), 2 some job invalid or not written.")
     b.add_argument("jobs", nargs="+", metavar="JOB.toml|FOLDER")
     b.add_argument("-o", "--output", metavar="OUT",
-                   help="where to write: for one job a file path (a path ending in / or an existing folder "
-                   "means a folder); for several jobs a folder. Default: ./out/<job-name>.pdf")
+                   help="where to write: for one job, a path ending in .pdf is the file; any other path "
+                   "is a folder (created if needed); for several jobs a folder. Default: ./out/<job-name>.pdf")
     b.add_argument("-j", "--jobs", dest="workers", type=_workers, metavar="N", default=None,
                    help="build N jobs at a time in separate processes (default: the number of cores)")
     b.add_argument("--since", metavar="REV",
@@ -60,7 +60,8 @@ def output_paths(jobs: list[str], output: str | None, folder: bool = False) -> l
         folder = Path("out")
     else:
         out = Path(output)
-        is_folder = output.endswith(("/", "\\")) or out.is_dir() or len(jobs) > 1 or folder
+        is_folder = (output.endswith(("/", "\\")) or out.is_dir() or len(jobs) > 1 or folder
+                     or out.suffix.lower() != ".pdf")  # "-o out" names a folder, "-o x.pdf" a file
         if (len(jobs) > 1 or folder) and out.exists() and not out.is_dir():
             raise ValueError(f"{output}: with several jobs, -o must be a folder")
         if not is_folder:
