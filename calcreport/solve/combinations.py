@@ -114,6 +114,12 @@ class Pattern:
     name: str
 
 
+def _pattern_name(loaded: tuple[int, ...]) -> str:
+    """Words for a pattern: "live load on span 2 only", "live load on spans 1, 3 only"."""
+    spans = ", ".join(str(i + 1) for i in loaded)
+    return f"live load on span{'s' if len(loaded) > 1 else ''} {spans} only"
+
+
 def span_patterns(n_segments: int) -> list[Pattern]:
     """Patterns of loaded segments for live-type loads (ASCE 7-22 §4.3.3 partial loading).
 
@@ -143,8 +149,7 @@ def span_patterns(n_segments: int) -> list[Pattern]:
     for s in subsets:
         if s and s not in seen:
             seen.add(s)
-            out.append(Pattern(s, "all" if s == full else "segments " + ",".join(
-                str(i + 1) for i in s)))
+            out.append(Pattern(s, "all" if s == full else _pattern_name(s)))
     return out
 
 

@@ -83,7 +83,7 @@ def cover_story(ctx: Ctx, info: PageInfo, sections: list[tuple[str, str]]) -> li
         ("Client", h.client or "—"), ("Job number", h.number or "—"),
         ("Design method", f"{job.settings.method}"), ("Units", f"{job.settings.units}"),
         ("Revision", f"{h.revision}   {h.date}".strip()),
-        ("Job file", os.path.basename(job.path)), ("Job file SHA-256", job.sha256),
+        ("Job file", os.path.basename(job.path)), ("SHA-256", job.sha256),
     ]
     ft = Table([[para(k, st.cell_bold), para(v, st.cell)] for k, v in facts],
                colWidths=[78, left_w - 78], hAlign="LEFT")
