@@ -238,7 +238,10 @@ def section_drawing(m: MemberResult, ctx: Ctx) -> tuple[Drawing, str]:
     wanted, anchors, ys = [], [], []
     for j in m.joints:
         cont = j.continuous
-        for (a, b) in j.plane:
+        # the row's n connectors shared out over the joint's plane segments, one symbol each
+        share = [j.per_row // max(1, len(j.plane)) + (1 if k < j.per_row % max(1, len(j.plane)) else 0)
+                 for k in range(len(j.plane))]
+        for k_seg, (a, b) in enumerate(j.plane):
             (x0, y0), (x1, y1) = P(*a), P(*b)
             dr.add(Line(x0, y0, x1, y1, strokeColor=PLANE, strokeWidth=2.0))
             length = math.hypot(x1 - x0, y1 - y0)
@@ -252,7 +255,7 @@ def section_drawing(m: MemberResult, ctx: Ctx) -> tuple[Drawing, str]:
                     dr.add(Line(cx - uy * 2.2, cy + ux * 2.2, cx + uy * 2.2, cy - ux * 2.2, strokeColor=PLANE,
                                 strokeWidth=0.5))
             else:
-                n = max(1, min(5, int(length / 12)))
+                n = share[k_seg]
                 for i in range(n):
                     t = (i + 0.5) / n
                     dr.add(Circle(x0 + (x1 - x0) * t, y0 + (y1 - y0) * t, 2.0, fillColor=colors.white,
