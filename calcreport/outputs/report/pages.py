@@ -15,7 +15,7 @@ from dataclasses import dataclass, field
 from reportlab.lib import colors
 from reportlab.platypus import BaseDocTemplate, Flowable, Frame, PageTemplate
 
-from .styles import Styles, fit_text, plain
+from .styles import Styles, draw_text, fit_text, plain
 from .template import Template
 
 __all__ = ["PageInfo", "ReportDoc", "SectionStart", "SheetRef", "MarginMark", "TITLE_H", "FOOTER_H", "GREY",
@@ -200,8 +200,7 @@ class ReportDoc(BaseDocTemplate):
     def _value(self, c, x, y, text, width, size=8.0, bold=False):
         font = self.styles.fonts.bold if bold else self.styles.fonts.regular
         t, s = fit_text(text, font, size, width)
-        c.setFont(font, s)
-        c.drawString(x, y, t)
+        draw_text(c, x, y, t, font, s)
 
     def _title_block(self, c):
         tpl, info, st = self.tpl, self.info, self.styles

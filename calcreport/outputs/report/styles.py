@@ -2,7 +2,7 @@
 
 Every piece of text from a job file goes through :func:`esc` before it becomes Paragraph markup:
 it is XML-escaped (so ``<b>`` or ``&`` print literally), characters the embedded DejaVu fonts lack
-(CJK and other scripts) are set in a CID fallback font, and control characters are dropped.
+(CJK) are set in the embedded Droid Sans Fallback, and control characters are dropped.
 Words too long for a line are broken by the Paragraph itself (``splitLongWords``).
 """
 
@@ -21,11 +21,14 @@ from reportlab.pdfbase import pdfmetrics
 from reportlab.pdfbase.ttfonts import TTFont
 
 __all__ = ["FONT_DIR", "Fonts", "register_fonts", "Styles", "make_styles", "esc", "plain", "fit_text",
+           "font_runs", "text_width", "draw_text",
            "FALLBACK_FONT"]
 
 FONT_DIR = Path(__file__).resolve().parents[2] / "data" / "fonts"
-#: Non-embedded CID font for scripts DejaVu does not cover (CJK); viewers supply the glyphs.
-FALLBACK_FONT = "HeiseiKakuGo-W5"
+#: Embedded fallback for scripts DejaVu does not cover (CJK): Droid Sans Fallback (Apache 2.0),
+#: registered only when a text needs it and subset into the PDF like the other fonts.
+FALLBACK_FONT = "CR-DroidSansFallbackFull"
+FALLBACK_FILE = "DroidSansFallbackFull.ttf"
 
 
 @dataclass(frozen=True)
@@ -52,7 +55,6 @@ def register_fonts(regular: Path | None = None, bold: Path | None = None, mono: 
         names[role] = name
     pdfmetrics.registerFontFamily(names["regular"], normal=names["regular"], bold=names["bold"],
                                   italic=names["regular"], boldItalic=names["bold"])
-    _register_fallback()
     _BODY[0] = names["regular"]
     return Fonts(names["regular"], names["bold"], names["mono"])
 
@@ -64,12 +66,10 @@ def _font_name(path: Path, role: str) -> str:
 
 @lru_cache(maxsize=1)
 def _register_fallback() -> bool:
-    from reportlab.pdfbase.cidfonts import UnicodeCIDFont
-
     try:
-        pdfmetrics.registerFont(UnicodeCIDFont(FALLBACK_FONT))
+        pdfmetrics.registerFont(TTFont(FALLBACK_FONT, str(FONT_DIR / FALLBACK_FILE)))
         return True
-    except Exception:  # pragma: no cover - reportlab without CID data
+    except Exception:  # pragma: no cover - a damaged or missing font file: characters stay as boxes
         return False
 
 
@@ -102,8 +102,10 @@ def _esc(text: str, body_font: str) -> str:  # report text repeats a lot (labels
         return escape(text)
     out: list[str] = []
     run: list[str] = []
-    fallback = _register_fallback()
+    fallback = None
     for c in text:
+        if not (ord(c) in covered or c == " ") and fallback is None:
+            fallback = _register_fallback()  # only jobs with such text pay for loading it
         if ord(c) in covered or c == " " or not fallback:
             if run:
                 out.append(f'<font name="{FALLBACK_FONT}">{escape("".join(run))}</font>')
@@ -121,18 +123,49 @@ def plain(text: object) -> str:
     return _clean(text)
 
 
+def font_runs(text: str, font: str) -> list[tuple[str, str]]:
+    """``text`` cut into runs of ``(characters, font)``: the font where it has the glyphs, the
+    embedded fallback (CJK) elsewhere — for text drawn straight on the canvas."""
+    try:
+        covered = _covered(font)
+    except KeyError:
+        return [(text, font)]
+    runs: list[tuple[str, str]] = []
+    for c in text:
+        f = font if (ord(c) in covered or c == " ") else (FALLBACK_FONT if _register_fallback() else font)
+        if runs and runs[-1][1] == f:
+            runs[-1] = (runs[-1][0] + c, f)
+        else:
+            runs.append((c, f))
+    return runs
+
+
+def text_width(text: str, font: str, size: float) -> float:
+    """Width of ``text`` drawn with :func:`draw_text`."""
+    return sum(pdfmetrics.stringWidth(t, f, size) for t, f in font_runs(text, font))
+
+
+def draw_text(c, x: float, y: float, text: str, font: str, size: float) -> None:
+    """Draw ``text`` at (x, y), switching to the fallback font for glyphs ``font`` lacks."""
+    for t, f in font_runs(text, font):
+        c.setFont(f, size)
+        c.drawString(x, y, t)
+        x += pdfmetrics.stringWidth(t, f, size)
+    c.setFont(font, size)
+
+
 def fit_text(text: str, font: str, size: float, width: float, min_size: float = 5.5) -> tuple[str, float]:
     """Shrink ``text`` down to ``min_size`` to fit ``width``; then cut it with an ellipsis."""
     text = plain(text)
     s = size
-    while s > min_size and pdfmetrics.stringWidth(text, font, s) > width:
+    while s > min_size and text_width(text, font, s) > width:
         s -= 0.25
-    if pdfmetrics.stringWidth(text, font, s) <= width:
+    if text_width(text, font, s) <= width:
         return text, s
     lo, hi = 0, len(text)
     while lo < hi:
         mid = (lo + hi + 1) // 2
-        if pdfmetrics.stringWidth(text[:mid] + "…", font, s) <= width:
+        if text_width(text[:mid] + "…", font, s) <= width:
             lo = mid
         else:
             hi = mid - 1
