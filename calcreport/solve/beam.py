@@ -147,13 +147,16 @@ def self_weight(parts: list[tuple[Quantity, Quantity]], log: StepLog | None = No
         >>> round(self_weight([(Q_(16.875, "in^2"), Q_(36, "pcf"))]).to("plf").magnitude, 3)
         4.219
     """
-    w = Q_(0.0, "lbf/inch")
+    w = Q_(0.0, "lbf/ft")
     for A, gamma in parts:
-        w = w + (A * gamma).to("lbf/inch")
+        w = w + (A * gamma).to("lbf/ft")
     if log is not None:
-        log.add("self_weight", "Self-weight of the member", "w_sw = Σ A·γ",
-                "sum over {count} parts of area × weight density",
-                {"count": len(parts)}, w, source="statics (weight of a prismatic member)")
+        slots = {}
+        for i, (A, gamma) in enumerate(parts, 1):
+            slots[f"A{i}"], slots[f"g{i}"] = A, gamma
+        template = " + ".join(f"{{A{i}}} × {{g{i}}}" for i in range(1, len(parts) + 1)) or "0"
+        log.add("self_weight", "Self-weight of the member", "w_sw = Σ A·γ", template, slots, w,
+                source="statics (weight of a prismatic member)")
     return w
 
 
