@@ -90,3 +90,19 @@ def test_missing_file(cli, tmp_path):
 def test_usage_error_exit_2(cli):
     code, out, err = cli("check")
     assert code == 2
+
+
+def test_misspelt_key_is_named_before_a_missing_one(write_job, cli):
+    # `vertices` instead of `points`: the message names the unknown key, not a missing `points`.
+    text = job_text(GOOD).replace('shape = "rect"\nwidth = "2 in"\ndepth = "10 in"',
+                                  'shape = "polygon"\nvertices = [["0 in", "0 in"], ["2 in", "0 in"], ["2 in", "10 in"]]', 1)
+    code, _, err = cli("check", write_job(text))
+    assert code == 2 and "unknown key 'vertices'" in err and len(err.strip().splitlines()) == 1, err
+
+
+def test_misspelt_table_name_gets_a_line_and_a_suggestion(write_job, cli):
+    text = job_text(GOOD) + '\n[[jobs.history]]\nmark = "A"\n'
+    path = write_job(text)
+    code, _, err = cli("check", path)
+    assert code == 2 and "did you mean 'job'" in err, err
+    assert err.startswith(f"{path}:{text[:text.index('[[jobs.history]]')].count(chr(10)) + 1}:"), err

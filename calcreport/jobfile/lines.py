@@ -43,7 +43,8 @@ class LineIndex:
                     counts[base] = counts.get(base, 0) + 1
                     path.append(counts[base] - 1)
                 current = tuple(path)
-                self._lines.setdefault(current, number)
+                for k in range(1, len(current) + 1):  # a table first named by a sub-table header
+                    self._lines.setdefault(current[:k], number)
                 continue
             k = _KEY.match(raw)
             if k:

@@ -29,6 +29,9 @@ __all__ = ["read_part", "SHAPES", "MAX_VERTICES"]
 SHAPES = ("rect", "plate", "lumber", "bar", "polygon", "rolled")
 PLACEMENTS = ("on", "below", "left_of", "right_of", "at")
 MAX_VERTICES = 2000
+#: every key a part table may hold, whatever its shape
+PART_KEYS = ("id", "shape", "material", "label", "width", "depth", "thickness", "upright", "size", "flat",
+             "diameter", "points", "area", "inertia", "centroid", "designation", "align", "offset") + PLACEMENTS
 #: Smallest part dimension (0.001 in = 0.025 mm): thinner is a typing slip, and it would make the
 #: section's area vanish (common practice, no source).
 MIN_DIMENSION = 1e-3
@@ -168,6 +171,7 @@ def _place(t: Table, s: Shape, placed: dict[str, Part], first: bool) -> Shape:
 
 def read_part(t: Table, materials: dict[str, Material], placed: dict[str, Part]) -> Part:
     """Read one ``[[member.part]]`` table and place it relative to the parts before it."""
+    t.expect(PART_KEYS)
     pid = t.text("id", required=True)
     if pid in placed:
         raise t.error("id", f"duplicate part id {pid!r}")

@@ -205,6 +205,15 @@ class Table:
                 out[f.name] = self.quantity(f.name, f.kind, f.required, f.positive, default)
         return out
 
+    def expect(self, names: Iterable[str]) -> None:
+        """Reject, before anything is read, keys outside ``names`` (so a misspelt key is named
+        as such rather than reported as some other key missing)."""
+        allowed = set(names)
+        for name in self.data:
+            if name not in allowed:
+                hint = _suggest(name, sorted(allowed))
+                raise self.error(name, f"unknown key '{name}'{hint}")
+
     def done(self) -> None:
         """Reject keys that no getter asked for, suggesting the closest known key."""
         for name in self.data:
