@@ -103,8 +103,8 @@ def test_added_part_and_removed_joint(tmp_path, capsys):
     code, out, _ = run(["diff", fewer, str(DEMO), "--json"], capsys)
     data = json.loads(out)
     assert data["added"] == [{"id": "bot-webs", "key": "member[H1].joint[bot-webs]", "kind": "joint"}]
-    assert {"owner": "member.H1.joint.bot-webs", "field": "status", "label": "joint", "kind": "added",
-            "old": None, "new": "OK"} in data["results"]
+    assert {"owner": "member.H1.joint.bot-webs", "owner_title": "member H1, joint bot-webs", "field": "status",
+            "label": "joint", "kind": "added", "old": None, "new": "OK"} in data["results"]
 
 
 def test_invalid_input_exit_2_one_line(tmp_path, capsys):

@@ -1,7 +1,7 @@
 """Change report PDF: what changed between two revisions of a job, for the reviewer.
 
-Same content as the text diff (:mod:`.diff_text`): changed results first, then changed derivation
-steps, changed inputs, and added/removed tables. Every changed value is highlighted and marked with
+Same content as the text diff (:mod:`.diff_text`): changed results first (with changed zoned
+connector schedules, old and new zone lists side by side), then changed derivation steps, changed inputs, and added/removed tables. Every changed value is highlighted and marked with
 a revision triangle carrying the new job's revision letter. The page furniture is the calculation
 report's (:mod:`.report`): its template, fonts, styles, title block on every sheet ("Sheet N of M")
 and footer. The file is written atomically and is byte-for-byte reproducible.
@@ -18,7 +18,8 @@ from reportlab.platypus import Spacer
 
 from .. import __version__
 from .diff import JobDiff
-from .diff_text import ARROW, FIELD_SIG, display_for, input_pair, owner_title, value_pair
+from .diff_schedule import figures_text, zone_text
+from .diff_text import ARROW, FIELD_SIG, check_titles, display_for, input_pair, owner_title, value_pair
 from .pdfmeta import job_metadata, stamp
 from .report.build import write_atomic
 from .report.common import grid, heading, para
@@ -90,14 +91,14 @@ class _Build:
             para(f"Values in {d.system} units of the new revision. Changed values are highlighted and marked "
                  f"with the revision triangle {self.letter}.", st.body),
         ]
-        out += self._results() + self._steps() + self._inputs() + self._entities()
-        if not (diff.summary or diff.steps or diff.inputs or diff.added or diff.removed):
+        out += self._results() + self._schedules() + self._steps() + self._inputs() + self._entities()
+        if not (diff.summary or diff.schedules or diff.steps or diff.inputs or diff.added or diff.removed):
             out.append(para(f"No difference between the two job files {ARROW} nothing to review.", st.body))
         out += [*heading("Cautions", st.h2, 60), para(CAUTIONS, st.body)]
         return out
 
     def _results(self) -> list:
-        rows = []
+        rows, titles = [], check_titles(self.diff)
         for c in self.diff.summary:
             if c.kind == "changed":
                 a, b = value_pair(self.d, c.old, c.new, FIELD_SIG.get(c.field.split(".")[-1], 4))
@@ -105,11 +106,27 @@ class _Build:
                 a, b = "(none)", f"added, {c.new}"
             else:
                 a, b = f"{c.old}", "removed"
-            rows.append([self.mark(owner_title(c.owner)), c.label, a, b])
+            rows.append([self.mark(owner_title(c.owner, titles)), c.label, a, b])
         if not rows:
             return []
         return [*heading("Results", self.st.h2),
                 self.table(["Where", "Quantity", "Previous", "Now"], rows, [0.34, 0.26, 0.2, 0.2], 3)]
+
+    def _schedules(self) -> list:
+        """Each changed schedule whole: N and the zone list before and now (zones by position)."""
+        rows = []
+        for c in self.diff.schedules:
+            def zones(sch, fresh=()):
+                return [para(figures_text(self.d, sch), self.st.cell)] + [
+                    para(f"{k}: {zone_text(self.d, z)}" + (" (changed)" if k in fresh else ""), self.st.cell)
+                    for k, z in enumerate(getattr(sch, "zones", ()) or (), 1)]
+            rows.append([self.mark(owner_title(c.owner)) + [para(", ".join(c.changed), self.st.small)],
+                         zones(c.old), zones(c.new, c.new_zones)])
+        if not rows:
+            return []
+        return [*heading("Connector schedules", self.st.h2),
+                para("Zones are compared by their position along the member, not by their number.", self.st.small),
+                self.table(["Joint (what changed)", "Previous", "Now"], rows, [0.24, 0.38, 0.38], 2)]
 
     def _steps(self) -> list:
         rows = []

@@ -5,7 +5,8 @@ raw TOML values). Renderers (:mod:`.diff_text`, :mod:`.change_report`) format th
 job's unit system. Nothing here computes an engineering value; it only lines up and compares.
 
 * Results are compared by the stable step ``key`` of every derivation step and by the summary
-  fields of the job, each member and each joint, with a relative tolerance.
+  fields of the job, each member and each joint, with a relative tolerance. Zoned schedules are
+  compared whole (:mod:`.diff_schedule`); their per-zone steps are not matched by number.
 * Inputs are compared on the raw TOML documents. Arrays of tables are matched by their ``id``
   (``mark`` for revision history entries), not by position. A string that reads as a quantity with
   a unit is compared as a quantity, so ``"12 in"`` and ``"1 ft"`` are the same input.
@@ -14,7 +15,6 @@ job's unit system. Nothing here computes an engineering value; it only lines up 
 
 from __future__ import annotations
 
-import math
 import re
 from dataclasses import dataclass
 from typing import Any, Iterable
@@ -23,12 +23,12 @@ from ..model import Job
 from ..solve.results import Check, JobResult, JointResult, MemberResult
 from ..steps import Step
 from ..units import Quantity, UnitParseError, parse
+from .compare import RESULT_RTOL, same_value
+from .diff_schedule import ScheduleChange, diff_schedules, is_zone_step, schedule_keys
 
-__all__ = ["Side", "SummaryChange", "StepChange", "InputChange", "Entity", "JobDiff", "compute_diff",
+__all__ = ["Side", "SummaryChange", "StepChange", "InputChange", "Entity", "JobDiff", "ScheduleChange", "compute_diff",
            "diff_results", "diff_inputs", "same_value", "same_input", "input_quantity", "changed_keys", "RESULT_RTOL", "INPUT_RTOL"]
 
-#: Results agree when they differ by less than this fraction (JSON keeps 6 significant figures).
-RESULT_RTOL = 1e-6
 #: Inputs agree when they differ by less than this fraction (unit conversions are exact to ~1e-15).
 INPUT_RTOL = 1e-9
 #: Values of a table in an array of tables that identify it, in order of preference.
@@ -101,63 +101,16 @@ class JobDiff:
     inputs: tuple[InputChange, ...]
     added: tuple[Entity, ...]
     removed: tuple[Entity, ...]
+    schedules: tuple[ScheduleChange, ...] = ()  # joints whose zoned schedule changed
 
     @property
     def results_changed(self) -> bool:
         """True when any result differs: the exit code 1 of ``calcreport diff``."""
-        return bool(self.summary) or any(s.result_changed for s in self.steps)
+        return bool(self.summary or self.schedules) or any(s.result_changed for s in self.steps)
 
     @property
     def inputs_changed(self) -> bool:
         return bool(self.inputs or self.added or self.removed)
-
-
-# -- value comparison ---------------------------------------------------------------------------
-
-def _close(a: float, b: float, rtol: float) -> bool:
-    return math.isclose(a, b, rel_tol=rtol, abs_tol=1e-12)
-
-
-def same_value(a: Any, b: Any, rtol: float = RESULT_RTOL) -> bool:
-    """True when ``a`` and ``b`` are the same value within ``rtol``.
-
-    Quantities of one dimension are compared in base units (so 12 in equals 1 ft); numbers with a
-    relative tolerance; everything else with ``==``.
-
-    Example:
-        >>> from calcreport.units import Q_
-        >>> same_value(Q_(12, "inch"), Q_(1, "ft"))
-        True
-    """
-    if isinstance(a, Quantity) or isinstance(b, Quantity):
-        if not (isinstance(a, Quantity) and isinstance(b, Quantity)):
-            return False
-        if a.dimensionality != b.dimensionality:
-            return False
-        ma, mb = a.to_base_units().magnitude, b.to_base_units().magnitude
-        if getattr(ma, "shape", ()) or getattr(mb, "shape", ()):
-            import numpy as np
-
-            ma, mb = np.asarray(ma, dtype=float), np.asarray(mb, dtype=float)
-            return ma.shape == mb.shape and bool(np.allclose(ma, mb, rtol=rtol, atol=1e-12))
-        return _close(float(ma), float(mb), rtol)
-    if getattr(a, "shape", ()) or getattr(b, "shape", ()):  # plain numpy arrays (results along the member)
-        import numpy as np
-
-        try:
-            xa, xb = np.asarray(a, dtype=float), np.asarray(b, dtype=float)
-        except (TypeError, ValueError):
-            return bool(np.array_equal(np.asarray(a), np.asarray(b)))
-        return xa.shape == xb.shape and bool(np.allclose(xa, xb, rtol=rtol, atol=1e-12))
-    if isinstance(a, bool) or isinstance(b, bool):
-        return type(a) is type(b) and a == b
-    if isinstance(a, (int, float)) and isinstance(b, (int, float)):
-        return _close(float(a), float(b), rtol)
-    if isinstance(a, (list, tuple)) and isinstance(b, (list, tuple)):
-        return len(a) == len(b) and all(same_value(x, y, rtol) for x, y in zip(a, b))
-    if isinstance(a, dict) and isinstance(b, dict):
-        return a.keys() == b.keys() and all(same_value(a[k], b[k], rtol) for k in a)
-    return a == b
 
 
 # -- results --------------------------------------------------------------------------------------
@@ -252,7 +205,7 @@ def diff_results(old: JobResult, new: JobResult) -> tuple[list[SummaryChange], l
     sa, sb = _all_steps(old), _all_steps(new)
     steps: list[StepChange] = []
     for key in list(sb) + [k for k in sa if k not in sb]:
-        if _under(key, gone):
+        if _under(key, gone) or is_zone_step(key):  # zones: compared whole, see diff_schedule
             continue
         a, b = sa.get(key), sb.get(key)
         if a is None or b is None:
@@ -367,16 +320,22 @@ def diff_inputs(old_doc: dict, new_doc: dict, rtol: float = INPUT_RTOL
 def compute_diff(old: Side, new: Side) -> JobDiff:
     """Everything that changed from ``old`` to ``new``."""
     summary, steps = diff_results(old.result, new.result)
+    schedules = diff_schedules(old.result, new.result)
+    # a changed schedule is shown whole: none of its steps is listed as having the same result
+    whole = {c.key for c in schedules}
+    steps = [s for s in steps if s.result_changed or not _under(s.key, whole)]
     inputs, added, removed = diff_inputs(old.doc, new.doc)
-    return JobDiff(old, new, tuple(summary), tuple(steps), tuple(inputs), tuple(added), tuple(removed))
+    return JobDiff(old, new, tuple(summary), tuple(steps), tuple(inputs), tuple(added), tuple(removed),
+                   tuple(schedules))
 
 
 def changed_keys(diff: JobDiff) -> frozenset[str]:
     """Keys a report marks with the revision triangle.
 
     Contains: every step key whose result or substituted values changed (and new steps); the owner
-    key of every changed summary field (``member.H1``, ``member.H1.joint.top``, check keys); the
-    input key path of every changed leaf (``member[H1].shear``) and of every added table
+    key of every changed summary field (``member.H1``, ``member.H1.joint.top``, check keys); the key
+    of every changed zoned schedule (``member.H1.joint.top.schedule``) and the step key of each of its
+    zones the old schedule does not have (``member.H1.joint.top.schedule.zone.2``); the input key path of every changed leaf (``member[H1].shear``) and of every added table
     (``member[H1].part[cover]``). A report may mark a heading when any key starts with its prefix.
     """
     keys: set[str] = set()
@@ -384,4 +343,5 @@ def changed_keys(diff: JobDiff) -> frozenset[str]:
     keys.update(c.owner for c in diff.summary if c.new is not None)
     keys.update(c.key for c in diff.inputs)
     keys.update(e.key for e in diff.added)
+    keys.update(schedule_keys(diff.schedules))
     return frozenset(keys)

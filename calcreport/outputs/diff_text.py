@@ -13,11 +13,12 @@ from typing import Any
 from .. import __version__
 from ..steps import Step
 from ..units import Quantity
-from .diff import Entity, InputChange, JobDiff, Side, StepChange, SummaryChange, input_quantity
+from .diff import Entity, InputChange, JobDiff, ScheduleChange, Side, StepChange, SummaryChange, input_quantity
+from .diff_schedule import figures_text, zone_text
 from .fmt import Display
 
 __all__ = ["render_diff", "diff_to_dict", "display_for", "value_pair", "input_text", "owner_title",
-           "input_pair", "FIELD_SIG", "DIFF_SCHEMA_VERSION"]
+           "check_titles", "schedule_lines", "input_pair", "FIELD_SIG", "DIFF_SCHEMA_VERSION"]
 
 DIFF_SCHEMA_VERSION = 1
 ARROW = "→"
@@ -46,8 +47,25 @@ def value_pair(d: Display, old: Any, new: Any, sig: int = 4) -> tuple[str, str]:
     return a, b
 
 
-def owner_title(owner: str) -> str:
-    """``member.H1.joint.top`` → ``member H1, joint top`` (other keys are shown as they are)."""
+def check_titles(diff: JobDiff) -> dict[str, str]:
+    """Check key → its label (the new revision's where both have it); a label that two checks of
+    the job share keeps the key in parentheses: ``End distance from the member end (member[B1]…)``."""
+    labels: dict[str, str] = {}
+    for side in (diff.old, diff.new):
+        for m in side.result.members:
+            for c in (*m.checks, *(c for j in m.joints for c in j.checks)):
+                labels[c.key] = c.label
+    keys_of: dict[str, set[str]] = {}
+    for key, label in labels.items():
+        keys_of.setdefault(label, set()).add(key)
+    return {k: lab if len(keys_of[lab]) == 1 else f"{lab} ({k})" for k, lab in labels.items()}
+
+
+def owner_title(owner: str, titles: dict[str, str] | None = None) -> str:
+    """``member.H1.joint.top`` → ``member H1, joint top``; a check key → its title from ``titles``
+    (:func:`check_titles`); other keys are shown as they are."""
+    if titles and owner in titles:
+        return titles[owner]
     if owner == "job":
         return "job"
     parts = owner.split(".")
@@ -113,13 +131,23 @@ def _step_line(d: Display, c: StepChange) -> str:
     return f"{head}: {a} {ARROW} {b}"
 
 
-def _summary_lines(d: Display, changes: tuple[SummaryChange, ...]) -> list[str]:
+def schedule_lines(d: Display, c: ScheduleChange) -> list[str]:
+    """A changed schedule: what changed, then the old and the new zone list with N."""
+    lines = [f"{owner_title(c.owner)}: connector schedule changed ({', '.join(c.changed)})"]
+    for tag, sch, fresh in (("was", c.old, ()), ("now", c.new, c.new_zones)):
+        lines.append(f"  {tag}: {figures_text(d, sch)}")
+        for k, z in enumerate(getattr(sch, "zones", ()) or (), 1):
+            lines.append(f"    zone {k}  {zone_text(d, z)}" + ("   (changed)" if k in fresh else ""))
+    return lines
+
+
+def _summary_lines(d: Display, changes: tuple[SummaryChange, ...], titles: dict[str, str]) -> list[str]:
     groups: dict[str, list[SummaryChange]] = {}
     for c in changes:
         groups.setdefault(c.owner, []).append(c)
     lines: list[str] = []
     for owner, items in groups.items():
-        title = owner_title(owner)
+        title = owner_title(owner, titles)
         if len(items) == 1 and items[0].kind != "changed":
             c = items[0]
             state = f"added (status {c.new})" if c.kind == "added" else f"removed (was {c.old})"
@@ -142,9 +170,12 @@ def render_diff(diff: JobDiff) -> str:
         lines.append(f"  {tag}: {side.label}  revision {h.revision or '—'}  sha256 {side.job.sha256[:12]}")
     real_steps = [s for s in diff.steps if s.result_changed]
     value_steps = [s for s in diff.steps if not s.result_changed]
-    if diff.summary or real_steps:
+    if diff.summary or diff.schedules or real_steps:
         lines += ["", f"RESULTS CHANGED (values in {d.system} units)"]
-        lines += _summary_lines(d, diff.summary)
+        lines += _summary_lines(d, diff.summary, check_titles(diff))
+        if diff.schedules:
+            lines.append("  connector schedules (zones matched by position along the member, not by number):")
+            lines += [f"      {t}" for c in diff.schedules for t in schedule_lines(d, c)]
         if real_steps:
             lines.append("  derivation steps:")
             lines += [f"      {_step_line(d, s)}" for s in real_steps]
@@ -187,15 +218,28 @@ def _entity(e: Entity) -> dict[str, str]:
     return {"kind": e.kind, "key": e.key, "id": e.id}
 
 
+def _schedule(d: Display, s: Any) -> dict[str, Any] | None:
+    if s is None:
+        return None
+    return {"status": s.status, "count": s.count, "count_min": d.json_value(s.count_min),
+            "ratio": d.json_value(s.ratio), "count_single": s.count_single,
+            "zones": [{"start": d.json_value(z.start), "end": d.json_value(z.end),
+                       "spacing": d.json_value(z.spacing), "count": z.count} for z in s.zones]}
+
+
 def diff_to_dict(diff: JobDiff) -> dict[str, Any]:
     """The diff as JSON-ready data (schema in docs/review.md); values in the new job's units."""
     d = display_for(diff.new)
+    titles = check_titles(diff)
     return {
         "schema": DIFF_SCHEMA_VERSION, "tool": {"name": "calcreport", "version": __version__},
         "old": _side(diff.old), "new": _side(diff.new), "units": d.system,
         "results_changed": diff.results_changed, "inputs_changed": diff.inputs_changed,
-        "results": [{"owner": c.owner, "field": c.field, "label": c.label, "kind": c.kind,
-                     "old": d.json_value(c.old), "new": d.json_value(c.new)} for c in diff.summary],
+        "results": [{"owner": c.owner, "owner_title": owner_title(c.owner, titles), "field": c.field,
+                     "label": c.label, "kind": c.kind, "old": d.json_value(c.old), "new": d.json_value(c.new)}
+                    for c in diff.summary],
+        "schedules": [{"owner": c.owner, "key": c.key, "changed": list(c.changed), "new_zones": list(c.new_zones),
+                       "old": _schedule(d, c.old), "new": _schedule(d, c.new)} for c in diff.schedules],
         "steps": [{"key": s.key, "label": (s.new or s.old).label, "symbol": (s.new or s.old).symbol,
                    "result_changed": s.result_changed, "old": _step(d, s.old), "new": _step(d, s.new)}
                   for s in diff.steps],

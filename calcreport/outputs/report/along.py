@@ -25,7 +25,7 @@ from .common import Ctx, grid, heading, para
 from .figures_along import demand_capacity_chart, loading_diagram, zone_elevation
 from .plots import Series, line_chart, positions, series_values
 
-__all__ = ["member_figures", "beam_figures", "schedule_figures", "zone_rows"]
+__all__ = ["member_figures", "beam_figures", "schedule_figures", "schedule_key", "zone_rows"]
 
 
 def member_figures(m: MemberResult, ctx: Ctx) -> list[Flowable]:
@@ -41,15 +41,16 @@ def member_figures(m: MemberResult, ctx: Ctx) -> list[Flowable]:
         out += beam_figures(m, ctx)
     for j in m.joints:
         if j.schedule is not None:
-            out += schedule_figures(j, ctx)
+            out += schedule_figures(j, ctx, m.id)
+            mark = ctx.mark(schedule_key(m.id, j.id))  # revision triangle: the schedule changed
             chart = demand_capacity_chart(j, ctx.display, ctx.styles.fonts, ctx.width)
             elev = zone_elevation(j, m.member, ctx.q, ctx.display.position, ctx.styles.fonts, ctx.width)
             if chart is not None:
-                out.append(KeepTogether([chart, para(
+                out.append(KeepTogether([*mark, chart, para(
                     f"Shear flow q(x) = V(x)·Q/I at joint {j.id} from the envelope, against the capacity "
                     "n·F/s that each zone provides.", ctx.styles.caption)]))
             if elev is not None:
-                out.append(KeepTogether([elev, para(
+                out.append(KeepTogether([*mark, elev, para(
                     f"Elevation of the member: connector rows of joint {j.id} by zone, with each zone's "
                     "spacing (above) and length and number of rows (below).", ctx.styles.caption)]))
     if out:
@@ -109,12 +110,20 @@ def combinations_table(m: MemberResult, ctx: Ctx) -> list[Flowable]:
     return [KeepTogether([title, grid(rows, [0.30 * w, 0.30 * w, 0.40 * w], st)]), note]
 
 
-def schedule_figures(j: JointResult, ctx: Ctx) -> list[Flowable]:
+def schedule_key(member_id: str, joint_id: str) -> str:
+    """The key a revision diff gives a joint's zoned schedule (prefix of its derivation steps)."""
+    return f"member.{member_id}.joint.{joint_id}.schedule"
+
+
+def schedule_figures(j: JointResult, ctx: Ctx, member_id: str = "") -> list[Flowable]:
+    """The zone table of a joint's schedule, its heading marked with the revision triangle when the
+    schedule changed (``ctx.changed_keys`` holds :func:`schedule_key`; needs ``member_id``)."""
     st, w = ctx.styles, ctx.width
     title = para(f"Connector schedule — joint {j.id}", st.h3)
+    mark = ctx.mark(schedule_key(member_id, j.id)) if member_id else []
     rows = zone_rows(j.schedule, ctx)
     widths = [0.07 * w, 0.15 * w, 0.15 * w, 0.14 * w, 0.09 * w, 0.40 * w]
-    out: list[Flowable] = [KeepTogether([title, grid(rows, widths, st)])]
+    out: list[Flowable] = [KeepTogether([*mark, title, grid(rows, widths, st)])]
     total = getattr(j.schedule, "count", None)
     status = getattr(j.schedule, "status", None)
     note = []
