@@ -74,7 +74,8 @@ def register(sub) -> None:
     d = sub.add_parser(
         "diff", help="show what changed between two revisions of a job",
         description="Compare two revisions of a job file: changed results first (spacing, utilisation, "
-        "status, section properties, Q, q, capacities and every derivation step, by step key), then "
+        "status, section properties, Q, q, capacities, zoned connector schedules compared whole and every "
+        "derivation step, by step key), then "
         "changed inputs by key path (\"12 in\" and \"1 ft\" are the same input), then added and removed "
         "members, parts, joints, loads and materials. Values are shown in the new job's units. "
         "Exit 0 no result changed, 1 some result changed, 2 invalid input.")
