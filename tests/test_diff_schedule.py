@@ -102,7 +102,7 @@ def test_check_groups_print_their_labels(tmp_path, capsys, sides):
     assert "\n  Deflection, load case S (span 1):\n" in results
     assert not re.search(r"^  (bending|deflection|shear)\.", results, re.M)
     titles = check_titles(compute_diff(*sides))
-    assert titles["bending.df2"] == "Bending stress, df2"
+    assert titles["member[RB1].bending.df2"] == "Bending stress, df2"
     # both joints have an end-distance check with the same label: the key tells them apart
     key = "member[RB1].joint[top-webs].connector.end"
     assert titles[key] == f"End distance from the member end ({key})"

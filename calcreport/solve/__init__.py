@@ -44,10 +44,17 @@ def solve_member(member: Member, settings: Settings) -> MemberResult:
     else:
         V = _design_shear(member, log.child("shear"))
     joints = tuple(solve_joint(member, section, j, V, settings, log, beam) for j in member.joints)
-    checks = tuple(beam.checks) if beam is not None else ()
+    checks = _keyed(beam.checks, f"member[{member.id}]") if beam is not None else ()
     status = worst([j.status for j in joints] + [c.status for c in checks])
     return MemberResult(id=member.id, member=member, section=section, shear=V, joints=joints,
                         checks=checks, steps=tuple(log.steps), status=status, beam=beam)
+
+
+def _keyed(checks, prefix: str) -> tuple:
+    """Checks with keys that name their member (and joint), so keys are unique in a job."""
+    from dataclasses import replace
+
+    return tuple(c if c.key.startswith("member[") else replace(c, key=f"{prefix}.{c.key}") for c in checks)
 
 
 def _plane_shear(joint: Joint, held, other, V: Quantity, Q: Quantity, section: SectionResult,
@@ -117,7 +124,8 @@ def solve_joint(member: Member, section: SectionResult, joint: Joint, V: Quantit
 
         schedule = joint_schedule(beam, Q, section, joint, cap.value, res, settings, log.child("schedule"),
                                   demand=demand)
-    checks = tuple(cap.checks) + _plane_shear(joint, held, other, V, Q, section, b, log)
+    checks = _keyed(tuple(cap.checks) + _plane_shear(joint, held, other, V, Q, section, b, log),
+                    f"member[{member.id}].joint[{joint.id}]")
     status = worst([res.status] + [c.status for c in checks] + ([schedule.status] if schedule else []))
     return JointResult(
         id=joint.id, label=joint.label, holds=joint.holds, Q=Q, shear=V, shear_flow=q,
