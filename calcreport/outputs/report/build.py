@@ -32,6 +32,7 @@ from .cover import cover_story
 from .derivations import derivation_story
 from .drawing import section_drawing
 from .inputs import assumptions_story, description_story, inputs_story
+from ..pdfmeta import job_metadata
 from .pages import PageInfo, ReportDoc, SectionStart
 from .signoff import limitations_story, signoff_story
 from .styles import esc, make_styles, register_fonts
@@ -157,7 +158,7 @@ def render_pdf(result: JobResult, template: Template | None = None, changed_keys
     info = _page_info(result, tpl)
     sections = report_sections(result)
     h = job.header
-    extra = {"CalcreportJobSHA256": job.sha256, "CalcreportVersion": __version__,
+    extra = {**job_metadata(job.sha256, "calculation report"),  # the keys `verify` reads (pdfmeta)
              "CalcreportJobFile": os.path.basename(job.path), "CalcreportRevision": h.revision}
     maker = _canvasmaker(extra, _timestamp(h.date))
     keywords = ", ".join(x for x in (h.number, f"revision {h.revision}" if h.revision else "",
