@@ -1,14 +1,14 @@
-"""Plane geometry of placed parts (shapely): outlines, overlap, contact and shear-plane lines.
+"""Plane geometry of placed parts: outlines, overlap, contact and shear-plane lines.
 
-Lengths are plain floats in inches, as in :class:`calcreport.model.Shape`.
+Lengths are plain floats in inches, as in :class:`calcreport.model.Shape`. Axis-aligned rectangles
+(plates, lumber, rolled shapes by their bounding box) — most built-up sections — are handled
+directly; shapely is imported only for polygons and round bars.
 """
 
 from __future__ import annotations
 
 from functools import lru_cache
-
-from shapely.geometry import Polygon, box
-from shapely.geometry.base import BaseGeometry
+from typing import Any
 
 from .model import Part, Shape
 
@@ -20,28 +20,63 @@ CIRCLE_SEGMENTS = 64
 
 
 @lru_cache(maxsize=4096)
-def outline(shape: Shape) -> BaseGeometry:
+def outline(shape: Shape) -> Any:
     """The part's outline as a shapely geometry (a circle as a 256-gon; properties as its bbox)."""
+    from shapely.geometry import Point, Polygon, box
+
     if shape.kind == "polygon":
         return Polygon(shape.vertices)
     if shape.kind == "circle":
-        from shapely.geometry import Point
-
         return Point(shape.centre).buffer(shape.radius, quad_segs=CIRCLE_SEGMENTS)
     return box(*shape.bbox)
+
+
+def is_rectangle(shape: Shape) -> bool:
+    """True for an axis-aligned rectangle: its bounding box is its outline."""
+    if shape.kind == "properties":
+        return True
+    if shape.kind != "polygon" or len(shape.vertices) != 4:
+        return False
+    xs = {round(v[0], 9) for v in shape.vertices}
+    ys = {round(v[1], 9) for v in shape.vertices}
+    return len(xs) == 2 and len(ys) == 2
+
+
+def _bbox_area(b) -> float:
+    return max(0.0, b[2] - b[0]) * max(0.0, b[3] - b[1])
+
+
+def _overlap_area(a: Shape, b: Shape) -> float:
+    if is_rectangle(a) and is_rectangle(b):
+        (ax0, ay0, ax1, ay1), (bx0, by0, bx1, by1) = a.bbox, b.bbox
+        return _bbox_area((max(ax0, bx0), max(ay0, by0), min(ax1, bx1), min(ay1, by1)))
+    return outline(a).intersection(outline(b)).area
+
+
+def _area(s: Shape) -> float:
+    return _bbox_area(s.bbox) if is_rectangle(s) else outline(s).area
+
+
+def _distance(a: Shape, b: Shape) -> float:
+    if is_rectangle(a) and is_rectangle(b):
+        (ax0, ay0, ax1, ay1), (bx0, by0, bx1, by1) = a.bbox, b.bbox
+        dx = max(0.0, bx0 - ax1, ax0 - bx1)
+        dy = max(0.0, by0 - ay1, ay0 - by1)
+        return (dx * dx + dy * dy) ** 0.5
+    return outline(a).distance(outline(b))
 
 
 def overlapping_pairs(parts: tuple[Part, ...] | list[Part]) -> list[tuple[str, str, float]]:
     """Pairs of parts whose interiors overlap, with the overlapping area (in²)."""
     out = []
-    geoms = [outline(p.shape) for p in parts]
     for i in range(len(parts)):
         for j in range(i + 1, len(parts)):
-            if not _bbox_overlap(parts[i].shape.bbox, parts[j].shape.bbox):
+            a, b = parts[i].shape, parts[j].shape
+            if not _bbox_overlap(a.bbox, b.bbox):
                 continue
-            a = geoms[i].intersection(geoms[j]).area
-            if a > 1e-6 * min(geoms[i].area, geoms[j].area):
-                out.append((parts[i].id, parts[j].id, a))
+            area = _overlap_area(a, b)
+            if area > 1e-6 * min(_area(a), _area(b)):
+                out.append((parts[i].id, parts[j].id, area))
     return out
 
 
@@ -53,11 +88,10 @@ def isolated_parts(parts: tuple[Part, ...] | list[Part]) -> list[str]:
     """Ids of parts that touch no other part (empty for a single part)."""
     if len(parts) < 2:
         return []
-    geoms = [outline(p.shape) for p in parts]
     lonely = []
     for i, p in enumerate(parts):
         if not any(j != i and _bbox_overlap(p.shape.bbox, parts[j].shape.bbox)
-                   and geoms[i].distance(geoms[j]) <= TOUCH_TOL for j in range(len(parts))):
+                   and _distance(p.shape, parts[j].shape) <= TOUCH_TOL for j in range(len(parts))):
             lonely.append(p.id)
     return lonely
 
@@ -65,7 +99,8 @@ def isolated_parts(parts: tuple[Part, ...] | list[Part]) -> list[str]:
 def _edges(shape: Shape) -> list[tuple[tuple[float, float], tuple[float, float]]]:
     if shape.kind == "circle":
         return []
-    pts = list(shape.vertices) if shape.kind == "polygon" else list(outline(shape).exterior.coords)[:-1]
+    x0, y0, x1, y1 = shape.bbox
+    pts = list(shape.vertices) if shape.kind == "polygon" else [(x0, y0), (x1, y0), (x1, y1), (x0, y1)]
     return [(pts[i], pts[(i + 1) % len(pts)]) for i in range(len(pts))]
 
 

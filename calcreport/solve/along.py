@@ -121,14 +121,20 @@ def _member_checks(member, section, M, V, limits, beam, log) -> list[Check]:
     return checks
 
 
+def _cut_width(geom, y: float) -> float:
+    """Width of a shapely outline along the horizontal line at height y."""
+    from shapely.geometry import LineString
+
+    x0, _, x1, _ = geom.bounds
+    return geom.intersection(LineString([(x0 - 1, y), (x1 + 1, y)])).length
+
+
 SOURCE_NOT_CHECKED = "not checked by the tool; check by hand (e.g. panel shear of plywood webs)"
 
 
 def _neutral_axis_shear(member, section, V, log) -> Check | None:
     """τ at the neutral axis where the parts cut there all give Fv (mechanics of materials)."""
-    from shapely.geometry import LineString
-
-    from ..geometry import outline
+    from ..geometry import is_rectangle, outline
 
     y = section.centroid.to("inch").magnitude + section.bottom.to("inch").magnitude
     cut = [p for p in member.parts if p.shape.bbox[1] < y < p.shape.bbox[3]]
@@ -140,8 +146,8 @@ def _neutral_axis_shear(member, section, V, log) -> Check | None:
                else "a part given by its properties is cut there")
         return Check("shear.neutral_axis", "Horizontal shear stress at the neutral axis", None, None, None,
                      "INFO", SOURCE_NOT_CHECKED, note=f"not checked: {why}")
-    b = sum(outline(p.shape).intersection(LineString([(p.shape.bbox[0] - 1, y),
-                                                      (p.shape.bbox[2] + 1, y)])).length for p in cut)
+    b = sum((p.shape.bbox[2] - p.shape.bbox[0]) if is_rectangle(p.shape) else _cut_width(outline(p.shape), y)
+            for p in cut)
     try:
         Qna = first_moment_above(member, section, section.centroid.to("inch").magnitude)
     except ValueError:

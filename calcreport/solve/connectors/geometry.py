@@ -22,6 +22,7 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
+from ...geometry import is_rectangle
 from ...model import Part
 
 __all__ = ["Contact", "find_contact", "thickness_normal", "extent_along", "plate_thickness"]
@@ -124,7 +125,7 @@ def thickness_normal(part: Part, c: Contact) -> float:
     otherwise. Source: geometry.
     """
     side = c.held_side if part is c.held else -c.held_side
-    if part.shape.kind == "polygon" and len(part.shape.vertices) >= 3:
+    if part.shape.kind == "polygon" and len(part.shape.vertices) >= 3 and not is_rectangle(part.shape):
         runs = _runs_polygon(part, c, side)
         if runs:
             return min(runs)
