@@ -44,3 +44,15 @@ def test_cli_limits_blas_threads_unless_the_environment_says_otherwise():
     env["OPENBLAS_NUM_THREADS"] = "3"
     r = subprocess.run([sys.executable, "-c", code], cwd=ROOT, capture_output=True, text=True, env=env)
     assert r.stdout.strip() == "3", r.stderr
+
+
+def test_check_of_a_rectangular_section_does_not_import_shapely():
+    # rectangles (plates, lumber, rolled shapes by their box) are handled directly (start-up time)
+    code = ("import sys, io, contextlib\n"
+            "from calcreport.cli import main\n"
+            "with contextlib.redirect_stdout(io.StringIO()):\n"
+            "    rc = main(['check', 'jobs/boathouse-door-header.toml'])\n"
+            "print(rc, 'shapely' in sys.modules)\n")
+    r = subprocess.run([sys.executable, "-c", code], cwd=ROOT, capture_output=True, text=True)
+    assert r.returncode == 0, r.stderr
+    assert r.stdout.strip() == "0 False", r.stdout
