@@ -9,7 +9,9 @@ A :class:`Step` is data, never text ready to print. It holds
 * ``values`` — the named inputs, as quantities (or plain numbers / words);
 * ``result`` — the value found;
 * ``source`` — the standard and clause, or "mechanics of materials", or "common practice, no source";
-* ``key`` — a stable dotted id (``member.B1.joint.top.q``) that the diff lines up across revisions.
+* ``key`` — a stable dotted id (``member.B1.joint.top.q``) that the diff lines up across revisions;
+* ``positions`` — names of the values (and ``"result"``) that are positions or lengths along the
+  member, which outputs write the way drawings do (feet-inches in US units).
 
 The solver appends steps as it computes; the PDF typesets them, the JSON serialises them and the
 diff compares them.
@@ -40,10 +42,12 @@ class Step:
     source: str = ""
     note: str = ""
     governs: bool = False
+    positions: tuple[str, ...] = ()
 
 
 def step(key: str, label: str, symbol: str, template: str, values: dict[str, Value],
-         result: Value, source: str = "", note: str = "", governs: bool = False) -> Step:
+         result: Value, source: str = "", note: str = "", governs: bool = False,
+         positions: tuple[str, ...] = ()) -> Step:
     """Build a :class:`Step`, checking that every slot of ``template`` has a value.
 
     Example:
@@ -58,7 +62,7 @@ def step(key: str, label: str, symbol: str, template: str, values: dict[str, Val
     missing = slots - set(values)
     if missing:
         raise ValueError(f"step {key}: template slots without values: {sorted(missing)}")
-    return Step(key, label, symbol, template, dict(values), result, source, note, governs)
+    return Step(key, label, symbol, template, dict(values), result, source, note, governs, tuple(positions))
 
 
 @dataclass
@@ -69,10 +73,11 @@ class StepLog:
     steps: list[Step] = field(default_factory=list)
 
     def add(self, name: str, label: str, symbol: str, template: str, values: dict[str, Value],
-            result: Value, source: str = "", note: str = "", governs: bool = False) -> Value:
+            result: Value, source: str = "", note: str = "", governs: bool = False,
+            positions: tuple[str, ...] = ()) -> Value:
         """Append a step keyed ``prefix.name`` and return its result (so code reads as math)."""
         self.steps.append(step(f"{self.prefix}.{name}", label, symbol, template, values, result,
-                               source, note, governs))
+                               source, note, governs, positions))
         return result
 
     def child(self, name: str) -> "StepLog":

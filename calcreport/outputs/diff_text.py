@@ -125,7 +125,7 @@ def _step_line(d: Display, c: StepChange) -> str:
     if c.new is None:
         return f"{head}: step no longer made (was {d.value(c.old.result)})"
     if not c.result_changed:
-        return f"{head}: result unchanged {d.value(c.new.result)}; values {d.substituted(c.old)} {ARROW} " \
+        return f"{head}: result unchanged {d.result(c.new)}; values {d.substituted(c.old)} {ARROW} " \
                f"{d.substituted(c.new)}"
     a, b = value_pair(d, c.old.result, c.new.result)
     return f"{head}: {a} {ARROW} {b}"

@@ -164,7 +164,16 @@ class Display:
             return json_number(v)
         return v
 
+    def _step_value(self, v: Any, is_position: bool, sig: int) -> str:
+        if is_position and isinstance(v, Quantity) and dimension_name(v) == "length":
+            return self.position(v)
+        return self.value(v, sig)
+
     def substituted(self, s: Step, sig: int = 4) -> str:
         """The step's formula with numbers and units substituted into its template."""
         names = {name for _, name, _, _ in string.Formatter().parse(s.template) if name}
-        return s.template.format(**{k: self.value(s.values[k], sig) for k in names})
+        return s.template.format(**{k: self._step_value(s.values[k], k in s.positions, sig) for k in names})
+
+    def result(self, s: Step, sig: int = 4) -> str:
+        """The step's result as text (a position along the member in the drawing convention)."""
+        return self._step_value(s.result, "result" in s.positions, sig)

@@ -180,7 +180,7 @@ def duration_demand(along: AlongResult, cd_used: float, log: StepLog):
     V_eff = log.add("V", "Design shear for these wood connectors, with load duration",
                     "V' = max over c of |V_c|·C_D / C_D,c", "{V} in {by} at x = {x}, with C_D = {cd}",
                     {"V": Vw[k], "by": by[k], "x": along.analysis.envelope.x[k], "cd": cd_used}, Vw[k],
-                    source=SOURCE_DURATION, governs=True,
+                    source=SOURCE_DURATION, governs=True, positions=("x",),
                     note="a combination with a longer-duration load governs once its smaller C_D is used")
     return Vw, by, V_eff
 

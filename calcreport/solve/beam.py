@@ -324,10 +324,11 @@ def _envelope(x_q, V, M, keys, combinations, patterns) -> Envelope:
 
 
 def _log(log, length, supports, segs, cases, combs, env, patterns, EI) -> None:
-    log.add("length", "Member length", "L", "{L}", {"L": length}, length, source="job file")
+    log.add("length", "Member length", "L", "{L}", {"L": length}, length, source="job file",
+            positions=("L", "result"))
     for k, s in enumerate(supports):
         log.add(f"support.{k + 1}", f"Support {k + 1} ({s.kind})", "x", "{x}", {"x": s.x}, s.x,
-                source="job file")
+                source="job file", positions=("x", "result"))
     if len(segs) > 1:
         log.add("patterns", "Span patterns for live-type loads (L, Lr, S, R)", "n_p",
                 "{n} segments → {count} patterns", {"n": len(segs), "count": len(patterns)},
@@ -336,25 +337,25 @@ def _log(log, length, supports, segs, cases, combs, env, patterns, EI) -> None:
         for k, r in enumerate(d.reactions):
             log.add(f"case.{d.name}.R{k + 1}", f"Reaction at support {k + 1}, load case {d.name}",
                     f"R_{k + 1}", "stiffness analysis of case {case}, support at x = {x}",
-                    {"case": d.name, "x": r.x}, r.force, source=SOURCE_FE)
+                    {"case": d.name, "x": r.x}, r.force, source=SOURCE_FE, positions=("x",))
     for i, d in enumerate(combs):
         for what, arr, unit in (("V", d.V, _LBF), ("M", d.M, "lbf*inch")):
             mag = arr.to(unit).magnitude
             k = int(np.argmax(np.abs(mag)))
             log.add(f"comb.{i + 1}.{what}", f"Largest |{what}| for {d.name}", f"{what}_max",
-                    "at x = {x}", {"x": d.x[k]}, Q_(abs(mag[k]), unit), source=d.source)
+                    "at x = {x}", {"x": d.x[k]}, Q_(abs(mag[k]), unit), source=d.source, positions=("x",))
     if not len(env.V_abs_by):
         return
     mags = env.V_abs.magnitude
     k = int(np.argmax(mags))
     log.add("envelope.V", "Largest shear over all combinations and patterns", "V_max",
             "at x = {x}, governed by {by}", {"x": env.x[k], "by": env.V_abs_by[k]}, env.V_abs[k],
-            source=SOURCE_FE, governs=True)
+            source=SOURCE_FE, governs=True, positions=("x",))
     k = int(np.argmax(env.M_max.magnitude))
     log.add("envelope.M_pos", "Largest positive moment", "M_max+", "at x = {x}, governed by {by}",
-            {"x": env.x[k], "by": env.M_max_by[k]}, env.M_max[k], source=SOURCE_FE, governs=True)
+            {"x": env.x[k], "by": env.M_max_by[k]}, env.M_max[k], source=SOURCE_FE, governs=True, positions=("x",))
     k = int(np.argmin(env.M_min.magnitude))
     if env.M_min.magnitude[k] < 0:
         log.add("envelope.M_neg", "Largest negative moment", "M_max−",
                 "at x = {x}, governed by {by}", {"x": env.x[k], "by": env.M_min_by[k]},
-                env.M_min[k], source=SOURCE_FE, governs=True)
+                env.M_min[k], source=SOURCE_FE, governs=True, positions=("x",))

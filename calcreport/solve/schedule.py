@@ -121,7 +121,8 @@ def zoned_schedule(x: Quantity, q: Quantity, length: Quantity, capacity_row: Qua
     n_min = d.bound(nF, smax)
     log.add("N_min", "Fewest connectors any layout could use (continuous bound)",
             "N_min = ∫ max(q/(n·F), 1/s_max) dx", "over L = {L}, n·F = {nF}, s_max = {smax}",
-            {"L": length, "nF": capacity_row, "smax": spacing_max}, n_min, source=SOURCE_RULES)
+            {"L": length, "nF": capacity_row, "smax": spacing_max}, n_min, source=SOURCE_RULES,
+            positions=("L",))
     s1 = np.floor(min(nF / peak if peak > 0 else np.inf, smax) / inc * (1 + 1e-9) + 1e-9) * inc
     n_single = int(1 + np.ceil(L / s1 - 1e-9)) if s1 >= smin - 1e-9 and s1 > 0 else None
     common = dict(count_min=n_min, symmetric=False, zones_per_half=zones_per_half, module=module,
@@ -154,7 +155,7 @@ def zoned_schedule(x: Quantity, q: Quantity, length: Quantity, capacity_row: Qua
                 {"s": z.spacing, "nF": capacity_row, "q": z.demand_max,
                  "sreq": z.spacing_required if z.spacing_required is not None else "no limit",
                  "n": cnt, "a": z.start, "b": z.end}, z.spacing, source=SOURCE_SPACING,
-                note=f"governed by {gov}" if gov else "")
+                note=f"governed by {gov}" if gov else "", positions=("a", "b"))
     ratio = lay.count / n_min if n_min > 0 else None
     saving = 1.0 - lay.count / n_single
     log.add("N", "Connectors in the zoned schedule", "N = 1 + Σ ceil(ℓᵢ / sᵢ)",

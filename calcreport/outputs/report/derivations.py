@@ -56,7 +56,7 @@ def step_rows(steps: list[Step], ctx: Ctx, number_prefix: str) -> tuple[list[lis
     for i, s in enumerate(steps, 1):
         r = len(rows)
         tag = '  <font color="#7a5a00"><b>[governs]</b></font>' if s.governs else ""
-        sub, res = d.substituted(s), ctx.q(s.result)
+        sub, res = d.substituted(s), d.result(s)
         line = f"= <b>{esc(res)}</b>" if sub.strip() == res else f"= {esc(sub)}   = <b>{esc(res)}</b>"
         body = [
             Paragraph(f"<b>{esc(s.label)}</b>{tag}", st.cell),
