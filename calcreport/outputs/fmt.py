@@ -11,7 +11,7 @@ import string
 from typing import Any
 
 from ..steps import Step
-from ..units import Quantity, dimension_name
+from ..units import Q_, Quantity, dimension_name
 
 __all__ = ["Display", "fmt_number", "json_number", "feet_inches"]
 
@@ -121,6 +121,10 @@ class Display:
 
     def convert(self, q: Quantity) -> tuple[float, str, str]:
         """Magnitude in the display unit, printed symbol, JSON unit text."""
+        plan = self._plan(q.units)
+        if plan is not None:  # a plain scale factor to the display unit (cached per unit)
+            factor, pretty, js = plan
+            return float(q.magnitude) * factor, pretty, js
         dim = dimension_name(q)
         if dim in self.units:
             unit, pretty, js = self.units[dim]
@@ -129,6 +133,24 @@ class Display:
             return float(q.to("").magnitude), "", ""
         base = q.to_base_units() if self.system == "SI" else q
         return float(base.magnitude), f"{base.units:~P}", f"{base.units:~C}"
+
+    def _plan(self, units) -> tuple[float, str, str] | None:
+        key = str(units)
+        cache = self.__dict__.setdefault("_plans", {})
+        if key not in cache:
+            one = Q_(1.0, units)
+            dim = dimension_name(one)
+            plan = None
+            if dim in self.units:
+                unit, pretty, js = self.units[dim]
+                try:
+                    factor = float(one.to(unit).magnitude)
+                    if abs(float(Q_(2.0, units).to(unit).magnitude) - 2 * factor) <= 1e-12 * abs(factor):
+                        plan = (factor, pretty, js)  # linear (no offset) units only
+                except Exception:
+                    plan = None
+            cache[key] = plan
+        return cache[key]
 
     def quantity(self, q: Quantity, sig: int = 4) -> str:
         """``"1,234 lbf"``-style text for a quantity."""

@@ -130,6 +130,8 @@ def font_runs(text: str, font: str) -> list[tuple[str, str]]:
         covered = _covered(font)
     except KeyError:
         return [(text, font)]
+    if covered.issuperset(map(ord, text.replace(" ", ""))):
+        return [(text, font)]
     runs: list[tuple[str, str]] = []
     for c in text:
         f = font if (ord(c) in covered or c == " ") else (FALLBACK_FONT if _register_fallback() else font)
@@ -154,6 +156,7 @@ def draw_text(c, x: float, y: float, text: str, font: str, size: float) -> None:
     c.setFont(font, size)
 
 
+@lru_cache(maxsize=4096)  # title-block fields repeat on every sheet
 def fit_text(text: str, font: str, size: float, width: float, min_size: float = 5.5) -> tuple[str, float]:
     """Shrink ``text`` down to ``min_size`` to fit ``width``; then cut it with an ellipsis."""
     text = plain(text)
