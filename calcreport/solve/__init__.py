@@ -99,10 +99,10 @@ def solve_joint(member: Member, section: SectionResult, joint: Joint, V: Quantit
                                   f"member[{member.id}].joint[{joint.id}]")
     cap = connectors.design(joint.connector, ctx, log.child("connector"))
     demand = None
-    if beam is not None and cap.duration_factor is not None and settings.method == "ASD":
+    if beam is not None and cap.duration_factor is not None:
         from .along import duration_demand
 
-        demand = duration_demand(beam, cap.duration_factor, log.child("duration"))
+        demand = duration_demand(beam, cap.duration_factor, settings.method, log.child("duration"))
         if demand is not None:
             V = demand[2]
     q = shear_flow(V, Q, section.inertia, log)

@@ -16,7 +16,8 @@ from ..steps import StepLog
 from ..units import Q_, Quantity
 from .beam import BeamInputError, BeamResult, analyse, self_weight
 from .checks import Fibre, bending_checks, deflection_checks, shear_stress_check
-from .combinations import SOURCE_ASD, SOURCE_DURATION, SOURCE_LRFD, duration_factor, standard_combinations
+from .combinations import (SOURCE_ASD, SOURCE_DURATION, SOURCE_LRFD, SOURCE_TIME_EFFECT, duration_factor,
+                           standard_combinations, time_effect)
 from .results import Check, SectionResult, SolveError
 from .schedule import Schedule, zoned_schedule
 from .section import first_moment_above
@@ -157,31 +158,34 @@ def _neutral_axis_shear(member, section, V, log) -> Check | None:
                               Q_(b, "inch"), Fv, log, label="Horizontal shear stress at the neutral axis")
 
 
-def duration_demand(along: AlongResult, cd_used: float, log: StepLog):
-    """Shear demand normalised for wood load duration (ASD), or ``None`` when no combination needs it.
+def duration_demand(along: AlongResult, factor_used: float, method: str, log: StepLog):
+    """Shear demand normalised for wood load duration, or ``None`` when no combination needs it.
 
-    The connector's value holds one C_D (``cd_used``). A combination whose shortest-duration load
-    has a smaller C_D,c (dead load alone: 0.9) must be checked with that smaller factor: its shear
-    is scaled by C_D,used / C_D,c ≥ 1 before the envelope is taken. The tool never takes more
-    duration credit than the engineer set (factors below 1 are not applied).
-    Source: NDS 2018 §2.3.2 and Table 2.3.2.
+    The connector's value holds one load duration factor C_D (ASD) or time effect factor λ (LRFD),
+    ``factor_used``. A combination that calls for a smaller factor (ASD: dead load alone, C_D = 0.9;
+    LRFD: 1.4D, λ = 0.6) must be checked with it: its shear is scaled by factor_used / factor_c ≥ 1
+    before the envelope is taken. The tool never takes more duration credit than the engineer set
+    (ratios below 1 are not applied).
+    Source: NDS 2018 §2.3.2 and Table 2.3.2 (ASD); NDS 2018 Appendix N, Table N3 (LRFD).
     """
+    lrfd = method == "LRFD"
+    sym = "λ" if lrfd else "C_D"
     weights: dict[str, float] = {}
     for i, cb in enumerate(along.combinations, 1):
-        cd_c, case = duration_factor(cb)
-        log.add(f"CD.{i}", f"Load duration factor of {cb.name}", "C_D,c",
-                "shortest-duration load in the combination: {case}", {"case": case or "—"}, cd_c,
-                source=SOURCE_DURATION)
-        weights[cb.name] = max(1.0, cd_used / cd_c)
+        f_c, case = time_effect(cb) if lrfd else duration_factor(cb)
+        log.add(f"CD.{i}", f"{'Time effect' if lrfd else 'Load duration'} factor of {cb.name}", f"{sym},c",
+                "governing load in the combination: {case}", {"case": case or "—"}, f_c,
+                source=SOURCE_TIME_EFFECT if lrfd else SOURCE_DURATION)
+        weights[cb.name] = max(1.0, factor_used / f_c)
     if all(w == 1.0 for w in weights.values()):
         return None
     Vw, by = along.analysis.shear_abs_weighted(weights)
     k = int(Vw.magnitude.argmax())
     V_eff = log.add("V", "Design shear for these wood connectors, with load duration",
-                    "V' = max over c of |V_c|·C_D / C_D,c", "{V} in {by} at x = {x}, with C_D = {cd}",
-                    {"V": Vw[k], "by": by[k], "x": along.analysis.envelope.x[k], "cd": cd_used}, Vw[k],
-                    source=SOURCE_DURATION, governs=True, positions=("x",),
-                    note="a combination with a longer-duration load governs once its smaller C_D is used")
+                    f"V' = max over c of |V_c|·{sym} / {sym},c", "{V} in {by} at x = {x}, with " + sym + " = {f}",
+                    {"V": Vw[k], "by": by[k], "x": along.analysis.envelope.x[k], "f": factor_used}, Vw[k],
+                    source=SOURCE_TIME_EFFECT if lrfd else SOURCE_DURATION, governs=True, positions=("x",),
+                    note=f"a combination that calls for a smaller {sym} governs once that factor is used")
     return Vw, by, V_eff
 
 

@@ -171,3 +171,20 @@ def duration_factor(combination: Combination) -> tuple[float, str]:
         if cd > best:
             best, case = cd, c
     return (best or 0.9), case
+
+
+SOURCE_TIME_EFFECT = "NDS 2018 Appendix N, Table N3 (time effect factor λ by load combination)"
+
+
+def time_effect(combination: Combination) -> tuple[float, str]:
+    """Time effect factor λ of an LRFD combination (NDS 2018 Table N3, from memory): 0.6 for dead
+    load alone (1.4D); 1.0 when wind (or another ten-minute load) is in it; otherwise 0.8 —
+    occupancy live, snow, roof live or rain — and the 0.7 of storage live load is not assumed
+    (give the connector's λ for that case). Returns λ and the load it comes from."""
+    present = [c for c, f in combination.factors.items() if f != 0]
+    if "W" in present:
+        return 1.0, "W"
+    variable = [c for c in present if c != "D"]
+    if not variable:
+        return 0.6, "D"
+    return 0.8, variable[0]

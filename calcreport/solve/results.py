@@ -81,7 +81,7 @@ class Capacity:
     spacing_min: Quantity | None = None  # detailing limits from the connector's standard
     spacing_max: Quantity | None = None
     limits_source: str = ""
-    duration_factor: float | None = None  # wood (ASD): the load duration factor C_D in the value
+    duration_factor: float | None = None  # wood: C_D (ASD) or time effect λ (LRFD) in the value
 
 
 @dataclass(frozen=True)

@@ -278,7 +278,7 @@ def design_dowel(spec: ConnectorSpec, ctx, log: StepLog, f: Fastener, *, toe_nai
     return Capacity(value=Q_(Zp, "lbf"), continuous=False, description=f.description,
                     source=f"{NDS} §12.3 yield limit equations, Table 11.3.1 adjustment",
                     checks=tuple(checks), spacing_min=smin, spacing_max=smax, limits_source=lsrc,
-                    duration_factor=used.get("CD"))
+                    duration_factor=used.get("CD", used.get("λ")))
 
 
 def _detailing(checks: list[Check], key: str, f: Fastener, c, ls: float, lm: float, theta: float):
