@@ -2,7 +2,7 @@
 
 from __future__ import annotations
 
-__all__ = ["JobError", "UsageError"]
+__all__ = ["JobError", "UsageError", "one_line"]
 
 
 class JobError(Exception):
@@ -18,7 +18,13 @@ class JobError(Exception):
     def __str__(self) -> str:
         where = f"{self.path}:{self.line}" if self.line else self.path
         key = f" {self.key}:" if self.key else ""
-        return f"{where}:{key} {self.message}"
+        return one_line(f"{where}:{key} {self.message}")
+
+
+def one_line(text: str) -> str:
+    """``text`` with control and line-breaking characters shown as escapes, so that a message
+    quoting the job file stays on one line."""
+    return "".join(c if (c.isprintable() or c == " ") else repr(c)[1:-1] for c in text)
 
 
 class UsageError(Exception):

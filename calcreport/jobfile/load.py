@@ -152,7 +152,7 @@ def _materials(root: Table) -> dict[str, Material]:
     if len(tables) > MAX_MATERIALS:
         raise root.error("material", f"expected at most {MAX_MATERIALS} materials, got {len(tables)}")
     for t in tables:
-        mid = t.text("id", True)
+        mid = t.ident("id")
         if mid in out:
             raise t.error("id", f"duplicate material id {mid!r}")
         density = None
@@ -178,7 +178,7 @@ def _materials(root: Table) -> dict[str, Material]:
 
 
 def _member(t: Table, materials: dict[str, Material], settings: Settings) -> Member:
-    mid = t.text("id", True)
+    mid = t.ident("id")
     part_tables = t.tables("part")
     if not part_tables:
         raise t.error(None, "missing required key 'part' (at least one [[member.part]])")
@@ -227,7 +227,7 @@ def _joints(t: Table, parts: dict[str, Part]):
     if len(tables) > MAX_JOINTS:
         raise t.error("joint", f"expected at most {MAX_JOINTS} joints, got {len(tables)}")
     for jt in tables:
-        jid = jt.text("id", True)
+        jid = jt.ident("id")
         if jid in seen:
             raise jt.error("id", f"duplicate joint id {jid!r}")
         seen.add(jid)

@@ -123,7 +123,7 @@ def _case(t: Table) -> str:
 
 
 def _load(t: Table, span) -> Load:
-    t.text("id")  # optional short id: lets a revision diff follow a load that moved in the list
+    t.ident("id", required=False)  # optional short id: lets a revision diff follow a load that moved in the list
     case = _case(t)
     kind = t.choice("kind", LOAD_KINDS, required=True)
     label = t.text("label")

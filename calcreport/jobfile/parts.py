@@ -172,7 +172,7 @@ def _place(t: Table, s: Shape, placed: dict[str, Part], first: bool) -> Shape:
 def read_part(t: Table, materials: dict[str, Material], placed: dict[str, Part]) -> Part:
     """Read one ``[[member.part]]`` table and place it relative to the parts before it."""
     t.expect(PART_KEYS)
-    pid = t.text("id", required=True)
+    pid = t.ident("id")
     if pid in placed:
         raise t.error("id", f"duplicate part id {pid!r}")
     kind = t.choice("shape", SHAPES, required=True)

@@ -81,6 +81,17 @@ class Table:
             raise self.error(name, f"expected text of at most {MAX_TEXT} characters, got {len(v)}")
         return v
 
+    def ident(self, name: str = "id", required: bool = True) -> str:
+        """A short id that other keys refer to: 1 to 60 printable characters, no line breaks or
+        tabs, no leading or trailing spaces."""
+        v = self.text(name, required)
+        if not v and not required:
+            return v
+        if not (0 < len(v) <= 60) or v != v.strip() or not all(c.isprintable() for c in v):
+            raise self.error(name, f"expected a short id (1 to 60 printable characters, like \"top_flange\"), "
+                                   f"got {v[:40]!r}")
+        return v
+
     def texts(self, name: str) -> tuple[str, ...]:
         v = self.raw(name)
         if v is None:
