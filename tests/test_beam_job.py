@@ -154,11 +154,8 @@ def test_bad_load_input_one_line_exit_2(name, old, new, words, write_job, cli):
         assert w in lines[0], (w, lines[0])
 
 
-def test_load_duration_per_combination_for_wood_connectors():
-    # NDS 2018 §2.3.2 / Table 2.3.2 (from memory): C_D = 0.9 for dead load alone, 1.15 for snow.
-    # A nail value taken with C_D = 1.15 must still carry the dead-load-only combination with
-    # C_D = 0.9: its shear counts × 1.15/0.9. Simple span, w_D = 60 plf, w_S = 4 plf, L = 10 ft:
-    # D alone gives V = 300 lbf → 383.3 lbf equivalent; D + S gives 320 lbf. D alone governs.
+def _nailed_tee_dead_and_snow(method: str, cd: str = ""):
+    """A simply supported 10 ft T-beam, w_D = 60 plf, w_S = 4 plf, flange nailed with 16d commons."""
     from calcreport.jobfile import load_text
     from calcreport.solve import solve_job
     from tests.conftest import job_text
@@ -185,10 +182,18 @@ holds = ["fl"]
 [member.joint.connector]
 type = "nail"
 size = "16d common"
-CD = 1.15
-"""
+""" + cd
     mats = '\n[[material]]\nid = "wood"\nfamily = "wood"\nE = "1600 ksi"\nG = 0.50\n'
-    j = solve_job(load_text(job_text(body, materials=mats).encode())).members[0].joints[0]
+    text = job_text(body, materials=mats).replace('method = "ASD"', f'method = "{method}"')
+    return solve_job(load_text(text.encode())).members[0].joints[0]
+
+
+def test_load_duration_per_combination_for_wood_connectors():
+    # NDS 2018 §2.3.2 / Table 2.3.2 (from memory): C_D = 0.9 for dead load alone, 1.15 for snow.
+    # A nail value taken with C_D = 1.15 must still carry the dead-load-only combination with
+    # C_D = 0.9: its shear counts × 1.15/0.9. D alone gives V = 60·10/2 = 300 lbf → 383.3 lbf
+    # equivalent; D + S gives 320 lbf. D alone governs.
+    j = _nailed_tee_dead_and_snow("ASD", "CD = 1.15\n")
     assert j.shear.to("lbf").magnitude == pytest.approx(300 * 1.15 / 0.9, rel=1e-6)
     assert j.schedule is not None and j.schedule.feasible, j.schedule.reason
     assert j.schedule.zones[0].governing.startswith("ASD 1")
@@ -196,37 +201,7 @@ CD = 1.15
 
 def test_time_effect_per_combination_for_wood_connectors_in_lrfd():
     # NDS 2018 Appendix N, Table N3 (from memory): λ = 0.6 for 1.4D, 0.8 for 1.2D + 1.6S.
-    # The nail value uses λ = 0.8 (default), so 1.4D counts × 0.8/0.6. Simple span, L = 10 ft,
-    # w_D = 60 plf, w_S = 4 plf: 1.4D → 84 plf × 4/3 = 112 plf → V = 560 lbf, more than
-    # 1.2D + 1.6S = 78.4 plf → 392 lbf (ASCE 7-22 §2.3.1 combinations).
-    from calcreport.jobfile import load_text
-    from calcreport.solve import solve_job
-    from tests.conftest import job_text
-
-    body = """
-[[member]]
-id = "M"
-span = "10 ft"
-
-[[member.load]]
-case = "D"
-kind = "uniform"
-w = "60 plf"
-
-[[member.load]]
-case = "S"
-kind = "uniform"
-w = "4 plf"
-""" + TEE_PARTS + """
-[[member.joint]]
-id = "j"
-holds = ["fl"]
-
-[member.joint.connector]
-type = "nail"
-size = "16d common"
-"""
-    mats = '\n[[material]]\nid = "wood"\nfamily = "wood"\nE = "1600 ksi"\nG = 0.50\n'
-    text = job_text(body, materials=mats).replace('method = "ASD"', 'method = "LRFD"')
-    j = solve_job(load_text(text.encode())).members[0].joints[0]
+    # The nail value uses λ = 0.8 (default), so 1.4D counts × 0.8/0.6: 84 plf × 4/3 = 112 plf →
+    # V = 560 lbf, more than 1.2D + 1.6S = 78.4 plf → 392 lbf (ASCE 7-22 §2.3.1 combinations).
+    j = _nailed_tee_dead_and_snow("LRFD")
     assert j.shear.to("lbf").magnitude == pytest.approx(84 * 5 * 0.8 / 0.6, rel=1e-6)
