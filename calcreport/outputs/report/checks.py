@@ -41,6 +41,10 @@ def results_story(m: MemberResult, ctx: Ctx) -> list:
     if m.joints:
         out.append(grid(_joint_rows(m, ctx), [0.11 * w, 0.12 * w, 0.20 * w, 0.11 * w, 0.11 * w, 0.14 * w,
                                               0.12 * w, 0.09 * w], st))
+        if any(j.schedule is not None for j in m.joints):
+            out.append(para("With loads along the member, the spacings in this table are those for the largest "
+                            "shear; the zoned schedules under 'Along the member' vary the spacing with the shear.",
+                            st.small))
         for j in m.joints:
             for reason in j.reasons:
                 out.append(para(f"Joint {j.id}: {reason}", st.small))
