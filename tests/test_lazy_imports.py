@@ -7,32 +7,30 @@ import sys
 from pathlib import Path
 
 ROOT = Path(__file__).resolve().parent.parent
+HEAVY = "sorted(m for m in sys.modules if m.split('.')[0] in ('reportlab', 'pypdf'))"
+
+
+def run_fresh(args: list[str], report: str, quiet: str = "stdout") -> str:
+    """Run ``main(args)`` in a fresh interpreter; print its exit code and ``report`` evaluated after."""
+    code = ("import sys, io, contextlib\n"
+            "from calcreport.cli import main\n"
+            f"with contextlib.redirect_{quiet}(io.StringIO()):\n"
+            f"    rc = main({args!r})\n"
+            f"print(rc, {report})\n")
+    r = subprocess.run([sys.executable, "-c", code], cwd=ROOT, capture_output=True, text=True)
+    assert r.returncode == 0, r.stderr
+    return r.stdout.strip()
 
 
 def test_check_does_not_import_reportlab():
-    code = ("import sys, io, contextlib\n"
-            "from calcreport.cli import main\n"
-            "with contextlib.redirect_stdout(io.StringIO()):\n"
-            "    rc = main(['check', 'jobs/boathouse-door-header.toml'])\n"
-            "heavy = sorted(m for m in sys.modules if m.split('.')[0] in ('reportlab', 'pypdf'))\n"
-            "print(rc, heavy)\n")
-    r = subprocess.run([sys.executable, "-c", code], cwd=ROOT, capture_output=True, text=True)
-    assert r.returncode == 0, r.stderr
-    assert r.stdout.strip() == "0 []", r.stdout
+    assert run_fresh(["check", "jobs/boathouse-door-header.toml"], HEAVY) == "0 []"
 
 
 def test_build_of_an_invalid_job_stops_before_the_pdf_stack(tmp_path):
     bad = tmp_path / "bad.toml"
     bad.write_text("[job]\nproject = 1\n", encoding="utf-8")
-    code = ("import sys, io, contextlib\n"
-            "from calcreport.cli import main\n"
-            "with contextlib.redirect_stderr(io.StringIO()):\n"
-            f"    rc = main(['build', {str(bad)!r}, '-o', {str(tmp_path / 'out')!r} + '/'])\n"
-            "heavy = sorted(m for m in sys.modules if m.split('.')[0] in ('reportlab', 'pypdf'))\n"
-            "print(rc, heavy)\n")
-    r = subprocess.run([sys.executable, "-c", code], cwd=ROOT, capture_output=True, text=True)
-    assert r.returncode == 0, r.stderr
-    assert r.stdout.strip() == "2 []", r.stdout
+    out = run_fresh(["build", str(bad), "-o", str(tmp_path / "out") + "/"], HEAVY, quiet="stderr")
+    assert out == "2 []", out
     assert not (tmp_path / "out").exists()
 
 
@@ -48,11 +46,4 @@ def test_cli_limits_blas_threads_unless_the_environment_says_otherwise():
 
 def test_check_of_a_rectangular_section_does_not_import_shapely():
     # rectangles (plates, lumber, rolled shapes by their box) are handled directly (start-up time)
-    code = ("import sys, io, contextlib\n"
-            "from calcreport.cli import main\n"
-            "with contextlib.redirect_stdout(io.StringIO()):\n"
-            "    rc = main(['check', 'jobs/boathouse-door-header.toml'])\n"
-            "print(rc, 'shapely' in sys.modules)\n")
-    r = subprocess.run([sys.executable, "-c", code], cwd=ROOT, capture_output=True, text=True)
-    assert r.returncode == 0, r.stderr
-    assert r.stdout.strip() == "0 False", r.stdout
+    assert run_fresh(["check", "jobs/boathouse-door-header.toml"], "'shapely' in sys.modules") == "0 False"

@@ -76,19 +76,10 @@ def load_text(data: bytes, path: str = "<job>") -> Job:
     header = _header(root.table("job", required=True))
     settings = _settings(root.table("settings") or Table({}, src, ("settings",), "settings"))
     materials = _materials(root)
-    member_tables = root.tables("member")
+    member_tables = root.id_tables("member", MAX_MEMBERS, "member")
     if not member_tables:
         raise root.error(None, "missing required key 'member' (at least one [[member]])")
-    if len(member_tables) > MAX_MEMBERS:
-        raise root.error("member", f"expected at most {MAX_MEMBERS} members, got {len(member_tables)}")
-    members: list[Member] = []
-    seen: set[str] = set()
-    for mt in member_tables:
-        m = _member(mt, materials, settings)
-        if m.id in seen:
-            raise mt.error("id", f"duplicate member id {m.id!r}")
-        seen.add(m.id)
-        members.append(m)
+    members = [_member(mt, materials, settings) for mt, _ in member_tables]
     root.done()
     return Job(path, hashlib.sha256(data).hexdigest(), header, settings, tuple(materials.values()),
                tuple(members))
@@ -148,13 +139,7 @@ def _settings(t: Table) -> Settings:
 
 def _materials(root: Table) -> dict[str, Material]:
     out: dict[str, Material] = {}
-    tables = root.tables("material")
-    if len(tables) > MAX_MATERIALS:
-        raise root.error("material", f"expected at most {MAX_MATERIALS} materials, got {len(tables)}")
-    for t in tables:
-        mid = t.ident("id")
-        if mid in out:
-            raise t.error("id", f"duplicate material id {mid!r}")
+    for t, mid in root.id_tables("material", MAX_MATERIALS, "material"):
         density = None
         if t.has("density"):
             raw = t.raw("density")
@@ -222,15 +207,7 @@ def _loads_hook(t: Table, member: Member, settings: Settings) -> Member:
 
 
 def _joints(t: Table, parts: dict[str, Part]):
-    seen: set[str] = set()
-    tables = t.tables("joint")
-    if len(tables) > MAX_JOINTS:
-        raise t.error("joint", f"expected at most {MAX_JOINTS} joints, got {len(tables)}")
-    for jt in tables:
-        jid = jt.ident("id")
-        if jid in seen:
-            raise jt.error("id", f"duplicate joint id {jid!r}")
-        seen.add(jid)
+    for jt, jid in t.id_tables("joint", MAX_JOINTS, "joint"):
         holds = jt.raw("holds", True, "the list of part ids held on one side of the shear plane")
         if isinstance(holds, str):
             holds = [holds]

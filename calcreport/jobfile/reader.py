@@ -192,6 +192,22 @@ class Table:
             out.append(Table(item, self.src, self.path + (name, i), f"{self.key(name)}[{tag}]"))
         return out
 
+    def id_tables(self, name: str, limit: int, what: str) -> list[tuple["Table", str]]:
+        """An array of tables that each carry a unique short ``id``: at most ``limit`` of them
+        (refused before any is read), each with its id; a repeated id is an error naming it."""
+        tables = self.tables(name)
+        if len(tables) > limit:
+            raise self.error(name, f"expected at most {limit} {what}s, got {len(tables)}")
+        out: list[tuple[Table, str]] = []
+        seen: set[str] = set()
+        for t in tables:
+            tid = t.ident("id")
+            if tid in seen:
+                raise t.error("id", f"duplicate {what} id {tid!r}")
+            seen.add(tid)
+            out.append((t, tid))
+        return out
+
     def fields(self, fields: Iterable[Field]) -> dict[str, Any]:
         """Read the keys declared by ``fields`` (see :class:`calcreport.fields.Field`)."""
         out: dict[str, Any] = {}
