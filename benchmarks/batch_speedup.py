@@ -30,13 +30,21 @@ def main(count: int = 16) -> None:
         for j in (1, 2):
             out = Path(tmp) / f"out{j}"
             t = time.perf_counter()
-            subprocess.run([sys.executable, "-m", "calcreport", "build", str(src), "-o", str(out), "-j", str(j)],
-                           check=True, stdout=subprocess.DEVNULL, env=env)
+            subprocess.run(
+                [sys.executable, "-m", "calcreport", "build", str(src), "-o", str(out), "-j", str(j)],
+                check=True,
+                stdout=subprocess.DEVNULL,
+                env=env,
+            )
             times[j] = time.perf_counter() - t
-        same = all((Path(tmp) / "out1" / p.name).read_bytes() == p.read_bytes()
-                   for p in (Path(tmp) / "out2").iterdir())
-    print(f"{count} jobs, -j 1: {times[1]:.2f} s   -j 2: {times[2]:.2f} s   speed-up {times[1] / times[2]:.2f}× "
-          f"on {os.cpu_count()} cores; identical PDFs: {same}")
+        same = all(
+            (Path(tmp) / "out1" / p.name).read_bytes() == p.read_bytes()
+            for p in (Path(tmp) / "out2").iterdir()
+        )
+    print(
+        f"{count} jobs, -j 1: {times[1]:.2f} s   -j 2: {times[2]:.2f} s   speed-up {times[1] / times[2]:.2f}× "
+        f"on {os.cpu_count()} cores; identical PDFs: {same}"
+    )
 
 
 if __name__ == "__main__":

@@ -16,7 +16,7 @@ from pathlib import Path
 ROOT = Path(__file__).resolve().parent.parent
 sys.path.insert(0, str(ROOT))
 
-HEAD = '''[job]
+HEAD = """[job]
 project = "Boardwalk stringers (benchmark)"
 number = "BM-200"
 revision = "A"
@@ -31,9 +31,9 @@ id = "df"
 family = "wood"
 E = "1600 ksi"
 Fv = "180 psi"
-'''
+"""
 
-MEMBER = '''
+MEMBER = """
 [[member]]
 id = "S{i}"
 title = "Stringer S{i}"
@@ -63,12 +63,13 @@ per_row = 2
 type = "given"
 value = "120 lbf"
 source = "benchmark value"
-'''
+"""
 
 
 def job_text(members: int) -> str:
-    return HEAD + "".join(MEMBER.format(i=i + 1, v=1 + (i % 7) * 0.5, d=7.25 + (i % 4) * 2)
-                          for i in range(members))
+    return HEAD + "".join(
+        MEMBER.format(i=i + 1, v=1 + (i % 7) * 0.5, d=7.25 + (i % 4) * 2) for i in range(members)
+    )
 
 
 def bare_reportlab(pages: int) -> float:
@@ -91,9 +92,15 @@ def bare_reportlab(pages: int) -> float:
         for _ in range(3):
             story.append(Paragraph(words, ss["BodyText"]))
         rows = [[Paragraph(t, ss["BodyText"]) for t in ("Quantity", "Formula", "Substituted", "Result")]]
-        rows += [[Paragraph(f"q{k}", ss["BodyText"]), Paragraph("q = V·Q / I", ss["BodyText"]),
-                  Paragraph("1.50 kip × 22.1 in³ / 410 in⁴", ss["BodyText"]),
-                  Paragraph(f"{80 + k:.1f} lbf/in", ss["BodyText"])] for k in range(14)]
+        rows += [
+            [
+                Paragraph(f"q{k}", ss["BodyText"]),
+                Paragraph("q = V·Q / I", ss["BodyText"]),
+                Paragraph("1.50 kip × 22.1 in³ / 410 in⁴", ss["BodyText"]),
+                Paragraph(f"{80 + k:.1f} lbf/in", ss["BodyText"]),
+            ]
+            for k in range(14)
+        ]
         t = Table(rows, colWidths=[90, 120, 180, 90])
         t.setStyle(TableStyle([("GRID", (0, 0), (-1, -1), 0.3, colors.grey)]))
         story += [t, PageBreak()]
@@ -129,7 +136,9 @@ def main(members: int = 200) -> None:
     pages = len(PdfReader(io.BytesIO(pdf)).pages)
     bare, bare_pages = bare_reportlab(pages)
     ours = t2 - t0
-    print(f"{members}-member job: solve {t1 - t0:.2f} s + report {t2 - t1:.2f} s = {ours:.2f} s for {pages} pages")
+    print(
+        f"{members}-member job: solve {t1 - t0:.2f} s + report {t2 - t1:.2f} s = {ours:.2f} s for {pages} pages"
+    )
     print(f"bare reportlab, {bare_pages} comparable pages: {bare:.2f} s")
     print(f"ratio {ours / bare:.2f} (target ≤ 2.00); report alone {(t2 - t1) / bare:.2f}")
 

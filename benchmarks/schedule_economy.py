@@ -27,27 +27,53 @@ from calcreport.solve.schedule import zoned_schedule
 from calcreport.units import Q_
 
 
-def run(span_ft: float, w_plf: float, Q_over_I: float, nF_lbf: float, inc_in: float,
-        smax_in: float, zones: int = 3) -> None:
+def run(
+    span_ft: float,
+    w_plf: float,
+    Q_over_I: float,
+    nF_lbf: float,
+    inc_in: float,
+    smax_in: float,
+    zones: int = 3,
+) -> None:
     span = Q_(span_ft, "ft")
     t0 = time.perf_counter()
-    beam = analyse(span, [Support(Q_(0, "ft")), Support(span)],
-                   [Load("D", "uniform", Q_(w_plf, "plf"))], [Combination("D", {"D": 1.0})],
-                   EI=Q_(2.0e9, "lbf*in**2"))
+    beam = analyse(
+        span,
+        [Support(Q_(0, "ft")), Support(span)],
+        [Load("D", "uniform", Q_(w_plf, "plf"))],
+        [Combination("D", {"D": 1.0})],
+        EI=Q_(2.0e9, "lbf*in**2"),
+    )
     t1 = time.perf_counter()
     env = beam.envelope
     q = env.V_abs * Q_(Q_over_I, "1/in")
-    s = zoned_schedule(env.x, q, span, Q_(nF_lbf, "lbf"), Q_(inc_in, "in"), Q_(1, "in"),
-                       Q_(smax_in, "in"), zones_per_half=zones, governing=env.V_abs_by)
+    s = zoned_schedule(
+        env.x,
+        q,
+        span,
+        Q_(nF_lbf, "lbf"),
+        Q_(inc_in, "in"),
+        Q_(1, "in"),
+        Q_(smax_in, "in"),
+        zones_per_half=zones,
+        governing=env.V_abs_by,
+    )
     t2 = time.perf_counter()
-    print(f"span {span_ft:g} ft, w {w_plf:g} plf, Q/I {Q_over_I:g} /in, n·F {nF_lbf:g} lbf, "
-          f"increment {inc_in:g} in, s_max {smax_in:g} in, Z = {zones}")
+    print(
+        f"span {span_ft:g} ft, w {w_plf:g} plf, Q/I {Q_over_I:g} /in, n·F {nF_lbf:g} lbf, "
+        f"increment {inc_in:g} in, s_max {smax_in:g} in, Z = {zones}"
+    )
     for z in s.zones:
-        print(f"   {z.start.to('in').magnitude:7.2f} – {z.end.to('in').magnitude:7.2f} in  "
-              f"s = {z.spacing.to('in').magnitude:5.2f} in  n = {z.count}")
+        print(
+            f"   {z.start.to('in').magnitude:7.2f} – {z.end.to('in').magnitude:7.2f} in  "
+            f"s = {z.spacing.to('in').magnitude:5.2f} in  n = {z.count}"
+        )
     print(f"   N = {s.count}, N_min = {s.count_min:.2f}, N/N_min = {s.ratio:.3f} (target ≤ 1.30)")
-    print(f"   N_single = {s.count_single} at s = {s.spacing_single.to('in').magnitude:g} in, "
-          f"saving = {100 * s.saving:.1f} % (target ≥ 30 %)")
+    print(
+        f"   N_single = {s.count_single} at s = {s.spacing_single.to('in').magnitude:g} in, "
+        f"saving = {100 * s.saving:.1f} % (target ≥ 30 %)"
+    )
     print(f"   beam analysis {1000 * (t1 - t0):.1f} ms, schedule {1000 * (t2 - t1):.1f} ms\n")
 
 

@@ -23,7 +23,11 @@ __all__ = ["main"]
 
 EXIT_OK, EXIT_NG, EXIT_INVALID = 0, 1, 2
 TEMPLATE_DIR = Path(__file__).resolve().parent.parent / "templates"
-STARTERS = {"box": "starter-box-beam.toml", "girder": "starter-plate-girder.toml", "tee": "starter-glued-tee.toml"}
+STARTERS = {
+    "box": "starter-box-beam.toml",
+    "girder": "starter-plate-girder.toml",
+    "tee": "starter-glued-tee.toml",
+}
 
 
 class _Parser(argparse.ArgumentParser):
@@ -48,9 +52,17 @@ def solve_file(path: str):
         return solve_job(job)
     except (ConnectorError, SolveError) as exc:
         raise JobError(path, exc.key, str(exc)) from None
-    except (ArithmeticError, ValueError, TypeError, RecursionError) as exc:  # a defect of ours: still one line, exit 2
-        raise JobError(path, "", f"internal error while solving ({type(exc).__name__}: {exc}); "
-                       "please report it with the job file") from None
+    except (
+        ArithmeticError,
+        ValueError,
+        TypeError,
+        RecursionError,
+    ) as exc:  # a defect of ours: still one line, exit 2
+        raise JobError(
+            path,
+            "",
+            f"internal error while solving ({type(exc).__name__}: {exc}); please report it with the job file",
+        ) from None
 
 
 def _cmd_check(args) -> int:
@@ -91,23 +103,36 @@ def _cmd_new(args) -> int:
 
 
 def build_parser() -> argparse.ArgumentParser:
-    p = _Parser(prog="calcreport", description="Shear flow and connector spacing for built-up members, "
-                "with calculation reports for review and seal.")
+    p = _Parser(
+        prog="calcreport",
+        description="Shear flow and connector spacing for built-up members, "
+        "with calculation reports for review and seal.",
+    )
     p.add_argument("--version", action="version", version=f"calcreport {__version__}")
     sub = p.add_subparsers(dest="command", parser_class=_Parser, metavar="COMMAND")
     sub.required = True
-    c = sub.add_parser("check", help="solve job files and print a table per member",
-                       description="Solve each job file and print, per member, each joint's shear flow, "
-                       "capacity per row, required and practical spacing and status. "
-                       "Exit 0 all OK, 1 some NG, 2 invalid input.")
+    c = sub.add_parser(
+        "check",
+        help="solve job files and print a table per member",
+        description="Solve each job file and print, per member, each joint's shear flow, "
+        "capacity per row, required and practical spacing and status. "
+        "Exit 0 all OK, 1 some NG, 2 invalid input.",
+    )
     c.add_argument("jobs", nargs="+", metavar="JOB.toml")
     c.add_argument("--json", action="store_true", help="print results as JSON (schema in the README)")
     c.set_defaults(func=_cmd_check)
-    n = sub.add_parser("new", help="write a commented starter job file",
-                       description="Write a commented starter job file from templates/.")
+    n = sub.add_parser(
+        "new",
+        help="write a commented starter job file",
+        description="Write a commented starter job file from templates/.",
+    )
     n.add_argument("path", nargs="?", default="job.toml", help="where to write it (default job.toml)")
-    n.add_argument("--kind", choices=sorted(STARTERS), default="box",
-                   help="box: nailed plywood box beam; girder: welded steel plate girder; tee: glued T-beam")
+    n.add_argument(
+        "--kind",
+        choices=sorted(STARTERS),
+        default="box",
+        help="box: nailed plywood box beam; girder: welded steel plate girder; tee: glued T-beam",
+    )
     n.add_argument("--force", action="store_true", help="overwrite an existing file")
     n.set_defaults(func=_cmd_new)
     _add_optional_commands(sub)

@@ -90,8 +90,12 @@ def isolated_parts(parts: tuple[Part, ...] | list[Part]) -> list[str]:
         return []
     lonely = []
     for i, p in enumerate(parts):
-        if not any(j != i and _bbox_overlap(p.shape.bbox, parts[j].shape.bbox)
-                   and _distance(p.shape, parts[j].shape) <= TOUCH_TOL for j in range(len(parts))):
+        if not any(
+            j != i
+            and _bbox_overlap(p.shape.bbox, parts[j].shape.bbox)
+            and _distance(p.shape, parts[j].shape) <= TOUCH_TOL
+            for j in range(len(parts))
+        ):
             lonely.append(p.id)
     return lonely
 
@@ -123,7 +127,9 @@ def _shared(e, f, tol: float = TOUCH_TOL):
     return ((ax + ux * lo, ay + uy * lo), (ax + ux * hi, ay + uy * hi))
 
 
-def contact_segments(held: list[Part], other: list[Part]) -> list[tuple[tuple[float, float], tuple[float, float]]]:
+def contact_segments(
+    held: list[Part], other: list[Part]
+) -> list[tuple[tuple[float, float], tuple[float, float]]]:
     """Line segments where the held parts touch the others: the shear plane(s) of a joint.
 
     Edges of the outlines that lie on one line (within TOUCH_TOL) and overlap give the contact;
@@ -139,8 +145,10 @@ def contact_segments(held: list[Part], other: list[Part]) -> list[tuple[tuple[fl
                     seg = _shared(e, f)
                     if seg:
                         out.append(seg)
-    return [((round(a[0], 6) + 0.0, round(a[1], 6) + 0.0), (round(b[0], 6) + 0.0, round(b[1], 6) + 0.0))
-            for a, b in sorted(tuple(sorted(s)) for s in out)]
+    return [
+        ((round(a[0], 6) + 0.0, round(a[1], 6) + 0.0), (round(b[0], 6) + 0.0, round(b[1], 6) + 0.0))
+        for a, b in sorted(tuple(sorted(s)) for s in out)
+    ]
 
 
 def _dist(a, b) -> float:

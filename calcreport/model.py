@@ -12,8 +12,19 @@ from typing import Any
 from .units import Quantity
 
 __all__ = [
-    "Header", "RevisionEntry", "Settings", "Material", "Shape", "Part", "ConnectorSpec", "Joint",
-    "Member", "Job", "Load", "Support", "Combination",
+    "Header",
+    "RevisionEntry",
+    "Settings",
+    "Material",
+    "Shape",
+    "Part",
+    "ConnectorSpec",
+    "Joint",
+    "Member",
+    "Job",
+    "Load",
+    "Support",
+    "Combination",
 ]
 
 

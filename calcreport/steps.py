@@ -20,11 +20,10 @@ diff compares them.
 from __future__ import annotations
 
 from dataclasses import dataclass, field
-from typing import Union
 
 from .units import Quantity
 
-Value = Union[Quantity, float, int, str]
+Value = Quantity | float | int | str
 
 __all__ = ["Step", "Value", "StepLog", "step"]
 
@@ -45,9 +44,18 @@ class Step:
     positions: tuple[str, ...] = ()
 
 
-def step(key: str, label: str, symbol: str, template: str, values: dict[str, Value],
-         result: Value, source: str = "", note: str = "", governs: bool = False,
-         positions: tuple[str, ...] = ()) -> Step:
+def step(
+    key: str,
+    label: str,
+    symbol: str,
+    template: str,
+    values: dict[str, Value],
+    result: Value,
+    source: str = "",
+    note: str = "",
+    governs: bool = False,
+    positions: tuple[str, ...] = (),
+) -> Step:
     """Build a :class:`Step`, checking that every slot of ``template`` has a value.
 
     Example:
@@ -72,15 +80,37 @@ class StepLog:
     prefix: str
     steps: list[Step] = field(default_factory=list)
 
-    def add(self, name: str, label: str, symbol: str, template: str, values: dict[str, Value],
-            result: Value, source: str = "", note: str = "", governs: bool = False,
-            positions: tuple[str, ...] = ()) -> Value:
+    def add(
+        self,
+        name: str,
+        label: str,
+        symbol: str,
+        template: str,
+        values: dict[str, Value],
+        result: Value,
+        source: str = "",
+        note: str = "",
+        governs: bool = False,
+        positions: tuple[str, ...] = (),
+    ) -> Value:
         """Append a step keyed ``prefix.name`` and return its result (so code reads as math)."""
-        self.steps.append(step(f"{self.prefix}.{name}", label, symbol, template, values, result,
-                               source, note, governs, positions))
+        self.steps.append(
+            step(
+                f"{self.prefix}.{name}",
+                label,
+                symbol,
+                template,
+                values,
+                result,
+                source,
+                note,
+                governs,
+                positions,
+            )
+        )
         return result
 
-    def child(self, name: str) -> "StepLog":
+    def child(self, name: str) -> StepLog:
         """A log whose keys are nested under ``prefix.name`` and whose steps land here too."""
         return _ChildLog(f"{self.prefix}.{name}", self.steps)
 

@@ -9,11 +9,12 @@ evaluated as Python.
 from __future__ import annotations
 
 import re
-from functools import lru_cache
+from functools import cache
 
 import pint
 
 __all__ = ["ureg", "Q_", "Quantity", "DIMENSIONS", "UnitParseError", "parse", "dimension_name"]
+
 
 def _registry() -> pint.UnitRegistry:
     """The registry, loaded from pint's definition cache when it can be (about 0.2 s faster to
@@ -65,7 +66,7 @@ class UnitParseError(ValueError):
     """A unit string could not be read or has the wrong dimension."""
 
 
-@lru_cache(maxsize=None)
+@cache
 def _dimensionality(name: str):
     return ureg.get_dimensionality(DIMENSIONS[name][0])
 
@@ -87,7 +88,7 @@ def _normalise(text: str) -> str:
         whole, num, den = (int(g) for g in m.groups())
         if den == 0:
             raise UnitParseError("division by zero in a fraction")
-        text = f"{whole + num / den!r}{text[m.end():]}"
+        text = f"{whole + num / den!r}{text[m.end() :]}"
     text = text.replace("²", "^2").replace("³", "^3").replace("⁴", "^4")
     text = text.replace("·", "*").replace("×", "*").replace("μ", "u").replace("µ", "u")
     text = text.replace("'", " ft ").replace('"', " in ")
@@ -112,8 +113,11 @@ def parse(text: object, expected: str | None = None) -> Quantity:
         38.1
     """
     example = DIMENSIONS[expected][1] if expected else '"5.5 in"'
-    what = f"a {expected.replace('_', ' ')} with its unit, like {example}" if expected else (
-        f"a value with its unit, like {example}")
+    what = (
+        f"a {expected.replace('_', ' ')} with its unit, like {example}"
+        if expected
+        else (f"a value with its unit, like {example}")
+    )
     if isinstance(text, bool) or not isinstance(text, (str, int, float)):
         raise UnitParseError(f"expected {what}, got {type(text).__name__}")
     if isinstance(text, (int, float)):
@@ -125,9 +129,11 @@ def parse(text: object, expected: str | None = None) -> Quantity:
     norm = _normalise(text)
     for m in _POWER.finditer(norm):
         exp = _EXPONENT.match(norm, m.end())
-        if norm[:m.start()].rstrip().endswith(")") or exp is None or abs(float(exp.group(0))) > 12:
-            raise UnitParseError(f"expected {what}, got {text!r} (a power must be a unit or number "
-                                 "raised to a plain exponent from -12 to 12, like in^4)")
+        if norm[: m.start()].rstrip().endswith(")") or exp is None or abs(float(exp.group(0))) > 12:
+            raise UnitParseError(
+                f"expected {what}, got {text!r} (a power must be a unit or number "
+                "raised to a plain exponent from -12 to 12, like in^4)"
+            )
     try:
         q = Q_(norm)
     except Exception as exc:  # pint raises several kinds; the message is ours

@@ -78,6 +78,7 @@ def write_job(tmp_path):
         p = tmp_path / name
         p.write_text(text, encoding="utf-8")
         return str(p)
+
     return _write
 
 

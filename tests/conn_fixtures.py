@@ -9,8 +9,14 @@ from calcreport.units import Q_
 
 
 def settings(method: str = "ASD", load_duration=None) -> Settings:
-    return Settings(units="US", method=method, spacing_step=Q_(0.5, "in"), spacing_max=None,
-                    spacing_min=None, load_duration=load_duration)
+    return Settings(
+        units="US",
+        method=method,
+        spacing_step=Q_(0.5, "in"),
+        spacing_max=None,
+        spacing_min=None,
+        load_duration=load_duration,
+    )
 
 
 def wood(G=0.50, E=1.6e6, id="dfl", family="wood"):
@@ -35,8 +41,14 @@ def context(held, other, method="ASD", width=None, load_duration=None) -> JointC
         hx = held[0].shape.bbox
         ox = other[0].shape.bbox
         width = min(hx[2], ox[2]) - max(hx[0], ox[0])
-    return JointContext(method=method, held=tuple(held), other=tuple(other), plane_width=Q_(width, "in"),
-                        settings=settings(method, load_duration), key="member.B1.joint.j1")
+    return JointContext(
+        method=method,
+        held=tuple(held),
+        other=tuple(other),
+        plane_width=Q_(width, "in"),
+        settings=settings(method, load_duration),
+        key="member.B1.joint.j1",
+    )
 
 
 def run(kind: str, params: dict, ctx: JointContext):

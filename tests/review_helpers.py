@@ -12,7 +12,7 @@ ROOT = Path(__file__).resolve().parent.parent
 DEMO = ROOT / "tests" / "data" / "review-box-header.toml"
 
 #: a part added on top of the west web (touches it, overlaps nothing)
-CAP_PART = '''
+CAP_PART = """
 [[member.part]]
 id = "cap"
 shape = "rect"
@@ -20,7 +20,7 @@ width = "15/32 in"
 depth = "1 in"
 material = "ply"
 on = "web_w"
-'''
+"""
 
 
 def demo_text() -> str:
@@ -60,8 +60,19 @@ def run(argv: list[str], capsys) -> tuple[int, str, str]:
 
 
 def git(cwd: Path, *args: str) -> str:
-    done = subprocess.run(["git", *args], cwd=cwd, capture_output=True, text=True, check=True,
-                          env={"GIT_AUTHOR_NAME": "t", "GIT_AUTHOR_EMAIL": "t@example.invalid",
-                               "GIT_COMMITTER_NAME": "t", "GIT_COMMITTER_EMAIL": "t@example.invalid",
-                               "PATH": __import__("os").environ.get("PATH", ""), "HOME": str(cwd)})
+    done = subprocess.run(
+        ["git", *args],
+        cwd=cwd,
+        capture_output=True,
+        text=True,
+        check=True,
+        env={
+            "GIT_AUTHOR_NAME": "t",
+            "GIT_AUTHOR_EMAIL": "t@example.invalid",
+            "GIT_COMMITTER_NAME": "t",
+            "GIT_COMMITTER_EMAIL": "t@example.invalid",
+            "PATH": __import__("os").environ.get("PATH", ""),
+            "HOME": str(cwd),
+        },
+    )
     return done.stdout

@@ -65,14 +65,16 @@ def test_worst_exit_code_wins_and_json_beside_each(tmp_path, cli):
     shutil.copy(NG_JOB, src / NG_JOB.name)
     code, stdout, err = cli("build", str(src), "-o", str(tmp_path / "o"), "--json", "-j", "2")
     assert code == 1, err
-    assert _files(tmp_path / "o") == sorted([JOBS[0].stem + ".pdf", JOBS[0].stem + ".json",
-                                             NG_JOB.stem + ".pdf", NG_JOB.stem + ".json"])
+    assert _files(tmp_path / "o") == sorted(
+        [JOBS[0].stem + ".pdf", JOBS[0].stem + ".json", NG_JOB.stem + ".pdf", NG_JOB.stem + ".json"]
+    )
     assert "[NG]" in stdout and "[OK]" in stdout and err == ""
 
 
 def test_folder_expands_to_sorted_toml_files(folder):
-    assert [Path(j).name for j in expand_jobs([str(folder)])] == \
-        sorted([p.name for p in JOBS[:2]] + ["b-broken.toml"])
+    assert [Path(j).name for j in expand_jobs([str(folder)])] == sorted(
+        [p.name for p in JOBS[:2]] + ["b-broken.toml"]
+    )
     empty = folder.parent / "empty"
     empty.mkdir()
     with pytest.raises(ValueError, match="no \\*.toml"):

@@ -22,8 +22,13 @@ REL = 1e-6
 
 
 def _run(length, supports, loads, combos=None, ei=EI):
-    return analyse(Q_(length, "in"), supports, loads, combos or [Combination("D", {"D": 1.0})],
-                   EI=Q_(ei, "lbf*in**2") if ei else None)
+    return analyse(
+        Q_(length, "in"),
+        supports,
+        loads,
+        combos or [Combination("D", {"D": 1.0})],
+        EI=Q_(ei, "lbf*in**2") if ei else None,
+    )
 
 
 def _pin(x):
@@ -31,8 +36,13 @@ def _pin(x):
 
 
 def _udl(case="D", ww=w, a=None, b=None):
-    return Load(case, "uniform", Q_(ww, "lbf/in"), start=None if a is None else Q_(a, "in"),
-                end=None if b is None else Q_(b, "in"))
+    return Load(
+        case,
+        "uniform",
+        Q_(ww, "lbf/in"),
+        start=None if a is None else Q_(a, "in"),
+        end=None if b is None else Q_(b, "in"),
+    )
 
 
 def _pt(at, p=P, case="D"):
@@ -40,8 +50,12 @@ def _pt(at, p=P, case="D"):
 
 
 def _arrays(d):
-    return (d.x.to("in").magnitude, d.V.to("lbf").magnitude, d.M.to("lbf*in").magnitude,
-            d.deflection.to("in").magnitude if d.deflection is not None else None)
+    return (
+        d.x.to("in").magnitude,
+        d.V.to("lbf").magnitude,
+        d.M.to("lbf*in").magnitude,
+        d.deflection.to("in").magnitude if d.deflection is not None else None,
+    )
 
 
 def test_simple_span_uniform():
@@ -51,8 +65,8 @@ def test_simple_span_uniform():
     d = r.cases[0]
     x, V, M, v = _arrays(d)
     assert [q.force.to("lbf").magnitude for q in d.reactions] == pytest.approx([w * L / 2] * 2, REL)
-    assert M.max() == pytest.approx(w * L ** 2 / 8, REL)
-    assert v.max() == pytest.approx(5 * w * L ** 4 / (384 * EI), REL)
+    assert M.max() == pytest.approx(w * L**2 / 8, REL)
+    assert v.max() == pytest.approx(5 * w * L**4 / (384 * EI), REL)
     assert V == pytest.approx(w * (L / 2 - x), rel=REL, abs=1e-6)
 
 
@@ -62,7 +76,7 @@ def test_simple_span_point_at_centre():
     r = _run(L, [_pin(0), _pin(L)], [_pt(L / 2)])
     x, V, M, v = _arrays(r.cases[0])
     assert M.max() == pytest.approx(P * L / 4, REL)
-    assert v.max() == pytest.approx(P * L ** 3 / (48 * EI), REL)
+    assert v.max() == pytest.approx(P * L**3 / (48 * EI), REL)
     k = np.where(np.isclose(x, L / 2))[0]
     assert len(k) == 2 and V[k[0]] == pytest.approx(P / 2, REL) and V[k[1]] == pytest.approx(-P / 2, REL)
 
@@ -90,8 +104,8 @@ def test_cantilever_uniform():
     d = r.cases[0]
     x, V, M, v = _arrays(d)
     assert d.reactions[0].force.to("lbf").magnitude == pytest.approx(w * L, REL)
-    assert M.min() == pytest.approx(-w * L ** 2 / 2, REL)
-    assert v[-1] == pytest.approx(w * L ** 4 / (8 * EI), REL)
+    assert M.min() == pytest.approx(-w * L**2 / 2, REL)
+    assert v[-1] == pytest.approx(w * L**4 / (8 * EI), REL)
     assert r.segments[0].kind == "cantilever"
 
 
@@ -101,7 +115,7 @@ def test_cantilever_point_at_free_end():
     r = _run(L, [Support(Q_(L, "in"), "fixed")], [_pt(0)])
     x, V, M, v = _arrays(r.cases[0])
     assert abs(M).max() == pytest.approx(P * L, REL)
-    assert v[0] == pytest.approx(P * L ** 3 / (3 * EI), REL)
+    assert v[0] == pytest.approx(P * L**3 / (3 * EI), REL)
     assert abs(V).max() == pytest.approx(P, REL)
 
 
@@ -142,8 +156,13 @@ def test_two_spans_live_load_patterns():
     R1 = 7wl/16, R2 = 5wl/8, R3 = −wl/16, Mmax = 49wl²/512 at x = 7l/16.
     The envelope of live load L over its span patterns (ASCE 7-22 §4.3.3) must reach it."""
     l = 120.0
-    r = analyse(Q_(2 * l, "in"), [_pin(0), _pin(l), _pin(2 * l)], [_udl("L", a=0, b=2 * l)],
-                [Combination("L only", {"L": 1.0})], extra_x=Q_([7 * l / 16], "in"))
+    r = analyse(
+        Q_(2 * l, "in"),
+        [_pin(0), _pin(l), _pin(2 * l)],
+        [_udl("L", a=0, b=2 * l)],
+        [Combination("L only", {"L": 1.0})],
+        extra_x=Q_([7 * l / 16], "in"),
+    )
     env = r.envelope
     x = env.x.magnitude
     k = int(np.argmin(abs(x - 7 * l / 16)))
@@ -152,8 +171,12 @@ def test_two_spans_live_load_patterns():
     assert env.M_min.to("lbf*in").magnitude.min() == pytest.approx(-w * l * l / 8, REL)
     assert len(r.patterns) == 3
     # the single-span pattern's reactions: superpose case results from the basis
-    one = analyse(Q_(2 * l, "in"), [_pin(0), _pin(l), _pin(2 * l)], [_udl("X", a=0, b=l)],
-                  [Combination("X", {"X": 1.0})]).cases[0]
+    one = analyse(
+        Q_(2 * l, "in"),
+        [_pin(0), _pin(l), _pin(2 * l)],
+        [_udl("X", a=0, b=l)],
+        [Combination("X", {"X": 1.0})],
+    ).cases[0]
     R = [q.force.to("lbf").magnitude for q in one.reactions]
     assert R == pytest.approx([7 * w * l / 16, 5 * w * l / 8, -w * l / 16], REL)
 
@@ -163,14 +186,15 @@ def test_linearly_varying_load():
     R2 = 2W/3, Mmax = 2WL/(9√3) at x = L/√3, Δmax = 0.01304·WL³/EI."""
     wmax = 4.0
     W = wmax * L / 2
-    ld = Load("D", "linear", Q_(0, "lbf/in"), start=Q_(0, "in"), end=Q_(L, "in"),
-              magnitude_end=Q_(wmax, "lbf/in"))
+    ld = Load(
+        "D", "linear", Q_(0, "lbf/in"), start=Q_(0, "in"), end=Q_(L, "in"), magnitude_end=Q_(wmax, "lbf/in")
+    )
     d = _run(L, [_pin(0), _pin(L)], [ld]).cases[0]
     x, V, M, v = _arrays(d)
     R1, R2 = (q.force.to("lbf").magnitude for q in d.reactions)
     assert (R1, R2) == pytest.approx((W / 3, 2 * W / 3), REL)
     assert M.max() == pytest.approx(2 * W * L / (9 * math.sqrt(3)), 1e-4)
-    assert v.max() == pytest.approx(0.01304 * W * L ** 3 / EI, 1e-3)
+    assert v.max() == pytest.approx(0.01304 * W * L**3 / EI, 1e-3)
 
 
 def test_partial_uniform_load():

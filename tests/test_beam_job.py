@@ -13,7 +13,8 @@ import pytest
 
 from tests.conftest import TEE_PARTS, job_text
 
-MEMBER = """
+MEMBER = (
+    """
 [[member]]
 id = "M"
 span = "16 ft"
@@ -28,7 +29,9 @@ case = "L"
 kind = "uniform"
 w = "200 plf"
 
-""" + TEE_PARTS + """
+"""
+    + TEE_PARTS
+    + """
 [[member.joint]]
 id = "j"
 holds = ["fl"]
@@ -38,6 +41,7 @@ type = "given"
 value = "900 lbf"
 source = "test value"
 """
+)
 
 SETTINGS = """spacing_max = "12 in"
 spacing_step = "0.5 in"
@@ -64,7 +68,8 @@ def test_design_shear_from_loads(write_job):
     assert m.beam.V_governing == "ASD 2: D + L"
     j = m.joints[0]
     assert j.shear_flow.to("lbf/in").magnitude == pytest.approx(
-        2400.0 * j.Q.to("in**3").magnitude / m.section.inertia.to("in**4").magnitude, rel=1e-6)
+        2400.0 * j.Q.to("in**3").magnitude / m.section.inertia.to("in**4").magnitude, rel=1e-6
+    )
     s = j.schedule
     assert s is not None and s.feasible and s.symmetric and s.status == "OK"
     assert sum(z.count for z in s.zones) == s.count >= s.count_min
@@ -75,8 +80,7 @@ def test_design_shear_from_loads(write_job):
 def test_self_weight_adds_dead_load(write_job):
     """Self-weight w = Σ A·γ (statics): 36 in² × 36 pcf = 9 plf → V = (309 plf)(16 ft)/2."""
     mat = '[[material]]\nid = "wood"\nfamily = "wood"\nE = "1600 ksi"\nFv = "180 psi"\ndensity = "36 pcf"\n'
-    text = job_text(MEMBER.replace('span = "16 ft"', 'span = "16 ft"\nself_weight = true'),
-                    materials=mat)
+    text = job_text(MEMBER.replace('span = "16 ft"', 'span = "16 ft"\nself_weight = true'), materials=mat)
     r = _solve(text, write_job)
     assert r.members[0].beam.self_weight.to("plf").magnitude == pytest.approx(9.0)
     assert r.members[0].shear.to("lbf").magnitude == pytest.approx(309 * 8, rel=1e-6)
@@ -85,7 +89,9 @@ def test_self_weight_adds_dead_load(write_job):
 def test_continuous_supports_and_own_combinations(write_job):
     """Two equal spans, uniform load: largest shear 5wl/8 beside the centre support
     (AISC Table 3-23, two equal spans): 5 × 300 plf × 8 ft / 8 = 1,500 lbf."""
-    member = MEMBER.replace('span = "16 ft"', '''span = "16 ft"
+    member = MEMBER.replace(
+        'span = "16 ft"',
+        """span = "16 ft"
 
 [[member.support]]
 at = "0 ft"
@@ -100,7 +106,8 @@ type = "roller"
 [[member.combination]]
 name = "service"
 factors = { D = 1.0, L = 1.0 }
-''')
+""",
+    )
     r = _solve(_job(member), write_job)
     along = r.members[0].beam
     assert along.combinations_source == "stated in the job file"
@@ -121,23 +128,71 @@ def test_json_has_schedule_and_envelope(write_job, cli):
 
 
 def test_shear_shortcut_still_works(write_job):
-    text = _job(MEMBER.replace('span = "16 ft"', 'shear = "1 kip"').split("[[member.load]]")[0]
-                + "[[member.part]]" + MEMBER.split("[[member.part]]", 1)[1])
+    text = _job(
+        MEMBER.replace('span = "16 ft"', 'shear = "1 kip"').split("[[member.load]]")[0]
+        + "[[member.part]]"
+        + MEMBER.split("[[member.part]]", 1)[1]
+    )
     r = _solve(text, write_job)
     assert r.members[0].beam is None and r.members[0].shear.to("lbf").magnitude == pytest.approx(1000)
 
 
 BAD = [
-    ("load beyond span", 'w = "100 plf"', 'w = "100 plf"\nfrom = "20 ft"', ["member[M].load[1].from", "within the span"]),
-    ("unknown load key", 'w = "200 plf"', 'w = "200 plf"\ncolour = "red"', ["member[M].load[2].colour", "unknown key 'colour'"]),
-    ("missing load value", 'w = "200 plf"', 'wl = "200 plf"', ["member[M].load[2]", "missing required key 'w'"]),
-    ("bad kind", 'kind = "uniform"', 'kind = "uniformly"', ["member[M].load[1].kind", "uniform, point, linear"]),
-    ("load wrong dimension", 'w = "100 plf"', 'w = "100 lbf"', ["member[M].load[1].w", "expected a line load"]),
-    ("no span", 'span = "16 ft"', '', ["member[M]", "missing required key 'span'"]),
-    ("own case without combinations", 'case = "L"', 'case = "crowd"', ["member[M].load[2].case", "no standard combination"]),
-    ("combination names absent case", 'span = "16 ft"', 'span = "16 ft"\n[[member.combination]]\nname = "c"\nfactors = { D = 1.0, S = 1.0 }', ["member[M].combination[1].factors.S", "no loads of case 'S'"]),
-    ("one pin only", 'span = "16 ft"', 'span = "16 ft"\n[[member.support]]\nat = "0 ft"', ["member[M].support[1]", "fixed support or supports at two"]),
-    ("self weight without density", 'span = "16 ft"', 'span = "16 ft"\nself_weight = true', ["member[M].self_weight", "density"]),
+    (
+        "load beyond span",
+        'w = "100 plf"',
+        'w = "100 plf"\nfrom = "20 ft"',
+        ["member[M].load[1].from", "within the span"],
+    ),
+    (
+        "unknown load key",
+        'w = "200 plf"',
+        'w = "200 plf"\ncolour = "red"',
+        ["member[M].load[2].colour", "unknown key 'colour'"],
+    ),
+    (
+        "missing load value",
+        'w = "200 plf"',
+        'wl = "200 plf"',
+        ["member[M].load[2]", "missing required key 'w'"],
+    ),
+    (
+        "bad kind",
+        'kind = "uniform"',
+        'kind = "uniformly"',
+        ["member[M].load[1].kind", "uniform, point, linear"],
+    ),
+    (
+        "load wrong dimension",
+        'w = "100 plf"',
+        'w = "100 lbf"',
+        ["member[M].load[1].w", "expected a line load"],
+    ),
+    ("no span", 'span = "16 ft"', "", ["member[M]", "missing required key 'span'"]),
+    (
+        "own case without combinations",
+        'case = "L"',
+        'case = "crowd"',
+        ["member[M].load[2].case", "no standard combination"],
+    ),
+    (
+        "combination names absent case",
+        'span = "16 ft"',
+        'span = "16 ft"\n[[member.combination]]\nname = "c"\nfactors = { D = 1.0, S = 1.0 }',
+        ["member[M].combination[1].factors.S", "no loads of case 'S'"],
+    ),
+    (
+        "one pin only",
+        'span = "16 ft"',
+        'span = "16 ft"\n[[member.support]]\nat = "0 ft"',
+        ["member[M].support[1]", "fixed support or supports at two"],
+    ),
+    (
+        "self weight without density",
+        'span = "16 ft"',
+        'span = "16 ft"\nself_weight = true',
+        ["member[M].self_weight", "density"],
+    ),
 ]
 
 
@@ -160,7 +215,8 @@ def _nailed_tee_dead_and_snow(method: str, cd: str = ""):
     from calcreport.solve import solve_job
     from tests.conftest import job_text
 
-    body = """
+    body = (
+        """
 [[member]]
 id = "M"
 span = "10 ft"
@@ -174,7 +230,9 @@ w = "60 plf"
 case = "S"
 kind = "uniform"
 w = "4 plf"
-""" + TEE_PARTS + """
+"""
+        + TEE_PARTS
+        + """
 [[member.joint]]
 id = "j"
 holds = ["fl"]
@@ -182,7 +240,9 @@ holds = ["fl"]
 [member.joint.connector]
 type = "nail"
 size = "16d common"
-""" + cd
+"""
+        + cd
+    )
     mats = '\n[[material]]\nid = "wood"\nfamily = "wood"\nE = "1600 ksi"\nG = 0.50\n'
     text = job_text(body, materials=mats).replace('method = "ASD"', f'method = "{method}"')
     return solve_job(load_text(text.encode())).members[0].joints[0]

@@ -12,7 +12,6 @@ import shutil
 
 import pypdf
 import pytest
-
 from review_helpers import demo_text, edited, git, run, write
 
 pytest.importorskip("calcreport.outputs.report.build")
@@ -48,8 +47,10 @@ def test_build_since_marks_changed_rows_with_the_revision_letter(tmp_path, capsy
     git(tmp_path, "add", "job.toml")
     git(tmp_path, "commit", "-q", "-m", "B")
     plain, marked = str(tmp_path / "plain.pdf"), str(tmp_path / "marked.pdf")
-    write(tmp_path / "job.toml", edited(demo_text(), ('shear = "3.6 kip"', 'shear = "4.2 kip"'),
-                                        ('revision = "B"', 'revision = "Q"')))
+    write(
+        tmp_path / "job.toml",
+        edited(demo_text(), ('shear = "3.6 kip"', 'shear = "4.2 kip"'), ('revision = "B"', 'revision = "Q"')),
+    )
     run(["build", job, "-o", plain], capsys)
     code, _, err = run(["build", job, "-o", marked, "--since", "HEAD"], capsys)
     assert code in (0, 1), err

@@ -34,11 +34,21 @@ def test_json_fields(path, cli):
             q = m["section"][key]
             assert set(q) == {"value", "unit"} and isinstance(q["value"], (int, float))
         for j in m["joints"]:
-            for key in ("id", "Q", "shear_flow", "capacity", "spacing_required", "spacing_provided", "status"):
+            for key in (
+                "id",
+                "Q",
+                "shear_flow",
+                "capacity",
+                "spacing_required",
+                "spacing_provided",
+                "status",
+            ):
                 assert key in j
             assert j["status"] in ("OK", "NG")
             assert set(j["Q"]) == {"value", "unit"}
-            assert j["steps"] and all({"label", "symbol", "substituted", "result", "source"} <= set(s) for s in j["steps"])
+            assert j["steps"] and all(
+                {"label", "symbol", "substituted", "result", "source"} <= set(s) for s in j["steps"]
+            )
 
 
 def test_json_is_stable(cli):
@@ -49,11 +59,15 @@ def test_json_is_stable(cli):
 
 
 def test_several_jobs_and_ng_exit_1(cli, write_job):
-    from tests.test_bad_input import GOOD
     from tests.conftest import job_text
+    from tests.test_bad_input import GOOD
 
-    ng = write_job(job_text(GOOD.replace('shear = "1 kip"', 'shear = "90 kip"')).replace(
-        'method = "ASD"', 'method = "ASD"\nspacing_min = "1 in"'), "ng.toml")
+    ng = write_job(
+        job_text(GOOD.replace('shear = "1 kip"', 'shear = "90 kip"')).replace(
+            'method = "ASD"', 'method = "ASD"\nspacing_min = "1 in"'
+        ),
+        "ng.toml",
+    )
     code, out, err = cli("check", DEMOS[0], ng)
     assert code == 1, err
     assert "NG" in out and "below the minimum spacing" in out
@@ -82,7 +96,8 @@ def test_python_dash_m_entry_point():
     import subprocess
     import sys
 
-    r = subprocess.run([sys.executable, "-m", "calcreport", "check", DEMOS[0]], cwd=ROOT,
-                       capture_output=True, text=True)
+    r = subprocess.run(
+        [sys.executable, "-m", "calcreport", "check", DEMOS[0]], cwd=ROOT, capture_output=True, text=True
+    )
     assert r.returncode in (0, 1), r.stderr
     assert "Traceback" not in r.stderr

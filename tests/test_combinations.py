@@ -43,7 +43,8 @@ def test_asd_factors():
         want.add(_fs(D=1.0, L=0.75, **{r: 0.75}))
         want.add(_fs(D=1.0, L=0.75, W=0.75 * 0.6, **{r: 0.75}))
     assert {tuple((c, round(f, 12)) for c, f in s) for s in got} == {
-        tuple((c, round(f, 12)) for c, f in s) for s in want}
+        tuple((c, round(f, 12)) for c, f in s) for s in want
+    }
 
 
 def test_only_present_cases():

@@ -6,12 +6,12 @@ only as an input, not checked against a publication).
 """
 
 import pytest
+from conn_fixtures import context, rect, run, step, wood
 
 from calcreport.fields import Field
 from calcreport.solve.connectors import _MODULES, kinds, model_for
 from calcreport.solve.connectors.geometry import find_contact, plate_thickness, thickness_normal
 from calcreport.units import DIMENSIONS, Q_
-from conn_fixtures import context, rect, run, step, wood
 
 KINDS = {"nail", "wood_screw", "lag_screw", "wood_bolt", "steel_bolt", "fillet_weld", "stud", "glue"}
 
@@ -64,9 +64,15 @@ def box_beam():
 
 def test_glue_rolling_shear_governs_on_plywood_face():
     web, fl = box_beam()
-    cap, log = run("glue", {"tau": Q_(95, "psi"), "rolling_shear": Q_(53, "psi"),
-                            "rolling_source": "panel design specification as adopted by the job"},
-                   context([fl], [web], width=1.5))
+    cap, log = run(
+        "glue",
+        {
+            "tau": Q_(95, "psi"),
+            "rolling_shear": Q_(53, "psi"),
+            "rolling_source": "panel design specification as adopted by the job",
+        },
+        context([fl], [web], width=1.5),
+    )
     assert cap.value.to("lbf/in").magnitude == pytest.approx(53 * 1.5)
     assert step(log, "q_glue").note == "rolling shear governs"
 
@@ -74,6 +80,7 @@ def test_glue_rolling_shear_governs_on_plywood_face():
 def test_glue_rolling_shear_from_material_extra_and_missing():
     web, fl = box_beam()
     from dataclasses import replace
+
     web2 = replace(web, material=replace(web.material, extra={"Fs": Q_(53, "psi"), "grade": ""}))
     cap, _ = run("glue", {"tau": Q_(95, "psi")}, context([fl], [web2], width=1.5))
     assert cap.value.to("lbf/in").magnitude == pytest.approx(53 * 1.5)

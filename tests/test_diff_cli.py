@@ -16,18 +16,21 @@ import math
 import shutil
 
 import pytest
-
 from review_helpers import DEMO, demo_text, edited, git, run, with_part, without_bottom_joint, write
 
-EQUIVALENT = (('spacing_max = "6 in"', 'spacing_max = "0.5 ft"'),      # NIST SP 811 App. B.8
-              ('E = "1600 ksi"', 'E = "1.6e6 psi"'),                   # NIST SP 811 App. B.8
-              ('depth = "18 in"', 'depth = "1.5 ft"'),
-              ('value = "118 lbf"', 'value = "0.118 kip"'))
+EQUIVALENT = (
+    ('spacing_max = "6 in"', 'spacing_max = "0.5 ft"'),  # NIST SP 811 App. B.8
+    ('E = "1600 ksi"', 'E = "1.6e6 psi"'),  # NIST SP 811 App. B.8
+    ('depth = "18 in"', 'depth = "1.5 ft"'),
+    ('value = "118 lbf"', 'value = "0.118 kip"'),
+)
 MORE_SHEAR = ('shear = "3.6 kip"', 'shear = "4.2 kip"')
 
 
 def test_unit_equivalent_edits_are_no_change_exit_0(tmp_path, capsys):
-    new = write(tmp_path / "new.toml", edited(demo_text(), *EQUIVALENT, ("# Harbourside", "# Edited: Harbourside")))
+    new = write(
+        tmp_path / "new.toml", edited(demo_text(), *EQUIVALENT, ("# Harbourside", "# Edited: Harbourside"))
+    )
     code, out, err = run(["diff", str(DEMO), new], capsys)
     assert code == 0, err
     assert "RESULTS CHANGED" not in out and "INPUTS CHANGED" not in out
@@ -41,7 +44,9 @@ def test_unit_equivalent_edits_are_no_change_exit_0(tmp_path, capsys):
 
 
 def test_text_only_edit_is_an_input_change_exit_0(tmp_path, capsys):
-    new = write(tmp_path / "new.toml", edited(demo_text(), ('title = "Door header H1"', 'title = "Header H1"')))
+    new = write(
+        tmp_path / "new.toml", edited(demo_text(), ('title = "Door header H1"', 'title = "Header H1"'))
+    )
     code, out, _ = run(["diff", str(DEMO), new], capsys)
     assert code == 0
     assert 'member[H1].title: "Door header H1" → "Header H1"' in out
@@ -77,8 +82,12 @@ def test_more_shear_changes_results_exit_1(tmp_path, capsys):
 
 
 def test_values_shown_in_the_new_jobs_units(tmp_path, capsys):
-    si = edited(demo_text(), ('units = "US"', 'units = "SI"'), ('spacing_step = "1/4 in"', 'spacing_step = "5 mm"'),
-                MORE_SHEAR)
+    si = edited(
+        demo_text(),
+        ('units = "US"', 'units = "SI"'),
+        ('spacing_step = "1/4 in"', 'spacing_step = "5 mm"'),
+        MORE_SHEAR,
+    )
     new = write(tmp_path / "si.toml", si)
     code, out, _ = run(["diff", str(DEMO), new], capsys)
     assert code == 1
@@ -103,8 +112,15 @@ def test_added_part_and_removed_joint(tmp_path, capsys):
     code, out, _ = run(["diff", fewer, str(DEMO), "--json"], capsys)
     data = json.loads(out)
     assert data["added"] == [{"id": "bot-webs", "key": "member[H1].joint[bot-webs]", "kind": "joint"}]
-    assert {"owner": "member.H1.joint.bot-webs", "owner_title": "member H1, joint bot-webs", "field": "status",
-            "label": "joint", "kind": "added", "old": None, "new": "OK"} in data["results"]
+    assert {
+        "owner": "member.H1.joint.bot-webs",
+        "owner_title": "member H1, joint bot-webs",
+        "field": "status",
+        "label": "joint",
+        "kind": "added",
+        "old": None,
+        "new": "OK",
+    } in data["results"]
 
 
 def test_invalid_input_exit_2_one_line(tmp_path, capsys):
@@ -116,8 +132,14 @@ def test_invalid_input_exit_2_one_line(tmp_path, capsys):
     assert code == 2 and "missing.toml" in err and err.count("\n") == 1
 
 
-@pytest.mark.parametrize("argv", [["diff", "a.toml"], ["diff", "a.toml", "b.toml", "c.toml"],
-                                  ["diff", "a.toml", "b.toml", "--since", "HEAD"]])
+@pytest.mark.parametrize(
+    "argv",
+    [
+        ["diff", "a.toml"],
+        ["diff", "a.toml", "b.toml", "c.toml"],
+        ["diff", "a.toml", "b.toml", "--since", "HEAD"],
+    ],
+)
 def test_usage_errors_exit_2(argv, capsys):
     code, out, err = run(argv, capsys)
     assert code == 2 and out == "" and err.count("\n") == 1

@@ -9,10 +9,10 @@ from __future__ import annotations
 import shutil
 
 import pytest
+from review_helpers import DEMO, demo_text, edited, git, with_part, write
 
 from calcreport.outputs.diff import changed_keys, compute_diff
 from calcreport.outputs.review_io import revision_marks, revision_marks_since, side_from_bytes, side_from_file
-from review_helpers import DEMO, demo_text, edited, git, with_part, write
 
 
 def _side(text: str, label: str = "new.toml"):
@@ -21,12 +21,21 @@ def _side(text: str, label: str = "new.toml"):
 
 def test_shear_change_marks_its_steps_and_input():
     old = side_from_file(str(DEMO))
-    new = _side(edited(demo_text(), ('shear = "3.6 kip"', 'shear = "4.2 kip"'), ('revision = "B"', 'revision = "C"')))
+    new = _side(
+        edited(demo_text(), ('shear = "3.6 kip"', 'shear = "4.2 kip"'), ('revision = "B"', 'revision = "C"'))
+    )
     marks = revision_marks(old, new)
     assert marks.mark == "C"
     keys = marks.changed_keys
-    assert {"member[H1].shear", "job.revision", "member.H1.shear.V", "member.H1.joint.top-webs.q",
-            "member.H1.joint.top-webs.s_req", "member.H1.joint.top-webs", "member.H1"} <= keys
+    assert {
+        "member[H1].shear",
+        "job.revision",
+        "member.H1.shear.V",
+        "member.H1.joint.top-webs.q",
+        "member.H1.joint.top-webs.s_req",
+        "member.H1.joint.top-webs",
+        "member.H1",
+    } <= keys
     # Q and I do not depend on V (q = V·Q/I): not marked
     assert "member.H1.joint.top-webs.Q" not in keys and "member.H1.section.I" not in keys
 
@@ -53,7 +62,7 @@ def test_revision_marks_since_git_revision(tmp_path):
     git(tmp_path, "add", "job.toml")
     git(tmp_path, "commit", "-q", "-m", "B")
     assert revision_marks_since(str(job), "HEAD").changed_keys == frozenset()
-    write(job, edited(demo_text(), ('per_row = 2', 'per_row = 3')))
+    write(job, edited(demo_text(), ("per_row = 2", "per_row = 3")))
     marks = revision_marks_since(str(job), "HEAD")
     assert "member[H1].joint[top-webs].per_row" in marks.changed_keys
     assert "member.H1.joint.top-webs.nF" in marks.changed_keys

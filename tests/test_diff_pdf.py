@@ -8,9 +8,9 @@ no source) as in tests/test_diff_cli.py.
 from __future__ import annotations
 
 import pypdf
+from review_helpers import DEMO, demo_text, edited, run, with_part, write
 
 from calcreport.outputs.pdfmeta import KEY_BASE_SHA256, KEY_JOB_SHA256
-from review_helpers import DEMO, demo_text, edited, run, with_part, write
 
 MORE_SHEAR = ('shear = "3.6 kip"', 'shear = "4.2 kip"')
 
@@ -25,10 +25,22 @@ def test_change_pdf_contains_changed_values_and_marks(tmp_path, capsys):
     code, out, _ = run(["diff", str(DEMO), new, "--pdf", pdf], capsys)
     assert code == 1 and "Results changed." in out
     text = _text(pdf)
-    for expected in ("Changes in revision C (from revision B)", "Results changed.",
-                     "3,600 lbf", "4,200 lbf", "1.50 in", "1.25 in", "practical spacing",
-                     "member[H1].shear", '"3.6 kip"', '"4.2 kip"', "member.H1.joint.top-webs.q",
-                     "Harbourside Community Boathouse", "HB-2026-014", "licensed professional engineer"):
+    for expected in (
+        "Changes in revision C (from revision B)",
+        "Results changed.",
+        "3,600 lbf",
+        "4,200 lbf",
+        "1.50 in",
+        "1.25 in",
+        "practical spacing",
+        "member[H1].shear",
+        '"3.6 kip"',
+        '"4.2 kip"',
+        "member.H1.joint.top-webs.q",
+        "Harbourside Community Boathouse",
+        "HB-2026-014",
+        "licensed professional engineer",
+    ):
         assert expected in text, expected
     assert text.index("Results") < text.index("Derivation steps") < text.index("Inputs")
     # every changed row carries the revision letter in its triangle

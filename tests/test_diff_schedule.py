@@ -18,12 +18,12 @@ import shutil
 
 import pypdf
 import pytest
+from review_helpers import ROOT, edited, git, run, write
 
 from calcreport.outputs.diff import changed_keys, compute_diff
 from calcreport.outputs.diff_schedule import diff_schedules, is_zone_step, zone_text
 from calcreport.outputs.diff_text import check_titles, display_for
 from calcreport.outputs.review_io import side_from_bytes
-from review_helpers import ROOT, edited, git, run, write
 
 JOB = ROOT / "jobs" / "pavilion-ridge-box-beam.toml"
 SNOW = ('w = "175 plf"', 'w = "210 plf"')
@@ -55,7 +55,10 @@ def _section(out: str, title: str) -> str:
 
 
 def test_raised_snow_load_lists_old_and_new_schedule(tmp_path, capsys, sides):
-    old_file, new_file = write(tmp_path / "old.toml", _text()), write(tmp_path / "new.toml", edited(_text(), SNOW))
+    old_file, new_file = (
+        write(tmp_path / "old.toml", _text()),
+        write(tmp_path / "new.toml", edited(_text(), SNOW)),
+    )
     code, out, err = run(["diff", old_file, new_file], capsys)
     assert code == 1, err
     results = _section(out, "RESULTS CHANGED")
@@ -75,11 +78,14 @@ def test_raised_snow_load_lists_old_and_new_schedule(tmp_path, capsys, sides):
     # positions as drawings give them: 11'-3" is 135 in (1 ft = 12 in)
     first_end = _schedule(sides[1], "top-webs").zones[0].end.to("inch").magnitude
     feet, inches = divmod(round(first_end), 12)
-    assert f"0\" – {feet}'-{inches}\" @" in results
+    assert f'0" – {feet}\'-{inches}" @' in results
 
 
 def test_no_zone_step_is_compared_by_number_or_called_unchanged(tmp_path, capsys):
-    old_file, new_file = write(tmp_path / "old.toml", _text()), write(tmp_path / "new.toml", edited(_text(), SNOW))
+    old_file, new_file = (
+        write(tmp_path / "old.toml", _text()),
+        write(tmp_path / "new.toml", edited(_text(), SNOW)),
+    )
     _, out, _ = run(["diff", old_file, new_file], capsys)
     assert ".schedule.zone." not in out and "Zone 2" not in out
     same = _section(out, "STEPS WITH CHANGED VALUES BUT THE SAME RESULT")
@@ -95,7 +101,10 @@ def test_no_zone_step_is_compared_by_number_or_called_unchanged(tmp_path, capsys
 
 
 def test_check_groups_print_their_labels(tmp_path, capsys, sides):
-    old_file, new_file = write(tmp_path / "old.toml", _text()), write(tmp_path / "new.toml", edited(_text(), SNOW))
+    old_file, new_file = (
+        write(tmp_path / "old.toml", _text()),
+        write(tmp_path / "new.toml", edited(_text(), SNOW)),
+    )
     _, out, _ = run(["diff", old_file, new_file], capsys)
     results = _section(out, "RESULTS CHANGED")
     assert "\n  Bending stress, df2:\n" in results
@@ -115,8 +124,11 @@ def test_schedule_changed_in_zones_only_still_counts_as_a_changed_result(sides):
     j = m.joints[0]
     z1, z2 = j.schedule.zones[:2]
     step = z1.spacing  # move the boundary by one spacing of zone 1 (rows move from zone 2 to zone 1)
-    moved = (dataclasses.replace(z1, end=z1.end + step, count=z1.count + 1),
-             dataclasses.replace(z2, start=z2.start + step, count=z2.count - 1), *j.schedule.zones[2:])
+    moved = (
+        dataclasses.replace(z1, end=z1.end + step, count=z1.count + 1),
+        dataclasses.replace(z2, start=z2.start + step, count=z2.count - 1),
+        *j.schedule.zones[2:],
+    )
     sch = dataclasses.replace(j.schedule, zones=moved)
     joint = dataclasses.replace(j, schedule=sch)
     member = dataclasses.replace(m, joints=(joint, *m.joints[1:]))
@@ -137,8 +149,14 @@ def test_equivalent_load_rewrite_changes_no_schedule(tmp_path, capsys, sides):
     assert diff_schedules(sides[0].result, same.result) == []
     diff = compute_diff(sides[0], same)
     assert not diff.results_changed and not any(".schedule" in k for k in changed_keys(diff))
-    code, _, _ = run(["diff", str(JOB), write(tmp_path / "same.toml", edited(_text(), ('w = "175 plf"',
-                                                                                          'w = "0.175 klf"')))], capsys)
+    code, _, _ = run(
+        [
+            "diff",
+            str(JOB),
+            write(tmp_path / "same.toml", edited(_text(), ('w = "175 plf"', 'w = "0.175 klf"'))),
+        ],
+        capsys,
+    )
     assert code == 0
 
 

@@ -12,7 +12,8 @@ import random
 import string
 from pathlib import Path
 
-from hypothesis import HealthCheck, given, settings, strategies as st
+from hypothesis import HealthCheck, given, settings
+from hypothesis import strategies as st
 
 from calcreport.cli import main
 from tests.conftest import run_cli
@@ -20,24 +21,150 @@ from tests.conftest import run_cli
 ROOT = Path(__file__).resolve().parent.parent
 DEMOS = [p.read_text(encoding="utf-8") for p in sorted((ROOT / "jobs").glob("*.toml"))]
 
-KEYS = ["id", "shape", "width", "depth", "thickness", "size", "flat", "upright", "diameter", "points",
-        "area", "inertia", "centroid", "material", "on", "below", "left_of", "right_of", "at", "align",
-        "offset", "holds", "per_row", "type", "value", "source", "name", "tau", "planes", "shear", "E",
-        "Fv", "G", "density", "units", "method", "spacing_step", "spacing_max", "spacing_min", "project",
-        "label", "title", "family", "reference_material", "width", "template", "revision", "mark",
-        "span", "self_weight", "case", "kind", "w", "P", "from", "to", "w_start", "w_end", "factors",
-        "zones_per_half", "zone_module", "size", "segment", "welds", "G_side", "group", "threads", "deck"]
-VALUES = ["1 in", "0 in", "-2 in", "2x10", "2x99", "10 kip", "1600 ksi", "rect", "lumber", "plate", "bar",
-          "polygon", "rolled", "given", "shank", "glue", "given_line", "wood", "web", "fl", "top", "US",
-          "SI", "ASD", "LRFD", "1e308 in", "nan in", "inf kip", "1/0 in", "in", "", "ǝʃᴉɟ", "<b>&</b>",
-          "1-1/2 in", "5 plf", "3 psf", "__import__('os')", "1 in * 2 in", "9" * 400 + " in", "centre",
-          "left", "top", "1 in ** 99", "uniform", "point", "linear", "D", "L", "S", "W", "28 ft", "1e9 ft",
-          "16d common", "10d box", "5/16 in", "nail", "steel_bolt", "fillet_weld", "stud", "wood_screw",
-          "300 plf", "-300 plf", "pin", "fixed", "roller"]
+KEYS = [
+    "id",
+    "shape",
+    "width",
+    "depth",
+    "thickness",
+    "size",
+    "flat",
+    "upright",
+    "diameter",
+    "points",
+    "area",
+    "inertia",
+    "centroid",
+    "material",
+    "on",
+    "below",
+    "left_of",
+    "right_of",
+    "at",
+    "align",
+    "offset",
+    "holds",
+    "per_row",
+    "type",
+    "value",
+    "source",
+    "name",
+    "tau",
+    "planes",
+    "shear",
+    "E",
+    "Fv",
+    "G",
+    "density",
+    "units",
+    "method",
+    "spacing_step",
+    "spacing_max",
+    "spacing_min",
+    "project",
+    "label",
+    "title",
+    "family",
+    "reference_material",
+    "width",
+    "template",
+    "revision",
+    "mark",
+    "span",
+    "self_weight",
+    "case",
+    "kind",
+    "w",
+    "P",
+    "from",
+    "to",
+    "w_start",
+    "w_end",
+    "factors",
+    "zones_per_half",
+    "zone_module",
+    "size",
+    "segment",
+    "welds",
+    "G_side",
+    "group",
+    "threads",
+    "deck",
+]
+VALUES = [
+    "1 in",
+    "0 in",
+    "-2 in",
+    "2x10",
+    "2x99",
+    "10 kip",
+    "1600 ksi",
+    "rect",
+    "lumber",
+    "plate",
+    "bar",
+    "polygon",
+    "rolled",
+    "given",
+    "shank",
+    "glue",
+    "given_line",
+    "wood",
+    "web",
+    "fl",
+    "top",
+    "US",
+    "SI",
+    "ASD",
+    "LRFD",
+    "1e308 in",
+    "nan in",
+    "inf kip",
+    "1/0 in",
+    "in",
+    "",
+    "ǝʃᴉɟ",
+    "<b>&</b>",
+    "1-1/2 in",
+    "5 plf",
+    "3 psf",
+    "__import__('os')",
+    "1 in * 2 in",
+    "9" * 400 + " in",
+    "centre",
+    "left",
+    "top",
+    "1 in ** 99",
+    "uniform",
+    "point",
+    "linear",
+    "D",
+    "L",
+    "S",
+    "W",
+    "28 ft",
+    "1e9 ft",
+    "16d common",
+    "10d box",
+    "5/16 in",
+    "nail",
+    "steel_bolt",
+    "fillet_weld",
+    "stud",
+    "wood_screw",
+    "300 plf",
+    "-300 plf",
+    "pin",
+    "fixed",
+    "roller",
+]
 
 scalar = st.one_of(
-    st.sampled_from(VALUES), st.integers(-10**6, 10**6), st.floats(allow_nan=False, allow_infinity=False),
-    st.booleans(), st.text(max_size=12),
+    st.sampled_from(VALUES),
+    st.integers(-(10**6), 10**6),
+    st.floats(allow_nan=False, allow_infinity=False),
+    st.booleans(),
+    st.text(max_size=12),
 )
 value = st.recursive(scalar, lambda inner: st.lists(inner, max_size=4), max_leaves=8)
 key = st.one_of(st.sampled_from(KEYS), st.text(alphabet=string.ascii_letters + "_", min_size=1, max_size=8))
@@ -60,9 +187,17 @@ def toml_table(header: str, d: dict) -> str:
 
 
 table = st.dictionaries(key, value, max_size=7)
-document = st.tuples(table, table, st.lists(table, max_size=3), st.lists(table, max_size=3),
-                     st.lists(table, max_size=5), st.lists(table, max_size=3), table,
-                     st.lists(table, max_size=3), st.lists(table, max_size=2))
+document = st.tuples(
+    table,
+    table,
+    st.lists(table, max_size=3),
+    st.lists(table, max_size=3),
+    st.lists(table, max_size=5),
+    st.lists(table, max_size=3),
+    table,
+    st.lists(table, max_size=3),
+    st.lists(table, max_size=2),
+)
 
 
 def _check_case(tmp_path, text: str) -> None:
@@ -77,8 +212,11 @@ def _check_case(tmp_path, text: str) -> None:
         assert out == ""
 
 
-@settings(max_examples=900, deadline=None, suppress_health_check=[HealthCheck.function_scoped_fixture,
-                                                                  HealthCheck.too_slow])
+@settings(
+    max_examples=900,
+    deadline=None,
+    suppress_health_check=[HealthCheck.function_scoped_fixture, HealthCheck.too_slow],
+)
 @given(doc=document)
 def test_random_structure(tmp_path, doc):
     job, sett, mats, members, parts, joints, conn, loads, supports = doc
@@ -114,10 +252,12 @@ def mutate(text: str, rng: random.Random, n: int) -> str:
             lines[i], lines[j] = lines[j], lines[i]
         elif kind == "char" and lines[i]:
             k = rng.randrange(len(lines[i]))
-            lines[i] = lines[i][:k] + rng.choice('="[]#x0.- \\é\x00') + lines[i][k + 1:]
+            lines[i] = lines[i][:k] + rng.choice('="[]#x0.- \\é\x00') + lines[i][k + 1 :]
         elif kind == "number":
-            lines[i] = "".join(rng.choice(["0", "-1", "1e9", "0.0001", "99999"]) if c.isdigit() and rng.random() < 0.3
-                               else c for c in lines[i])
+            lines[i] = "".join(
+                rng.choice(["0", "-1", "1e9", "0.0001", "99999"]) if c.isdigit() and rng.random() < 0.3 else c
+                for c in lines[i]
+            )
         elif kind == "unit":
             for a, b in (("in", "kip"), ("ksi", "in"), ("kip", "ft"), ("mm", "MPa"), ("psi", "plf")):
                 if a in lines[i]:
@@ -126,16 +266,22 @@ def mutate(text: str, rng: random.Random, n: int) -> str:
     return "\n".join(lines) + "\n"
 
 
-@settings(max_examples=1060, deadline=None, suppress_health_check=[HealthCheck.function_scoped_fixture,
-                                                                  HealthCheck.too_slow])
+@settings(
+    max_examples=1060,
+    deadline=None,
+    suppress_health_check=[HealthCheck.function_scoped_fixture, HealthCheck.too_slow],
+)
 @given(rng_key=st.integers(0, 2**32 - 1), which=st.integers(0, 100), n=st.integers(1, 6))
 def test_mutated_demo_jobs(tmp_path, rng_key, which, n):
     text = DEMOS[which % len(DEMOS)]
     _check_case(tmp_path, mutate(text, random.Random(rng_key), n))
 
 
-@settings(max_examples=60, deadline=None, suppress_health_check=[HealthCheck.function_scoped_fixture,
-                                                                HealthCheck.too_slow])
+@settings(
+    max_examples=60,
+    deadline=None,
+    suppress_health_check=[HealthCheck.function_scoped_fixture, HealthCheck.too_slow],
+)
 @given(rng_key=st.integers(0, 2**32 - 1), which=st.integers(0, 100), n=st.integers(1, 4))
 def test_mutated_demo_jobs_build(tmp_path_factory, rng_key, which, n):
     base = tmp_path_factory.mktemp("build")

@@ -9,9 +9,10 @@ from __future__ import annotations
 import json
 import re
 
+from review_helpers import demo_text, run, write
+
 from calcreport.cli import solve_file
 from calcreport.outputs.json_out import dumps, json_path_for, to_dict, write_results_json
-from review_helpers import demo_text, run, write
 
 
 def _numbers(node):

@@ -12,11 +12,13 @@ HEAVY = "sorted(m for m in sys.modules if m.split('.')[0] in ('reportlab', 'pypd
 
 def run_fresh(args: list[str], report: str, quiet: str = "stdout") -> str:
     """Run ``main(args)`` in a fresh interpreter; print its exit code and ``report`` evaluated after."""
-    code = ("import sys, io, contextlib\n"
-            "from calcreport.cli import main\n"
-            f"with contextlib.redirect_{quiet}(io.StringIO()):\n"
-            f"    rc = main({args!r})\n"
-            f"print(rc, {report})\n")
+    code = (
+        "import sys, io, contextlib\n"
+        "from calcreport.cli import main\n"
+        f"with contextlib.redirect_{quiet}(io.StringIO()):\n"
+        f"    rc = main({args!r})\n"
+        f"print(rc, {report})\n"
+    )
     r = subprocess.run([sys.executable, "-c", code], cwd=ROOT, capture_output=True, text=True)
     assert r.returncode == 0, r.stderr
     return r.stdout.strip()

@@ -22,8 +22,9 @@ from calcreport.units import UnitParseError, parse
 from tests.conftest import MATERIALS, job_text
 from tests.test_bad_input import GOOD
 
-LOADED = GOOD.replace('shear = "1 kip"', 'span = "16 ft"\n\n[[member.load]]\ncase = "D"\nkind = "uniform"\n'
-                      'w = "100 plf"\n', 1)
+LOADED = GOOD.replace(
+    'shear = "1 kip"', 'span = "16 ft"\n\n[[member.load]]\ncase = "D"\nkind = "uniform"\nw = "100 plf"\n', 1
+)
 
 
 def refused(cli, path: str, *words: str) -> str:
@@ -43,7 +44,7 @@ def test_file_over_the_size_limit(write_job, cli):
 
 
 def test_tens_of_thousands_of_parts_refused_before_any_part_is_read(write_job, cli, monkeypatch):
-    part = "[[member.part]]\nid=\"p{i}\"\nshape=\"rect\"\n"
+    part = '[[member.part]]\nid="p{i}"\nshape="rect"\n'
     body = '[[member]]\nid = "M"\nshear = "1 kip"\n' + "".join(part.format(i=i) for i in range(30_000))
     calls = []
     real = parts_mod.read_part
@@ -60,12 +61,14 @@ def test_thousands_of_materials_refused_by_count(write_job, cli):
 def test_polygon_with_a_huge_vertex_list_refused_before_parsing_its_points(write_job, cli, monkeypatch):
     n = 100_000  # about as many as fit in a job file under the size limit
     pts = ",".join(['["0 in","0 in"]'] * n)
-    body = GOOD.replace('shape = "rect"\nwidth = "2 in"\ndepth = "10 in"',
-                        f'shape = "polygon"\npoints = [{pts}]', 1)
+    body = GOOD.replace(
+        'shape = "rect"\nwidth = "2 in"\ndepth = "10 in"', f'shape = "polygon"\npoints = [{pts}]', 1
+    )
     seen = []
     real = Table.parse_quantity
-    monkeypatch.setattr(Table, "parse_quantity", lambda self, name, *a, **k: (
-        seen.append(name), real(self, name, *a, **k))[1])
+    monkeypatch.setattr(
+        Table, "parse_quantity", lambda self, name, *a, **k: (seen.append(name), real(self, name, *a, **k))[1]
+    )
     refused(cli, write_job(job_text(body)), "member[M].part[web].points", f"3 to {MAX_VERTICES}")
     assert not any(isinstance(nm, tuple) and nm[0] == "points" for nm in seen)  # no point was parsed
 
@@ -79,8 +82,10 @@ def test_span_beyond_the_sane_range(write_job, cli, span):
 def test_longest_span_with_the_finest_step_finishes_on_a_bounded_grid(write_job, cli):
     """1,000 ft at a 1/64-in step would be 768,000 grid points; the schedule coarsens its zone
     module so that at most MAX_GRID module lengths cover the member, and says so in a step."""
-    text = job_text(LOADED.replace('span = "16 ft"', 'span = "1000 ft"').replace(
-        'w = "100 plf"', 'w = "1 plf"'), settings='spacing_step = "1/64 in"\n')
+    text = job_text(
+        LOADED.replace('span = "16 ft"', 'span = "1000 ft"').replace('w = "100 plf"', 'w = "1 plf"'),
+        settings='spacing_step = "1/64 in"\n',
+    )
     code, out, err = cli("check", "--json", write_job(text))
     assert code in (0, 1), err
     joint = json.loads(out)["members"][0]["joints"][0]
@@ -106,7 +111,9 @@ def test_deeply_nested_toml(write_job, cli, opening, closing):
 
 
 def test_huge_array_of_text_lines_is_read_once_and_refused_by_key(write_job, cli):
-    body = GOOD.replace('id = "M"', 'id = "M"\nnotes = [' + ", ".join(['"x"'] * 300_000) + "]\nnotes_x = 1", 1)
+    body = GOOD.replace(
+        'id = "M"', 'id = "M"\nnotes = [' + ", ".join(['"x"'] * 300_000) + "]\nnotes_x = 1", 1
+    )
     refused(cli, write_job(job_text(body)), "member[M].notes_x", "unknown key")
 
 
@@ -121,11 +128,22 @@ def test_vanishing_part_dimension_is_refused(write_job, cli):
     refused(cli, write_job(job_text(body)), "member[M].part[web].width", "at least 0.001 in")
 
 
-@pytest.mark.parametrize("text", [
-    "__import__('os').system('x')", "1 in ** 99999", "10 ** 99999 in", "9 ** 9 ** 9 in",
-    "((((9**4)**4)**4)**4) in", "2 ** 2 ** 2 ** 2 ** 2 ** 2 in", "eval('1') in", "1 in; import os",
-    "exec(1) in", "1e309 in", "[1] in",
-])
+@pytest.mark.parametrize(
+    "text",
+    [
+        "__import__('os').system('x')",
+        "1 in ** 99999",
+        "10 ** 99999 in",
+        "9 ** 9 ** 9 in",
+        "((((9**4)**4)**4)**4) in",
+        "2 ** 2 ** 2 ** 2 ** 2 ** 2 in",
+        "eval('1') in",
+        "1 in; import os",
+        "exec(1) in",
+        "1e309 in",
+        "[1] in",
+    ],
+)
 def test_unit_strings_are_parsed_never_evaluated(text, write_job, cli, tmp_path):
     marker = tmp_path / "x"
     with pytest.raises(UnitParseError):
@@ -143,9 +161,11 @@ def test_ordinary_powers_still_parse():
 
 # -- report templates: logo paths resolve relative to the template and must be image files ------
 
+
 def _template_job(tmp_path, logo: str):
-    (tmp_path / "firm.toml").write_text(f'[firm]\nname = "Harbour Engineers"\nlogo = "{logo}"\n',
-                                        encoding="utf-8")
+    (tmp_path / "firm.toml").write_text(
+        f'[firm]\nname = "Harbour Engineers"\nlogo = "{logo}"\n', encoding="utf-8"
+    )
     job = tmp_path / "job.toml"
     job.write_text(job_text(GOOD, settings='template = "firm.toml"\n'), encoding="utf-8")
     return job

@@ -5,11 +5,11 @@ values from memory as noted in test_nds_yield.py. Tolerances are stated beside e
 """
 
 import pytest
+from conn_fixtures import context, rect, run, steel, step, wood
 
 from calcreport.solve.connectors import ConnectorError
 from calcreport.solve.connectors.nds_factors import group_action
 from calcreport.units import Q_
-from conn_fixtures import context, rect, run, step, steel, wood
 
 
 def stacked(G=0.50, t_top=1.5, t_bot=1.5, w=3.5):
@@ -26,8 +26,22 @@ def test_16d_common_asd_reference_value():
     cap, log = run("nail", {"size": "16d common"}, context([top], [bot]))
     assert cap.value.to("lbf").magnitude == pytest.approx(141, rel=0.01)
     assert step(log, "Z_IV").governs
-    assert {s.key.rsplit(".", 1)[1] for s in log.steps} >= {"Z_Im", "Z_Is", "Z_II", "Z_IIIm", "Z_IIIs", "Z_IV",
-                                                            "CD", "CM", "Ct", "Cg", "C_delta", "Ceg", "Cdi", "Ctn"}
+    assert {s.key.rsplit(".", 1)[1] for s in log.steps} >= {
+        "Z_Im",
+        "Z_Is",
+        "Z_II",
+        "Z_IIIm",
+        "Z_IIIs",
+        "Z_IV",
+        "CD",
+        "CM",
+        "Ct",
+        "Cg",
+        "C_delta",
+        "Ceg",
+        "Cdi",
+        "Ctn",
+    }
     assert cap.continuous is False
     assert cap.spacing_min.to("in").magnitude == pytest.approx(1.62)  # 10D, common practice
 
@@ -46,8 +60,18 @@ def test_adjustment_factors_multiply():
     # Ctn = 0.83 (§12.5.4), Cdi = 1.1 (§12.5.3). Exact product expected.
     top, bot = stacked()
     base, _ = run("nail", {"size": "16d common"}, context([top], [bot]))
-    cap, log = run("nail", {"size": "16d common", "CD": 1.6, "wet_service": True, "end_grain": True,
-                            "toe_nail": True, "diaphragm": True}, context([top], [bot]))
+    cap, log = run(
+        "nail",
+        {
+            "size": "16d common",
+            "CD": 1.6,
+            "wet_service": True,
+            "end_grain": True,
+            "toe_nail": True,
+            "diaphragm": True,
+        },
+        context([top], [bot]),
+    )
     assert cap.value.magnitude == pytest.approx(base.value.magnitude * 1.6 * 0.7 * 0.67 * 0.83 * 1.1)
     assert step(log, "CM").note.startswith("moisture")
 
@@ -129,25 +153,30 @@ def test_wood_bolt_double_shear():
     mid = rect("mid", 1.5, 0, 5.0, 12, wood())
     left = rect("left", 0, 0, 1.5, 12, wood())
     right = rect("right", 5.0, 0, 6.5, 12, wood())
-    cap, _ = run("wood_bolt", {"diameter": Q_(0.5, "in"), "planes": 2}, context([mid], [left, right], width=24))
+    cap, _ = run(
+        "wood_bolt", {"diameter": Q_(0.5, "in"), "planes": 2}, context([mid], [left, right], width=24)
+    )
     assert cap.value.magnitude == pytest.approx(1230, abs=5)
 
 
 def test_group_action_equation_properties():
     # NDS-2018 Eq. 11.3-1: Cg = 1 for one fastener, decreases with more fasteners in a row, ≤ 1.
-    g = [group_action(n, 1.6e6 * 16.9, 1.6e6 * 8.25, 4.0, 180000 * 0.5 ** 1.5)["Cg"] for n in (1, 2, 4, 8)]
+    g = [group_action(n, 1.6e6 * 16.9, 1.6e6 * 8.25, 4.0, 180000 * 0.5**1.5)["Cg"] for n in (1, 2, 4, 8)]
     assert g[0] == 1.0
     assert all(a > b for a, b in zip(g, g[1:]))
     assert all(0 < x <= 1.0 for x in g)
     # Equal members, very stiff members: every fastener shares equally → Cg → 1.
-    assert group_action(4, 1e15, 1e15, 4.0, 180000 * 0.5 ** 1.5)["Cg"] == pytest.approx(1.0, abs=1e-3)
+    assert group_action(4, 1e15, 1e15, 4.0, 180000 * 0.5**1.5)["Cg"] == pytest.approx(1.0, abs=1e-3)
 
 
 def test_wood_bolt_row_uses_group_action():
     top, bot = stacked()
     one, _ = run("wood_bolt", {"diameter": Q_(0.5, "in")}, context([top], [bot]))
-    row, log = run("wood_bolt", {"diameter": Q_(0.5, "in"), "row_count": 4, "row_spacing": Q_(4, "in")},
-                   context([top], [bot]))
+    row, log = run(
+        "wood_bolt",
+        {"diameter": Q_(0.5, "in"), "row_count": 4, "row_spacing": Q_(4, "in")},
+        context([top], [bot]),
+    )
     assert row.value < one.value
     assert step(log, "Cg").result < 1.0
     with pytest.raises(ConnectorError):
@@ -172,7 +201,10 @@ def test_lag_screw_deducts_tip_and_checks_4d():
 def test_plywood_specific_gravity_by_grade():
     # NDS-2018 Table 12.3.3B (from memory): Structural I plywood G = 0.50; other grades 0.42.
     from calcreport.model import Material
-    s1 = Material("ply", "Structural I plywood, 15/32 in", Q_(1.8e6, "psi"), family="plywood", extra={"grade": ""})
+
+    s1 = Material(
+        "ply", "Structural I plywood, 15/32 in", Q_(1.8e6, "psi"), family="plywood", extra={"grade": ""}
+    )
     other = Material("ply2", "Rated sheathing", Q_(1.8e6, "psi"), family="plywood", extra={"grade": "C-D"})
     fl = rect("fl", 0, 10.5, 1.5, 12, wood())
     for mat, g in ((s1, 0.50), (other, 0.42)):

@@ -21,6 +21,7 @@ def z_min(*a, **k):
 
 # --- bearing strength equations (NDS-2018 Table 12.3.3 footnote 2) -------------------------
 
+
 def test_fe_small_diameter_matches_rounded_table_values():
     # Table 12.3.3 lists 4650 psi for G = 0.50 (D < 1/4 in), rounded to 50 psi; tolerance 0.5 %.
     assert y.fe_small(0.50) == pytest.approx(4650, rel=0.005)
@@ -47,17 +48,19 @@ def test_fe_steel_hot_rolled_and_cold_formed():
 
 # --- reduction term (NDS-2018 Table 12.3.1B) -------------------------------------------------
 
+
 def test_rd_values():
-    assert y.rd("IV", 0.162, 0)[0] == 2.2            # KD = 2.2 for D ≤ 0.17 in
+    assert y.rd("IV", 0.162, 0)[0] == 2.2  # KD = 2.2 for D ≤ 0.17 in
     assert y.rd("IV", 0.20, 0)[0] == pytest.approx(2.5)  # KD = 10D + 0.5
     assert y.rd("Im", 0.5, 0)[0] == 4.0
     assert y.rd("II", 0.5, 0)[0] == pytest.approx(3.6)
-    assert y.rd("IIIs", 0.5, 90)[0] == pytest.approx(3.2 * 1.25)   # Kθ = 1.25 at 90°
+    assert y.rd("IIIs", 0.5, 90)[0] == pytest.approx(3.2 * 1.25)  # Kθ = 1.25 at 90°
     assert y.rd("Im", 0.5, 45)[0] == pytest.approx(4 * 1.125)
     assert y.rd("IV", 0.375, 90, reduced=True)[0] == pytest.approx((10 * 0.375 + 0.5) * 1.25)
 
 
 # --- each mode equation against a hand evaluation (NDS-2018 Table 12.3.1A) -------------------
+
 
 def test_single_shear_modes_by_hand():
     D, lm, ls, Fem, Fes, Fyb = 0.5, 3.5, 1.5, 5600.0, 3150.0, 45000.0

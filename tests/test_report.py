@@ -119,9 +119,19 @@ def test_steps_appear_in_solver_order(demo):
 def test_signoff_limitations_and_hash(demo):
     result, _, pages = demo
     flat = squash("".join(pages))
-    for text in ("Review and sign-off", "Prepared by", "Checked by", "Approved by", "Checker's comments",
-                 "Limitations and cautions", "licensed professional engineer", "lateral-torsional buckling",
-                 "ENGINEER'S SEAL AND SIGNATURE", "Revision history", "Contents"):
+    for text in (
+        "Review and sign-off",
+        "Prepared by",
+        "Checked by",
+        "Approved by",
+        "Checker's comments",
+        "Limitations and cautions",
+        "licensed professional engineer",
+        "lateral-torsional buckling",
+        "ENGINEER'S SEAL AND SIGNATURE",
+        "Revision history",
+        "Contents",
+    ):
         assert squash(text) in flat, text
     assert result.job.sha256 in flat
     for r in result.job.header.history:
@@ -179,8 +189,11 @@ def test_zone_schedule_hook_renders_a_table(tmp_path):
 
     result = solve_file(str(DEMO))
     m = result.members[0]
-    sched = SimpleNamespace(zones=[(Q_(0, "ft"), Q_(3, "ft"), Q_(2.5, "in"), 15),
-                                   (Q_(3, "ft"), Q_(11, "ft"), Q_(6, "in"), 16)], count=46, status="OK")
+    sched = SimpleNamespace(
+        zones=[(Q_(0, "ft"), Q_(3, "ft"), Q_(2.5, "in"), 15), (Q_(3, "ft"), Q_(11, "ft"), Q_(6, "in"), 16)],
+        count=46,
+        status="OK",
+    )
     joints = (replace(m.joints[0], schedule=sched),) + m.joints[1:]
     result = replace(result, members=(replace(m, joints=joints),))
     out = build_pdf(result, tmp_path / "z.pdf")

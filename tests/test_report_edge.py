@@ -99,10 +99,19 @@ def test_markup_in_job_text_prints_literally(tmp_path):
     out = build_pdf(solve_file(str(hostile(tmp_path))), tmp_path / "h.pdf")
     text = "".join(p.extract_text() for p in pypdf.PdfReader(str(out)).pages)
     flat = squash(text)
-    for literal in ("Dock <b>bold</b> & <font name='Courier'>shed</font>", "Subject </para> <br/> & more",
-                    "P. <i>Writer</i>", "First issue <unclosed", "Wood & co <b>", "Beam <font",
-                    "<b>not bold</b> & literal", "nail & glue <b>", "j<1>", "M&1",
-                    "Καλημέρα — τ ≤ φ·Ω, Σ ≥ 0"):
+    for literal in (
+        "Dock <b>bold</b> & <font name='Courier'>shed</font>",
+        "Subject </para> <br/> & more",
+        "P. <i>Writer</i>",
+        "First issue <unclosed",
+        "Wood & co <b>",
+        "Beam <font",
+        "<b>not bold</b> & literal",
+        "nail & glue <b>",
+        "j<1>",
+        "M&1",
+        "Καλημέρα — τ ≤ φ·Ω, Σ ≥ 0",
+    ):
         assert squash(literal) in flat, literal
     assert LONG_WORD in flat  # broken across lines, never dropped
     assert "船屋の梁" in flat  # set in the CJK fallback font
@@ -148,7 +157,10 @@ def test_cli_build_exit_codes_and_paths(tmp_path, monkeypatch, cli):
     assert code == 1 and (tmp_path / "one.pdf").is_file()
     code, out, err = cli("build", str(DEMO), str(ng), "-o", "many")
     assert code == 1
-    assert sorted(p.name for p in (tmp_path / "many").iterdir()) == ["boathouse-door-header.pdf", "report-mixed.pdf"]
+    assert sorted(p.name for p in (tmp_path / "many").iterdir()) == [
+        "boathouse-door-header.pdf",
+        "report-mixed.pdf",
+    ]
 
 
 def test_cli_invalid_job_writes_nothing_the_others_are_written(tmp_path, monkeypatch, cli):
@@ -168,11 +180,14 @@ def test_cli_invalid_job_writes_nothing_the_others_are_written(tmp_path, monkeyp
     assert code == 2 and err.count("\n") == 1 and err.startswith(str(bad))
 
 
-@pytest.mark.parametrize("value, message", [
-    ('template = "no-such"', "expected one of the report templates"),
-    ('template = "missing/file.toml"', "does not exist"),
-    ('template = "bad name!"', "expected a template name"),
-])
+@pytest.mark.parametrize(
+    "value, message",
+    [
+        ('template = "no-such"', "expected one of the report templates"),
+        ('template = "missing/file.toml"', "does not exist"),
+        ('template = "bad name!"', "expected a template name"),
+    ],
+)
 def test_bad_template_names(tmp_path, cli, value, message):
     job = hostile(tmp_path, value)
     code, out, err = cli("build", str(job), "-o", str(tmp_path / "x.pdf"))
@@ -181,19 +196,22 @@ def test_bad_template_names(tmp_path, cli, value, message):
     assert not (tmp_path / "x.pdf").exists()
 
 
-@pytest.mark.parametrize("body, key", [
-    ('[page]\nsize = "tabloid"\n', "page.size"),
-    ('[page]\nmargin_left = "5 in"\n', "page.margin_left"),
-    ('[page]\nmargin_left = "5 kip"\n', "page.margin_left"),
-    ('[style]\naccent = "blue"\n', "style.accent"),
-    ('[style]\nfont_size = 30\n', "style.font_size"),
-    ('[firm]\nlogo = "logo.png"\n', "firm.logo"),  # missing
-    ('[firm]\nlogo = "sub"\n', "firm.logo"),  # not a PNG/JPEG name
-    ('[firm]\nlogo = "fake.png"\n', "firm.logo"),  # not an image
-    ('[style]\nfont = "fake.ttf"\n', "style.font"),
-    ('[colour]\n', "colour"),
-    ('[page]\nsize = \n', "TOML"),
-])
+@pytest.mark.parametrize(
+    "body, key",
+    [
+        ('[page]\nsize = "tabloid"\n', "page.size"),
+        ('[page]\nmargin_left = "5 in"\n', "page.margin_left"),
+        ('[page]\nmargin_left = "5 kip"\n', "page.margin_left"),
+        ('[style]\naccent = "blue"\n', "style.accent"),
+        ("[style]\nfont_size = 30\n", "style.font_size"),
+        ('[firm]\nlogo = "logo.png"\n', "firm.logo"),  # missing
+        ('[firm]\nlogo = "sub"\n', "firm.logo"),  # not a PNG/JPEG name
+        ('[firm]\nlogo = "fake.png"\n', "firm.logo"),  # not an image
+        ('[style]\nfont = "fake.ttf"\n', "style.font"),
+        ("[colour]\n", "colour"),
+        ("[page]\nsize = \n", "TOML"),
+    ],
+)
 def test_bad_template_contents(tmp_path, body, key):
     (tmp_path / "sub").mkdir()
     (tmp_path / "fake.png").write_bytes(b"not an image")
@@ -209,8 +227,12 @@ def test_template_with_logo_and_firm(tmp_path):
     from PIL import Image
 
     Image.new("RGB", (60, 30), (40, 90, 120)).save(tmp_path / "logo.png")
-    write(tmp_path, '[page]\nsize = "a4"\nmargin_left = "25 mm"\n[firm]\nname = "Quayside Engineers"\n'
-                    'address = ["1 Pier Road"]\nlogo = "logo.png"\n[style]\naccent = "#804000"\n', "firm.toml")
+    write(
+        tmp_path,
+        '[page]\nsize = "a4"\nmargin_left = "25 mm"\n[firm]\nname = "Quayside Engineers"\n'
+        'address = ["1 Pier Road"]\nlogo = "logo.png"\n[style]\naccent = "#804000"\n',
+        "firm.toml",
+    )
     job = hostile(tmp_path, 'template = "firm.toml"')
     result = solve_file(str(job))
     tpl = load_template(result.job.settings.template, result.job.path)

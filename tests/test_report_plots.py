@@ -32,9 +32,18 @@ def test_line_chart_draws_labelled_axes(tmp_path):
     from reportlab.graphics import renderPDF
 
     fonts = register_fonts()
-    chart = line_chart([Series("maximum", [0, 7, 14], [3.6, 0, -3.6]),
-                        Series("minimum", [0, 7, 14], [1.0, 0, -1.0], dashed=True)],
-                       "x along the member (ft)", "V (kip)", 400, 160, fonts, title="Shear V envelope")
+    chart = line_chart(
+        [
+            Series("maximum", [0, 7, 14], [3.6, 0, -3.6]),
+            Series("minimum", [0, 7, 14], [1.0, 0, -1.0], dashed=True),
+        ],
+        "x along the member (ft)",
+        "V (kip)",
+        400,
+        160,
+        fonts,
+        title="Shear V envelope",
+    )
     out = tmp_path / "c.pdf"
     renderPDF.drawToFile(chart, str(out))
     text = pypdf.PdfReader(str(out)).pages[0].extract_text()
@@ -55,6 +64,12 @@ def test_ridge_beam_report_has_the_four_figures(tmp_path):
     assert main(["build", str(root / "jobs" / "pavilion-ridge-box-beam.toml"), "-o", str(out)]) in (0, 1)
     text = " ".join((p.extract_text() or "") for p in PdfReader(str(out)).pages)
     text = " ".join(text.split())
-    for caption in ("Loads by case", "Shear V envelope", "Bending moment M envelope",
-                    "demand and provided capacity", "Elevation of the member", "rows"):
+    for caption in (
+        "Loads by case",
+        "Shear V envelope",
+        "Bending moment M envelope",
+        "demand and provided capacity",
+        "Elevation of the member",
+        "rows",
+    ):
         assert caption in text, caption

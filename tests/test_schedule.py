@@ -8,7 +8,8 @@ no source. Brute force enumerates every schedule the rules allow on small cases.
 import math
 
 import numpy as np
-from hypothesis import HealthCheck, given, settings, strategies as st
+from hypothesis import HealthCheck, given, settings
+from hypothesis import strategies as st
 
 from calcreport.solve.schedule import zoned_schedule
 from calcreport.solve.schedule_dp import Demand, optimise
@@ -57,7 +58,7 @@ def brute(d, nF, inc, smin, smax, Z, module, symmetric):
     kmin, kmax = max(1, math.ceil(smin / inc - EPS)), math.floor(smax / inc + EPS)
     best = math.inf
     if symmetric:
-        for end, z, n in _chains(d, L / 2, inc, kmin, kmax, nF, Z - 1, module):
+        for end, _z, n in _chains(d, L / 2, inc, kmin, kmax, nF, Z - 1, module):
             best = min(best, 1 + 2 * n + _central(d, end, L - end, inc, kmin, kmax, nF))
         return best
     left = _chains(d, L, inc, kmin, kmax, nF, 2 * Z - 2, module)
@@ -96,9 +97,14 @@ def _demand(draw_q, L, sym):
 
 
 @settings(max_examples=60, deadline=None, suppress_health_check=[HealthCheck.too_slow])
-@given(L=st.integers(6, 20), qs=st.lists(st.floats(0, 1.0), min_size=2, max_size=7),
-       smin=st.integers(1, 2), smax=st.integers(2, 6), Z=st.integers(1, 3),
-       module=st.sampled_from([None, 2.0, 3.0]))
+@given(
+    L=st.integers(6, 20),
+    qs=st.lists(st.floats(0, 1.0), min_size=2, max_size=7),
+    smin=st.integers(1, 2),
+    smax=st.integers(2, 6),
+    Z=st.integers(1, 3),
+    module=st.sampled_from([None, 2.0, 3.0]),
+)
 def test_symmetric_optimum_equals_brute_force(L, qs, smin, smax, Z, module):
     smax = max(smax, smin)
     d = _demand(qs, float(L), True)
@@ -113,8 +119,13 @@ def test_symmetric_optimum_equals_brute_force(L, qs, smin, smax, Z, module):
 
 
 @settings(max_examples=40, deadline=None, suppress_health_check=[HealthCheck.too_slow])
-@given(L=st.integers(5, 13), qs=st.lists(st.floats(0, 1.0), min_size=2, max_size=6),
-       smax=st.integers(2, 4), Z=st.integers(1, 2), module=st.sampled_from([None, 2.0]))
+@given(
+    L=st.integers(5, 13),
+    qs=st.lists(st.floats(0, 1.0), min_size=2, max_size=6),
+    smax=st.integers(2, 4),
+    Z=st.integers(1, 2),
+    module=st.sampled_from([None, 2.0]),
+)
 def test_general_optimum_equals_brute_force(L, qs, smax, Z, module):
     d = _demand(qs, float(L), False)
     lay = optimise(d, 1.0, 1.0, 1.0, smax, Z, module, symmetric=False)
@@ -136,8 +147,16 @@ def _uniform_span(L=240.0, s_end=3.0, nF=300.0):
 
 def test_uniform_span_schedule_is_symmetric_and_valid():
     x, q = _uniform_span()
-    s = zoned_schedule(Q_(x, "in"), Q_(q, "lbf/in"), Q_(240, "in"), Q_(300, "lbf"),
-                       Q_(0.5, "in"), Q_(1, "in"), Q_(12, "in"), zones_per_half=3)
+    s = zoned_schedule(
+        Q_(x, "in"),
+        Q_(q, "lbf/in"),
+        Q_(240, "in"),
+        Q_(300, "lbf"),
+        Q_(0.5, "in"),
+        Q_(1, "in"),
+        Q_(12, "in"),
+        zones_per_half=3,
+    )
     assert s.feasible and s.symmetric
     z = s.zones
     assert len(z) == 5
@@ -154,11 +173,24 @@ def test_two_span_demand_is_symmetric():
     the centre support, so |V| and the schedule are symmetric."""
     from calcreport.model import Combination, Load, Support
     from calcreport.solve.beam import analyse
-    r = analyse(Q_(20, "ft"), [Support(Q_(0, "ft")), Support(Q_(10, "ft")), Support(Q_(20, "ft"))],
-                [Load("D", "uniform", Q_(300, "plf"))], [Combination("D", {"D": 1.0})])
+
+    r = analyse(
+        Q_(20, "ft"),
+        [Support(Q_(0, "ft")), Support(Q_(10, "ft")), Support(Q_(20, "ft"))],
+        [Load("D", "uniform", Q_(300, "plf"))],
+        [Combination("D", {"D": 1.0})],
+    )
     env = r.envelope
-    s = zoned_schedule(env.x, env.V_abs * Q_(0.05, "1/in"), Q_(20, "ft"), Q_(120, "lbf"),
-                       Q_(0.5, "in"), None, Q_(12, "in"), governing=env.V_abs_by)
+    s = zoned_schedule(
+        env.x,
+        env.V_abs * Q_(0.05, "1/in"),
+        Q_(20, "ft"),
+        Q_(120, "lbf"),
+        Q_(0.5, "in"),
+        None,
+        Q_(12, "in"),
+        governing=env.V_abs_by,
+    )
     assert s.feasible and s.symmetric
     assert all(z.governing == "D" for z in s.zones)
 
@@ -167,28 +199,37 @@ def test_single_spacing_figures():
     """N_single: one spacing from the peak shear flow, rounded down to the increment (common
     practice, no source): q_peak = 100 lbf/in, n·F = 300 lbf → 3.0 in; 240 in → 1 + 80."""
     x, q = _uniform_span()
-    s = zoned_schedule(Q_(x, "in"), Q_(q, "lbf/in"), Q_(240, "in"), Q_(300, "lbf"),
-                       Q_(0.5, "in"), Q_(1, "in"), Q_(12, "in"))
+    s = zoned_schedule(
+        Q_(x, "in"), Q_(q, "lbf/in"), Q_(240, "in"), Q_(300, "lbf"), Q_(0.5, "in"), Q_(1, "in"), Q_(12, "in")
+    )
     assert s.spacing_single.magnitude == 3.0 and s.count_single == 81
     assert s.saving == 1 - s.count / 81
 
 
 def test_infeasible_when_minimum_spacing_too_large():
     x, q = _uniform_span()
-    s = zoned_schedule(Q_(x, "in"), Q_(q, "lbf/in"), Q_(240, "in"), Q_(300, "lbf"),
-                       Q_(0.5, "in"), Q_(4, "in"), Q_(12, "in"))
+    s = zoned_schedule(
+        Q_(x, "in"), Q_(q, "lbf/in"), Q_(240, "in"), Q_(300, "lbf"), Q_(0.5, "in"), Q_(4, "in"), Q_(12, "in")
+    )
     assert not s.feasible and s.zones == () and "minimum" in s.reason
     assert s.steps[-1].result == "NG"
 
 
 @settings(max_examples=40, deadline=None)
-@given(qs=st.lists(st.floats(0, 50), min_size=2, max_size=8), L=st.floats(30, 200),
-       Z=st.integers(1, 4))
+@given(qs=st.lists(st.floats(0, 50), min_size=2, max_size=8), L=st.floats(30, 200), Z=st.integers(1, 4))
 def test_count_never_below_continuous_bound(qs, L, Z):
     """N ≥ N_min = ∫ max(q/(n·F), 1/s_max) dx for every schedule (every gap ≤ n·F/q, ≤ s_max)."""
     x = np.linspace(0, L, len(qs))
-    s = zoned_schedule(Q_(x, "in"), Q_(np.array(qs), "lbf/in"), Q_(L, "in"), Q_(100, "lbf"),
-                       Q_(0.25, "in"), Q_(1, "in"), Q_(16, "in"), zones_per_half=Z)
+    s = zoned_schedule(
+        Q_(x, "in"),
+        Q_(np.array(qs), "lbf/in"),
+        Q_(L, "in"),
+        Q_(100, "lbf"),
+        Q_(0.25, "in"),
+        Q_(1, "in"),
+        Q_(16, "in"),
+        zones_per_half=Z,
+    )
     if s.feasible:
         assert s.count >= s.count_min - 1e-9
         assert s.count <= s.count_single

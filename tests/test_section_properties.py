@@ -5,7 +5,8 @@ section with equal moduli is the plain section) — common practice, no source b
 from __future__ import annotations
 
 import pytest
-from hypothesis import given, settings, strategies as st
+from hypothesis import given, settings
+from hypothesis import strategies as st
 
 from calcreport.jobfile import load_text
 from calcreport.solve import solve_job
@@ -57,8 +58,7 @@ def test_q_is_largest_at_the_neutral_axis(bw, hw, bf, tf, ys):
 @settings(max_examples=40, deadline=None)
 @given(bw=dims, hw=dims, bf=dims, tf=dims)
 def test_equal_moduli_transformed_equals_plain(bw, hw, bf, tf):
-    mats = ('\n[[material]]\nid="wood"\nE="1600 ksi"\n'
-            '\n[[material]]\nid="same"\nE="1.6e6 psi"\n')
+    mats = '\n[[material]]\nid="wood"\nE="1600 ksi"\n\n[[material]]\nid="same"\nE="1.6e6 psi"\n'
     plain = _solve(_rect("web", bw, hw) + _rect("fl", bf, tf, on="web"), mats).section
     mixed = _solve(_rect("web", bw, hw) + _rect("fl", bf, tf, mat="same", on="web"), mats).section
     for name in ("area", "centroid", "inertia"):

@@ -34,10 +34,12 @@ def member(parts: str, shear: str = "1 kip", joints: str = "") -> str:
 
 def test_rectangle_closed_form():
     # I = b·h³/12 (Gere & Goodno, Appendix E, case 2)
-    s = section_of(member('[[member.part]]\nid="r"\nshape="rect"\nwidth="3 in"\ndepth="8 in"\nmaterial="wood"\n'))
+    s = section_of(
+        member('[[member.part]]\nid="r"\nshape="rect"\nwidth="3 in"\ndepth="8 in"\nmaterial="wood"\n')
+    )
     assert s.area.to("in**2").magnitude == pytest.approx(24.0)
     assert s.centroid.to("in").magnitude == pytest.approx(4.0)
-    assert s.inertia.to("in**4").magnitude == pytest.approx(3 * 8 ** 3 / 12)
+    assert s.inertia.to("in**4").magnitude == pytest.approx(3 * 8**3 / 12)
 
 
 I_SHAPE = """
@@ -68,13 +70,18 @@ on = "web"
 def test_built_up_i_shape_parallel_axis():
     # Doubly symmetric I: I = 2·[b·t³/12 + b·t·(h/2 + t/2)²] + tw·h³/12 (parallel-axis theorem,
     # Gere & Goodno §12.5). With b=10, t=1, tw=0.5, h=20: 2·(0.8333 + 10·110.25) + 333.33.
-    expected = 2 * (10 * 1 / 12 + 10 * 1 * 10.5 ** 2) + 0.5 * 20 ** 3 / 12
+    expected = 2 * (10 * 1 / 12 + 10 * 1 * 10.5**2) + 0.5 * 20**3 / 12
     s = section_of(member(I_SHAPE))
     assert s.inertia.to("in**4").magnitude == pytest.approx(expected, rel=1e-12)
     assert s.centroid.to("in").magnitude == pytest.approx(11.0)
     # Q of one flange about the NA: A·d = 10 × 10.5 (first moment of area)
-    r = solve(member(I_SHAPE, joints='[[member.joint]]\nid="j"\nholds=["tf"]\n'
-                     '[member.joint.connector]\ntype="given"\nvalue="1 kip"\nsource="x"\n')).members[0]
+    r = solve(
+        member(
+            I_SHAPE,
+            joints='[[member.joint]]\nid="j"\nholds=["tf"]\n'
+            '[member.joint.connector]\ntype="given"\nvalue="1 kip"\nsource="x"\n',
+        )
+    ).members[0]
     assert r.joints[0].Q.to("in**3").magnitude == pytest.approx(105.0)
     # q = V·Q/I
     assert r.joints[0].shear_flow.to("lbf/in").magnitude == pytest.approx(1000 * 105.0 / expected)
@@ -113,7 +120,7 @@ material = "wood"
 right_of = "b"
 """
     s = section_of(member(parts))
-    assert s.inertia.to("in**4").magnitude == pytest.approx((6 * 12 ** 3 - 4 * 10 ** 3) / 12)
+    assert s.inertia.to("in**4").magnitude == pytest.approx((6 * 12**3 - 4 * 10**3) / 12)
 
 
 def test_tee_centroid_and_inertia():
@@ -123,16 +130,19 @@ def test_tee_centroid_and_inertia():
     assert s.inertia.to("in**4").magnitude == pytest.approx(TEE_I)
 
 
-@pytest.mark.parametrize("nominal, area, ixx", [
-    # NDS Supplement (2018) Table 1B, from memory: A (in²), Ixx (in⁴), as printed.
-    ("2x4", 5.250, 5.359),
-    ("2x6", 8.250, 20.80),
-    ("2x8", 10.88, 47.63),
-    ("2x10", 13.88, 98.93),
-    ("2x12", 16.88, 178.0),
-    ("4x4", 12.25, 12.51),
-    ("6x8", 41.25, 193.4),
-])
+@pytest.mark.parametrize(
+    "nominal, area, ixx",
+    [
+        # NDS Supplement (2018) Table 1B, from memory: A (in²), Ixx (in⁴), as printed.
+        ("2x4", 5.250, 5.359),
+        ("2x6", 8.250, 20.80),
+        ("2x8", 10.88, 47.63),
+        ("2x10", 13.88, 98.93),
+        ("2x12", 16.88, 178.0),
+        ("4x4", 12.25, 12.51),
+        ("6x8", 41.25, 193.4),
+    ],
+)
 def test_dressed_lumber_properties(nominal, area, ixx):
     parts = f'[[member.part]]\nid="l"\nshape="lumber"\nsize="{nominal}"\nmaterial="wood"\n'
     s = section_of(member(parts))
@@ -159,7 +169,7 @@ def test_round_bar_and_polygon():
     s = section_of(member(tri))
     assert s.area.to("in**2").magnitude == pytest.approx(27.0)
     assert s.centroid.to("in").magnitude == pytest.approx(3.0)
-    assert s.inertia.to("in**4").magnitude == pytest.approx(6 * 9 ** 3 / 36)
+    assert s.inertia.to("in**4").magnitude == pytest.approx(6 * 9**3 / 36)
 
 
 def test_rolled_shape_with_cover_plate():

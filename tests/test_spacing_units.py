@@ -5,7 +5,8 @@ from __future__ import annotations
 import math
 
 import pytest
-from hypothesis import given, strategies as st
+from hypothesis import given
+from hypothesis import strategies as st
 
 from calcreport.jobfile import load_text
 from calcreport.solve import solve_job
@@ -47,7 +48,7 @@ def test_shank_capacity_and_rounding():
     # s_req = n·F/q; practical = floor(s_req / 0.25 in)·0.25 in (common practice, no source).
     body = BOX.format(V="2 kip", tw="2 in", h="10 in", bf="8 in", tf="2 in", d="0.25 in", tau="15 ksi")
     j = solve_job(load_text(job_text(body).encode())).members[0].joints[0]
-    F = 15000 * math.pi * 0.25 ** 2 / 4
+    F = 15000 * math.pi * 0.25**2 / 4
     assert j.capacity.to("lbf").magnitude == pytest.approx(F)
     q = 2000 * TEE_Q_FLANGE / TEE_I
     s_req = 2 * F / q
@@ -56,10 +57,16 @@ def test_shank_capacity_and_rounding():
     assert j.spacing_provided <= j.spacing_required
 
 
-@pytest.mark.parametrize("s, step, expected", [
-    ("3.37 in", "0.25 in", 3.25), ("3.0 in", "0.25 in", 3.0), ("2.999999 in", "0.25 in", 2.75),
-    ("0.2 in", "0.25 in", 0.0), ("87 mm", "5 mm", 85.0),
-])
+@pytest.mark.parametrize(
+    "s, step, expected",
+    [
+        ("3.37 in", "0.25 in", 3.25),
+        ("3.0 in", "0.25 in", 3.0),
+        ("2.999999 in", "0.25 in", 2.75),
+        ("0.2 in", "0.25 in", 0.0),
+        ("87 mm", "5 mm", 85.0),
+    ],
+)
 def test_round_down_never_up(s, step, expected):
     # Rounded DOWN to the increment, never up (common practice, no source).
     got = round_down(parse(s, "length"), parse(step, "length"))
@@ -78,12 +85,21 @@ def test_us_and_si_inputs_give_the_same_results():
     # The same member described in inches/kips and in millimetres/kilonewtons (exact conversions:
     # 1 in = 25.4 mm; 1 kip = 4.4482216 kN) gives the same section, Q, q and capacity.
     us = BOX.format(V="2 kip", tw="2 in", h="10 in", bf="8 in", tf="2 in", d="0.25 in", tau="15 ksi")
-    si = BOX.format(V=f"{2 * 4.4482216152605} kN", tw="50.8 mm", h="254 mm", bf="203.2 mm", tf="50.8 mm",
-                    d="6.35 mm", tau=f"{15 * 6.894757293168361} MPa")
+    si = BOX.format(
+        V=f"{2 * 4.4482216152605} kN",
+        tw="50.8 mm",
+        h="254 mm",
+        bf="203.2 mm",
+        tf="50.8 mm",
+        d="6.35 mm",
+        tau=f"{15 * 6.894757293168361} MPa",
+    )
     si_mat = '\n[[material]]\nid = "wood"\nfamily = "wood"\nE = "11031.6 MPa"\n'
     a = solve_job(load_text(job_text(us).encode())).members[0]
     b = solve_job(load_text(job_text(si, settings="", materials=si_mat).encode())).members[0]
-    assert b.section.inertia.to("in**4").magnitude == pytest.approx(a.section.inertia.to("in**4").magnitude, rel=1e-9)
+    assert b.section.inertia.to("in**4").magnitude == pytest.approx(
+        a.section.inertia.to("in**4").magnitude, rel=1e-9
+    )
     ja, jb = a.joints[0], b.joints[0]
     for name in ("Q", "shear_flow", "capacity", "spacing_required", "spacing_provided"):
         qa, qb = getattr(ja, name), getattr(jb, name)
@@ -102,11 +118,14 @@ def test_trade_units_parse():
 
 def test_glue_line_stress_check():
     # τ = V·Q/(I·b) against the allowable shear stress (mechanics of materials, shear formula).
-    body = """
+    body = (
+        """
 [[member]]
 id = "T"
 shear = "2.5 kip"
-""" + TEE_PARTS + """
+"""
+        + TEE_PARTS
+        + """
 [[member.joint]]
 id = "g"
 holds = ["fl"]
@@ -114,6 +133,7 @@ holds = ["fl"]
 type = "glue"
 tau = "150 psi"
 """
+    )
     j = solve_job(load_text(job_text(body).encode())).members[0].joints[0]
     tau = 2500 * TEE_Q_FLANGE / (TEE_I * 2.0)
     assert j.plane_width.to("in").magnitude == pytest.approx(2.0)

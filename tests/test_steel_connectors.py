@@ -12,13 +12,13 @@ Tolerance: the Manual's printed rounding (3 significant figures), i.e. ±0.05 ki
 """
 
 import pytest
+from conn_fixtures import concrete, context, rect, run, steel, step, wood
 
 from calcreport.solve.connectors import ConnectorError
 from calcreport.solve.connectors import aisc_bolt as ab
 from calcreport.solve.connectors import fillet_weld as fw
 from calcreport.solve.connectors import stud as st
 from calcreport.units import Q_
-from conn_fixtures import concrete, context, rect, run, step, steel, wood
 
 
 def plates(t1=0.75, t2=1.0, w=8.0, m1=None, m2=None):
@@ -28,6 +28,7 @@ def plates(t1=0.75, t2=1.0, w=8.0, m1=None, m2=None):
 
 
 # --- bolts -----------------------------------------------------------------------------------
+
 
 @pytest.mark.parametrize("method,expected", [("LRFD", 17.9), ("ASD", 11.9)])
 def test_table_7_1_group_a_n_single_shear(method, expected):
@@ -47,14 +48,20 @@ def test_double_shear_doubles_bolt_shear():
     mid = rect("mid", 0, 0, 1.0, 12, steel())
     l_ = rect("l", -0.5, 0, 0, 12, steel())
     r_ = rect("r", 1.0, 0, 1.5, 12, steel())
-    cap, _ = run("steel_bolt", {"diameter": Q_(0.75, "in"), "planes": 2}, context([mid], [l_, r_], method="LRFD", width=24))
+    cap, _ = run(
+        "steel_bolt",
+        {"diameter": Q_(0.75, "in"), "planes": 2},
+        context([mid], [l_, r_], method="LRFD", width=24),
+    )
     assert cap.value.to("kip").magnitude == pytest.approx(2 * 17.89, abs=0.05)
 
 
 @pytest.mark.parametrize("method,expected", [("LRFD", 9.49), ("ASD", 6.33)])
 def test_table_7_3_slip_critical(method, expected):
     a, b = plates()
-    cap, log = run("steel_bolt", {"diameter": Q_(0.75, "in"), "slip_critical": True}, context([a], [b], method=method))
+    cap, log = run(
+        "steel_bolt", {"diameter": Q_(0.75, "in"), "slip_critical": True}, context([a], [b], method=method)
+    )
     assert cap.value.to("kip").magnitude == pytest.approx(expected, abs=0.01)
     assert step(log, "Tb").result.magnitude == 28  # Table J3.1, 3/4 in Group A
 
@@ -98,9 +105,22 @@ def test_steel_bolt_rejects_wood_parts():
 def test_rolled_shape_flange_thickness_measured_from_polygon():
     # A W-shape-like polygon: the run from the top of the flange is the flange thickness, not the depth.
     bf, tf, d, tw = 8.0, 0.5, 12.0, 0.3
-    v = [(0, 0), (bf, 0), (bf, tf), ((bf + tw) / 2, tf), ((bf + tw) / 2, d - tf), (bf, d - tf), (bf, d),
-         (0, d), (0, d - tf), ((bf - tw) / 2, d - tf), ((bf - tw) / 2, tf), (0, tf)]
+    v = [
+        (0, 0),
+        (bf, 0),
+        (bf, tf),
+        ((bf + tw) / 2, tf),
+        ((bf + tw) / 2, d - tf),
+        (bf, d - tf),
+        (bf, d),
+        (0, d),
+        (0, d - tf),
+        ((bf - tw) / 2, d - tf),
+        ((bf - tw) / 2, tf),
+        (0, tf),
+    ]
     from calcreport.model import Part, Shape
+
     beam = Part("W", Shape("polygon", (0, 0, bf, d), vertices=tuple(v)), steel())
     cover = rect("cover", 0, d, bf, d + 0.625, steel(36, 58))
     cap, log = run("steel_bolt", {"diameter": Q_(0.75, "in")}, context([cover], [beam]))
@@ -108,6 +128,7 @@ def test_rolled_shape_flange_thickness_measured_from_polygon():
 
 
 # --- fillet welds ------------------------------------------------------------------------------
+
 
 def test_strength_per_sixteenth_per_inch():
     te, Fnw, rn = fw.strength_per_inch(1 / 16, 70.0)
@@ -162,7 +183,9 @@ def test_cover_plate_lap_weld_edge_limit():
 
 def test_intermittent_segment():
     fl, web = girder()
-    cap, _ = run("fillet_weld", {"size": Q_(0.25, "in"), "segment": Q_(2, "in")}, context([fl], [web], method="LRFD"))
+    cap, _ = run(
+        "fillet_weld", {"size": Q_(0.25, "in"), "segment": Q_(2, "in")}, context([fl], [web], method="LRFD")
+    )
     assert not cap.continuous
     assert cap.value.to("kip").magnitude == pytest.approx(2 * 2 * 4 * 1.392, abs=0.02)
     assert cap.spacing_min.magnitude == 2
@@ -172,6 +195,7 @@ def test_intermittent_segment():
 
 # --- studs ---------------------------------------------------------------------------------------
 
+
 def test_stud_equation_i8_1():
     # Ec = 145^1.5·√4 = 3492 ksi; 0.5·Asa·√(f'c·Ec) = 26.1 kips; Rg·Rp·Asa·Fu = 0.75·0.4418·65 = 21.5 kips.
     assert st.concrete_modulus(145, 4) == pytest.approx(3492, abs=1)
@@ -179,12 +203,17 @@ def test_stud_equation_i8_1():
     assert a == pytest.approx(26.1, abs=0.05) and b == pytest.approx(21.5, abs=0.05) and q == b
 
 
-@pytest.mark.parametrize("deck,per_rib,expected", [("none", 1, 21.5), ("perpendicular", 1, 17.2),
-                                                    ("perpendicular", 2, 14.6)])
+@pytest.mark.parametrize(
+    "deck,per_rib,expected", [("none", 1, 21.5), ("perpendicular", 1, 17.2), ("perpendicular", 2, 14.6)]
+)
 def test_table_3_21_stud_strengths(deck, per_rib, expected):
     sl = rect("slab", -30, 25, 30, 31, concrete(4.0))
     fl = rect("tf", -6, 24, 6, 25, steel())
-    _, log = run("stud", {"diameter": Q_(0.75, "in"), "deck": deck, "per_rib": per_rib}, context([sl], [fl], method="LRFD"))
+    _, log = run(
+        "stud",
+        {"diameter": Q_(0.75, "in"), "deck": deck, "per_rib": per_rib},
+        context([sl], [fl], method="LRFD"),
+    )
     assert step(log, "Qn").result.to("kip").magnitude == pytest.approx(expected, abs=0.05)
 
 

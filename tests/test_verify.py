@@ -10,10 +10,10 @@ import hashlib
 
 import pypdf
 from reportlab.pdfgen.canvas import Canvas
+from review_helpers import DEMO, demo_text, edited, run, write
 
 from calcreport import __version__
 from calcreport.outputs.pdfmeta import KEY_JOB_SHA256, KEY_VERSION, job_metadata, stamp
-from review_helpers import DEMO, demo_text, edited, run, write
 
 
 def _sha(path) -> str:

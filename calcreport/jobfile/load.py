@@ -23,8 +23,15 @@ from .lines import LineIndex
 from .parts import read_part
 from .reader import Source, Table
 
-__all__ = ["load_job", "load_text", "MAX_FILE_BYTES", "MAX_MEMBERS", "MAX_PARTS", "MAX_JOINTS",
-           "MAX_MATERIALS"]
+__all__ = [
+    "load_job",
+    "load_text",
+    "MAX_FILE_BYTES",
+    "MAX_MEMBERS",
+    "MAX_PARTS",
+    "MAX_JOINTS",
+    "MAX_MATERIALS",
+]
 
 MAX_FILE_BYTES = 2_000_000
 MAX_MEMBERS = 500
@@ -69,8 +76,11 @@ def load_text(data: bytes, path: str = "<job>") -> Job:
             msg = msg.split(" (at line")[0]
         raise JobError(path, "", f"TOML syntax error: {msg}", line) from None
     except RecursionError:  # tomllib recurses once per level of [ or { nesting
-        raise JobError(path, "", "TOML nested too deeply (arrays or inline tables inside each other "
-                       "hundreds of levels deep)") from None
+        raise JobError(
+            path,
+            "",
+            "TOML nested too deeply (arrays or inline tables inside each other hundreds of levels deep)",
+        ) from None
     src = Source(path, LineIndex(text))
     root = Table(doc, src, (), "")
     header = _header(root.table("job", required=True))
@@ -81,21 +91,32 @@ def load_text(data: bytes, path: str = "<job>") -> Job:
         raise root.error(None, "missing required key 'member' (at least one [[member]])")
     members = [_member(mt, materials, settings) for mt, _ in member_tables]
     root.done()
-    return Job(path, hashlib.sha256(data).hexdigest(), header, settings, tuple(materials.values()),
-               tuple(members))
+    return Job(
+        path, hashlib.sha256(data).hexdigest(), header, settings, tuple(materials.values()), tuple(members)
+    )
 
 
 def _header(t: Table) -> Header:
     history = []
     for r in t.tables("history", id_key="mark"):
-        history.append(RevisionEntry(r.text("mark", True), r.text("date"), r.text("by"), r.text("description")))
+        history.append(
+            RevisionEntry(r.text("mark", True), r.text("date"), r.text("by"), r.text("description"))
+        )
         r.done()
     h = Header(
-        project=t.text("project", True), number=t.text("number"), client=t.text("client"),
-        subject=t.text("subject"), prepared_by=t.text("prepared_by"), checked_by=t.text("checked_by"),
-        revision=t.text("revision", default="0"), date=t.text("date"),
-        prepared_date=t.text("prepared_date"), checked_date=t.text("checked_date"),
-        approved_by=t.text("approved_by"), history=tuple(history), notes=t.texts("notes"),
+        project=t.text("project", True),
+        number=t.text("number"),
+        client=t.text("client"),
+        subject=t.text("subject"),
+        prepared_by=t.text("prepared_by"),
+        checked_by=t.text("checked_by"),
+        revision=t.text("revision", default="0"),
+        date=t.text("date"),
+        prepared_date=t.text("prepared_date"),
+        checked_date=t.text("checked_date"),
+        approved_by=t.text("approved_by"),
+        history=tuple(history),
+        notes=t.texts("notes"),
     )
     t.done()
     return h
@@ -104,7 +125,9 @@ def _header(t: Table) -> Header:
 def _settings(t: Table) -> Settings:
     units = t.choice("units", ("US", "SI"), "US")
     method = t.choice("method", ("ASD", "LRFD"), "ASD")
-    step = t.quantity("spacing_step", "length", default=parse("0.25 in" if units == "US" else "5 mm", "length"))
+    step = t.quantity(
+        "spacing_step", "length", default=parse("0.25 in" if units == "US" else "5 mm", "length")
+    )
     if not parse("1/64 in", "length") <= step <= parse("4 ft", "length"):
         raise t.error("spacing_step", "expected a spacing step from 1/64 in (0.4 mm) to 4 ft (1.2 m)")
     smax = t.quantity("spacing_max", "length")
@@ -124,8 +147,13 @@ def _settings(t: Table) -> Settings:
     display = {}
     dt = t.table("display")
     if dt is not None:
-        for kind, dim in (("force", "force"), ("length", "length"), ("stress", "stress"),
-                          ("shear_flow", "line_load"), ("moment", "moment")):
+        for kind, dim in (
+            ("force", "force"),
+            ("length", "length"),
+            ("stress", "stress"),
+            ("shear_flow", "line_load"),
+            ("moment", "moment"),
+        ):
             unit = dt.text(kind)
             if unit:
                 dt.parse_quantity(kind, f"1 {unit}", dim)
@@ -149,11 +177,17 @@ def _materials(root: Table) -> dict[str, Material]:
                 dens_mass = t.parse_quantity("density", raw, "mass_density")
                 density = (dens_mass * parse("1 gravity")).to("lbf/ft**3")
         out[mid] = Material(
-            id=mid, name=t.text("name", default=mid), E=t.quantity("E", "stress", True),
+            id=mid,
+            name=t.text("name", default=mid),
+            E=t.quantity("E", "stress", True),
             family=t.choice("family", FAMILIES, "other"),
-            Fb=t.quantity("Fb", "stress"), Fv=t.quantity("Fv", "stress"), Fy=t.quantity("Fy", "stress"),
-            Fu=t.quantity("Fu", "stress"), fc=t.quantity("fc", "stress"),
-            G=t.number("G", None, minimum=0.2, maximum=1.2), density=density,
+            Fb=t.quantity("Fb", "stress"),
+            Fv=t.quantity("Fv", "stress"),
+            Fy=t.quantity("Fy", "stress"),
+            Fu=t.quantity("Fu", "stress"),
+            fc=t.quantity("fc", "stress"),
+            G=t.number("G", None, minimum=0.2, maximum=1.2),
+            density=density,
             extra={"Fs": t.quantity("Fs", "stress"), "grade": t.text("grade")},
         )
         t.done()
@@ -176,19 +210,31 @@ def _member(t: Table, materials: dict[str, Material], settings: Settings) -> Mem
     parts = tuple(placed.values())
     for a, b, area in overlapping_pairs(parts):
         i = list(placed).index(b)
-        raise part_tables[i].error(None, f"part {b!r} overlaps part {a!r} by {area:.4g} in²; parts must only touch")
+        raise part_tables[i].error(
+            None, f"part {b!r} overlaps part {a!r} by {area:.4g} in²; parts must only touch"
+        )
     for pid in isolated_parts(parts)[-1:]:  # the last one listed is the likely misplaced one
         i = list(placed).index(pid)
-        raise part_tables[i].error(None, f"part {pid!r} touches no other part; every part must bear on another")
+        raise part_tables[i].error(
+            None, f"part {pid!r} touches no other part; every part must bear on another"
+        )
     ref_id = t.text("reference_material", default=parts[0].material.id)
     if ref_id not in materials:
-        raise t.error("reference_material", f"expected a material id ({', '.join(materials)}), got {ref_id!r}")
+        raise t.error(
+            "reference_material", f"expected a material id ({', '.join(materials)}), got {ref_id!r}"
+        )
     shear = t.quantity("shear", "force", allow_zero=True)
     joints = tuple(_joints(t, placed))
     member = Member(
-        id=mid, title=t.text("title", default=mid), description=t.text("description"),
-        parts=parts, joints=joints, reference_material=materials[ref_id], shear=shear,
-        assumptions=t.texts("assumptions"), notes=t.texts("notes"),
+        id=mid,
+        title=t.text("title", default=mid),
+        description=t.text("description"),
+        parts=parts,
+        joints=joints,
+        reference_material=materials[ref_id],
+        shear=shear,
+        assumptions=t.texts("assumptions"),
+        notes=t.texts("notes"),
     )
     member = _loads_hook(t, member, settings)
     if member.shear is None and not member.loads and not member.self_weight:
@@ -212,26 +258,35 @@ def _joints(t: Table, parts: dict[str, Part]):
         if isinstance(holds, str):
             holds = [holds]
         if not isinstance(holds, list) or not holds or not all(isinstance(h, str) for h in holds):
-            raise jt.error("holds", "expected a list of part ids, like [\"top_flange\"]")
+            raise jt.error("holds", 'expected a list of part ids, like ["top_flange"]')
         for h in holds:
             if h not in parts:
                 raise jt.error("holds", f"expected part ids ({', '.join(parts)}), got unknown {h!r}")
         if len(set(holds)) == len(parts):
-            raise jt.error("holds", "the held parts are the whole section; a joint holds the parts on ONE side of its shear plane")
+            raise jt.error(
+                "holds",
+                "the held parts are the whole section; a joint holds the parts on ONE side of its shear plane",
+            )
         held = [parts[h] for h in holds]
         rest = [p for p in parts.values() if p.id not in holds]
         if not contact_segments(held, rest):
-            raise jt.error("holds", "the held parts touch the rest of the section along no line; "
-                           "a joint needs a shear plane")
+            raise jt.error(
+                "holds",
+                "the held parts touch the rest of the section along no line; a joint needs a shear plane",
+            )
         ct = jt.table("connector", required=True)
         kind = ct.choice("type", connectors.kinds(), required=True)
         params = ct.fields(connectors.model_for(kind).FIELDS)
         given = tuple(k for k in ct.data if k != "type")
         ct.done()
         joint = Joint(
-            id=jid, holds=tuple(dict.fromkeys(holds)), connector=ConnectorSpec(kind, params, ct.label, given),
-            per_row=jt.integer("per_row", 1, 1, 50), label=jt.text("label"),
-            width=jt.quantity("width", "length"), spacing_max=jt.quantity("spacing_max", "length"),
+            id=jid,
+            holds=tuple(dict.fromkeys(holds)),
+            connector=ConnectorSpec(kind, params, ct.label, given),
+            per_row=jt.integer("per_row", 1, 1, 50),
+            label=jt.text("label"),
+            width=jt.quantity("width", "length"),
+            spacing_max=jt.quantity("spacing_max", "length"),
             spacing_min=jt.quantity("spacing_min", "length"),
         )
         jt.done()

@@ -52,36 +52,53 @@ def read_loads(t: Table, member: Member, settings: Settings) -> Member:
     self_weight = t.boolean("self_weight", False)
     span = t.quantity("span", "length")
     if span is None:
-        for name, items in (("load", load_tables), ("support", support_tables),
-                            ("combination", combo_tables)):
+        for name, items in (
+            ("load", load_tables),
+            ("support", support_tables),
+            ("combination", combo_tables),
+        ):
             if items:
-                raise t.error(None, f"missing required key 'span' (the member length, needed by "
-                                    f"[[{t.key(name)}]]), like span = \"20 ft\"")
+                raise t.error(
+                    None,
+                    f"missing required key 'span' (the member length, needed by "
+                    f'[[{t.key(name)}]]), like span = "20 ft"',
+                )
         if self_weight:
-            raise t.error("self_weight", "self_weight needs the member length: add span = \"20 ft\"")
+            raise t.error("self_weight", 'self_weight needs the member length: add span = "20 ft"')
         return member
     if not MIN_SPAN_IN <= float(span.to("inch").magnitude) <= MAX_SPAN_FT * 12:
-        raise t.error("span", f"expected a span from {MIN_SPAN_IN:g} in to {MAX_SPAN_FT:,} ft (610 m), "
-                              f"got {t.data['span']!r}")
-    for name, items, cap in (("load", load_tables, MAX_LOADS), ("support", support_tables, MAX_SUPPORTS),
-                             ("combination", combo_tables, MAX_COMBINATIONS)):
+        raise t.error(
+            "span",
+            f"expected a span from {MIN_SPAN_IN:g} in to {MAX_SPAN_FT:,} ft (610 m), got {t.data['span']!r}",
+        )
+    for name, items, cap in (
+        ("load", load_tables, MAX_LOADS),
+        ("support", support_tables, MAX_SUPPORTS),
+        ("combination", combo_tables, MAX_COMBINATIONS),
+    ):
         if len(items) > cap:
             raise t.error(name, f"expected at most {cap} entries, got {len(items)}")
     if not load_tables and not self_weight:
         raise t.error("span", "a span needs loads: add [[member.load]] tables or self_weight = true")
     supports = tuple(_support(st, span) for st in support_tables) or (
-        Support(Q_(0.0, "inch")), Support(span.to("inch")))
-    if not any(s.kind == "fixed" for s in supports) and len(
-            {round(float(s.x.to("inch").magnitude), 9) for s in supports}) < 2:
+        Support(Q_(0.0, "inch")),
+        Support(span.to("inch")),
+    )
+    if (
+        not any(s.kind == "fixed" for s in supports)
+        and len({round(float(s.x.to("inch").magnitude), 9) for s in supports}) < 2
+    ):
         target = support_tables[-1] if support_tables else t
-        raise target.error(None, "the member needs one fixed support or supports at two different "
-                                 "places")
+        raise target.error(None, "the member needs one fixed support or supports at two different places")
     loads = tuple(_load(lt, span) for lt in load_tables)
     if self_weight:
         for p in member.parts:
             if p.material.density is None:
-                raise t.error("self_weight", f"self_weight needs a density for material "
-                                             f"{p.material.id!r} (part {p.id!r}), like density = \"35 pcf\"")
+                raise t.error(
+                    "self_weight",
+                    f"self_weight needs a density for material "
+                    f'{p.material.id!r} (part {p.id!r}), like density = "35 pcf"',
+                )
     cases = {ld.case for ld in loads} | ({"D"} if self_weight else set())
     combos = tuple(_combination(ct, cases) for ct in combo_tables)
     names = [c.name for c in combos]
@@ -92,10 +109,14 @@ def read_loads(t: Table, member: Member, settings: Settings) -> Member:
         own = sorted(cases - set(STANDARD_CASES))
         if own:
             lt = next(lt for lt, ld in zip(load_tables, loads) if ld.case in own)
-            raise lt.error("case", f"case {own[0]!r} is in no standard combination; list the "
-                                   f"combinations with [[{t.key('combination')}]] tables")
-    return replace(member, span=span, supports=supports, loads=loads, combinations=combos,
-                   self_weight=self_weight)
+            raise lt.error(
+                "case",
+                f"case {own[0]!r} is in no standard combination; list the "
+                f"combinations with [[{t.key('combination')}]] tables",
+            )
+    return replace(
+        member, span=span, supports=supports, loads=loads, combinations=combos, self_weight=self_weight
+    )
 
 
 def _position(t: Table, name: str, span, required: bool = False):
@@ -114,8 +135,11 @@ def _support(t: Table, span) -> Support:
 def _case(t: Table) -> str:
     case = t.text("case", required=True).strip()
     if not case or len(case) > 24 or not all(ch.isalnum() or ch in "_-" for ch in case):
-        raise t.error("case", f"expected a load case name (D, L, Lr, S, R, W or a short name of "
-                              f"letters and digits), got {t.data['case']!r}")
+        raise t.error(
+            "case",
+            f"expected a load case name (D, L, Lr, S, R, W or a short name of "
+            f"letters and digits), got {t.data['case']!r}",
+        )
     for std in STANDARD_CASES:
         if case.lower() == std.lower():
             return std
@@ -123,13 +147,21 @@ def _case(t: Table) -> str:
 
 
 def _load(t: Table, span) -> Load:
-    t.ident("id", required=False)  # optional short id: lets a revision diff follow a load that moved in the list
+    t.ident(
+        "id", required=False
+    )  # optional short id: lets a revision diff follow a load that moved in the list
     case = _case(t)
     kind = t.choice("kind", LOAD_KINDS, required=True)
     label = t.text("label")
     if kind == "point":
-        ld = Load(case, kind, t.quantity("P", "force", required=True, positive=False),
-                  at=_position(t, "at", span, required=True), label=label, key=t.label)
+        ld = Load(
+            case,
+            kind,
+            t.quantity("P", "force", required=True, positive=False),
+            at=_position(t, "at", span, required=True),
+            label=label,
+            key=t.label,
+        )
     else:
         start = _position(t, "from", span)
         end = _position(t, "to", span)
@@ -143,7 +175,8 @@ def _load(t: Table, span) -> Load:
             w2 = t.quantity("w_end", "line_load", required=True, positive=False)
         ld = Load(case, kind, w1, start=start, end=end, magnitude_end=w2, label=label, key=t.label)
         if (end is not None and end.to("inch").magnitude <= 0) or (
-                start is not None and start >= span * (1 - 1e-12)):
+            start is not None and start >= span * (1 - 1e-12)
+        ):
             raise t.error("from" if start is not None else "to", "the load has no length on the member")
     t.done()
     return ld
@@ -157,8 +190,9 @@ def _combination(t: Table, cases: set[str]) -> Combination:
         case = next((s for s in STANDARD_CASES if s.lower() == str(raw).lower()), str(raw))
         f = ft.number(raw, required=True, minimum=-10.0, maximum=10.0)
         if case not in cases:
-            raise ft.error(raw, f"no loads of case {case!r} on this member (cases: "
-                                f"{', '.join(sorted(cases)) or 'none'})")
+            raise ft.error(
+                raw, f"no loads of case {case!r} on this member (cases: {', '.join(sorted(cases)) or 'none'})"
+            )
         factors[case] = f
     ft.done()
     if not factors:

@@ -44,7 +44,7 @@ def dressed_size(nominal: str) -> tuple[float, float]:
     """
     m = _NOMINAL.match(nominal)
     if not m:
-        raise LumberSizeError(f"expected a nominal size like \"2x10\", got {nominal!r}")
+        raise LumberSizeError(f'expected a nominal size like "2x10", got {nominal!r}')
     t, w = int(m.group(1)), int(m.group(2))
     if t > w:
         t, w = w, t

@@ -30,8 +30,26 @@ SHAPES = ("rect", "plate", "lumber", "bar", "polygon", "rolled")
 PLACEMENTS = ("on", "below", "left_of", "right_of", "at")
 MAX_VERTICES = 2000
 #: every key a part table may hold, whatever its shape
-PART_KEYS = ("id", "shape", "material", "label", "width", "depth", "thickness", "upright", "size", "flat",
-             "diameter", "points", "area", "inertia", "centroid", "designation", "align", "offset") + PLACEMENTS
+PART_KEYS = (
+    "id",
+    "shape",
+    "material",
+    "label",
+    "width",
+    "depth",
+    "thickness",
+    "upright",
+    "size",
+    "flat",
+    "diameter",
+    "points",
+    "area",
+    "inertia",
+    "centroid",
+    "designation",
+    "align",
+    "offset",
+) + PLACEMENTS
 #: Smallest part dimension (0.001 in = 0.025 mm): thinner is a typing slip, and it would make the
 #: section's area vanish (common practice, no source).
 MIN_DIMENSION = 1e-3
@@ -60,22 +78,26 @@ def _read_polygon(t: Table) -> Shape:
     verts = []
     for i, p in enumerate(pts):
         if not isinstance(p, list) or len(p) != 2:
-            raise t.error("points", f"point {i + 1}: expected [x, y] like [\"0 in\", \"2 in\"]")
+            raise t.error("points", f'point {i + 1}: expected [x, y] like ["0 in", "2 in"]')
         x = t.parse_quantity(("points", i, 0), p[0], "length", positive=False)
         y = t.parse_quantity(("points", i, 1), p[1], "length", positive=False)
         verts.append((float(x.to(_IN).magnitude), float(y.to(_IN).magnitude)))
     from shapely.geometry import Polygon
 
     poly = Polygon(verts)
-    if not poly.is_valid or poly.area <= MIN_DIMENSION ** 2:
+    if not poly.is_valid or poly.area <= MIN_DIMENSION**2:
         raise t.error("points", "expected a simple polygon with area (edges must not cross)")
     if poly.exterior.is_ccw is False:
         verts.reverse()
     xs, ys = [v[0] for v in verts], [v[1] for v in verts]
     x0, y0 = min(xs), min(ys)
     verts = [(x - x0, y - y0) for x, y in verts]
-    return Shape("polygon", (0.0, 0.0, max(xs) - x0, max(ys) - y0), vertices=tuple(verts),
-                 description=f"polygon, {len(verts)} vertices")
+    return Shape(
+        "polygon",
+        (0.0, 0.0, max(xs) - x0, max(ys) - y0),
+        vertices=tuple(verts),
+        description=f"polygon, {len(verts)} vertices",
+    )
 
 
 def _read_shape(t: Table, kind: str) -> Shape:
@@ -99,16 +121,17 @@ def _read_shape(t: Table, kind: str) -> Shape:
         return _box(thick, w, description=f"{nominal} lumber, on edge", nominal=nominal)
     if kind == "bar":
         d = _len(t, "diameter")
-        return Shape("circle", (0.0, 0.0, d, d), centre=(d / 2, d / 2), radius=d / 2,
-                     description="round bar")
+        return Shape("circle", (0.0, 0.0, d, d), centre=(d / 2, d / 2), radius=d / 2, description="round bar")
     if kind == "polygon":
         return _read_polygon(t)
     # rolled: given by its properties
     area = float(t.quantity("area", "area", required=True).to("inch**2").magnitude)
     inertia = float(t.quantity("inertia", "inertia", required=True).to("inch**4").magnitude)
-    if area < MIN_DIMENSION ** 2 or inertia < MIN_DIMENSION ** 4:
-        raise t.error("area" if area < MIN_DIMENSION ** 2 else "inertia",
-                      "expected a rolled shape of at least 1e-6 in² and 1e-12 in⁴")
+    if area < MIN_DIMENSION**2 or inertia < MIN_DIMENSION**4:
+        raise t.error(
+            "area" if area < MIN_DIMENSION**2 else "inertia",
+            "expected a rolled shape of at least 1e-6 in² and 1e-12 in⁴",
+        )
     depth, width = _len(t, "depth"), _len(t, "width")
     cy = _len(t, "centroid", required=False)
     cy = depth / 2 if cy is None else cy
@@ -117,8 +140,15 @@ def _read_shape(t: Table, kind: str) -> Shape:
     if area > width * depth * (1 + 1e-9):
         raise t.error("area", "expected an area no larger than width × depth")
     name = t.text("designation")
-    return Shape("properties", (0.0, 0.0, width, depth), area=area, inertia=inertia,
-                 centroid=(width / 2, cy), description="rolled shape by properties", nominal=name)
+    return Shape(
+        "properties",
+        (0.0, 0.0, width, depth),
+        area=area,
+        inertia=inertia,
+        centroid=(width / 2, cy),
+        description="rolled shape by properties",
+        nominal=name,
+    )
 
 
 def _translate(s: Shape, dx: float, dy: float) -> Shape:
@@ -147,7 +177,7 @@ def _place(t: Table, s: Shape, placed: dict[str, Part], first: bool) -> Shape:
     if how == "at":
         xy = t.raw("at")
         if not isinstance(xy, list) or len(xy) != 2:
-            raise t.error("at", "expected [x, y] like [\"0 in\", \"9.25 in\"]")
+            raise t.error("at", 'expected [x, y] like ["0 in", "9.25 in"]')
         x = t.parse_quantity(("at", 0), xy[0], "length", positive=False)
         y = t.parse_quantity(("at", 1), xy[1], "length", positive=False)
         return _translate(s, float(x.to(_IN).magnitude), float(y.to(_IN).magnitude))
@@ -178,7 +208,9 @@ def read_part(t: Table, materials: dict[str, Material], placed: dict[str, Part])
     kind = t.choice("shape", SHAPES, required=True)
     mat_id = t.text("material", required=True)
     if mat_id not in materials:
-        raise t.error("material", f"expected a material id ({', '.join(materials) or 'none defined'}), got {mat_id!r}")
+        raise t.error(
+            "material", f"expected a material id ({', '.join(materials) or 'none defined'}), got {mat_id!r}"
+        )
     shape = _place(t, _read_shape(t, kind), placed, first=not placed)
     if not all(math.isfinite(v) and abs(v) < 1e5 for v in shape.bbox):
         raise t.error(None, "part lies more than 100,000 in from the origin")

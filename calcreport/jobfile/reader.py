@@ -4,8 +4,9 @@ from __future__ import annotations
 
 import difflib
 import math
+from collections.abc import Iterable
 from dataclasses import dataclass
-from typing import Any, Iterable
+from typing import Any
 
 from ..errors import JobError
 from ..fields import Field
@@ -88,8 +89,9 @@ class Table:
         if not v and not required:
             return v
         if not (0 < len(v) <= 60) or v != v.strip() or not all(c.isprintable() for c in v):
-            raise self.error(name, f"expected a short id (1 to 60 printable characters, like \"top_flange\"), "
-                                   f"got {v[:40]!r}")
+            raise self.error(
+                name, f'expected a short id (1 to 60 printable characters, like "top_flange"), got {v[:40]!r}'
+            )
         return v
 
     def texts(self, name: str) -> tuple[str, ...]:
@@ -104,15 +106,23 @@ class Table:
             raise self.error(name, f"expected lines of at most {MAX_TEXT} characters")
         return tuple(v)
 
-    def quantity(self, name: str, dim: str, required: bool = False, positive: bool = True,
-                 default: Quantity | None = None, allow_zero: bool = False) -> Quantity | None:
+    def quantity(
+        self,
+        name: str,
+        dim: str,
+        required: bool = False,
+        positive: bool = True,
+        default: Quantity | None = None,
+        allow_zero: bool = False,
+    ) -> Quantity | None:
         v = self.raw(name, required, f"a {dim.replace('_', ' ')} with its unit")
         if v is None:
             return default
         return self.parse_quantity(name, v, dim, positive, allow_zero)
 
-    def parse_quantity(self, name: str | tuple, v: Any, dim: str, positive: bool = True,
-                       allow_zero: bool = False) -> Quantity:
+    def parse_quantity(
+        self, name: str | tuple, v: Any, dim: str, positive: bool = True, allow_zero: bool = False
+    ) -> Quantity:
         """Parse ``v`` as a quantity of dimension ``dim``; ``name`` may be a sub-path tuple."""
         sub = name if isinstance(name, tuple) else (name,)
         label = self.label + "".join(f"[{s}]" if isinstance(s, int) else f".{s}" for s in sub)
@@ -122,12 +132,19 @@ class Table:
             raise self._error_at(self.path + sub, label.lstrip("."), str(exc)) from None
         mag = float(q.magnitude)
         if positive and (mag < 0 or (mag == 0 and not allow_zero)):
-            raise self._error_at(self.path + sub, label.lstrip("."),
-                                 f"expected a value greater than zero, got {v!r}")
+            raise self._error_at(
+                self.path + sub, label.lstrip("."), f"expected a value greater than zero, got {v!r}"
+            )
         return q
 
-    def integer(self, name: str, default: int | None = None, minimum: int = 1,
-                maximum: int = 10_000, required: bool = False) -> int | None:
+    def integer(
+        self,
+        name: str,
+        default: int | None = None,
+        minimum: int = 1,
+        maximum: int = 10_000,
+        required: bool = False,
+    ) -> int | None:
         v = self.raw(name, required, "a whole number")
         if v is None:
             return default
@@ -137,8 +154,14 @@ class Table:
             raise self.error(name, f"expected a whole number from {minimum} to {maximum}, got {v}")
         return v
 
-    def number(self, name: str, default: float | None = None, required: bool = False,
-               minimum: float | None = None, maximum: float | None = None) -> float | None:
+    def number(
+        self,
+        name: str,
+        default: float | None = None,
+        required: bool = False,
+        minimum: float | None = None,
+        maximum: float | None = None,
+    ) -> float | None:
         v = self.raw(name, required, "a number")
         if v is None:
             return default
@@ -156,8 +179,14 @@ class Table:
             raise self.error(name, f"expected true or false, got {_kind(v)}")
         return v
 
-    def choice(self, name: str, choices: Iterable[str], default: str | None = None,
-               required: bool = False, fold_case: bool = True) -> str | None:
+    def choice(
+        self,
+        name: str,
+        choices: Iterable[str],
+        default: str | None = None,
+        required: bool = False,
+        fold_case: bool = True,
+    ) -> str | None:
         choices = list(choices)
         v = self.raw(name, required, "one of " + ", ".join(choices))
         if v is None:
@@ -170,13 +199,13 @@ class Table:
         hint = _suggest(v, choices)
         raise self.error(name, f"expected one of {', '.join(choices)}, got {v!r}{hint}")
 
-    def table(self, name: str, required: bool = False) -> "Table | None":
+    def table(self, name: str, required: bool = False) -> Table | None:
         v = self.raw(name, required, "a table")
         if v is None:
             return None
         return Table(v, self.src, self.path + (name,), self.key(name))
 
-    def tables(self, name: str, id_key: str = "id") -> list["Table"]:
+    def tables(self, name: str, id_key: str = "id") -> list[Table]:
         """An array of tables; each child's label uses its id when it has one."""
         v = self.raw(name)
         if v is None:
@@ -192,7 +221,7 @@ class Table:
             out.append(Table(item, self.src, self.path + (name, i), f"{self.key(name)}[{tag}]"))
         return out
 
-    def id_tables(self, name: str, limit: int, what: str) -> list[tuple["Table", str]]:
+    def id_tables(self, name: str, limit: int, what: str) -> list[tuple[Table, str]]:
         """An array of tables that each carry a unique short ``id``: at most ``limit`` of them
         (refused before any is read), each with its id; a repeated id is an error naming it."""
         tables = self.tables(name)
@@ -215,11 +244,21 @@ class Table:
             if f.kind == "text":
                 out[f.name] = self.text(f.name, f.required, f.default if f.default is not None else "")
             elif f.kind == "int":
-                out[f.name] = self.integer(f.name, f.default, int(f.minimum if f.minimum is not None else 1),
-                                           int(f.maximum if f.maximum is not None else 10_000), f.required)
+                out[f.name] = self.integer(
+                    f.name,
+                    f.default,
+                    int(f.minimum if f.minimum is not None else 1),
+                    int(f.maximum if f.maximum is not None else 10_000),
+                    f.required,
+                )
             elif f.kind == "number":
-                v = self.number(f.name, f.default, f.required,
-                                f.minimum if f.minimum is not None else (0.0 if f.positive else None), f.maximum)
+                v = self.number(
+                    f.name,
+                    f.default,
+                    f.required,
+                    f.minimum if f.minimum is not None else (0.0 if f.positive else None),
+                    f.maximum,
+                )
                 if f.positive and f.minimum is None and v is not None and v <= 0:
                     raise self.error(f.name, f"expected a number greater than zero, got {v!r}")
                 out[f.name] = v

@@ -29,11 +29,13 @@ from .report.template import Template, load_template
 
 __all__ = ["write_change_report", "render_change_report", "CAUTIONS"]
 
-CAUTIONS = ("This change report lists differences between two revisions only; the calculation report "
-            "of the new revision is the document of record. Both must be reviewed, and the calculation "
-            "sealed, by a licensed professional engineer. Local codes and the authority having "
-            "jurisdiction govern. calcreport checks only what the calculation report shows; see its "
-            "limitations.")
+CAUTIONS = (
+    "This change report lists differences between two revisions only; the calculation report "
+    "of the new revision is the document of record. Both must be reviewed, and the calculation "
+    "sealed, by a licensed professional engineer. Local codes and the authority having "
+    "jurisdiction govern. calcreport checks only what the calculation report shows; see its "
+    "limitations."
+)
 HIGHLIGHT = colors.HexColor("#fff0a0")
 MAX_PASSES = 4
 
@@ -52,10 +54,18 @@ def _canvas_class(entries: dict[str, str]):
 def _page_info(diff: JobDiff, tpl: Template) -> PageInfo:
     job, h = diff.new.job, diff.new.job.header
     return PageInfo(
-        firm=tpl.firm, address=tpl.address, project=h.project, number=h.number,
-        subject=f"Change report, revision {h.revision or '—'}", revision=h.revision,
-        prepared=h.prepared_by, prepared_date=h.prepared_date or h.date, checked=h.checked_by,
-        checked_date=h.checked_date, job_file=os.path.basename(job.path), sha_short=job.sha256[:12],
+        firm=tpl.firm,
+        address=tpl.address,
+        project=h.project,
+        number=h.number,
+        subject=f"Change report, revision {h.revision or '—'}",
+        revision=h.revision,
+        prepared=h.prepared_by,
+        prepared_date=h.prepared_date or h.date,
+        checked=h.checked_by,
+        checked_date=h.checked_date,
+        job_file=os.path.basename(job.path),
+        sha_short=job.sha256[:12],
         version=__version__,
     )
 
@@ -73,23 +83,44 @@ class _Build:
 
     def table(self, header: list[str], rows: list[list], fractions: list[float], now_col: int):
         extra = [("BACKGROUND", (now_col, 1), (now_col, -1), HIGHLIGHT)] if rows else []
-        return grid([header] + rows, [self.w * f for f in fractions], self.st, extra=extra, zebra=False,
-                    frame_height=self.fh)
+        return grid(
+            [header] + rows,
+            [self.w * f for f in fractions],
+            self.st,
+            extra=extra,
+            zebra=False,
+            frame_height=self.fh,
+        )
 
     def story(self) -> list:
         diff, st, d = self.diff, self.st, self.d
         h_new, h_old = diff.new.job.header, diff.old.job.header
         out: list = [
-            para(f"Changes in revision {h_new.revision or '—'} (from revision {h_old.revision or '—'})", st.h1),
-            para(f"New: {diff.new.label} — revision {h_new.revision}, {h_new.date}; SHA-256 {diff.new.job.sha256}",
-                 st.small),
-            para(f"Previous: {diff.old.label} — revision {h_old.revision}, {h_old.date}; "
-                 f"SHA-256 {diff.old.job.sha256}", st.small),
+            para(
+                f"Changes in revision {h_new.revision or '—'} (from revision {h_old.revision or '—'})", st.h1
+            ),
+            para(
+                f"New: {diff.new.label} — revision {h_new.revision}, {h_new.date}; SHA-256 {diff.new.job.sha256}",
+                st.small,
+            ),
+            para(
+                f"Previous: {diff.old.label} — revision {h_old.revision}, {h_old.date}; "
+                f"SHA-256 {diff.old.job.sha256}",
+                st.small,
+            ),
             Spacer(1, 4),
-            para("Results changed." if diff.results_changed else
-                 "No result changed." + (" Inputs changed only." if diff.inputs_changed else ""), st.body, "b"),
-            para(f"Values in {d.system} units of the new revision. Changed values are highlighted and marked "
-                 f"with the revision triangle {self.letter}.", st.body),
+            para(
+                "Results changed."
+                if diff.results_changed
+                else "No result changed." + (" Inputs changed only." if diff.inputs_changed else ""),
+                st.body,
+                "b",
+            ),
+            para(
+                f"Values in {d.system} units of the new revision. Changed values are highlighted and marked "
+                f"with the revision triangle {self.letter}.",
+                st.body,
+            ),
         ]
         out += self._results() + self._schedules() + self._steps() + self._inputs() + self._entities()
         if not (diff.summary or diff.schedules or diff.steps or diff.inputs or diff.added or diff.removed):
@@ -109,24 +140,38 @@ class _Build:
             rows.append([self.mark(owner_title(c.owner, titles)), c.label, a, b])
         if not rows:
             return []
-        return [*heading("Results", self.st.h2),
-                self.table(["Where", "Quantity", "Previous", "Now"], rows, [0.34, 0.26, 0.2, 0.2], 3)]
+        return [
+            *heading("Results", self.st.h2),
+            self.table(["Where", "Quantity", "Previous", "Now"], rows, [0.34, 0.26, 0.2, 0.2], 3),
+        ]
 
     def _schedules(self) -> list:
         """Each changed schedule whole: N and the zone list before and now (zones by position)."""
         rows = []
         for c in self.diff.schedules:
+
             def zones(sch, fresh=()):
                 return [para(figures_text(self.d, sch), self.st.cell)] + [
                     para(f"{k}: {zone_text(self.d, z)}" + (" (changed)" if k in fresh else ""), self.st.cell)
-                    for k, z in enumerate(getattr(sch, "zones", ()) or (), 1)]
-            rows.append([self.mark(owner_title(c.owner)) + [para(", ".join(c.changed), self.st.small)],
-                         zones(c.old), zones(c.new, c.new_zones)])
+                    for k, z in enumerate(getattr(sch, "zones", ()) or (), 1)
+                ]
+
+            rows.append(
+                [
+                    self.mark(owner_title(c.owner)) + [para(", ".join(c.changed), self.st.small)],
+                    zones(c.old),
+                    zones(c.new, c.new_zones),
+                ]
+            )
         if not rows:
             return []
-        return [*heading("Connector schedules", self.st.h2),
-                para("Zones are compared by their position along the member, not by their number.", self.st.small),
-                self.table(["Joint (what changed)", "Previous", "Now"], rows, [0.24, 0.38, 0.38], 2)]
+        return [
+            *heading("Connector schedules", self.st.h2),
+            para(
+                "Zones are compared by their position along the member, not by their number.", self.st.small
+            ),
+            self.table(["Joint (what changed)", "Previous", "Now"], rows, [0.24, 0.38, 0.38], 2),
+        ]
 
     def _steps(self) -> list:
         rows = []
@@ -142,8 +187,10 @@ class _Build:
             rows.append([self.mark(f"{ref.label} ({ref.symbol})") + [para(s.key, self.st.small)], a, b])
         if not rows:
             return []
-        return [*heading("Derivation steps", self.st.h2),
-                self.table(["Step", "Previous", "Now"], rows, [0.5, 0.25, 0.25], 2)]
+        return [
+            *heading("Derivation steps", self.st.h2),
+            self.table(["Step", "Previous", "Now"], rows, [0.5, 0.25, 0.25], 2),
+        ]
 
     def _inputs(self) -> list:
         rows = []
@@ -152,17 +199,23 @@ class _Build:
             rows.append([self.mark(c.key), a, f"{b} ({hint})" if hint else b])
         if not rows:
             return []
-        return [*heading("Inputs", self.st.h2),
-                self.table(["Key in the job file", "Previous", "Now"], rows, [0.4, 0.3, 0.3], 2)]
+        return [
+            *heading("Inputs", self.st.h2),
+            self.table(["Key in the job file", "Previous", "Now"], rows, [0.4, 0.3, 0.3], 2),
+        ]
 
     def _entities(self) -> list:
-        rows = [[self.mark(what), e.kind, e.id, e.key] for what, items in (("added", self.diff.added),
-                                                                           ("removed", self.diff.removed))
-                for e in items]
+        rows = [
+            [self.mark(what), e.kind, e.id, e.key]
+            for what, items in (("added", self.diff.added), ("removed", self.diff.removed))
+            for e in items
+        ]
         if not rows:
             return []
-        return [*heading("Added and removed", self.st.h2),
-                self.table(["Change", "Kind", "Id", "Key in the job file"], rows, [0.15, 0.15, 0.25, 0.45], 0)]
+        return [
+            *heading("Added and removed", self.st.h2),
+            self.table(["Change", "Kind", "Id", "Key in the job file"], rows, [0.15, 0.15, 0.25, 0.45], 0),
+        ]
 
 
 def render_change_report(diff: JobDiff) -> bytes:
@@ -178,9 +231,17 @@ def render_change_report(diff: JobDiff) -> bytes:
     pdf = b""
     for _ in range(MAX_PASSES):
         buf = io.BytesIO()
-        doc = ReportDoc(buf, tpl, styles, info, maker, title=f"{h.project} — change report, revision {h.revision}",
-                        author=h.prepared_by or "calcreport", subject=f"Changes from {diff.old.label} to "
-                        f"{diff.new.label}", creator=f"calcreport {__version__}")
+        doc = ReportDoc(
+            buf,
+            tpl,
+            styles,
+            info,
+            maker,
+            title=f"{h.project} — change report, revision {h.revision}",
+            author=h.prepared_by or "calcreport",
+            subject=f"Changes from {diff.old.label} to {diff.new.label}",
+            creator=f"calcreport {__version__}",
+        )
         doc.current_subject = f"Changes from revision {diff.old.job.header.revision or '—'}"
         doc.build(_Build(diff, styles, tpl, doc.width, doc.frame_height).story(), canvasmaker=maker)
         pdf = buf.getvalue()
@@ -194,4 +255,3 @@ def render_change_report(diff: JobDiff) -> bytes:
 def write_change_report(diff: JobDiff, out_path: str) -> None:
     """Write the change report to ``out_path`` atomically (nothing half-written on failure)."""
     write_atomic(render_change_report(diff), out_path)
-

@@ -16,8 +16,9 @@ job's unit system. Nothing here computes an engineering value; it only lines up 
 from __future__ import annotations
 
 import re
+from collections.abc import Iterable
 from dataclasses import dataclass
-from typing import Any, Iterable
+from typing import Any
 
 from ..model import Job
 from ..solve.results import Check, JobResult, JointResult, MemberResult
@@ -26,8 +27,24 @@ from ..units import Quantity, UnitParseError, parse
 from .compare import RESULT_RTOL, same_value
 from .diff_schedule import ScheduleChange, diff_schedules, is_zone_step, schedule_keys
 
-__all__ = ["Side", "SummaryChange", "StepChange", "InputChange", "Entity", "JobDiff", "ScheduleChange", "compute_diff",
-           "diff_results", "diff_inputs", "same_value", "same_input", "input_quantity", "changed_keys", "RESULT_RTOL", "INPUT_RTOL"]
+__all__ = [
+    "Side",
+    "SummaryChange",
+    "StepChange",
+    "InputChange",
+    "Entity",
+    "JobDiff",
+    "ScheduleChange",
+    "compute_diff",
+    "diff_results",
+    "diff_inputs",
+    "same_value",
+    "same_input",
+    "input_quantity",
+    "changed_keys",
+    "RESULT_RTOL",
+    "INPUT_RTOL",
+]
 
 #: Inputs agree when they differ by less than this fraction (unit conversions are exact to ~1e-15).
 INPUT_RTOL = 1e-9
@@ -116,20 +133,38 @@ class JobDiff:
 # -- results --------------------------------------------------------------------------------------
 
 _MEMBER_FIELDS = (("status", "status"), ("shear", "design shear V"))
-_SECTION_FIELDS = (("area", "transformed area A"), ("centroid", "neutral axis ȳ"),
-                   ("inertia", "moment of inertia I"), ("depth", "depth"))
-_JOINT_FIELDS = (("status", "status"), ("spacing_provided", "practical spacing"),
-                 ("spacing_required", "required spacing"), ("utilisation", "utilisation"),
-                 ("Q", "first moment Q"), ("shear_flow", "shear flow q"), ("shear", "design shear V"),
-                 ("capacity", "capacity per connector"), ("capacity_row", "capacity per row"),
-                 ("per_row", "connectors per row"), ("connector", "connector"),
-                 ("spacing_min", "minimum spacing"), ("spacing_max", "maximum spacing"))
-_CHECK_FIELDS = (("status", "status"), ("ratio", "utilisation"), ("demand", "demand"),
-                 ("capacity", "capacity"))
+_SECTION_FIELDS = (
+    ("area", "transformed area A"),
+    ("centroid", "neutral axis ȳ"),
+    ("inertia", "moment of inertia I"),
+    ("depth", "depth"),
+)
+_JOINT_FIELDS = (
+    ("status", "status"),
+    ("spacing_provided", "practical spacing"),
+    ("spacing_required", "required spacing"),
+    ("utilisation", "utilisation"),
+    ("Q", "first moment Q"),
+    ("shear_flow", "shear flow q"),
+    ("shear", "design shear V"),
+    ("capacity", "capacity per connector"),
+    ("capacity_row", "capacity per row"),
+    ("per_row", "connectors per row"),
+    ("connector", "connector"),
+    ("spacing_min", "minimum spacing"),
+    ("spacing_max", "maximum spacing"),
+)
+_CHECK_FIELDS = (
+    ("status", "status"),
+    ("ratio", "utilisation"),
+    ("demand", "demand"),
+    ("capacity", "capacity"),
+)
 
 
-def _fields(owner: str, old: Any, new: Any, spec: Iterable[tuple[str, str]], out: list,
-            prefix: str = "") -> None:
+def _fields(
+    owner: str, old: Any, new: Any, spec: Iterable[tuple[str, str]], out: list, prefix: str = ""
+) -> None:
     for name, label in spec:
         a, b = getattr(old, name), getattr(new, name)
         if not same_value(a, b):
@@ -220,6 +255,7 @@ def diff_results(old: JobResult, new: JobResult) -> tuple[list[SummaryChange], l
 
 # -- inputs -------------------------------------------------------------------------------------
 
+
 def input_quantity(v: Any) -> Quantity | None:
     """A quantity when ``v`` is a number or a string that pint reads as a value WITH a unit.
 
@@ -307,8 +343,9 @@ class _InputWalker:
                 self.removed.append(Entity(kind, key, ident))
 
 
-def diff_inputs(old_doc: dict, new_doc: dict, rtol: float = INPUT_RTOL
-                ) -> tuple[list[InputChange], list[Entity], list[Entity]]:
+def diff_inputs(
+    old_doc: dict, new_doc: dict, rtol: float = INPUT_RTOL
+) -> tuple[list[InputChange], list[Entity], list[Entity]]:
     """Changed leaves, added tables and removed tables between two raw TOML documents."""
     w = _InputWalker(rtol)
     w.table(old_doc, new_doc, "")
@@ -316,6 +353,7 @@ def diff_inputs(old_doc: dict, new_doc: dict, rtol: float = INPUT_RTOL
 
 
 # -- whole diff ----------------------------------------------------------------------------------
+
 
 def compute_diff(old: Side, new: Side) -> JobDiff:
     """Everything that changed from ``old`` to ``new``."""
@@ -325,8 +363,9 @@ def compute_diff(old: Side, new: Side) -> JobDiff:
     whole = {c.key for c in schedules}
     steps = [s for s in steps if s.result_changed or not _under(s.key, whole)]
     inputs, added, removed = diff_inputs(old.doc, new.doc)
-    return JobDiff(old, new, tuple(summary), tuple(steps), tuple(inputs), tuple(added), tuple(removed),
-                   tuple(schedules))
+    return JobDiff(
+        old, new, tuple(summary), tuple(steps), tuple(inputs), tuple(added), tuple(removed), tuple(schedules)
+    )
 
 
 def changed_keys(diff: JobDiff) -> frozenset[str]:

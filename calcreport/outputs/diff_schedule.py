@@ -17,19 +17,34 @@ Nothing here computes an engineering value: it lines the solver's records up and
 from __future__ import annotations
 
 import re
+from collections.abc import Iterable
 from dataclasses import dataclass
-from typing import Any, Iterable
+from typing import Any
 
 from ..solve.results import JobResult
 from .compare import same_value
 from .fmt import Display
 
-__all__ = ["ScheduleChange", "diff_schedules", "is_zone_step", "same_zone", "schedule_keys",
-           "zone_text", "figures_text", "FIGURES", "ZONE_FIELDS"]
+__all__ = [
+    "ScheduleChange",
+    "diff_schedules",
+    "is_zone_step",
+    "same_zone",
+    "schedule_keys",
+    "zone_text",
+    "figures_text",
+    "FIGURES",
+    "ZONE_FIELDS",
+]
 
 #: Economy figures of a schedule compared as a whole: (attribute, printed name).
-FIGURES = (("status", "status"), ("count", "N"), ("count_min", "N_min"), ("ratio", "N/N_min"),
-           ("count_single", "N_single"))
+FIGURES = (
+    ("status", "status"),
+    ("count", "N"),
+    ("count_min", "N_min"),
+    ("ratio", "N/N_min"),
+    ("count_single", "N_single"),
+)
 #: What makes two zones the same zone.
 ZONE_FIELDS = ("start", "end", "spacing", "count")
 
@@ -120,6 +135,7 @@ def schedule_keys(changes: Iterable[ScheduleChange]) -> set[str]:
 
 # -- text shared by the renderers (diff_text, change_report) --------------------------------------
 
+
 def zone_text(d: Display, z: Any) -> str:
     """``0" – 10'-9" @ 3.500 in, 38 rows``: positions as drawings give them, spacing as a quantity."""
     return f"{d.position(z.start)} – {d.position(z.end)} @ {d.quantity(z.spacing)}, {d.value(z.count)} rows"
@@ -130,10 +146,14 @@ def figures_text(d: Display, s: Any) -> str:
     if s is None:
         return "no zoned schedule"
     if not getattr(s, "feasible", True):
-        return f"no schedule satisfies the rules ({s.reason})" if s.reason else "no schedule satisfies the rules"
+        return (
+            f"no schedule satisfies the rules ({s.reason})" if s.reason else "no schedule satisfies the rules"
+        )
 
     def v(x: Any) -> str:
         return "—" if x is None else d.value(x)
 
-    return (f"N = {v(s.count)} rows (N_min = {v(s.count_min)}, N/N_min = {v(s.ratio)}, "
-            f"N_single = {v(s.count_single)})")
+    return (
+        f"N = {v(s.count)} rows (N_min = {v(s.count_min)}, N/N_min = {v(s.ratio)}, "
+        f"N_single = {v(s.count_single)})"
+    )

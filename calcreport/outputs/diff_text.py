@@ -13,12 +13,32 @@ from typing import Any
 from .. import __version__
 from ..steps import Step
 from ..units import Quantity
-from .diff import Entity, InputChange, JobDiff, ScheduleChange, Side, StepChange, SummaryChange, input_quantity
+from .diff import (
+    Entity,
+    InputChange,
+    JobDiff,
+    ScheduleChange,
+    Side,
+    StepChange,
+    SummaryChange,
+    input_quantity,
+)
 from .diff_schedule import figures_text, zone_text
 from .fmt import Display
 
-__all__ = ["render_diff", "diff_to_dict", "display_for", "value_pair", "input_text", "owner_title",
-           "check_titles", "schedule_lines", "input_pair", "FIELD_SIG", "DIFF_SCHEMA_VERSION"]
+__all__ = [
+    "render_diff",
+    "diff_to_dict",
+    "display_for",
+    "value_pair",
+    "input_text",
+    "owner_title",
+    "check_titles",
+    "schedule_lines",
+    "input_pair",
+    "FIELD_SIG",
+    "DIFF_SCHEMA_VERSION",
+]
 
 DIFF_SCHEMA_VERSION = 1
 ARROW = "→"
@@ -109,8 +129,13 @@ def input_pair(d: Display, c: InputChange) -> tuple[str, str, str]:
     old, new = input_text(c.old), input_text(c.new)
     qa, qb = input_quantity(c.old), input_quantity(c.new)
     hint = ""
-    if (qa is not None and qb is not None and not qa.dimensionless and qa.dimensionality == qb.dimensionality
-            and qa.units != qb.units):
+    if (
+        qa is not None
+        and qb is not None
+        and not qa.dimensionless
+        and qa.dimensionality == qb.dimensionality
+        and qa.units != qb.units
+    ):
         a, b = value_pair(d, qa, qb)
         hint = f"{a} {ARROW} {b}"
     return old, new, hint
@@ -125,8 +150,10 @@ def _step_line(d: Display, c: StepChange) -> str:
     if c.new is None:
         return f"{head}: step no longer made (was {d.value(c.old.result)})"
     if not c.result_changed:
-        return f"{head}: result unchanged {d.result(c.new)}; values {d.substituted(c.old)} {ARROW} " \
-               f"{d.substituted(c.new)}"
+        return (
+            f"{head}: result unchanged {d.result(c.new)}; values {d.substituted(c.old)} {ARROW} "
+            f"{d.substituted(c.new)}"
+        )
     a, b = value_pair(d, c.old.result, c.new.result)
     return f"{head}: {a} {ARROW} {b}"
 
@@ -203,9 +230,15 @@ def render_diff(diff: JobDiff) -> str:
 
 # -- JSON ------------------------------------------------------------------------------------------
 
+
 def _side(side: Side) -> dict[str, Any]:
     h = side.job.header
-    return {"label": side.label, "revision": h.revision, "sha256": side.job.sha256, "status": side.result.status}
+    return {
+        "label": side.label,
+        "revision": h.revision,
+        "sha256": side.job.sha256,
+        "status": side.result.status,
+    }
 
 
 def _step(d: Display, s: Step | None) -> dict[str, Any] | None:
@@ -221,10 +254,22 @@ def _entity(e: Entity) -> dict[str, str]:
 def _schedule(d: Display, s: Any) -> dict[str, Any] | None:
     if s is None:
         return None
-    return {"status": s.status, "count": s.count, "count_min": d.json_value(s.count_min),
-            "ratio": d.json_value(s.ratio), "count_single": s.count_single,
-            "zones": [{"start": d.json_value(z.start), "end": d.json_value(z.end),
-                       "spacing": d.json_value(z.spacing), "count": z.count} for z in s.zones]}
+    return {
+        "status": s.status,
+        "count": s.count,
+        "count_min": d.json_value(s.count_min),
+        "ratio": d.json_value(s.ratio),
+        "count_single": s.count_single,
+        "zones": [
+            {
+                "start": d.json_value(z.start),
+                "end": d.json_value(z.end),
+                "spacing": d.json_value(z.spacing),
+                "count": z.count,
+            }
+            for z in s.zones
+        ],
+    }
 
 
 def diff_to_dict(diff: JobDiff) -> dict[str, Any]:
@@ -232,19 +277,48 @@ def diff_to_dict(diff: JobDiff) -> dict[str, Any]:
     d = display_for(diff.new)
     titles = check_titles(diff)
     return {
-        "schema": DIFF_SCHEMA_VERSION, "tool": {"name": "calcreport", "version": __version__},
-        "old": _side(diff.old), "new": _side(diff.new), "units": d.system,
-        "results_changed": diff.results_changed, "inputs_changed": diff.inputs_changed,
-        "results": [{"owner": c.owner, "owner_title": owner_title(c.owner, titles), "field": c.field,
-                     "label": c.label, "kind": c.kind, "old": d.json_value(c.old), "new": d.json_value(c.new)}
-                    for c in diff.summary],
-        "schedules": [{"owner": c.owner, "key": c.key, "changed": list(c.changed), "new_zones": list(c.new_zones),
-                       "old": _schedule(d, c.old), "new": _schedule(d, c.new)} for c in diff.schedules],
-        "steps": [{"key": s.key, "label": (s.new or s.old).label, "symbol": (s.new or s.old).symbol,
-                   "result_changed": s.result_changed, "old": _step(d, s.old), "new": _step(d, s.new)}
-                  for s in diff.steps],
+        "schema": DIFF_SCHEMA_VERSION,
+        "tool": {"name": "calcreport", "version": __version__},
+        "old": _side(diff.old),
+        "new": _side(diff.new),
+        "units": d.system,
+        "results_changed": diff.results_changed,
+        "inputs_changed": diff.inputs_changed,
+        "results": [
+            {
+                "owner": c.owner,
+                "owner_title": owner_title(c.owner, titles),
+                "field": c.field,
+                "label": c.label,
+                "kind": c.kind,
+                "old": d.json_value(c.old),
+                "new": d.json_value(c.new),
+            }
+            for c in diff.summary
+        ],
+        "schedules": [
+            {
+                "owner": c.owner,
+                "key": c.key,
+                "changed": list(c.changed),
+                "new_zones": list(c.new_zones),
+                "old": _schedule(d, c.old),
+                "new": _schedule(d, c.new),
+            }
+            for c in diff.schedules
+        ],
+        "steps": [
+            {
+                "key": s.key,
+                "label": (s.new or s.old).label,
+                "symbol": (s.new or s.old).symbol,
+                "result_changed": s.result_changed,
+                "old": _step(d, s.old),
+                "new": _step(d, s.new),
+            }
+            for s in diff.steps
+        ],
         "inputs": [{"key": c.key, "old": _raw(c.old), "new": _raw(c.new)} for c in diff.inputs],
         "added": [_entity(e) for e in diff.added],
         "removed": [_entity(e) for e in diff.removed],
     }
-

@@ -44,8 +44,13 @@ _SYSTEMS: dict[str, dict[str, tuple[str, str, str]]] = {
 }
 
 #: user overrides (settings.display) by our key → dimension
-_OVERRIDE_DIM = {"force": "force", "length": "length", "stress": "stress", "shear_flow": "line_load",
-                 "moment": "moment"}
+_OVERRIDE_DIM = {
+    "force": "force",
+    "length": "length",
+    "stress": "stress",
+    "shear_flow": "line_load",
+    "moment": "moment",
+}
 
 _PRETTY = str.maketrans({"*": "·"})
 
@@ -67,7 +72,7 @@ def fmt_number(x: float, sig: int = 4) -> str:
     mag = math.floor(math.log10(abs(x)))
     if mag >= 6 or mag < -4:
         k = 3 * math.floor(mag / 3)
-        mant = fmt_number(x / 10 ** k, sig)
+        mant = fmt_number(x / 10**k, sig)
         return f"{mant} × 10{str(k).translate(_SUPER)}"
     decimals = max(0, sig - 1 - mag)
     if decimals == 0:
@@ -105,7 +110,7 @@ def feet_inches(inches: float) -> str:
     if frac:
         g = math.gcd(frac, 16)
         text += f" {frac // g}/{16 // g}"
-    return f"{sign}{feet}'-{text}\"" if feet else f"{sign}{text}\""
+    return f"{sign}{feet}'-{text}\"" if feet else f'{sign}{text}"'
 
 
 class Display:

@@ -20,9 +20,16 @@ def _opt(v, d: Display):
 
 
 def _check(c, d: Display) -> dict[str, Any]:
-    return {"key": c.key, "label": c.label, "demand": _opt(c.demand, d),
-            "capacity": _opt(c.capacity, d), "ratio": _opt(c.ratio, d), "status": c.status,
-            "source": c.source, "note": c.note}
+    return {
+        "key": c.key,
+        "label": c.label,
+        "demand": _opt(c.demand, d),
+        "capacity": _opt(c.capacity, d),
+        "ratio": _opt(c.ratio, d),
+        "status": c.status,
+        "source": c.source,
+        "note": c.note,
+    }
 
 
 def along_json(a, d: Display) -> dict[str, Any]:
@@ -32,24 +39,45 @@ def along_json(a, d: Display) -> dict[str, Any]:
     return {
         "length": d.json_value(b.length),
         "supports": [{"at": d.json_value(s.x), "type": s.kind} for s in b.supports],
-        "segments": [{"start": d.json_value(s.start), "end": d.json_value(s.end), "kind": s.kind}
-                     for s in b.segments],
+        "segments": [
+            {"start": d.json_value(s.start), "end": d.json_value(s.end), "kind": s.kind} for s in b.segments
+        ],
         "self_weight": _opt(a.self_weight, d),
         "combinations_source": a.combinations_source,
-        "combinations": [{"name": c.name, "factors": {k: d.json_value(v) for k, v in c.factors.items()},
-                          "source": c.source} for c in a.combinations],
+        "combinations": [
+            {
+                "name": c.name,
+                "factors": {k: d.json_value(v) for k, v in c.factors.items()},
+                "source": c.source,
+            }
+            for c in a.combinations
+        ],
         "patterns": list(b.patterns),
-        "cases": [{"name": c.name, "reactions": [
-            {"at": d.json_value(r.x), "force": d.json_value(r.force), "moment": _opt(r.moment, d)}
-            for r in c.reactions]} for c in b.cases],
-        "V_design": d.json_value(a.V_design), "V_governing": a.V_governing,
-        "M_design": d.json_value(a.M_design), "M_governing": a.M_governing,
+        "cases": [
+            {
+                "name": c.name,
+                "reactions": [
+                    {"at": d.json_value(r.x), "force": d.json_value(r.force), "moment": _opt(r.moment, d)}
+                    for r in c.reactions
+                ],
+            }
+            for c in b.cases
+        ],
+        "V_design": d.json_value(a.V_design),
+        "V_governing": a.V_governing,
+        "M_design": d.json_value(a.M_design),
+        "M_governing": a.M_governing,
         "deflection_limits": {k: d.json_value(v) for k, v in a.deflection_limits.items()},
         "envelope": {
-            "x": _array(env.x, d), "V_max": _array(env.V_max, d), "V_min": _array(env.V_min, d),
-            "M_max": _array(env.M_max, d), "M_min": _array(env.M_min, d),
-            "V_abs": _array(env.V_abs, d), "V_abs_by": list(env.V_abs_by),
-            "M_max_by": list(env.M_max_by), "M_min_by": list(env.M_min_by),
+            "x": _array(env.x, d),
+            "V_max": _array(env.V_max, d),
+            "V_min": _array(env.V_min, d),
+            "M_max": _array(env.M_max, d),
+            "M_min": _array(env.M_min, d),
+            "V_abs": _array(env.V_abs, d),
+            "V_abs_by": list(env.V_abs_by),
+            "M_max_by": list(env.M_max_by),
+            "M_min_by": list(env.M_min_by),
         },
         "checks": [_check(c, d) for c in a.checks],
     }
@@ -58,17 +86,33 @@ def along_json(a, d: Display) -> dict[str, Any]:
 def schedule_json(s, d: Display) -> dict[str, Any]:
     """``s`` is a :class:`calcreport.solve.schedule.Schedule`."""
     return {
-        "status": s.status, "feasible": s.feasible, "reason": s.reason, "symmetric": s.symmetric,
-        "zones": [{"start": d.json_value(z.start), "end": d.json_value(z.end),
-                   "spacing": d.json_value(z.spacing), "count": z.count,
-                   "demand_max": d.json_value(z.demand_max),
-                   "spacing_required": _opt(z.spacing_required, d), "governing": z.governing,
-                   "capacity": _opt(z.capacity, d)}
-                  for z in s.zones],
-        "count": s.count, "count_min": d.json_value(s.count_min), "ratio": _opt(s.ratio, d),
-        "count_single": s.count_single, "spacing_single": _opt(s.spacing_single, d),
-        "saving": _opt(s.saving, d), "zones_per_half": s.zones_per_half,
-        "module": _opt(s.module, d), "increment": d.json_value(s.increment),
-        "spacing_min": d.json_value(s.spacing_min), "spacing_max": d.json_value(s.spacing_max),
+        "status": s.status,
+        "feasible": s.feasible,
+        "reason": s.reason,
+        "symmetric": s.symmetric,
+        "zones": [
+            {
+                "start": d.json_value(z.start),
+                "end": d.json_value(z.end),
+                "spacing": d.json_value(z.spacing),
+                "count": z.count,
+                "demand_max": d.json_value(z.demand_max),
+                "spacing_required": _opt(z.spacing_required, d),
+                "governing": z.governing,
+                "capacity": _opt(z.capacity, d),
+            }
+            for z in s.zones
+        ],
+        "count": s.count,
+        "count_min": d.json_value(s.count_min),
+        "ratio": _opt(s.ratio, d),
+        "count_single": s.count_single,
+        "spacing_single": _opt(s.spacing_single, d),
+        "saving": _opt(s.saving, d),
+        "zones_per_half": s.zones_per_half,
+        "module": _opt(s.module, d),
+        "increment": d.json_value(s.increment),
+        "spacing_min": d.json_value(s.spacing_min),
+        "spacing_max": d.json_value(s.spacing_max),
         "capacity_row": d.json_value(s.capacity_row),
     }

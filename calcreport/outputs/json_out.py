@@ -32,16 +32,29 @@ def _scalar(v: Any, d: Display) -> Any:
 
 def _step(s: Step, d: Display) -> dict[str, Any]:
     return {
-        "key": s.key, "label": s.label, "symbol": s.symbol, "substituted": d.substituted(s),
+        "key": s.key,
+        "label": s.label,
+        "symbol": s.symbol,
+        "substituted": d.substituted(s),
         "values": {k: _scalar(v, d) for k, v in s.values.items()},
-        "result": _scalar(s.result, d), "source": s.source, "note": s.note, "governs": s.governs,
+        "result": _scalar(s.result, d),
+        "source": s.source,
+        "note": s.note,
+        "governs": s.governs,
     }
 
 
 def _check(c: Check, d: Display) -> dict[str, Any]:
-    return {"key": c.key, "label": c.label, "demand": _scalar(c.demand, d),
-            "capacity": _scalar(c.capacity, d), "ratio": _scalar(c.ratio, d),
-            "status": c.status, "source": c.source, "note": c.note}
+    return {
+        "key": c.key,
+        "label": c.label,
+        "demand": _scalar(c.demand, d),
+        "capacity": _scalar(c.capacity, d),
+        "ratio": _scalar(c.ratio, d),
+        "status": c.status,
+        "source": c.source,
+        "note": c.note,
+    }
 
 
 def _plain(v: Any, d: Display) -> Any:
@@ -69,17 +82,26 @@ def _plain(v: Any, d: Display) -> Any:
 
 def _joint(j: JointResult, d: Display) -> dict[str, Any]:
     out = {
-        "id": j.id, "label": j.label, "holds": list(j.holds), "connector": j.connector,
+        "id": j.id,
+        "label": j.label,
+        "holds": list(j.holds),
+        "connector": j.connector,
         "connector_source": j.connector_source,
-        "per_row": j.per_row, "continuous": j.continuous,
-        "Q": d.json_value(j.Q), "shear": d.json_value(j.shear), "shear_flow": d.json_value(j.shear_flow),
-        "capacity": d.json_value(j.capacity), "capacity_row": d.json_value(j.capacity_row),
+        "per_row": j.per_row,
+        "continuous": j.continuous,
+        "Q": d.json_value(j.Q),
+        "shear": d.json_value(j.shear),
+        "shear_flow": d.json_value(j.shear_flow),
+        "capacity": d.json_value(j.capacity),
+        "capacity_row": d.json_value(j.capacity_row),
         "spacing_required": d.json_value(j.spacing_required) if j.spacing_required is not None else None,
         "spacing_provided": d.json_value(j.spacing_provided) if j.spacing_provided is not None else None,
         "spacing_min": d.json_value(j.spacing_min) if j.spacing_min is not None else None,
         "spacing_max": d.json_value(j.spacing_max) if j.spacing_max is not None else None,
         "plane_width": d.json_value(j.plane_width),
-        "utilisation": d.json_value(j.utilisation), "status": j.status, "reasons": list(j.reasons),
+        "utilisation": d.json_value(j.utilisation),
+        "status": j.status,
+        "reasons": list(j.reasons),
         "checks": [_check(c, d) for c in j.checks],
         "steps": [_step(s, d) for s in j.steps],
     }
@@ -91,14 +113,26 @@ def _joint(j: JointResult, d: Display) -> dict[str, Any]:
 def _member(m: MemberResult, d: Display) -> dict[str, Any]:
     s = m.section
     out = {
-        "id": m.id, "title": m.member.title, "status": m.status,
+        "id": m.id,
+        "title": m.member.title,
+        "status": m.status,
         "section": {
-            "area": d.json_value(s.area), "centroid": d.json_value(s.centroid), "I": d.json_value(s.inertia),
-            "depth": d.json_value(s.depth), "E_ref": d.json_value(s.E_ref),
+            "area": d.json_value(s.area),
+            "centroid": d.json_value(s.centroid),
+            "I": d.json_value(s.inertia),
+            "depth": d.json_value(s.depth),
+            "E_ref": d.json_value(s.E_ref),
             "reference_material": s.reference_material,
-            "parts": [{"id": p.id, "area": d.json_value(p.area), "n": d.json_value(p.n),
-                       "centroid": d.json_value(p.centroid_y), "I_own": d.json_value(p.inertia_own)}
-                      for p in s.parts],
+            "parts": [
+                {
+                    "id": p.id,
+                    "area": d.json_value(p.area),
+                    "n": d.json_value(p.n),
+                    "centroid": d.json_value(p.centroid_y),
+                    "I_own": d.json_value(p.inertia_own),
+                }
+                for p in s.parts
+            ],
         },
         "shear": d.json_value(m.shear),
         "joints": [_joint(j, d) for j in m.joints],
@@ -116,9 +150,17 @@ def to_dict(result: JobResult) -> dict[str, Any]:
     d = Display(job.settings.units, job.settings.display)
     h = job.header
     return {
-        "schema": SCHEMA_VERSION, "tool": {"name": "calcreport", "version": __version__},
-        "job": {"file": os.path.basename(job.path), "sha256": job.sha256, "project": h.project, "number": h.number,
-                "revision": h.revision, "units": job.settings.units, "method": job.settings.method},
+        "schema": SCHEMA_VERSION,
+        "tool": {"name": "calcreport", "version": __version__},
+        "job": {
+            "file": os.path.basename(job.path),
+            "sha256": job.sha256,
+            "project": h.project,
+            "number": h.number,
+            "revision": h.revision,
+            "units": job.settings.units,
+            "method": job.settings.method,
+        },
         "status": result.status,
         "members": [_member(m, d) for m in result.members],
     }

@@ -12,7 +12,7 @@ directly, and stays byte-for-byte reproducible with ``invariant=1``.
 
 from __future__ import annotations
 
-from typing import Mapping
+from collections.abc import Mapping
 
 __all__ = ["KEY_JOB_SHA256", "KEY_VERSION", "KEY_BASE_SHA256", "KEY_DOCUMENT", "stamp", "job_metadata"]
 
@@ -57,8 +57,10 @@ def stamp(canvas, entries: Mapping[str, str]) -> None:
             end = text.rstrip().rfind(b">>")
             if end < 0:  # not a dictionary: leave it alone rather than write a broken file
                 return text
-            add = b"".join(b"\n" + pdf_format(PDFName(k), document) + b" " + pdf_format(PDFString(v), document)
-                           for k, v in sorted(self.calcreport_extra.items()))
+            add = b"".join(
+                b"\n" + pdf_format(PDFName(k), document) + b" " + pdf_format(PDFString(v), document)
+                for k, v in sorted(self.calcreport_extra.items())
+            )
             return text[:end] + add + b"\n" + text[end:]
 
     info = _Info()

@@ -33,7 +33,9 @@ def _cmd_diff(args) -> int:
     if args.since is not None and len(args.jobs) != 1:
         return _fail("calcreport diff: error: with --since give exactly one JOB.toml (see --help)")
     if args.since is None and len(args.jobs) != 2:
-        return _fail("calcreport diff: error: expected OLD.toml NEW.toml, or JOB.toml --since REV (see --help)")
+        return _fail(
+            "calcreport diff: error: expected OLD.toml NEW.toml, or JOB.toml --since REV (see --help)"
+        )
     try:
         if args.since is not None:
             new = review_io.side_from_file(args.jobs[0])
@@ -72,24 +74,32 @@ def _cmd_verify(args) -> int:
 def register(sub) -> None:
     """Add ``diff`` and ``verify`` to the ``calcreport`` sub-command parser."""
     d = sub.add_parser(
-        "diff", help="show what changed between two revisions of a job",
+        "diff",
+        help="show what changed between two revisions of a job",
         description="Compare two revisions of a job file: changed results first (spacing, utilisation, "
         "status, section properties, Q, q, capacities, zoned connector schedules compared whole and every "
         "derivation step, by step key), then "
-        "changed inputs by key path (\"12 in\" and \"1 ft\" are the same input), then added and removed "
+        'changed inputs by key path ("12 in" and "1 ft" are the same input), then added and removed '
         "members, parts, joints, loads and materials. Values are shown in the new job's units. "
-        "Exit 0 no result changed, 1 some result changed, 2 invalid input.")
-    d.add_argument("jobs", nargs="+", metavar="JOB.toml",
-                   help="OLD.toml NEW.toml; or one JOB.toml with --since")
-    d.add_argument("--since", metavar="REV",
-                   help="compare JOB.toml with its version at git revision REV (commit, tag, branch, HEAD~1)")
+        "Exit 0 no result changed, 1 some result changed, 2 invalid input.",
+    )
+    d.add_argument(
+        "jobs", nargs="+", metavar="JOB.toml", help="OLD.toml NEW.toml; or one JOB.toml with --since"
+    )
+    d.add_argument(
+        "--since",
+        metavar="REV",
+        help="compare JOB.toml with its version at git revision REV (commit, tag, branch, HEAD~1)",
+    )
     d.add_argument("--json", action="store_true", help="print the diff as JSON (schema in docs/review.md)")
     d.add_argument("--pdf", metavar="OUT.pdf", help="also write a change report PDF for reviewers")
     d.set_defaults(func=_cmd_diff)
     v = sub.add_parser(
-        "verify", help="check that a PDF report was built from exactly this job file",
+        "verify",
+        help="check that a PDF report was built from exactly this job file",
         description="Compare the job-file SHA-256 stamped in a calcreport PDF with the job file. "
-        "Exit 0 match, 1 mismatch, 2 unreadable PDF or invalid job file.")
+        "Exit 0 match, 1 mismatch, 2 unreadable PDF or invalid job file.",
+    )
     v.add_argument("pdf", metavar="REPORT.pdf")
     v.add_argument("job", metavar="JOB.toml")
     v.set_defaults(func=_cmd_verify)

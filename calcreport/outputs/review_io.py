@@ -22,8 +22,16 @@ from ..jobfile.load import MAX_FILE_BYTES
 from ..solve.results import JobResult
 from .diff import Side, changed_keys, compute_diff
 
-__all__ = ["side_from_file", "side_from_bytes", "side_from_git", "git_show", "solve_loaded", "RevisionMarks",
-           "revision_marks", "revision_marks_since"]
+__all__ = [
+    "side_from_file",
+    "side_from_bytes",
+    "side_from_git",
+    "git_show",
+    "solve_loaded",
+    "RevisionMarks",
+    "revision_marks",
+    "revision_marks_since",
+]
 
 GIT_TIMEOUT_S = 30
 
@@ -50,7 +58,9 @@ def _read(path: str) -> bytes:
     try:
         size = os.path.getsize(path)
         if size > MAX_FILE_BYTES:
-            raise JobError(path, "", f"file is {size:,} bytes; a job file may have at most {MAX_FILE_BYTES:,}")
+            raise JobError(
+                path, "", f"file is {size:,} bytes; a job file may have at most {MAX_FILE_BYTES:,}"
+            )
         with open(path, "rb") as fh:
             return fh.read()
     except OSError as exc:
@@ -64,8 +74,9 @@ def side_from_file(path: str) -> Side:
 
 def _git(args: list[str], cwd: str, path: str) -> bytes:
     try:
-        done = subprocess.run(["git", *args], cwd=cwd, capture_output=True, timeout=GIT_TIMEOUT_S,
-                              check=False)
+        done = subprocess.run(
+            ["git", *args], cwd=cwd, capture_output=True, timeout=GIT_TIMEOUT_S, check=False
+        )
     except FileNotFoundError:
         raise JobError(path, "", "git is not installed or not on PATH (needed for --since)") from None
     except subprocess.TimeoutExpired:
@@ -106,8 +117,9 @@ def git_show(path: str, rev: str) -> tuple[bytes, str]:
     except _GitError:
         raise JobError(path, "", f"{rel} does not exist at git revision {rev!r}") from None
     if len(data) > MAX_FILE_BYTES:
-        raise JobError(f"{rev}:{rel}", "", f"file is {len(data):,} bytes; a job file may have at most "
-                       f"{MAX_FILE_BYTES:,}")
+        raise JobError(
+            f"{rev}:{rel}", "", f"file is {len(data):,} bytes; a job file may have at most {MAX_FILE_BYTES:,}"
+        )
     return data, f"{rev}:{rel}"
 
 

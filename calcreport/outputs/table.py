@@ -27,12 +27,18 @@ def render_member(m: MemberResult, d: Display) -> list[str]:
     rows = [["joint", "Q", "q", "capacity/row", "s req", "s used", "util", "status"]]
     for j in m.joints:
         cap = d.quantity(j.capacity_row) + (" (cont.)" if j.continuous else f" ({j.per_row}×)")
-        rows.append([
-            j.id, d.quantity(j.Q), d.quantity(j.shear_flow), cap,
-            d.quantity(j.spacing_required) if j.spacing_required is not None else "—",
-            d.quantity(j.spacing_provided, 3) if j.spacing_provided is not None else "—",
-            f"{j.utilisation:.2f}", j.status,
-        ])
+        rows.append(
+            [
+                j.id,
+                d.quantity(j.Q),
+                d.quantity(j.shear_flow),
+                cap,
+                d.quantity(j.spacing_required) if j.spacing_required is not None else "—",
+                d.quantity(j.spacing_provided, 3) if j.spacing_provided is not None else "—",
+                f"{j.utilisation:.2f}",
+                j.status,
+            ]
+        )
     if m.joints:
         lines += ["  " + r for r in _cols(rows, {1, 2, 3, 4, 5, 6})]
     for j in m.joints:
@@ -46,9 +52,15 @@ def render_member(m: MemberResult, d: Display) -> list[str]:
     if m.checks:
         rows = [["member check", "demand", "capacity", "ratio", "status"]]
         for c in m.checks:
-            rows.append([c.label, d.value(c.demand) if c.demand is not None else "—",
-                         d.value(c.capacity) if c.capacity is not None else "—",
-                         f"{c.ratio:.2f}" if c.ratio is not None else "—", c.status])
+            rows.append(
+                [
+                    c.label,
+                    d.value(c.demand) if c.demand is not None else "—",
+                    d.value(c.capacity) if c.capacity is not None else "—",
+                    f"{c.ratio:.2f}" if c.ratio is not None else "—",
+                    c.status,
+                ]
+            )
         lines += ["  " + r for r in _cols(rows, {1, 2, 3})]
         lines += [f"  {c.label}: {c.note}" for c in m.checks if c.status == "INFO" and c.note]
     return lines
@@ -58,13 +70,16 @@ def _schedule_lines(joint_id: str, sch, d: Display) -> list[str]:
     """Zones of a joint's schedule and its economy figures."""
     if not sch.feasible:
         return [f"  {joint_id} schedule: none satisfies the rules — {sch.reason}"]
-    zones = ", ".join(f"{d.position(z.start)} to {d.position(z.end)} @ {d.quantity(z.spacing, 3)}"
-                      for z in sch.zones)
+    zones = ", ".join(
+        f"{d.position(z.start)} to {d.position(z.end)} @ {d.quantity(z.spacing, 3)}" for z in sch.zones
+    )
     ratio = f"{sch.ratio:.2f}" if sch.ratio is not None else "—"
     saving = f"{100 * sch.saving:.0f} %" if sch.saving is not None else "—"
-    return [f"  {joint_id} schedule: {zones}",
-            f"  {joint_id} connectors: N = {sch.count} rows (N_min = {sch.count_min:.1f}, N/N_min = {ratio}); "
-            f"one spacing from peak: {sch.count_single} rows (saving {saving})"]
+    return [
+        f"  {joint_id} schedule: {zones}",
+        f"  {joint_id} connectors: N = {sch.count} rows (N_min = {sch.count_min:.1f}, N/N_min = {ratio}); "
+        f"one spacing from peak: {sch.count_single} rows (saving {saving})",
+    ]
 
 
 def render_job(result: JobResult) -> str:

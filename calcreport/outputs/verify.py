@@ -64,8 +64,11 @@ def read_stamp(pdf_path: str) -> PdfStamp:
         raise JobError(pdf_path, "", f"not a readable PDF ({type(exc).__name__})") from None
     sha = str(sha).strip().lower() if sha is not None else ""
     if len(sha) != 64 or not set(sha) <= _HEX:
-        raise JobError(pdf_path, KEY_JOB_SHA256, "the PDF carries no calcreport job-file hash "
-                       "(was it built by calcreport?)")
+        raise JobError(
+            pdf_path,
+            KEY_JOB_SHA256,
+            "the PDF carries no calcreport job-file hash (was it built by calcreport?)",
+        )
     return PdfStamp(sha, str(version) if version is not None else "unknown", str(document or ""))
 
 
@@ -87,9 +90,14 @@ def render_verdict(v: Verdict) -> str:
         head = f"match: {v.pdf}{kind} was built from {v.job} as it is now"
     else:
         head = f"mismatch: {v.pdf}{kind} was NOT built from {v.job} as it is now"
-    return "\n".join([
-        head,
-        f"  job file SHA-256:      {v.job_sha256}",
-        f"  stamped in the PDF:    {v.stamp.sha256}",
-        f"  built with calcreport {v.stamp.version} (this is calcreport {__version__})",
-    ]) + "\n"
+    return (
+        "\n".join(
+            [
+                head,
+                f"  job file SHA-256:      {v.job_sha256}",
+                f"  stamped in the PDF:    {v.stamp.sha256}",
+                f"  built with calcreport {v.stamp.version} (this is calcreport {__version__})",
+            ]
+        )
+        + "\n"
+    )

@@ -27,8 +27,9 @@ def solve_job(job: Job) -> JobResult:
 
 def _design_shear(member: Member, log: StepLog) -> Quantity:
     V = member.shear
-    return log.add("V", "Design shear", "V (given)", "{V}", {"V": V}, V.to("lbf"),
-                   source="stated in the job file")
+    return log.add(
+        "V", "Design shear", "V (given)", "{V}", {"V": V}, V.to("lbf"), source="stated in the job file"
+    )
 
 
 def solve_member(member: Member, settings: Settings) -> MemberResult:
@@ -46,8 +47,17 @@ def solve_member(member: Member, settings: Settings) -> MemberResult:
     joints = tuple(solve_joint(member, section, j, V, settings, log, beam) for j in member.joints)
     checks = _keyed(beam.checks, f"member[{member.id}]") if beam is not None else ()
     status = worst([j.status for j in joints] + [c.status for c in checks])
-    return MemberResult(id=member.id, member=member, section=section, shear=V, joints=joints,
-                        checks=checks, steps=tuple(log.steps), status=status, beam=beam)
+    return MemberResult(
+        id=member.id,
+        member=member,
+        section=section,
+        shear=V,
+        joints=joints,
+        checks=checks,
+        steps=tuple(log.steps),
+        status=status,
+        beam=beam,
+    )
 
 
 def _keyed(checks, prefix: str) -> tuple:
@@ -57,8 +67,9 @@ def _keyed(checks, prefix: str) -> tuple:
     return tuple(c if c.key.startswith("member[") else replace(c, key=f"{prefix}.{c.key}") for c in checks)
 
 
-def _plane_shear(joint: Joint, held, other, V: Quantity, Q: Quantity, section: SectionResult,
-                 b: Quantity, log: StepLog) -> tuple:
+def _plane_shear(
+    joint: Joint, held, other, V: Quantity, Q: Quantity, section: SectionResult, b: Quantity, log: StepLog
+) -> tuple:
     """Horizontal shear stress at the level of a horizontal joint plane, τ = V·Q/(I·b), against the
     smallest Fv of the parts that meet there (mechanics of materials, shear formula). This is the
     stress in the material just beside the plane (a web under a nailed flange). Skipped for glue
@@ -74,12 +85,29 @@ def _plane_shear(joint: Joint, held, other, V: Quantity, Q: Quantity, section: S
     from .checks import shear_stress_check
 
     Fv = min(fvs, key=lambda q: float(q.to("psi").magnitude))
-    return (shear_stress_check(f"joint.{joint.id}", V, Q, section.inertia, b, Fv, log,
-                               label=f"Horizontal shear stress at the level of joint {joint.id}"),)
+    return (
+        shear_stress_check(
+            f"joint.{joint.id}",
+            V,
+            Q,
+            section.inertia,
+            b,
+            Fv,
+            log,
+            label=f"Horizontal shear stress at the level of joint {joint.id}",
+        ),
+    )
 
 
-def solve_joint(member: Member, section: SectionResult, joint: Joint, V: Quantity, settings: Settings,
-                mlog: StepLog, beam=None) -> JointResult:
+def solve_joint(
+    member: Member,
+    section: SectionResult,
+    joint: Joint,
+    V: Quantity,
+    settings: Settings,
+    mlog: StepLog,
+    beam=None,
+) -> JointResult:
     """Q, shear flow, connector capacity and spacing at one joint."""
     log = mlog.child(f"joint.{joint.id}")
     held = [p for p in member.parts if p.id in joint.holds]
@@ -89,14 +117,29 @@ def solve_joint(member: Member, section: SectionResult, joint: Joint, V: Quantit
     other = [p for p in rest if p.id in touching]
     contact = sum(((a[0] - b[0]) ** 2 + (a[1] - b[1]) ** 2) ** 0.5 for a, b in segments)
     if joint.width is not None:
-        b = log.add("b", "Width of the shear plane", "b (given)", "{b}", {"b": joint.width},
-                    joint.width.to("inch"), source="stated in the job file")
+        b = log.add(
+            "b",
+            "Width of the shear plane",
+            "b (given)",
+            "{b}",
+            {"b": joint.width},
+            joint.width.to("inch"),
+            source="stated in the job file",
+        )
     else:
-        b = log.add("b", "Width of the shear plane", "b = Σ contact lengths", "{b}", {"b": Q_(contact, "inch")},
-                    Q_(contact, "inch"), source="geometry of the placed parts")
+        b = log.add(
+            "b",
+            "Width of the shear plane",
+            "b = Σ contact lengths",
+            "{b}",
+            {"b": Q_(contact, "inch")},
+            Q_(contact, "inch"),
+            source="geometry of the placed parts",
+        )
     Q = first_moment(section, joint.holds, log)
-    ctx = connectors.JointContext(settings.method, tuple(held), tuple(other), b, settings,
-                                  f"member[{member.id}].joint[{joint.id}]")
+    ctx = connectors.JointContext(
+        settings.method, tuple(held), tuple(other), b, settings, f"member[{member.id}].joint[{joint.id}]"
+    )
     cap = connectors.design(joint.connector, ctx, log.child("connector"))
     demand = None
     if beam is not None and cap.duration_factor is not None:
@@ -108,9 +151,15 @@ def solve_joint(member: Member, section: SectionResult, joint: Joint, V: Quantit
     q = shear_flow(V, Q, section.inertia, log)
     if cap.continuous:
         if joint.connector.kind == "glue":
-            log.add("tau", "Shear stress on the glue line", "τ = V·Q / (I·b)", "{V} × {Q} / ({I} × {b})",
-                    {"V": V, "Q": Q, "I": section.inertia, "b": b}, (V * Q / (section.inertia * b)).to("psi"),
-                    source="mechanics of materials: shear formula τ = V·Q/(I·b)")
+            log.add(
+                "tau",
+                "Shear stress on the glue line",
+                "τ = V·Q / (I·b)",
+                "{V} × {Q} / ({I} × {b})",
+                {"V": V, "Q": Q, "I": section.inertia, "b": b},
+                (V * Q / (section.inertia * b)).to("psi"),
+                source="mechanics of materials: shear formula τ = V·Q/(I·b)",
+            )
         res = continuous_check(q, cap.value, log)
         cap_row = cap.value
     else:
@@ -122,16 +171,37 @@ def solve_joint(member: Member, section: SectionResult, joint: Joint, V: Quantit
     if beam is not None and not cap.continuous:
         from .along import joint_schedule
 
-        schedule = joint_schedule(beam, Q, section, joint, cap.value, res, settings, log.child("schedule"),
-                                  demand=demand)
-    checks = _keyed(tuple(cap.checks) + _plane_shear(joint, held, other, V, Q, section, b, log),
-                    f"member[{member.id}].joint[{joint.id}]")
+        schedule = joint_schedule(
+            beam, Q, section, joint, cap.value, res, settings, log.child("schedule"), demand=demand
+        )
+    checks = _keyed(
+        tuple(cap.checks) + _plane_shear(joint, held, other, V, Q, section, b, log),
+        f"member[{member.id}].joint[{joint.id}]",
+    )
     status = worst([res.status] + [c.status for c in checks] + ([schedule.status] if schedule else []))
     return JointResult(
-        id=joint.id, label=joint.label, holds=joint.holds, Q=Q, shear=V, shear_flow=q,
-        connector=cap.description, connector_source=cap.source, per_row=joint.per_row, capacity=cap.value, capacity_row=cap_row,
-        continuous=cap.continuous, spacing_required=res.required, spacing_provided=res.provided,
-        spacing_min=res.s_min, spacing_max=res.s_max, utilisation=res.utilisation, status=status,
-        reasons=res.reasons, checks=checks, plane=tuple(segments), plane_width=b,
-        steps=tuple(s for s in log.steps if s.key.startswith(log.prefix + ".")), schedule=schedule,
+        id=joint.id,
+        label=joint.label,
+        holds=joint.holds,
+        Q=Q,
+        shear=V,
+        shear_flow=q,
+        connector=cap.description,
+        connector_source=cap.source,
+        per_row=joint.per_row,
+        capacity=cap.value,
+        capacity_row=cap_row,
+        continuous=cap.continuous,
+        spacing_required=res.required,
+        spacing_provided=res.provided,
+        spacing_min=res.s_min,
+        spacing_max=res.s_max,
+        utilisation=res.utilisation,
+        status=status,
+        reasons=res.reasons,
+        checks=checks,
+        plane=tuple(segments),
+        plane_width=b,
+        steps=tuple(s for s in log.steps if s.key.startswith(log.prefix + ".")),
+        schedule=schedule,
     )

@@ -16,8 +16,15 @@ from ..steps import StepLog
 from ..units import Q_, Quantity
 from .beam import BeamInputError, BeamResult, analyse, self_weight
 from .checks import Fibre, bending_checks, deflection_checks, shear_stress_check
-from .combinations import (SOURCE_ASD, SOURCE_DURATION, SOURCE_LRFD, SOURCE_TIME_EFFECT, duration_factor,
-                           standard_combinations, time_effect)
+from .combinations import (
+    SOURCE_ASD,
+    SOURCE_DURATION,
+    SOURCE_LRFD,
+    SOURCE_TIME_EFFECT,
+    duration_factor,
+    standard_combinations,
+    time_effect,
+)
 from .results import Check, SectionResult, SolveError
 from .schedule import Schedule, zoned_schedule
 from .section import first_moment_above
@@ -49,8 +56,7 @@ def _error(exc: BeamInputError):
     return SolveError(exc.key, str(exc))
 
 
-def analyse_member(member: Member, section: SectionResult, settings: Settings,
-                   log: StepLog) -> AlongResult:
+def analyse_member(member: Member, section: SectionResult, settings: Settings, log: StepLog) -> AlongResult:
     """Analyse the member for its loads; design shear and moment; member checks.
 
     Sources: matrix structural analysis (stiffness method); ASCE 7-22 §2.3.1 / §2.4.1 basic
@@ -59,8 +65,7 @@ def analyse_member(member: Member, section: SectionResult, settings: Settings,
     loads = list(member.loads)
     sw = None
     if member.self_weight:
-        sw = self_weight([(pp.area, p.material.density) for pp, p in zip(section.parts, member.parts)],
-                         log)
+        sw = self_weight([(pp.area, p.material.density) for pp, p in zip(section.parts, member.parts)], log)
         loads.append(Load("D", "uniform", sw, label="self-weight", key=f"member[{member.id}].self_weight"))
     cases = list(dict.fromkeys(ld.case for ld in loads))
     if member.combinations:
@@ -68,18 +73,33 @@ def analyse_member(member: Member, section: SectionResult, settings: Settings,
     else:
         combos = tuple(standard_combinations(settings.method, cases))
         source = SOURCE_LRFD if settings.method == "LRFD" else SOURCE_ASD
-    log.add("combinations", "Load combinations", "n_comb", "{count} combinations of cases {cases}",
-            {"count": len(combos), "cases": ", ".join(cases)}, len(combos), source=source,
-            note="only combinations whose leading case is present; or-alternatives expanded"
-            if not member.combinations else "")
+    log.add(
+        "combinations",
+        "Load combinations",
+        "n_comb",
+        "{count} combinations of cases {cases}",
+        {"count": len(combos), "cases": ", ".join(cases)},
+        len(combos),
+        source=source,
+        note="only combinations whose leading case is present; or-alternatives expanded"
+        if not member.combinations
+        else "",
+    )
     if not combos:
-
-        raise SolveError(f"member[{member.id}]", "no load combination applies to the cases given; "
-                                                  "list [[member.combination]] tables")
+        raise SolveError(
+            f"member[{member.id}]",
+            "no load combination applies to the cases given; list [[member.combination]] tables",
+        )
     EI = (section.E_ref * section.inertia).to("lbf*inch**2")
-    log.add("EI", "Flexural rigidity of the transformed section", "EI = E_ref · I",
-            "{E} · {I}", {"E": section.E_ref, "I": section.inertia}, EI,
-            source="mechanics of materials: transformed section")
+    log.add(
+        "EI",
+        "Flexural rigidity of the transformed section",
+        "EI = E_ref · I",
+        "{E} · {I}",
+        {"E": section.E_ref, "I": section.inertia},
+        EI,
+        source="mechanics of materials: transformed section",
+    )
     from ..model import Support
 
     supports = list(member.supports) or [Support(Q_(0.0, "inch")), Support(member.span)]
@@ -98,8 +118,9 @@ def analyse_member(member: Member, section: SectionResult, settings: Settings,
         M, Mby = Q_(abs(mpos[kp]), "lbf*inch"), env.M_max_by[kp]
     limits = dict(settings.deflection_limits) or dict(DEFAULT_DEFLECTION_LIMITS)
     checks = _member_checks(member, section, M, env.V_abs[kv], limits, beam, log.child("checks"))
-    return AlongResult(beam, env.V_abs[kv], env.V_abs_by[kv], M, Mby, combos, source, sw, limits,
-                       tuple(checks))
+    return AlongResult(
+        beam, env.V_abs[kv], env.V_abs_by[kv], M, Mby, combos, source, sw, limits, tuple(checks)
+    )
 
 
 def _member_checks(member, section, M, V, limits, beam, log) -> list[Check]:
@@ -143,19 +164,40 @@ def _neutral_axis_shear(member, section, V, log) -> Check | None:
         return None
     missing = sorted({p.material.id for p in cut if p.material.Fv is None})
     if missing or any(p.shape.kind == "properties" for p in cut):
-        why = (f"no Fv given for material {', '.join(missing)}" if missing
-               else "a part given by its properties is cut there")
-        return Check("shear.neutral_axis", "Horizontal shear stress at the neutral axis", None, None, None,
-                     "INFO", SOURCE_NOT_CHECKED, note=f"not checked: {why}")
-    b = sum((p.shape.bbox[2] - p.shape.bbox[0]) if is_rectangle(p.shape) else _cut_width(outline(p.shape), y)
-            for p in cut)
+        why = (
+            f"no Fv given for material {', '.join(missing)}"
+            if missing
+            else "a part given by its properties is cut there"
+        )
+        return Check(
+            "shear.neutral_axis",
+            "Horizontal shear stress at the neutral axis",
+            None,
+            None,
+            None,
+            "INFO",
+            SOURCE_NOT_CHECKED,
+            note=f"not checked: {why}",
+        )
+    b = sum(
+        (p.shape.bbox[2] - p.shape.bbox[0]) if is_rectangle(p.shape) else _cut_width(outline(p.shape), y)
+        for p in cut
+    )
     try:
         Qna = first_moment_above(member, section, section.centroid.to("inch").magnitude)
     except ValueError:
         return None
     Fv = min((p.material.Fv for p in cut), key=lambda q: q.to("psi").magnitude)
-    return shear_stress_check("neutral_axis", V, Q_(abs(Qna), "inch**3"), section.inertia,
-                              Q_(b, "inch"), Fv, log, label="Horizontal shear stress at the neutral axis")
+    return shear_stress_check(
+        "neutral_axis",
+        V,
+        Q_(abs(Qna), "inch**3"),
+        section.inertia,
+        Q_(b, "inch"),
+        Fv,
+        log,
+        label="Horizontal shear stress at the neutral axis",
+    )
 
 
 def duration_demand(along: AlongResult, factor_used: float, method: str, log: StepLog):
@@ -173,24 +215,46 @@ def duration_demand(along: AlongResult, factor_used: float, method: str, log: St
     weights: dict[str, float] = {}
     for i, cb in enumerate(along.combinations, 1):
         f_c, case = time_effect(cb) if lrfd else duration_factor(cb)
-        log.add(f"CD.{i}", f"{'Time effect' if lrfd else 'Load duration'} factor of {cb.name}", f"{sym},c",
-                "governing load in the combination: {case}", {"case": case or "—"}, f_c,
-                source=SOURCE_TIME_EFFECT if lrfd else SOURCE_DURATION)
+        log.add(
+            f"CD.{i}",
+            f"{'Time effect' if lrfd else 'Load duration'} factor of {cb.name}",
+            f"{sym},c",
+            "governing load in the combination: {case}",
+            {"case": case or "—"},
+            f_c,
+            source=SOURCE_TIME_EFFECT if lrfd else SOURCE_DURATION,
+        )
         weights[cb.name] = max(1.0, factor_used / f_c)
     if all(w == 1.0 for w in weights.values()):
         return None
     Vw, by = along.analysis.shear_abs_weighted(weights)
     k = int(Vw.magnitude.argmax())
-    V_eff = log.add("V", "Design shear for these wood connectors, with load duration",
-                    f"V' = max over c of |V_c|·{sym} / {sym},c", "{V} in {by} at x = {x}, with " + sym + " = {f}",
-                    {"V": Vw[k], "by": by[k], "x": along.analysis.envelope.x[k], "f": factor_used}, Vw[k],
-                    source=SOURCE_TIME_EFFECT if lrfd else SOURCE_DURATION, governs=True, positions=("x",),
-                    note=f"a combination that calls for a smaller {sym} governs once that factor is used")
+    V_eff = log.add(
+        "V",
+        "Design shear for these wood connectors, with load duration",
+        f"V' = max over c of |V_c|·{sym} / {sym},c",
+        "{V} in {by} at x = {x}, with " + sym + " = {f}",
+        {"V": Vw[k], "by": by[k], "x": along.analysis.envelope.x[k], "f": factor_used},
+        Vw[k],
+        source=SOURCE_TIME_EFFECT if lrfd else SOURCE_DURATION,
+        governs=True,
+        positions=("x",),
+        note=f"a combination that calls for a smaller {sym} governs once that factor is used",
+    )
     return Vw, by, V_eff
 
 
-def joint_schedule(along: AlongResult, Q: Quantity, section: SectionResult, joint: Joint,
-                   F: Quantity, res, settings: Settings, log: StepLog, demand=None) -> Schedule:
+def joint_schedule(
+    along: AlongResult,
+    Q: Quantity,
+    section: SectionResult,
+    joint: Joint,
+    F: Quantity,
+    res,
+    settings: Settings,
+    log: StepLog,
+    demand=None,
+) -> Schedule:
     """Zoned schedule of one joint from q(x) = |V(x)|·Q/I over the shear envelope.
 
     ``res`` is the joint's single-spacing result (its s_min, s_max are the governing limits);
@@ -202,6 +266,16 @@ def joint_schedule(along: AlongResult, Q: Quantity, section: SectionResult, join
     q = (V_abs * Q / section.inertia).to("lbf/inch")
     nF = (joint.per_row * F).to("lbf")
     s_max = res.s_max if res.s_max is not None else along.analysis.length
-    return zoned_schedule(env.x, q, along.analysis.length, nF, settings.spacing_step, res.s_min,
-                          s_max, settings.zones_per_half, settings.zone_module,
-                          governing=by, log=log)
+    return zoned_schedule(
+        env.x,
+        q,
+        along.analysis.length,
+        nF,
+        settings.spacing_step,
+        res.s_min,
+        s_max,
+        settings.zones_per_half,
+        settings.zone_module,
+        governing=by,
+        log=log,
+    )

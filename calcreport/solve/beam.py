@@ -23,11 +23,21 @@ from ..units import Q_, Quantity
 from . import beam_fe as fe
 from .combinations import LIVE_TYPE, SOURCE_PATTERN, Pattern, span_patterns
 
-__all__ = ["Segment", "Reaction", "Diagram", "Envelope", "BeamResult", "analyse",
-           "self_weight", "BeamInputError", "SOURCE_FE"]
+__all__ = [
+    "Segment",
+    "Reaction",
+    "Diagram",
+    "Envelope",
+    "BeamResult",
+    "analyse",
+    "self_weight",
+    "BeamInputError",
+    "SOURCE_FE",
+]
 
-SOURCE_FE = ("matrix structural analysis, stiffness method (Euler-Bernoulli beam elements, "
-             "consistent load vectors)")
+SOURCE_FE = (
+    "matrix structural analysis, stiffness method (Euler-Bernoulli beam elements, consistent load vectors)"
+)
 _IN, _LBF = "inch", "lbf"
 
 
@@ -114,7 +124,7 @@ class BeamResult:
         cols, names, w = [], [], []
         for cb in b["combinations"]:
             live = any(c in LIVE_TYPE for c in cb.factors)
-            for pat in (b["patterns"] if live else b["patterns"][:1]):
+            for pat in b["patterns"] if live else b["patterns"][:1]:
                 cols.append(_coefficients(b["keys"], cb.factors, pat))
                 names.append(cb.name if pat.name == "all" else f"{cb.name} [{pat.name}]")
                 w.append(weight.get(cb.name, 1.0))
@@ -155,8 +165,15 @@ def self_weight(parts: list[tuple[Quantity, Quantity]], log: StepLog | None = No
         for i, (A, gamma) in enumerate(parts, 1):
             slots[f"A{i}"], slots[f"g{i}"] = A, gamma
         template = " + ".join(f"{{A{i}}} × {{g{i}}}" for i in range(1, len(parts) + 1)) or "0"
-        log.add("self_weight", "Self-weight of the member", "w_sw = Σ A·γ", template, slots, w,
-                source="statics (weight of a prismatic member)")
+        log.add(
+            "self_weight",
+            "Self-weight of the member",
+            "w_sw = Σ A·γ",
+            template,
+            slots,
+            w,
+            source="statics (weight of a prismatic member)",
+        )
     return w
 
 
@@ -190,8 +207,11 @@ def _fe_loads(loads: list[Load], length: float, keyfmt: str) -> list[tuple[str, 
         if not (0 <= a < b <= length * (1 + 1e-12)):
             raise BeamInputError(key, "the load must start before it ends, within the member")
         w1 = ld.magnitude.to("lbf/inch").magnitude
-        w2 = w1 if ld.kind == "uniform" else (ld.magnitude_end if ld.magnitude_end is not None
-                                              else ld.magnitude).to("lbf/inch").magnitude
+        w2 = (
+            w1
+            if ld.kind == "uniform"
+            else (ld.magnitude_end if ld.magnitude_end is not None else ld.magnitude).to("lbf/inch").magnitude
+        )
         out.append((ld.case, fe.FELoad("dist", a, w1, min(b, length), w2)))
     return out
 
@@ -212,10 +232,17 @@ def _coefficients(keys: list[tuple[str, int]], factors: dict[str, float], pat: P
     return np.array([factors.get(c, 0.0) if (s < 0 or s in pat.loaded) else 0.0 for c, s in keys])
 
 
-def analyse(length: Quantity, supports: list[Support], loads: list[Load],
-            combinations: list[Combination], EI: Quantity | None = None,
-            log: StepLog | None = None, extra_x: Quantity | None = None,
-            divisions: int = 240, load_key: str = "load[{i}]") -> BeamResult:
+def analyse(
+    length: Quantity,
+    supports: list[Support],
+    loads: list[Load],
+    combinations: list[Combination],
+    EI: Quantity | None = None,
+    log: StepLog | None = None,
+    extra_x: Quantity | None = None,
+    divisions: int = 240,
+    load_key: str = "load[{i}]",
+) -> BeamResult:
     """Analyse the member for every load case and combination.
 
     Args:
@@ -281,30 +308,56 @@ def analyse(length: Quantity, supports: list[Support], loads: list[Load],
     def diagram(name, factors, pat, source=""):
         coef = _coefficients(keys, factors, pat)
         r = sol.reactions @ coef
-        reacts = tuple(Reaction(s.x, s.kind, Q_(r[k, 0], _LBF),
-                                Q_(r[k, 1], "lbf*inch") if s.kind == "fixed" else None)
-                       for k, s in enumerate(supports))
-        return Diagram(name, dict(factors), pat.name, x_q, Q_(V @ coef, _LBF),
-                       Q_(M @ coef, "lbf*inch"),
-                       None if EIf is None else Q_((v @ coef) / EIf, _IN), reacts, source)
+        reacts = tuple(
+            Reaction(s.x, s.kind, Q_(r[k, 0], _LBF), Q_(r[k, 1], "lbf*inch") if s.kind == "fixed" else None)
+            for k, s in enumerate(supports)
+        )
+        return Diagram(
+            name,
+            dict(factors),
+            pat.name,
+            x_q,
+            Q_(V @ coef, _LBF),
+            Q_(M @ coef, "lbf*inch"),
+            None if EIf is None else Q_((v @ coef) / EIf, _IN),
+            reacts,
+            source,
+        )
 
     case_d = tuple(diagram(c, {c: 1.0}, full) for c in cases)
     comb_d = tuple(diagram(cb.name, cb.factors, full, cb.source) for cb in combinations)
     env = _envelope(x_q, V, M, keys, combinations, patterns)
     seg_q = tuple(Segment(j, Q_(a, _IN), Q_(b, _IN), k) for j, (a, b, k) in enumerate(segs))
     seg_mask = [(mesh.x[idx_a] >= a - 1e-9) & (mesh.x[idx_a] <= b + 1e-9) for a, b, _ in segs]
-    basis = {"keys": keys, "v": v, "V": V, "EI": EIf, "patterns": patterns, "seg_mask": seg_mask,
-             "combinations": list(combinations)}
+    basis = {
+        "keys": keys,
+        "v": v,
+        "V": V,
+        "EI": EIf,
+        "patterns": patterns,
+        "seg_mask": seg_mask,
+        "combinations": list(combinations),
+    }
     _log(log, length, supports, seg_q, case_d, comb_d, env, patterns, EI)
-    return BeamResult(length, tuple(supports), seg_q, case_d, comb_d, env,
-                      tuple(p.name for p in patterns), tuple(log.steps[first_step:]), EI, basis)
+    return BeamResult(
+        length,
+        tuple(supports),
+        seg_q,
+        case_d,
+        comb_d,
+        env,
+        tuple(p.name for p in patterns),
+        tuple(log.steps[first_step:]),
+        EI,
+        basis,
+    )
 
 
 def _envelope(x_q, V, M, keys, combinations, patterns) -> Envelope:
     cols, names = [], []
     for cb in combinations:
         live = any(c in LIVE_TYPE for c in cb.factors)
-        for pat in (patterns if live else patterns[:1]):
+        for pat in patterns if live else patterns[:1]:
             cols.append(_coefficients(keys, cb.factors, pat))
             names.append(cb.name if pat.name == "all" else f"{cb.name} [{pat.name}]")
     if not cols:
@@ -318,44 +371,116 @@ def _envelope(x_q, V, M, keys, combinations, patterns) -> Envelope:
     def by(a):
         return tuple(names[k] for k in a)
 
-    return Envelope(x_q, Q_(Vc.max(1), _LBF), Q_(Vc.min(1), _LBF), Q_(Mc.max(1), "lbf*inch"),
-                    Q_(Mc.min(1), "lbf*inch"), Q_(absV.max(1), _LBF), by(Vc.argmax(1)),
-                    by(Vc.argmin(1)), by(Mc.argmax(1)), by(Mc.argmin(1)), by(absV.argmax(1)))
+    return Envelope(
+        x_q,
+        Q_(Vc.max(1), _LBF),
+        Q_(Vc.min(1), _LBF),
+        Q_(Mc.max(1), "lbf*inch"),
+        Q_(Mc.min(1), "lbf*inch"),
+        Q_(absV.max(1), _LBF),
+        by(Vc.argmax(1)),
+        by(Vc.argmin(1)),
+        by(Mc.argmax(1)),
+        by(Mc.argmin(1)),
+        by(absV.argmax(1)),
+    )
 
 
 def _log(log, length, supports, segs, cases, combs, env, patterns, EI) -> None:
-    log.add("length", "Member length", "L", "{L}", {"L": length}, length, source="job file",
-            positions=("L", "result"))
+    log.add(
+        "length",
+        "Member length",
+        "L",
+        "{L}",
+        {"L": length},
+        length,
+        source="job file",
+        positions=("L", "result"),
+    )
     for k, s in enumerate(supports):
-        log.add(f"support.{k + 1}", f"Support {k + 1} ({s.kind})", "x", "{x}", {"x": s.x}, s.x,
-                source="job file", positions=("x", "result"))
+        log.add(
+            f"support.{k + 1}",
+            f"Support {k + 1} ({s.kind})",
+            "x",
+            "{x}",
+            {"x": s.x},
+            s.x,
+            source="job file",
+            positions=("x", "result"),
+        )
     if len(segs) > 1:
-        log.add("patterns", "Span patterns for live-type loads (L, Lr, S, R)", "n_p",
-                "{n} segments → {count} patterns", {"n": len(segs), "count": len(patterns)},
-                len(patterns), source=SOURCE_PATTERN)
+        log.add(
+            "patterns",
+            "Span patterns for live-type loads (L, Lr, S, R)",
+            "n_p",
+            "{n} segments → {count} patterns",
+            {"n": len(segs), "count": len(patterns)},
+            len(patterns),
+            source=SOURCE_PATTERN,
+        )
     for d in cases:
         for k, r in enumerate(d.reactions):
-            log.add(f"case.{d.name}.R{k + 1}", f"Reaction at support {k + 1}, load case {d.name}",
-                    f"R_{k + 1}", "stiffness analysis of case {case}, support at x = {x}",
-                    {"case": d.name, "x": r.x}, r.force, source=SOURCE_FE, positions=("x",))
+            log.add(
+                f"case.{d.name}.R{k + 1}",
+                f"Reaction at support {k + 1}, load case {d.name}",
+                f"R_{k + 1}",
+                "stiffness analysis of case {case}, support at x = {x}",
+                {"case": d.name, "x": r.x},
+                r.force,
+                source=SOURCE_FE,
+                positions=("x",),
+            )
     for i, d in enumerate(combs):
         for what, arr, unit in (("V", d.V, _LBF), ("M", d.M, "lbf*inch")):
             mag = arr.to(unit).magnitude
             k = int(np.argmax(np.abs(mag)))
-            log.add(f"comb.{i + 1}.{what}", f"Largest |{what}| for {d.name}", f"{what}_max",
-                    "at x = {x}", {"x": d.x[k]}, Q_(abs(mag[k]), unit), source=d.source, positions=("x",))
+            log.add(
+                f"comb.{i + 1}.{what}",
+                f"Largest |{what}| for {d.name}",
+                f"{what}_max",
+                "at x = {x}",
+                {"x": d.x[k]},
+                Q_(abs(mag[k]), unit),
+                source=d.source,
+                positions=("x",),
+            )
     if not len(env.V_abs_by):
         return
     mags = env.V_abs.magnitude
     k = int(np.argmax(mags))
-    log.add("envelope.V", "Largest shear over all combinations and patterns", "V_max",
-            "at x = {x}, governed by {by}", {"x": env.x[k], "by": env.V_abs_by[k]}, env.V_abs[k],
-            source=SOURCE_FE, governs=True, positions=("x",))
+    log.add(
+        "envelope.V",
+        "Largest shear over all combinations and patterns",
+        "V_max",
+        "at x = {x}, governed by {by}",
+        {"x": env.x[k], "by": env.V_abs_by[k]},
+        env.V_abs[k],
+        source=SOURCE_FE,
+        governs=True,
+        positions=("x",),
+    )
     k = int(np.argmax(env.M_max.magnitude))
-    log.add("envelope.M_pos", "Largest positive moment", "M_max+", "at x = {x}, governed by {by}",
-            {"x": env.x[k], "by": env.M_max_by[k]}, env.M_max[k], source=SOURCE_FE, governs=True, positions=("x",))
+    log.add(
+        "envelope.M_pos",
+        "Largest positive moment",
+        "M_max+",
+        "at x = {x}, governed by {by}",
+        {"x": env.x[k], "by": env.M_max_by[k]},
+        env.M_max[k],
+        source=SOURCE_FE,
+        governs=True,
+        positions=("x",),
+    )
     k = int(np.argmin(env.M_min.magnitude))
     if env.M_min.magnitude[k] < 0:
-        log.add("envelope.M_neg", "Largest negative moment", "M_max−",
-                "at x = {x}, governed by {by}", {"x": env.x[k], "by": env.M_min_by[k]},
-                env.M_min[k], source=SOURCE_FE, governs=True, positions=("x",))
+        log.add(
+            "envelope.M_neg",
+            "Largest negative moment",
+            "M_max−",
+            "at x = {x}, governed by {by}",
+            {"x": env.x[k], "by": env.M_min_by[k]},
+            env.M_min[k],
+            source=SOURCE_FE,
+            governs=True,
+            positions=("x",),
+        )

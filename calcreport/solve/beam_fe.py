@@ -25,8 +25,16 @@ from dataclasses import dataclass
 
 import numpy as np
 
-__all__ = ["FESupport", "FELoad", "Mesh", "FESolution", "build_mesh", "load_vector", "solve",
-           "StructureError"]
+__all__ = [
+    "FESupport",
+    "FELoad",
+    "Mesh",
+    "FESolution",
+    "build_mesh",
+    "load_vector",
+    "solve",
+    "StructureError",
+]
 
 
 class StructureError(ValueError):
@@ -68,8 +76,13 @@ def _snap(values: list[float], length: float) -> list[float]:
     return out
 
 
-def build_mesh(length: float, supports: list[FESupport], loads: list[FELoad],
-               extra: list[float] = (), divisions: int = 240) -> Mesh:
+def build_mesh(
+    length: float,
+    supports: list[FESupport],
+    loads: list[FELoad],
+    extra: list[float] = (),
+    divisions: int = 240,
+) -> Mesh:
     """Nodes at ends, supports, load points/ends and ``extra`` points, refined so that no element
     is longer than ``length / divisions``.
 
@@ -111,10 +124,17 @@ def build_mesh(length: float, supports: list[FESupport], loads: list[FELoad],
 
 def _element_k(h: float) -> np.ndarray:
     """Stiffness of an Euler-Bernoulli element of length h with EI = 1 (matrix structural analysis)."""
-    return np.array([[12.0, 6 * h, -12.0, 6 * h],
-                     [6 * h, 4 * h * h, -6 * h, 2 * h * h],
-                     [-12.0, -6 * h, 12.0, -6 * h],
-                     [6 * h, 2 * h * h, -6 * h, 4 * h * h]]) / h ** 3
+    return (
+        np.array(
+            [
+                [12.0, 6 * h, -12.0, 6 * h],
+                [6 * h, 4 * h * h, -6 * h, 2 * h * h],
+                [-12.0, -6 * h, 12.0, -6 * h],
+                [6 * h, 2 * h * h, -6 * h, 4 * h * h],
+            ]
+        )
+        / h**3
+    )
 
 
 def _dist_on_elements(mesh: Mesh, ld: FELoad) -> tuple[np.ndarray, np.ndarray]:
@@ -149,10 +169,17 @@ def load_vector(mesh: Mesh, loads: list[FELoad]) -> tuple[np.ndarray, np.ndarray
             wa += a
             wb += b
     h = np.diff(mesh.x)
-    fe = np.stack([h * (21 * wa + 9 * wb) / 60, h * h * (3 * wa + 2 * wb) / 60,
-                   h * (9 * wa + 21 * wb) / 60, -h * h * (2 * wa + 3 * wb) / 60], axis=1)
+    fe = np.stack(
+        [
+            h * (21 * wa + 9 * wb) / 60,
+            h * h * (3 * wa + 2 * wb) / 60,
+            h * (9 * wa + 21 * wb) / 60,
+            -h * h * (2 * wa + 3 * wb) / 60,
+        ],
+        axis=1,
+    )
     for e in range(n - 1):
-        f[2 * e:2 * e + 4] += fe[e]
+        f[2 * e : 2 * e + 4] += fe[e]
     return f, wa, wb
 
 
@@ -179,7 +206,7 @@ def solve(mesh: Mesh, loadsets: list[list[FELoad]]) -> FESolution:
     K = np.zeros((ndof, ndof))
     ks = [_element_k(he) for he in h]
     for e, k in enumerate(ks):
-        K[2 * e:2 * e + 4, 2 * e:2 * e + 4] += k
+        K[2 * e : 2 * e + 4, 2 * e : 2 * e + 4] += k
     fixed_dofs: list[int] = []
     for s, nd in zip(mesh.supports, mesh.support_nodes):
         fixed_dofs.append(2 * nd)
@@ -208,9 +235,15 @@ def solve(mesh: Mesh, loadsets: list[list[FELoad]]) -> FESolution:
     for e, k in enumerate(ks):
         he = h[e]
         wa, wb = WA[e], WB[e]
-        feq = np.stack([he * (21 * wa + 9 * wb) / 60, he * he * (3 * wa + 2 * wb) / 60,
-                        he * (9 * wa + 21 * wb) / 60, -he * he * (2 * wa + 3 * wb) / 60])
-        Fe = k @ D[2 * e:2 * e + 4] - feq
+        feq = np.stack(
+            [
+                he * (21 * wa + 9 * wb) / 60,
+                he * he * (3 * wa + 2 * wb) / 60,
+                he * (9 * wa + 21 * wb) / 60,
+                -he * he * (2 * wa + 3 * wb) / 60,
+            ]
+        )
+        Fe = k @ D[2 * e : 2 * e + 4] - feq
         Vr[e] = -Fe[0]
         M[e] = Fe[1]
         Vl[e + 1] = Fe[2]

@@ -12,13 +12,22 @@ from ..steps import StepLog
 from ..units import Q_, Quantity  # noqa: F401 (Q_ is used in the examples)
 from .results import Check
 
-__all__ = ["Fibre", "bending_checks", "shear_stress_check", "deflection_check",
-           "SOURCE_BENDING", "SOURCE_SHEAR", "SOURCE_DEFLECTION"]
+__all__ = [
+    "Fibre",
+    "bending_checks",
+    "shear_stress_check",
+    "deflection_check",
+    "SOURCE_BENDING",
+    "SOURCE_SHEAR",
+    "SOURCE_DEFLECTION",
+]
 
 SOURCE_BENDING = "mechanics of materials (flexure formula on the transformed section, σ = n·M·c/I)"
 SOURCE_SHEAR = "mechanics of materials (τ = V·Q/(I·b), transformed Q and I, actual width b)"
-SOURCE_DEFLECTION = ("IBC 2021 Table 1604.3 deflection limits (span/ratio; a cantilever uses twice "
-                     "its length), from memory; ratios as set in the job")
+SOURCE_DEFLECTION = (
+    "IBC 2021 Table 1604.3 deflection limits (span/ratio; a cantilever uses twice "
+    "its length), from memory; ratios as set in the job"
+)
 
 
 def _status(ratio: float | None) -> str:
@@ -38,8 +47,7 @@ class Fibre:
     allowable: Quantity | None = None
 
 
-def bending_checks(M: Quantity, I: Quantity, fibres: list[Fibre],
-                   log: StepLog | None = None) -> list[Check]:
+def bending_checks(M: Quantity, I: Quantity, fibres: list[Fibre], log: StepLog | None = None) -> list[Check]:
     """Bending stress at each extreme fibre, σ = n·M·c/I (transformed section), against its
     allowable stress.
 
@@ -53,19 +61,40 @@ def bending_checks(M: Quantity, I: Quantity, fibres: list[Fibre],
     out = []
     for f in fibres:
         sigma = (f.n * abs(M) * f.c / I).to("psi")
-        log.add(f"bending.{f.name}", f"Bending stress, {f.name}", "σ = n·M·c / I",
-                "{n} · {M} · {c} / {I}", {"n": f.n, "M": abs(M), "c": f.c, "I": I}, sigma,
-                source=SOURCE_BENDING)
+        log.add(
+            f"bending.{f.name}",
+            f"Bending stress, {f.name}",
+            "σ = n·M·c / I",
+            "{n} · {M} · {c} / {I}",
+            {"n": f.n, "M": abs(M), "c": f.c, "I": I},
+            sigma,
+            source=SOURCE_BENDING,
+        )
         ratio = None if f.allowable is None else float((sigma / f.allowable).to("").magnitude)
-        out.append(Check(f"bending.{f.name}", f"Bending stress, {f.name}", sigma,
-                         None if f.allowable is None else f.allowable.to("psi"), ratio,
-                         _status(ratio), SOURCE_BENDING))
+        out.append(
+            Check(
+                f"bending.{f.name}",
+                f"Bending stress, {f.name}",
+                sigma,
+                None if f.allowable is None else f.allowable.to("psi"),
+                ratio,
+                _status(ratio),
+                SOURCE_BENDING,
+            )
+        )
     return out
 
 
-def shear_stress_check(name: str, V: Quantity, Q: Quantity, I: Quantity, b: Quantity,
-                       allowable: Quantity | None, log: StepLog | None = None,
-                       label: str | None = None) -> Check:
+def shear_stress_check(
+    name: str,
+    V: Quantity,
+    Q: Quantity,
+    I: Quantity,
+    b: Quantity,
+    allowable: Quantity | None,
+    log: StepLog | None = None,
+    label: str | None = None,
+) -> Check:
     """Horizontal shear stress at a level, τ = V·Q/(I·b) (transformed Q and I, actual width b),
     against the allowable shear stress of the material there.
 
@@ -77,18 +106,37 @@ def shear_stress_check(name: str, V: Quantity, Q: Quantity, I: Quantity, b: Quan
     log = log or StepLog("checks")
     tau = (abs(V) * Q / (I * b)).to("psi")
     label = label or f"Horizontal shear stress, {name}"
-    log.add(f"shear.{name}", label, "τ = V·Q / (I·b)",
-            "{V} · {Q} / ({I} · {b})", {"V": abs(V), "Q": Q, "I": I, "b": b}, tau,
-            source=SOURCE_SHEAR)
+    log.add(
+        f"shear.{name}",
+        label,
+        "τ = V·Q / (I·b)",
+        "{V} · {Q} / ({I} · {b})",
+        {"V": abs(V), "Q": Q, "I": I, "b": b},
+        tau,
+        source=SOURCE_SHEAR,
+    )
     ratio = None if allowable is None else float((tau / allowable).to("").magnitude)
-    return Check(f"shear.{name}", label, tau,
-                 None if allowable is None else allowable.to("psi"), ratio, _status(ratio),
-                 SOURCE_SHEAR)
+    return Check(
+        f"shear.{name}",
+        label,
+        tau,
+        None if allowable is None else allowable.to("psi"),
+        ratio,
+        _status(ratio),
+        SOURCE_SHEAR,
+    )
 
 
-def deflection_check(name: str, delta: Quantity, length: Quantity, limit: float,
-                     cantilever: bool = False, log: StepLog | None = None,
-                     note: str = "", label: str | None = None) -> Check:
+def deflection_check(
+    name: str,
+    delta: Quantity,
+    length: Quantity,
+    limit: float,
+    cantilever: bool = False,
+    log: StepLog | None = None,
+    note: str = "",
+    label: str | None = None,
+) -> Check:
     """Deflection against span/limit (a cantilever or overhang uses twice its length).
 
     Example:
@@ -99,12 +147,27 @@ def deflection_check(name: str, delta: Quantity, length: Quantity, limit: float,
     ell = 2 * length if cantilever else length
     allow = (ell / limit).to("inch")
     label = label or f"Deflection, {name}"
-    log.add(f"deflection.{name}", f"Allowed {label[0].lower()}{label[1:]}", "Δ_allow = ℓ / ratio",
-            "{l} / {r}", {"l": ell, "r": limit}, allow, source=SOURCE_DEFLECTION,
-            note=note)
+    log.add(
+        f"deflection.{name}",
+        f"Allowed {label[0].lower()}{label[1:]}",
+        "Δ_allow = ℓ / ratio",
+        "{l} / {r}",
+        {"l": ell, "r": limit},
+        allow,
+        source=SOURCE_DEFLECTION,
+        note=note,
+    )
     ratio = float((abs(delta) / allow).to("").magnitude)
-    return Check(f"deflection.{name}", label, abs(delta).to("inch"), allow,
-                 ratio, _status(ratio), SOURCE_DEFLECTION, note)
+    return Check(
+        f"deflection.{name}",
+        label,
+        abs(delta).to("inch"),
+        allow,
+        ratio,
+        _status(ratio),
+        SOURCE_DEFLECTION,
+        note,
+    )
 
 
 def deflection_checks(beam, limits: dict[str, float], log: StepLog | None = None) -> list[Check]:
@@ -136,8 +199,16 @@ def deflection_checks(beam, limits: dict[str, float], log: StepLog | None = None
                 dl = beam.deflection_max(factors, seg.index)
                 if worst is None or dl > worst:
                     worst, label = dl, text
-            out.append(deflection_check(f"{key}.segment{seg.index + 1}", worst, seg.length, ratio,
-                                        seg.kind in ("overhang", "cantilever"), log,
-                                        note=f"governed by {label}",
-                                        label=f"Deflection, {what} ({seg.kind} {seg.index + 1})"))
+            out.append(
+                deflection_check(
+                    f"{key}.segment{seg.index + 1}",
+                    worst,
+                    seg.length,
+                    ratio,
+                    seg.kind in ("overhang", "cantilever"),
+                    log,
+                    note=f"governed by {label}",
+                    label=f"Deflection, {what} ({seg.kind} {seg.index + 1})",
+                )
+            )
     return out

@@ -14,8 +14,17 @@ from itertools import combinations as _subsets
 
 from ..model import Combination
 
-__all__ = ["STANDARD_CASES", "LIVE_TYPE", "standard_combinations", "span_patterns",
-           "PATTERN_FULL_LIMIT", "SOURCE_LRFD", "SOURCE_ASD", "SOURCE_PATTERN", "Pattern"]
+__all__ = [
+    "STANDARD_CASES",
+    "LIVE_TYPE",
+    "standard_combinations",
+    "span_patterns",
+    "PATTERN_FULL_LIMIT",
+    "SOURCE_LRFD",
+    "SOURCE_ASD",
+    "SOURCE_PATTERN",
+    "Pattern",
+]
 
 STANDARD_CASES = ("D", "L", "Lr", "S", "R", "W")
 #: Variable gravity loads whose partial (span by span) application is checked.
@@ -77,20 +86,20 @@ def standard_combinations(method: str, cases: set[str] | list[str]) -> list[Comb
         >>> [c.name for c in standard_combinations("ASD", {"D", "L"})]
         ['ASD 1: D', 'ASD 2: D + L']
     """
-    table, src, tag = (_LRFD, SOURCE_LRFD, "LRFD") if method.upper() == "LRFD" else (
-        _ASD, SOURCE_ASD, "ASD")
+    table, src, tag = (_LRFD, SOURCE_LRFD, "LRFD") if method.upper() == "LRFD" else (_ASD, SOURCE_ASD, "ASD")
     present = set(cases)
     roofs = [r for r in _ROOF if r in present] or [""]
     out: list[Combination] = []
     seen: set[tuple] = set()
     for number, principal, terms in table:
         for roof in roofs:
-            for companion in (("L", "W") if any(t[1] == "L|0.5W" for t in terms) else ("L",)):
+            for companion in ("L", "W") if any(t[1] == "L|0.5W" for t in terms) else ("L",):
                 lead = [roof if p == "ROOF" else p for p in principal.split("+")]
                 if any(p not in present for p in lead):
                     continue
-                factors = {c: f for c, f in _expand(terms, roof, companion).items()
-                           if c in present and f != 0.0}
+                factors = {
+                    c: f for c, f in _expand(terms, roof, companion).items() if c in present and f != 0.0
+                }
                 sig = tuple(sorted(factors.items()))
                 if not factors or sig in seen:
                     continue

@@ -9,8 +9,17 @@ from ..model import Job, Member
 from ..steps import Step
 from ..units import Quantity
 
-__all__ = ["SolveError", "Check", "PartProps", "SectionResult", "Capacity", "JointResult", "MemberResult",
-           "JobResult", "worst"]
+__all__ = [
+    "SolveError",
+    "Check",
+    "PartProps",
+    "SectionResult",
+    "Capacity",
+    "JointResult",
+    "MemberResult",
+    "JobResult",
+    "worst",
+]
 
 
 class SolveError(ValueError):
@@ -22,7 +31,7 @@ class SolveError(ValueError):
 
 
 def worst(statuses) -> str:
-    """"NG" if any status is NG, else "OK"."""
+    """ "NG" if any status is NG, else "OK"."""
     return "NG" if any(s == "NG" for s in statuses) else "OK"
 
 

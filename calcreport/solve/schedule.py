@@ -73,10 +73,19 @@ class Schedule:
     status: str = "OK"  # "NG" when no schedule satisfies the rules
 
 
-def zoned_schedule(x: Quantity, q: Quantity, length: Quantity, capacity_row: Quantity,
-                   increment: Quantity, spacing_min: Quantity | None, spacing_max: Quantity,
-                   zones_per_half: int = 3, module: Quantity | None = None,
-                   governing: tuple[str, ...] = (), log: StepLog | None = None) -> Schedule:
+def zoned_schedule(
+    x: Quantity,
+    q: Quantity,
+    length: Quantity,
+    capacity_row: Quantity,
+    increment: Quantity,
+    spacing_min: Quantity | None,
+    spacing_max: Quantity,
+    zones_per_half: int = 3,
+    module: Quantity | None = None,
+    governing: tuple[str, ...] = (),
+    log: StepLog | None = None,
+) -> Schedule:
     """Fewest-connector zoned schedule for a joint (see the module docstring for the rules).
 
     Args:
@@ -103,43 +112,96 @@ def zoned_schedule(x: Quantity, q: Quantity, length: Quantity, capacity_row: Qua
     mod = None if module is None else module.to(_IN).magnitude
     if (mod or inc) * MAX_GRID < L:
         coarse = float(np.ceil(L / MAX_GRID / inc)) * inc
-        log.add("module", "Zone module coarsened to bound the work", "m = ⌈L / (N_grid·Δ)⌉·Δ",
-                "⌈{L} / ({n} × {inc})⌉ × {inc}", {"L": length, "n": MAX_GRID, "inc": increment},
-                Q_(coarse, _IN), source=SOURCE_RULES)
+        log.add(
+            "module",
+            "Zone module coarsened to bound the work",
+            "m = ⌈L / (N_grid·Δ)⌉·Δ",
+            "⌈{L} / ({n} × {inc})⌉ × {inc}",
+            {"L": length, "n": MAX_GRID, "inc": increment},
+            Q_(coarse, _IN),
+            source=SOURCE_RULES,
+        )
         mod = coarse
         module = Q_(coarse, _IN)
     d = Demand(xs, qs, L)
     peak = float(qs.max()) if qs.size else 0.0
     kpeak = int(np.argmax(qs)) if qs.size else 0
     q_peak = Q_(peak, "lbf/inch")
-    log.add("q_peak", "Largest shear flow along the member", "q_max", "max of |V(x)|·Q/I",
-            {}, q_peak, source=SOURCE_SPACING)
+    log.add(
+        "q_peak",
+        "Largest shear flow along the member",
+        "q_max",
+        "max of |V(x)|·Q/I",
+        {},
+        q_peak,
+        source=SOURCE_SPACING,
+    )
     s_req = Q_(nF / peak, _IN) if peak > 0 else None
     if s_req is not None:
-        log.add("s_req_peak", "Spacing required at the largest shear flow", "s = n·F / q_max",
-                "{nF} / {q}", {"nF": capacity_row, "q": q_peak}, s_req, source=SOURCE_SPACING)
+        log.add(
+            "s_req_peak",
+            "Spacing required at the largest shear flow",
+            "s = n·F / q_max",
+            "{nF} / {q}",
+            {"nF": capacity_row, "q": q_peak},
+            s_req,
+            source=SOURCE_SPACING,
+        )
     n_min = d.bound(nF, smax)
-    log.add("N_min", "Fewest connectors any layout could use (continuous bound)",
-            "N_min = ∫ max(q/(n·F), 1/s_max) dx", "over L = {L}, n·F = {nF}, s_max = {smax}",
-            {"L": length, "nF": capacity_row, "smax": spacing_max}, n_min, source=SOURCE_RULES,
-            positions=("L",))
+    log.add(
+        "N_min",
+        "Fewest connectors any layout could use (continuous bound)",
+        "N_min = ∫ max(q/(n·F), 1/s_max) dx",
+        "over L = {L}, n·F = {nF}, s_max = {smax}",
+        {"L": length, "nF": capacity_row, "smax": spacing_max},
+        n_min,
+        source=SOURCE_RULES,
+        positions=("L",),
+    )
     s1 = np.floor(min(nF / peak if peak > 0 else np.inf, smax) / inc * (1 + 1e-9) + 1e-9) * inc
     n_single = int(1 + np.ceil(L / s1 - 1e-9)) if s1 >= smin - 1e-9 and s1 > 0 else None
-    common = dict(count_min=n_min, symmetric=False, zones_per_half=zones_per_half, module=module,
-                  increment=increment, spacing_min=Q_(smin, _IN), spacing_max=spacing_max,
-                  capacity_row=capacity_row, length=length, x=x, demand=q)
+    common = dict(
+        count_min=n_min,
+        symmetric=False,
+        zones_per_half=zones_per_half,
+        module=module,
+        increment=increment,
+        spacing_min=Q_(smin, _IN),
+        spacing_max=spacing_max,
+        capacity_row=capacity_row,
+        length=length,
+        x=x,
+        demand=q,
+    )
     lay = optimise(d, nF, inc, smin, smax, zones_per_half, mod)
     if lay is None or n_single is None:
-        why = ("the shear flow needs a spacing below the minimum"
-               if s_req is not None and s_req.to(_IN).magnitude < smin else
-               "no spacing satisfies the limits")
-        log.add("none", "No schedule within the spacing limits", "s_req < s_min",
-                "required {sreq} at x = {x}; minimum {smin}",
-                {"sreq": s_req if s_req is not None else "none", "x": Q_(xs[kpeak], _IN),
-                 "smin": Q_(smin, _IN)}, "NG", source=SOURCE_RULES)
-        return Schedule(False, (), None, ratio=None, count_single=None, spacing_single=None,
-                        saving=None, reason=why, steps=tuple(log.steps[first:]), status="NG",
-                        **common)
+        why = (
+            "the shear flow needs a spacing below the minimum"
+            if s_req is not None and s_req.to(_IN).magnitude < smin
+            else "no spacing satisfies the limits"
+        )
+        log.add(
+            "none",
+            "No schedule within the spacing limits",
+            "s_req < s_min",
+            "required {sreq} at x = {x}; minimum {smin}",
+            {"sreq": s_req if s_req is not None else "none", "x": Q_(xs[kpeak], _IN), "smin": Q_(smin, _IN)},
+            "NG",
+            source=SOURCE_RULES,
+        )
+        return Schedule(
+            False,
+            (),
+            None,
+            ratio=None,
+            count_single=None,
+            spacing_single=None,
+            saving=None,
+            reason=why,
+            steps=tuple(log.steps[first:]),
+            status="NG",
+            **common,
+        )
     zones = []
     for k, (a, b, s, n) in enumerate(lay.zones):
         qm = d.max_over(a, b)
@@ -147,30 +209,84 @@ def zoned_schedule(x: Quantity, q: Quantity, length: Quantity, capacity_row: Qua
         j = int(inside[np.argmax(qs[inside])]) if inside.size else kpeak
         gov = governing[j] if j < len(governing) else ""
         cnt = n + (1 if k == 0 else 0)
-        z = Zone(Q_(a, _IN), Q_(b, _IN), Q_(s, _IN), cnt, Q_(qm, "lbf/inch"),
-                 Q_(nF / qm, _IN) if qm > 0 else None, gov, Q_(nF / s, "lbf/inch"))
+        z = Zone(
+            Q_(a, _IN),
+            Q_(b, _IN),
+            Q_(s, _IN),
+            cnt,
+            Q_(qm, "lbf/inch"),
+            Q_(nF / qm, _IN) if qm > 0 else None,
+            gov,
+            Q_(nF / s, "lbf/inch"),
+        )
         zones.append(z)
-        log.add(f"zone.{k + 1}", f"Zone {k + 1}",
-                "s ≤ n·F / q_max,zone", "{s} ≤ {nF} / {q} = {sreq}; {n} connectors from {a} to {b}",
-                {"s": z.spacing, "nF": capacity_row, "q": z.demand_max,
-                 "sreq": z.spacing_required if z.spacing_required is not None else "no limit",
-                 "n": cnt, "a": z.start, "b": z.end}, z.spacing, source=SOURCE_SPACING,
-                note=f"governed by {gov}" if gov else "", positions=("a", "b"))
+        log.add(
+            f"zone.{k + 1}",
+            f"Zone {k + 1}",
+            "s ≤ n·F / q_max,zone",
+            "{s} ≤ {nF} / {q} = {sreq}; {n} connectors from {a} to {b}",
+            {
+                "s": z.spacing,
+                "nF": capacity_row,
+                "q": z.demand_max,
+                "sreq": z.spacing_required if z.spacing_required is not None else "no limit",
+                "n": cnt,
+                "a": z.start,
+                "b": z.end,
+            },
+            z.spacing,
+            source=SOURCE_SPACING,
+            note=f"governed by {gov}" if gov else "",
+            positions=("a", "b"),
+        )
     ratio = lay.count / n_min if n_min > 0 else None
     saving = 1.0 - lay.count / n_single
-    log.add("N", "Connectors in the zoned schedule", "N = 1 + Σ ceil(ℓᵢ / sᵢ)",
-            "{zones} zones, {sym}", {"zones": len(zones),
-                                      "sym": "symmetric" if lay.symmetric else "not symmetric"},
-            lay.count, source=SOURCE_RULES, governs=True)
-    log.add("ratio", "Schedule against the continuous bound", "N / N_min", "{N} / {Nmin}",
-            {"N": lay.count, "Nmin": n_min}, ratio if ratio is not None else "n/a",
-            source=SOURCE_RULES)
-    log.add("N_single", "Connectors with one spacing from the peak shear flow",
-            "N_1 = 1 + ceil(L / s_1)", "s_1 = {s1} over L = {L}", {"s1": Q_(s1, _IN), "L": length},
-            n_single, source=SOURCE_RULES)
-    log.add("saving", "Connectors saved by zoning", "1 − N / N_1", "1 − {N} / {N1}",
-            {"N": lay.count, "N1": n_single}, saving, source=SOURCE_RULES)
+    log.add(
+        "N",
+        "Connectors in the zoned schedule",
+        "N = 1 + Σ ceil(ℓᵢ / sᵢ)",
+        "{zones} zones, {sym}",
+        {"zones": len(zones), "sym": "symmetric" if lay.symmetric else "not symmetric"},
+        lay.count,
+        source=SOURCE_RULES,
+        governs=True,
+    )
+    log.add(
+        "ratio",
+        "Schedule against the continuous bound",
+        "N / N_min",
+        "{N} / {Nmin}",
+        {"N": lay.count, "Nmin": n_min},
+        ratio if ratio is not None else "n/a",
+        source=SOURCE_RULES,
+    )
+    log.add(
+        "N_single",
+        "Connectors with one spacing from the peak shear flow",
+        "N_1 = 1 + ceil(L / s_1)",
+        "s_1 = {s1} over L = {L}",
+        {"s1": Q_(s1, _IN), "L": length},
+        n_single,
+        source=SOURCE_RULES,
+    )
+    log.add(
+        "saving",
+        "Connectors saved by zoning",
+        "1 − N / N_1",
+        "1 − {N} / {N1}",
+        {"N": lay.count, "N1": n_single},
+        saving,
+        source=SOURCE_RULES,
+    )
     common["symmetric"] = lay.symmetric
-    return Schedule(True, tuple(zones), lay.count, ratio=ratio, count_single=n_single,
-                    spacing_single=Q_(s1, _IN), saving=saving, steps=tuple(log.steps[first:]),
-                    **common)
+    return Schedule(
+        True,
+        tuple(zones),
+        lay.count,
+        ratio=ratio,
+        count_single=n_single,
+        spacing_single=Q_(s1, _IN),
+        saving=saving,
+        steps=tuple(log.steps[first:]),
+        **common,
+    )

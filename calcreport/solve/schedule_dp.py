@@ -118,7 +118,7 @@ class Demand:
             total += floor * h + excess
         return total
 
-    def reversed(self) -> "Demand":
+    def reversed(self) -> Demand:
         return Demand(self.length - self.x[::-1], self.q[::-1], self.length)
 
 
@@ -148,8 +148,7 @@ def _range_max(d: Demand, starts: np.ndarray, ends: np.ndarray) -> np.ndarray:
     si = np.searchsorted(B, starts)
     ej = np.searchsorted(B, ends)
     n = len(B) - 1
-    E = np.where(np.arange(n)[None, :] >= si[:, None], qe[None, :], 0.0) if n else np.zeros(
-        (len(starts), 0))
+    E = np.where(np.arange(n)[None, :] >= si[:, None], qe[None, :], 0.0) if n else np.zeros((len(starts), 0))
     run = np.maximum.accumulate(E, axis=1) if n else E
     pt = d.at_many(starts)
     if n:
@@ -168,8 +167,17 @@ def _allowed(cap: np.ndarray, cap_row: float, inc: float, kmin: int, kmax: int) 
     return np.where((k >= kmin) & (cap >= 0), k, 0).astype(int)
 
 
-def _chain(d: Demand, P: int, u: float, inc: float, kmin: int, kmax: int, cap_row: float,
-           zones: int, own_module: bool):
+def _chain(
+    d: Demand,
+    P: int,
+    u: float,
+    inc: float,
+    kmin: int,
+    kmax: int,
+    cap_row: float,
+    zones: int,
+    own_module: bool,
+):
     """f[z, j] = fewest connectors on [0, j·u] with at most z chain zones; back pointers."""
     pos = np.arange(P + 1) * u
     R = _range_max(d, pos, pos)
@@ -224,21 +232,38 @@ def _central(length: float, a: float, b: float, qmax: float, cap_row, inc, kmin,
     return float(np.ceil((b - a) / (k * inc) - _EPS)), k
 
 
-_MEMO: dict[tuple, "Layout | None"] = {}
+_MEMO: dict[tuple, Layout | None] = {}
 _MEMO_MAX = 64
 
 
-def optimise(d: Demand, cap_row: float, inc: float, s_min: float, s_max: float,
-             zones_per_half: int = 3, module: float | None = None,
-             symmetric: bool | None = None) -> Layout | None:
+def optimise(
+    d: Demand,
+    cap_row: float,
+    inc: float,
+    s_min: float,
+    s_max: float,
+    zones_per_half: int = 3,
+    module: float | None = None,
+    symmetric: bool | None = None,
+) -> Layout | None:
     """Fewest-connector schedule under the module rules, or ``None`` when none exists
     (demand needs a spacing below s_min somewhere).
 
     Joints with the same demand and rules (the two flanges of a symmetric box beam) share one
     solution: results are remembered by the exact inputs.
     """
-    key = (d.x.tobytes(), d.q.tobytes(), d.length, cap_row, inc, s_min, s_max, zones_per_half, module,
-           symmetric)
+    key = (
+        d.x.tobytes(),
+        d.q.tobytes(),
+        d.length,
+        cap_row,
+        inc,
+        s_min,
+        s_max,
+        zones_per_half,
+        module,
+        symmetric,
+    )
     if key not in _MEMO:
         if len(_MEMO) >= _MEMO_MAX:
             _MEMO.pop(next(iter(_MEMO)))
@@ -246,8 +271,16 @@ def optimise(d: Demand, cap_row: float, inc: float, s_min: float, s_max: float,
     return _MEMO[key]
 
 
-def _optimise(d: Demand, cap_row: float, inc: float, s_min: float, s_max: float,
-              zones_per_half: int, module: float | None, symmetric: bool | None) -> Layout | None:
+def _optimise(
+    d: Demand,
+    cap_row: float,
+    inc: float,
+    s_min: float,
+    s_max: float,
+    zones_per_half: int,
+    module: float | None,
+    symmetric: bool | None,
+) -> Layout | None:
     L = d.length
     kmin = max(1, int(np.ceil(s_min / inc - _EPS)))
     kmax = int(np.floor(s_max / inc + _EPS))
@@ -264,8 +297,7 @@ def _optimise(d: Demand, cap_row: float, inc: float, s_min: float, s_max: float,
         for i in range(P + 1):
             if not np.isfinite(f[Z - 1, i]):
                 continue
-            cc, k = _central(L, pos[i], L - pos[i], d.max_over(pos[i], L - pos[i]), cap_row,
-                             inc, kmin, kmax)
+            cc, k = _central(L, pos[i], L - pos[i], d.max_over(pos[i], L - pos[i]), cap_row, inc, kmin, kmax)
             tot = 1 + 2 * f[Z - 1, i] + cc
             if tot < best - _EPS:
                 best, arg = tot, (i, k, cc)
@@ -284,8 +316,11 @@ def _optimise(d: Demand, cap_row: float, inc: float, s_min: float, s_max: float,
     kc = _allowed(R, cap_row, inc, kmin, kmax)
     gap = (L - pos)[None, :] - pos[:, None]
     with np.errstate(invalid="ignore"):
-        cc = np.where(gap <= _EPS * max(L, 1), 0.0,
-                      np.where(kc > 0, np.ceil(gap / np.maximum(kc, 1) / inc - _EPS), _INF))
+        cc = np.where(
+            gap <= _EPS * max(L, 1),
+            0.0,
+            np.where(kc > 0, np.ceil(gap / np.maximum(kc, 1) / inc - _EPS), _INF),
+        )
     cc = np.where(gap < -_EPS * max(L, 1), _INF, cc)
     best, arg = _INF, None
     for zl in range(K + 1):

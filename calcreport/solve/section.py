@@ -67,7 +67,7 @@ def shape_properties(shape: Shape) -> ShapeProps:
         return polygon_properties(shape.vertices)
     if shape.kind == "circle":
         r = shape.radius
-        return ShapeProps(math.pi * r * r, shape.centre[1], math.pi * r ** 4 / 4)
+        return ShapeProps(math.pi * r * r, shape.centre[1], math.pi * r**4 / 4)
     return ShapeProps(shape.area, shape.centroid[1], shape.inertia)
 
 
@@ -116,22 +116,51 @@ def section_properties(member: Member, log: StepLog) -> SectionResult:
         plog = log.child(f"part.{part.id}")
         sp = shape_properties(part.shape)
         sym, tpl, vals = _area_formula(part)
-        A = plog.add("A", f"Area of part {part.id}", sym, tpl, vals, Q_(sp.area, "inch**2"), source="geometry")
-        n = plog.add("n", f"Modular ratio of part {part.id}", "n = E / E_ref", "{E} / {E_ref}",
-                     {"E": part.material.E, "E_ref": E_ref}, float((part.material.E / E_ref).to("")),
-                     source=SOURCE_TRANSFORM)
-        y = plog.add("y", f"Centroid height of part {part.id}", "y = y_c − y_bottom", "{yc}",
-                     {"yc": Q_(sp.cy - bottom, "inch")}, Q_(sp.cy - bottom, "inch"), source="geometry")
+        A = plog.add(
+            "A", f"Area of part {part.id}", sym, tpl, vals, Q_(sp.area, "inch**2"), source="geometry"
+        )
+        n = plog.add(
+            "n",
+            f"Modular ratio of part {part.id}",
+            "n = E / E_ref",
+            "{E} / {E_ref}",
+            {"E": part.material.E, "E_ref": E_ref},
+            float((part.material.E / E_ref).to("")),
+            source=SOURCE_TRANSFORM,
+        )
+        y = plog.add(
+            "y",
+            f"Centroid height of part {part.id}",
+            "y = y_c − y_bottom",
+            "{yc}",
+            {"yc": Q_(sp.cy - bottom, "inch")},
+            Q_(sp.cy - bottom, "inch"),
+            source="geometry",
+        )
         sym, tpl, vals = _inertia_formula(part)
-        I0 = plog.add("I0", f"Own moment of inertia of part {part.id}", sym, tpl, vals,
-                      Q_(sp.inertia, "inch**4"), source="geometry")
+        I0 = plog.add(
+            "I0",
+            f"Own moment of inertia of part {part.id}",
+            sym,
+            tpl,
+            vals,
+            Q_(sp.inertia, "inch**4"),
+            source="geometry",
+        )
         w, h = part.shape.bbox[2] - part.shape.bbox[0], part.shape.bbox[3] - part.shape.bbox[1]
         props.append(PartProps(part.id, A, n, A * n, y, I0, Q_(h, "inch"), Q_(w, "inch")))
         sums_A.append(A * n)
         sums_Ay.append(A * n * y)
     slots_A = {f"nA{i + 1}": p.area_transformed for i, p in enumerate(props)}
-    A_t = log.add("A", "Transformed area", "A = Σ n·A", " + ".join(f"{{{k}}}" for k in slots_A),
-                  slots_A, sum(sums_A[1:], sums_A[0]).to("inch**2"), source=SOURCE_TRANSFORM)
+    A_t = log.add(
+        "A",
+        "Transformed area",
+        "A = Σ n·A",
+        " + ".join(f"{{{k}}}" for k in slots_A),
+        slots_A,
+        sum(sums_A[1:], sums_A[0]).to("inch**2"),
+        source=SOURCE_TRANSFORM,
+    )
     slots = {}
     terms = []
     for i, p in enumerate(props):
@@ -139,23 +168,49 @@ def section_properties(member: Member, log: StepLog) -> SectionResult:
         slots[f"y{i + 1}"] = p.centroid_y
         terms.append(f"{{nA{i + 1}}} × {{y{i + 1}}}")
     slots["A"] = A_t
-    ybar = log.add("ybar", "Neutral axis height above the bottom", "ȳ = Σ n·A·y / Σ n·A",
-                   "(" + " + ".join(terms) + ") / {A}", slots,
-                   (sum(sums_Ay[1:], sums_Ay[0]) / A_t).to("inch"), source=SOURCE_CENTROID)
+    ybar = log.add(
+        "ybar",
+        "Neutral axis height above the bottom",
+        "ȳ = Σ n·A·y / Σ n·A",
+        "(" + " + ".join(terms) + ") / {A}",
+        slots,
+        (sum(sums_Ay[1:], sums_Ay[0]) / A_t).to("inch"),
+        source=SOURCE_CENTROID,
+    )
     contribs = []
     for p in props:
         d = p.centroid_y - ybar
-        c = log.add(f"part.{p.id}.I", f"Contribution of part {p.id} to I", "n·(I₀ + A·d²)",
-                    "{n} × ({I0} + {A} × ({d})²)", {"n": p.n, "I0": p.inertia_own, "A": p.area, "d": d},
-                    (p.n * (p.inertia_own + p.area * d ** 2)).to("inch**4"), source=SOURCE_PARALLEL)
+        c = log.add(
+            f"part.{p.id}.I",
+            f"Contribution of part {p.id} to I",
+            "n·(I₀ + A·d²)",
+            "{n} × ({I0} + {A} × ({d})²)",
+            {"n": p.n, "I0": p.inertia_own, "A": p.area, "d": d},
+            (p.n * (p.inertia_own + p.area * d**2)).to("inch**4"),
+            source=SOURCE_PARALLEL,
+        )
         contribs.append(c)
     slots_I = {f"I{i + 1}": c for i, c in enumerate(contribs)}
-    inertia = log.add("I", "Moment of inertia about the neutral axis", "I = Σ n·(I₀ + A·d²)",
-                      " + ".join(f"{{{k}}}" for k in slots_I), slots_I,
-                      sum(contribs[1:], contribs[0]).to("inch**4"), source=SOURCE_PARALLEL)
-    return SectionResult(E_ref=E_ref, reference_material=member.reference_material.id, area=A_t,
-                         centroid=ybar, inertia=inertia, depth=Q_(top - bottom, "inch"),
-                         bottom=Q_(bottom, "inch"), parts=tuple(props), steps=tuple(log.steps))
+    inertia = log.add(
+        "I",
+        "Moment of inertia about the neutral axis",
+        "I = Σ n·(I₀ + A·d²)",
+        " + ".join(f"{{{k}}}" for k in slots_I),
+        slots_I,
+        sum(contribs[1:], contribs[0]).to("inch**4"),
+        source=SOURCE_PARALLEL,
+    )
+    return SectionResult(
+        E_ref=E_ref,
+        reference_material=member.reference_material.id,
+        area=A_t,
+        centroid=ybar,
+        inertia=inertia,
+        depth=Q_(top - bottom, "inch"),
+        bottom=Q_(bottom, "inch"),
+        parts=tuple(props),
+        steps=tuple(log.steps),
+    )
 
 
 def first_moment(section: SectionResult, held: tuple[str, ...], log: StepLog):
@@ -173,8 +228,15 @@ def first_moment(section: SectionResult, held: tuple[str, ...], log: StepLog):
         term = p.area_transformed * (p.centroid_y - section.centroid)
         total = term if total is None else total + term
     Q = abs(total.to("inch**3"))
-    return log.add("Q", "First moment of the held parts about the neutral axis", "Q = |Σ n·A′·(y′ − ȳ)|",
-                   "|" + " + ".join(terms) + "|", slots, Q, source="mechanics of materials: first moment of area")
+    return log.add(
+        "Q",
+        "First moment of the held parts about the neutral axis",
+        "Q = |Σ n·A′·(y′ − ȳ)|",
+        "|" + " + ".join(terms) + "|",
+        slots,
+        Q,
+        source="mechanics of materials: first moment of area",
+    )
 
 
 def first_moment_above(member: Member, section: SectionResult, y_cut: float) -> float:

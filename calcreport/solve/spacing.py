@@ -20,8 +20,15 @@ SOURCE_Q = "mechanics of materials: shear flow q = V·Q/I"
 
 def shear_flow(V: Quantity, Q: Quantity, I: Quantity, log: StepLog) -> Quantity:
     """q = V·Q/I — shear force per unit length on the plane (mechanics of materials)."""
-    return log.add("q", "Shear flow on the shear plane", "q = V·Q / I", "{V} × {Q} / {I}",
-                   {"V": V, "Q": Q, "I": I}, (V * Q / I).to("lbf/in"), source=SOURCE_Q)
+    return log.add(
+        "q",
+        "Shear flow on the shear plane",
+        "q = V·Q / I",
+        "{V} × {Q} / {I}",
+        {"V": V, "Q": Q, "I": I},
+        (V * Q / I).to("lbf/in"),
+        source=SOURCE_Q,
+    )
 
 
 def round_down(s: Quantity, step: Quantity) -> Quantity:
@@ -48,8 +55,15 @@ class SpacingResult:
     reasons: tuple[str, ...]
 
 
-def discrete_spacing(q: Quantity, n: int, F: Quantity, step: Quantity, s_min: Quantity | None,
-                     s_max: Quantity | None, log: StepLog) -> SpacingResult:
+def discrete_spacing(
+    q: Quantity,
+    n: int,
+    F: Quantity,
+    step: Quantity,
+    s_min: Quantity | None,
+    s_max: Quantity | None,
+    log: StepLog,
+) -> SpacingResult:
     """Required spacing s = n·F/q, practical spacing rounded down, limits applied.
 
     A practical spacing below ``s_min`` makes the joint NG (the connector cannot be placed that
@@ -57,45 +71,101 @@ def discrete_spacing(q: Quantity, n: int, F: Quantity, step: Quantity, s_min: Qu
     and limits are common practice, no source.
     """
     reasons: list[str] = []
-    nF = log.add("nF", "Capacity of one row of connectors", "n·F", "{n} × {F}", {"n": n, "F": F},
-                 (n * F).to("lbf"), source="connectors in a row share equally (assumption)")
+    nF = log.add(
+        "nF",
+        "Capacity of one row of connectors",
+        "n·F",
+        "{n} × {F}",
+        {"n": n, "F": F},
+        (n * F).to("lbf"),
+        source="connectors in a row share equally (assumption)",
+    )
     q_mag = float(q.to("lbf/in").magnitude)
     if q_mag <= 0:
         req = None
         if s_max is None:
-            return SpacingResult(None, None, s_min, s_max, 0.0, "OK",
-                                 ("no shear flow; spacing set by detailing (no spacing_max given)",))
+            return SpacingResult(
+                None,
+                None,
+                s_min,
+                s_max,
+                0.0,
+                "OK",
+                ("no shear flow; spacing set by detailing (no spacing_max given)",),
+            )
         prov = s_max
-        log.add("s_prov", "Practical spacing", "s = s_max (no shear flow)", "{s_max}", {"s_max": s_max},
-                s_max, source="common practice, no source")
+        log.add(
+            "s_prov",
+            "Practical spacing",
+            "s = s_max (no shear flow)",
+            "{s_max}",
+            {"s_max": s_max},
+            s_max,
+            source="common practice, no source",
+        )
         return SpacingResult(req, prov, s_min, s_max, 0.0, "OK", ())
-    req = log.add("s_req", "Required spacing", "s_req = n·F / q", "{nF} / {q}", {"nF": nF, "q": q},
-                  (nF / q).to("inch"), source="equilibrium of one connector row: q·s = n·F")
-    rounded = log.add("s_round", "Required spacing rounded down to the increment", "s = ⌊s_req / Δ⌋·Δ",
-                      "⌊{s_req} / {step}⌋ × {step}", {"s_req": req, "step": step},
-                      round_down(req, step), source="common practice, no source (round down, never up)")
+    req = log.add(
+        "s_req",
+        "Required spacing",
+        "s_req = n·F / q",
+        "{nF} / {q}",
+        {"nF": nF, "q": q},
+        (nF / q).to("inch"),
+        source="equilibrium of one connector row: q·s = n·F",
+    )
+    rounded = log.add(
+        "s_round",
+        "Required spacing rounded down to the increment",
+        "s = ⌊s_req / Δ⌋·Δ",
+        "⌊{s_req} / {step}⌋ × {step}",
+        {"s_req": req, "step": step},
+        round_down(req, step),
+        source="common practice, no source (round down, never up)",
+    )
     prov = rounded
     if s_max is not None and prov > s_max:
-        prov = log.add("s_cap", "Spacing capped by the maximum spacing", "s = min(s, s_max)",
-                       "min({s}, {s_max})", {"s": rounded, "s_max": s_max}, s_max.to("inch"),
-                       source="detailing limit")
+        prov = log.add(
+            "s_cap",
+            "Spacing capped by the maximum spacing",
+            "s = min(s, s_max)",
+            "min({s}, {s_max})",
+            {"s": rounded, "s_max": s_max},
+            s_max.to("inch"),
+            source="detailing limit",
+        )
     util = float((q * prov / nF).to(""))
     status = "OK"
     if s_min is not None and prov < s_min:
         status = "NG"
-        reasons.append("practical spacing is below the minimum spacing; use stronger or more connectors per row")
+        reasons.append(
+            "practical spacing is below the minimum spacing; use stronger or more connectors per row"
+        )
     if float(prov.to("inch").magnitude) <= 0:
         status = "NG"
         reasons.append("required spacing is less than one increment")
-    log.add("util", "Utilisation of the connector row at the practical spacing", "q·s / (n·F)",
-            "{q} × {s} / {nF}", {"q": q, "s": prov, "nF": nF}, util, source="demand / capacity")
+    log.add(
+        "util",
+        "Utilisation of the connector row at the practical spacing",
+        "q·s / (n·F)",
+        "{q} × {s} / {nF}",
+        {"q": q, "s": prov, "nF": nF},
+        util,
+        source="demand / capacity",
+    )
     return SpacingResult(req, prov, s_min, s_max, util, status, tuple(reasons))
 
 
 def continuous_check(q: Quantity, q_cap: Quantity, log: StepLog) -> SpacingResult:
     """Continuous connector (glue line, continuous weld): q ≤ q_cap (mechanics of materials)."""
-    util = log.add("util", "Utilisation of the continuous connection", "q / q_cap", "{q} / {q_cap}",
-                   {"q": q, "q_cap": q_cap}, float((q / q_cap).to("")), source="demand / capacity")
+    util = log.add(
+        "util",
+        "Utilisation of the continuous connection",
+        "q / q_cap",
+        "{q} / {q_cap}",
+        {"q": q, "q_cap": q_cap},
+        float((q / q_cap).to("")),
+        source="demand / capacity",
+    )
     status = "OK" if util <= 1.0 + 1e-9 else "NG"
     reasons = () if status == "OK" else ("shear flow exceeds the capacity of the continuous connection",)
     return SpacingResult(None, None, None, None, util, status, reasons)

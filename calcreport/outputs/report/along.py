@@ -31,11 +31,21 @@ __all__ = ["member_figures", "beam_figures", "schedule_figures", "schedule_key",
 def member_figures(m: MemberResult, ctx: Ctx) -> list[Flowable]:
     """Flowables for the analysis along the member and the joints' zoned schedules (may be empty)."""
     out: list[Flowable] = []
-    load_fig = loading_diagram(m.member, ctx.q, ctx.display.position, ctx.styles.fonts, ctx.width,
-                               ctx.display.system)
+    load_fig = loading_diagram(
+        m.member, ctx.q, ctx.display.position, ctx.styles.fonts, ctx.width, ctx.display.system
+    )
     if load_fig is not None:
-        out.append(KeepTogether([load_fig, para("Loads by case (downward positive) on the member, with its "
-                                                "supports and spans.", ctx.styles.caption)]))
+        out.append(
+            KeepTogether(
+                [
+                    load_fig,
+                    para(
+                        "Loads by case (downward positive) on the member, with its supports and spans.",
+                        ctx.styles.caption,
+                    ),
+                ]
+            )
+        )
     if m.beam is not None:
         out += combinations_table(m, ctx)
         out += beam_figures(m, ctx)
@@ -46,13 +56,33 @@ def member_figures(m: MemberResult, ctx: Ctx) -> list[Flowable]:
             chart = demand_capacity_chart(j, ctx.display, ctx.styles.fonts, ctx.width)
             elev = zone_elevation(j, m.member, ctx.q, ctx.display.position, ctx.styles.fonts, ctx.width)
             if chart is not None:
-                out.append(KeepTogether([*mark, chart, para(
-                    f"Shear flow q(x) = V(x)·Q/I at joint {j.id} from the envelope, against the capacity "
-                    "n·F/s that each zone provides.", ctx.styles.caption)]))
+                out.append(
+                    KeepTogether(
+                        [
+                            *mark,
+                            chart,
+                            para(
+                                f"Shear flow q(x) = V(x)·Q/I at joint {j.id} from the envelope, against the capacity "
+                                "n·F/s that each zone provides.",
+                                ctx.styles.caption,
+                            ),
+                        ]
+                    )
+                )
             if elev is not None:
-                out.append(KeepTogether([*mark, elev, para(
-                    f"Elevation of the member: connector rows of joint {j.id} by zone, with each zone's "
-                    "spacing (above) and length and number of rows (below).", ctx.styles.caption)]))
+                out.append(
+                    KeepTogether(
+                        [
+                            *mark,
+                            elev,
+                            para(
+                                f"Elevation of the member: connector rows of joint {j.id} by zone, with each zone's "
+                                "spacing (above) and length and number of rows (below).",
+                                ctx.styles.caption,
+                            ),
+                        ]
+                    )
+                )
     if out:
         out[0:0] = heading("Along the member", ctx.styles.h2, need=260)
     return out
@@ -89,9 +119,16 @@ def zone_rows(schedule: Any, ctx: Ctx) -> list[list]:
     rows = [["Zone", "From", "To", "Spacing", "Rows", "Governing combination"]]
     for i, z in enumerate(zones or (), 1):
         count = _get(z, "count", 3)
-        rows.append([str(i), _pos_text(_get(z, "start", 0), ctx), _pos_text(_get(z, "end", 1), ctx),
-                     _len_text(_get(z, "spacing", 2), ctx), "—" if count is None else ctx.q(count),
-                     str(_get(z, "governing", 6) or "—")])
+        rows.append(
+            [
+                str(i),
+                _pos_text(_get(z, "start", 0), ctx),
+                _pos_text(_get(z, "end", 1), ctx),
+                _len_text(_get(z, "spacing", 2), ctx),
+                "—" if count is None else ctx.q(count),
+                str(_get(z, "governing", 6) or "—"),
+            ]
+        )
     return rows
 
 
@@ -106,7 +143,9 @@ def combinations_table(m: MemberResult, ctx: Ctx) -> list[Flowable]:
         factors = " + ".join(f"{ctx.q(f, 3)}·{case}" for case, f in c.factors.items())
         rows.append([para(c.name, st.cell), para(factors, st.cell), para(c.source or "job file", st.cell)])
     title = para("Load combinations", st.h3)
-    note = para("Each zone of a schedule names the combination that governs its largest shear flow.", st.small)
+    note = para(
+        "Each zone of a schedule names the combination that governs its largest shear flow.", st.small
+    )
     return [KeepTogether([title, grid(rows, [0.30 * w, 0.30 * w, 0.40 * w], st)]), note]
 
 
@@ -151,9 +190,15 @@ def beam_figures(m: MemberResult, ctx: Ctx) -> list[Flowable]:
         xs, xu = positions(ctx.display, x)
         ys_hi, yu = series_values(ctx.display, b)
         ys_lo, _ = series_values(ctx.display, a)
-        chart = line_chart([Series("maximum", xs, ys_hi), Series("minimum", xs, ys_lo, dashed=True)],
-                           f"x along the member ({xu})", f"{name.split()[-1]} ({yu})", ctx.width, 150,
-                           st.fonts, title=f"{name} envelope")
+        chart = line_chart(
+            [Series("maximum", xs, ys_hi), Series("minimum", xs, ys_lo, dashed=True)],
+            f"x along the member ({xu})",
+            f"{name.split()[-1]} ({yu})",
+            ctx.width,
+            150,
+            st.fonts,
+            title=f"{name} envelope",
+        )
         out.append(KeepTogether([chart, para(f"{name} envelope over the load combinations.", st.caption)]))
     if not out:
         out.append(para("The analysis along the member is given step by step in the derivation.", st.small))

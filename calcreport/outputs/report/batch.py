@@ -10,9 +10,10 @@ from __future__ import annotations
 
 import os
 import sys
+from collections.abc import Callable
 from dataclasses import dataclass
 from pathlib import Path
-from typing import Callable, TextIO
+from typing import TextIO
 
 __all__ = ["Task", "Outcome", "expand_jobs", "build_one", "run_jobs", "default_workers"]
 
@@ -84,9 +85,14 @@ def build_one(task: Task) -> Outcome:
     except JobError as exc:
         return Outcome(task.job, EXIT_INVALID, _one_line(exc))
     except Exception as exc:  # a defect of ours: still one line, exit 2, nothing written
-        return Outcome(task.job, EXIT_INVALID, _one_line(
-            f"{task.job}: internal error while building the report ({type(exc).__name__}: {exc}); "
-            "please report it with the job file"))
+        return Outcome(
+            task.job,
+            EXIT_INVALID,
+            _one_line(
+                f"{task.job}: internal error while building the report ({type(exc).__name__}: {exc}); "
+                "please report it with the job file"
+            ),
+        )
     try:
         write_atomic(pdf, task.out)
         if task.json:
@@ -94,10 +100,13 @@ def build_one(task: Task) -> Outcome:
 
             write_results_json(r, task.out)
     except OSError as exc:
-        return Outcome(task.job, EXIT_INVALID, _one_line(f"{task.out}: cannot write the report "
-                                                         f"({exc.strerror or exc})"))
+        return Outcome(
+            task.job, EXIT_INVALID, _one_line(f"{task.out}: cannot write the report ({exc.strerror or exc})")
+        )
     extra = f" and {task.out.with_suffix('.json').name}" if task.json else ""
-    return Outcome(task.job, EXIT_NG if r.status == "NG" else EXIT_OK, f"wrote {task.out}{extra}  [{r.status}]")
+    return Outcome(
+        task.job, EXIT_NG if r.status == "NG" else EXIT_OK, f"wrote {task.out}{extra}  [{r.status}]"
+    )
 
 
 class _Progress:
@@ -125,8 +134,9 @@ class _Progress:
             self.stream.flush()
 
 
-def run_jobs(tasks: list[Task], workers: int, stream: TextIO | None = None,
-             work: Callable[[Task], Outcome] = build_one) -> list[Outcome]:
+def run_jobs(
+    tasks: list[Task], workers: int, stream: TextIO | None = None, work: Callable[[Task], Outcome] = build_one
+) -> list[Outcome]:
     """Run every task (``workers`` processes when more than one) and return outcomes in task order."""
     stream = stream if stream is not None else sys.stderr
     progress = _Progress(len(tasks), stream)
@@ -154,8 +164,13 @@ def run_jobs(tasks: list[Task], workers: int, stream: TextIO | None = None,
                     try:
                         outcomes[i] = f.result()
                     except Exception as exc:  # a worker died (killed, out of memory): that job only
-                        outcomes[i] = Outcome(tasks[i].job, EXIT_INVALID, _one_line(
-                            f"{tasks[i].job}: the build process failed ({type(exc).__name__}: {exc})"))
+                        outcomes[i] = Outcome(
+                            tasks[i].job,
+                            EXIT_INVALID,
+                            _one_line(
+                                f"{tasks[i].job}: the build process failed ({type(exc).__name__}: {exc})"
+                            ),
+                        )
                     progress.done += 1
                     progress.show(f"built {Path(tasks[i].job).name}")
     finally:

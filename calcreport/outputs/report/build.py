@@ -25,6 +25,7 @@ from reportlab.platypus import KeepTogether, PageBreak, Paragraph
 from ... import __version__
 from ...solve.results import JobResult
 from ..fmt import Display
+from ..pdfmeta import job_metadata
 from .along import member_figures
 from .checks import results_story
 from .common import Ctx, para
@@ -32,7 +33,6 @@ from .cover import cover_story
 from .derivations import derivation_story
 from .drawing import section_drawing
 from .inputs import assumptions_story, description_story, inputs_story
-from ..pdfmeta import job_metadata
 from .pages import PageInfo, ReportDoc, SectionStart
 from .signoff import limitations_story, signoff_story
 from .styles import esc, make_styles, register_fonts
@@ -48,9 +48,12 @@ class _Info(PDFInfo):
 
     def format(self, document):
         D = {
-            "Title": PDFString(self.title), "Author": PDFString(self.author),
-            "Subject": PDFString(self.subject), "Keywords": PDFString(self.keywords),
-            "Creator": PDFString(self.creator), "Producer": PDFString(self.producer),
+            "Title": PDFString(self.title),
+            "Author": PDFString(self.author),
+            "Subject": PDFString(self.subject),
+            "Keywords": PDFString(self.keywords),
+            "Creator": PDFString(self.creator),
+            "Producer": PDFString(self.producer),
             "Trapped": PDFName(self.trapped),
         }
         D["ModDate"] = D["CreationDate"] = PDFDate(ts=document._timeStamp, dateFormatter=self._dateFormatter)
@@ -140,15 +143,28 @@ def _story(ctx: Ctx, info: PageInfo, sections: list[tuple[str, str]]) -> list:
 def _page_info(result: JobResult, tpl: Template) -> PageInfo:
     job, h = result.job, result.job.header
     return PageInfo(
-        firm=tpl.firm, address=tpl.address, project=h.project, number=h.number,
-        subject=h.subject or h.project, revision=h.revision, prepared=h.prepared_by,
-        prepared_date=h.prepared_date or h.date, checked=h.checked_by, checked_date=h.checked_date,
-        job_file=os.path.basename(job.path), sha_short=job.sha256[:12], version=__version__,
+        firm=tpl.firm,
+        address=tpl.address,
+        project=h.project,
+        number=h.number,
+        subject=h.subject or h.project,
+        revision=h.revision,
+        prepared=h.prepared_by,
+        prepared_date=h.prepared_date or h.date,
+        checked=h.checked_by,
+        checked_date=h.checked_date,
+        job_file=os.path.basename(job.path),
+        sha_short=job.sha256[:12],
+        version=__version__,
     )
 
 
-def render_pdf(result: JobResult, template: Template | None = None, changed_keys: frozenset[str] = frozenset(),
-               revision_mark: str = "") -> bytes:
+def render_pdf(
+    result: JobResult,
+    template: Template | None = None,
+    changed_keys: frozenset[str] = frozenset(),
+    revision_mark: str = "",
+) -> bytes:
     """The report of ``result`` as PDF bytes (see module docstring)."""
     job = result.job
     tpl = template if template is not None else load_template(job.settings.template, job.path)
@@ -158,19 +174,41 @@ def render_pdf(result: JobResult, template: Template | None = None, changed_keys
     info = _page_info(result, tpl)
     sections = report_sections(result)
     h = job.header
-    extra = {**job_metadata(job.sha256, "calculation report"),  # the keys `verify` reads (pdfmeta)
-             "CalcreportJobFile": os.path.basename(job.path), "CalcreportRevision": h.revision}
+    extra = {
+        **job_metadata(job.sha256, "calculation report"),  # the keys `verify` reads (pdfmeta)
+        "CalcreportJobFile": os.path.basename(job.path),
+        "CalcreportRevision": h.revision,
+    }
     maker = _canvasmaker(extra, _timestamp(h.date))
-    keywords = ", ".join(x for x in (h.number, f"revision {h.revision}" if h.revision else "",
-                                     *(f"member {m.id}" for m in result.members), "shear flow",
-                                     "connector spacing", "calcreport") if x)
+    keywords = ", ".join(
+        x
+        for x in (
+            h.number,
+            f"revision {h.revision}" if h.revision else "",
+            *(f"member {m.id}" for m in result.members),
+            "shear flow",
+            "connector spacing",
+            "calcreport",
+        )
+        if x
+    )
     info.deferred = True  # one layout pass (see module docstring)
     buf = io.BytesIO()
-    doc = ReportDoc(buf, tpl, styles, info, maker, title=f"{h.project} — {h.subject}".strip(" —"),
-                    author=h.prepared_by or "calcreport", subject=h.subject or h.project, keywords=keywords,
-                    creator=f"calcreport {__version__}")
-    ctx = Ctx(result, display, styles, tpl, doc.width, frozenset(changed_keys), revision_mark,
-              doc.frame_height)
+    doc = ReportDoc(
+        buf,
+        tpl,
+        styles,
+        info,
+        maker,
+        title=f"{h.project} — {h.subject}".strip(" —"),
+        author=h.prepared_by or "calcreport",
+        subject=h.subject or h.project,
+        keywords=keywords,
+        creator=f"calcreport {__version__}",
+    )
+    ctx = Ctx(
+        result, display, styles, tpl, doc.width, frozenset(changed_keys), revision_mark, doc.frame_height
+    )
     doc.build(_story(ctx, info, sections), canvasmaker=maker)
     pdf = buf.getvalue()
     return pdf
@@ -182,8 +220,13 @@ def _umask() -> int:
     return mask
 
 
-def build_pdf(result: JobResult, out_path: str | os.PathLike, template: Template | None = None,
-              changed_keys: frozenset[str] = frozenset(), revision_mark: str = "") -> Path:
+def build_pdf(
+    result: JobResult,
+    out_path: str | os.PathLike,
+    template: Template | None = None,
+    changed_keys: frozenset[str] = frozenset(),
+    revision_mark: str = "",
+) -> Path:
     """Write the report to ``out_path`` atomically; an earlier file there survives any failure.
 
     ``changed_keys`` (step keys or job-file key paths) get a revision triangle with

@@ -5,15 +5,25 @@ from __future__ import annotations
 from reportlab.platypus import Paragraph
 
 from ...solve.results import Check, MemberResult
-from .common import Ctx, heading, grid, para
+from .common import Ctx, grid, heading, para
 from .styles import esc
 
 __all__ = ["results_story", "checks_rows"]
 
 
 def _joint_rows(m: MemberResult, ctx: Ctx) -> list[list]:
-    rows = [["Joint", "Demand q", "Capacity", "Spacing required", "Spacing provided", "Limits (min / max)",
-             "Utilisation", "Status"]]
+    rows = [
+        [
+            "Joint",
+            "Demand q",
+            "Capacity",
+            "Spacing required",
+            "Spacing provided",
+            "Limits (min / max)",
+            "Utilisation",
+            "Status",
+        ]
+    ]
     for j in m.joints:
         if j.continuous:
             cap = f"{ctx.q(j.capacity_row)} (continuous)"
@@ -30,8 +40,9 @@ def checks_rows(checks: list[tuple[str, Check]], ctx: Ctx) -> list[list]:
     rows = [["Where", "Check", "Demand", "Capacity", "Ratio", "Status", "Source"]]
     for where, c in checks:
         label = c.label + (f" ({c.note})" if c.note else "")
-        rows.append([where, label, ctx.q(c.demand), ctx.q(c.capacity), ctx.q(c.ratio, 3), c.status,
-                     c.source or "—"])
+        rows.append(
+            [where, label, ctx.q(c.demand), ctx.q(c.capacity), ctx.q(c.ratio, 3), c.status, c.source or "—"]
+        )
     return rows
 
 
@@ -39,12 +50,21 @@ def results_story(m: MemberResult, ctx: Ctx) -> list:
     st, w = ctx.styles, ctx.width
     out: list = [*heading("Results", st.h2)]
     if m.joints:
-        out.append(grid(_joint_rows(m, ctx), [0.11 * w, 0.12 * w, 0.20 * w, 0.11 * w, 0.11 * w, 0.14 * w,
-                                              0.12 * w, 0.09 * w], st))
+        out.append(
+            grid(
+                _joint_rows(m, ctx),
+                [0.11 * w, 0.12 * w, 0.20 * w, 0.11 * w, 0.11 * w, 0.14 * w, 0.12 * w, 0.09 * w],
+                st,
+            )
+        )
         if any(j.schedule is not None for j in m.joints):
-            out.append(para("With loads along the member, the spacings in this table are those for the largest "
-                            "shear; the zoned schedules under 'Along the member' vary the spacing with the shear.",
-                            st.small))
+            out.append(
+                para(
+                    "With loads along the member, the spacings in this table are those for the largest "
+                    "shear; the zoned schedules under 'Along the member' vary the spacing with the shear.",
+                    st.small,
+                )
+            )
         for j in m.joints:
             for reason in j.reasons:
                 out.append(para(f"Joint {j.id}: {reason}", st.small))
@@ -53,9 +73,20 @@ def results_story(m: MemberResult, ctx: Ctx) -> list:
     checks = [(f"joint {j.id}", c) for j in m.joints for c in j.checks] + [("member", c) for c in m.checks]
     if checks:
         out.extend(heading("Checks", st.h3))
-        out.append(grid(checks_rows(checks, ctx), [0.11 * w, 0.27 * w, 0.12 * w, 0.12 * w, 0.08 * w, 0.08 * w,
-                                                   0.22 * w], st))
-    out.append(Paragraph(f"Member {esc(m.id)}: <b>{m.status}</b>", st.body) if m.status == "OK" else
-               Paragraph(f'<font color="#b3261e"><b>Member {esc(m.id)}: NG — the member or its connection does not '
-                         "satisfy the checks above as detailed.</b></font>", st.body))
+        out.append(
+            grid(
+                checks_rows(checks, ctx),
+                [0.11 * w, 0.27 * w, 0.12 * w, 0.12 * w, 0.08 * w, 0.08 * w, 0.22 * w],
+                st,
+            )
+        )
+    out.append(
+        Paragraph(f"Member {esc(m.id)}: <b>{m.status}</b>", st.body)
+        if m.status == "OK"
+        else Paragraph(
+            f'<font color="#b3261e"><b>Member {esc(m.id)}: NG — the member or its connection does not '
+            "satisfy the checks above as detailed.</b></font>",
+            st.body,
+        )
+    )
     return out

@@ -19,24 +19,43 @@ EXIT_OK, EXIT_NG, EXIT_INVALID = 0, 1, 2
 
 def register(sub) -> None:
     b = sub.add_parser(
-        "build", help="write a PDF calculation report per job file (or per job in a folder)",
+        "build",
+        help="write a PDF calculation report per job file (or per job in a folder)",
         description="Solve each job file and write its calculation report as PDF: title block on every "
         "sheet, seal box, inputs, section drawing to scale, step-by-step derivation, results, sign-off and "
         "limitations. A folder stands for every *.toml job in it (sorted by name). Each job is built on "
         "its own and written atomically: an invalid job writes nothing and is listed in a summary at the "
         "end, the other jobs are still written. Exit code: the worst of all jobs — 0 all OK, 1 some NG "
-        "(the reports are still written and show NG), 2 some job invalid or not written.")
+        "(the reports are still written and show NG), 2 some job invalid or not written.",
+    )
     b.add_argument("jobs", nargs="+", metavar="JOB.toml|FOLDER")
-    b.add_argument("-o", "--output", metavar="OUT",
-                   help="where to write: for one job, a path ending in .pdf is the file; any other path "
-                   "is a folder (created if needed); for several jobs a folder. Default: ./out/<job-name>.pdf")
-    b.add_argument("-j", "--jobs", dest="workers", type=_workers, metavar="N", default=None,
-                   help="build N jobs at a time in separate processes (default: the number of cores)")
-    b.add_argument("--since", metavar="REV",
-                   help="mark what changed since git revision REV (commit, tag, branch) with a revision "
-                   "triangle carrying the job's revision letter (see docs/review.md)")
-    b.add_argument("--json", action="store_true",
-                   help="also write the results JSON beside each PDF (same name, .json; stable for git)")
+    b.add_argument(
+        "-o",
+        "--output",
+        metavar="OUT",
+        help="where to write: for one job, a path ending in .pdf is the file; any other path "
+        "is a folder (created if needed); for several jobs a folder. Default: ./out/<job-name>.pdf",
+    )
+    b.add_argument(
+        "-j",
+        "--jobs",
+        dest="workers",
+        type=_workers,
+        metavar="N",
+        default=None,
+        help="build N jobs at a time in separate processes (default: the number of cores)",
+    )
+    b.add_argument(
+        "--since",
+        metavar="REV",
+        help="mark what changed since git revision REV (commit, tag, branch) with a revision "
+        "triangle carrying the job's revision letter (see docs/review.md)",
+    )
+    b.add_argument(
+        "--json",
+        action="store_true",
+        help="also write the results JSON beside each PDF (same name, .json; stable for git)",
+    )
     b.set_defaults(func=cmd_build)
 
 
@@ -60,8 +79,13 @@ def output_paths(jobs: list[str], output: str | None, folder: bool = False) -> l
         folder = Path("out")
     else:
         out = Path(output)
-        is_folder = (output.endswith(("/", "\\")) or out.is_dir() or len(jobs) > 1 or folder
-                     or out.suffix.lower() != ".pdf")  # "-o out" names a folder, "-o x.pdf" a file
+        is_folder = (
+            output.endswith(("/", "\\"))
+            or out.is_dir()
+            or len(jobs) > 1
+            or folder
+            or out.suffix.lower() != ".pdf"
+        )  # "-o out" names a folder, "-o x.pdf" a file
         if (len(jobs) > 1 or folder) and out.exists() and not out.is_dir():
             raise ValueError(f"{output}: with several jobs, -o must be a folder")
         if not is_folder:

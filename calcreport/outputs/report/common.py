@@ -2,8 +2,9 @@
 
 from __future__ import annotations
 
+from collections.abc import Sequence
 from dataclasses import dataclass
-from typing import Any, Sequence
+from typing import Any
 
 from reportlab.lib import colors
 from reportlab.platypus import CondPageBreak, Paragraph, Table, TableStyle
@@ -14,7 +15,17 @@ from .pages import RULE, MarginMark
 from .styles import Styles, esc
 from .template import Template
 
-__all__ = ["Ctx", "para", "heading", "grid", "status_cell", "marked_cell", "OK_COLOUR", "NG_COLOUR", "GOVERNS_TINT"]
+__all__ = [
+    "Ctx",
+    "para",
+    "heading",
+    "grid",
+    "status_cell",
+    "marked_cell",
+    "OK_COLOUR",
+    "NG_COLOUR",
+    "GOVERNS_TINT",
+]
 
 OK_COLOUR = colors.HexColor("#1d6b35")
 NG_COLOUR = colors.HexColor("#b3261e")
@@ -67,7 +78,7 @@ def heading(text: str, style, need: float = 110.0) -> list:
     return [CondPageBreak(need), para(text, style)]
 
 
-def marked_cell(ctx: "Ctx", key: str, cell: Any, style=None) -> Any:
+def marked_cell(ctx: Ctx, key: str, cell: Any, style=None) -> Any:
     """``cell`` with the revision triangle in the margin when ``key`` changed."""
     marks = ctx.mark(key)
     if not marks:
@@ -98,8 +109,15 @@ def _may_be_tall(data, widths, limit: float) -> bool:
     return False
 
 
-def grid(rows: Sequence[Sequence[Any]], widths: Sequence[float], st: Styles, header_rows: int = 1,
-         extra: Sequence[tuple] = (), zebra: bool = True, frame_height: float = 560.0) -> Table:
+def grid(
+    rows: Sequence[Sequence[Any]],
+    widths: Sequence[float],
+    st: Styles,
+    header_rows: int = 1,
+    extra: Sequence[tuple] = (),
+    zebra: bool = True,
+    frame_height: float = 560.0,
+) -> Table:
     """A table in our style: thin rules, tinted header repeated on every page.
 
     Rows are kept whole; only a table with a row taller than half of ``frame_height`` (when given)
@@ -135,8 +153,10 @@ def grid(rows: Sequence[Sequence[Any]], widths: Sequence[float], st: Styles, hea
         ("BOX", (0, 0), (-1, -1), 0.6, colors.black),
     ]
     if header_rows:
-        cmds += [("BACKGROUND", (0, 0), (-1, header_rows - 1), st.tint),
-                 ("LINEBELOW", (0, header_rows - 1), (-1, header_rows - 1), 0.7, colors.black)]
+        cmds += [
+            ("BACKGROUND", (0, 0), (-1, header_rows - 1), st.tint),
+            ("LINEBELOW", (0, header_rows - 1), (-1, header_rows - 1), 0.7, colors.black),
+        ]
     if zebra:
         for r in range(header_rows + 1, len(data), 2):
             cmds.append(("BACKGROUND", (0, r), (-1, r), colors.HexColor("#f6f6f6")))

@@ -40,11 +40,15 @@ def governing_text(m: MemberResult, ctx: Ctx) -> str:
     best = None  # (ratio, text)
     for j in m.joints:
         if j.continuous:
-            text = (f"joint {j.id}: q = {ctx.q(j.shear_flow)} against {ctx.q(j.capacity_row)} (continuous); "
-                    f"utilisation {ctx.q(j.utilisation, 3)}")
+            text = (
+                f"joint {j.id}: q = {ctx.q(j.shear_flow)} against {ctx.q(j.capacity_row)} (continuous); "
+                f"utilisation {ctx.q(j.utilisation, 3)}"
+            )
         else:
-            text = (f"joint {j.id}: q = {ctx.q(j.shear_flow)}; s = {ctx.q(j.spacing_provided, 3)} "
-                    f"(required {ctx.q(j.spacing_required)}); utilisation {ctx.q(j.utilisation, 3)}")
+            text = (
+                f"joint {j.id}: q = {ctx.q(j.shear_flow)}; s = {ctx.q(j.spacing_provided, 3)} "
+                f"(required {ctx.q(j.spacing_required)}); utilisation {ctx.q(j.utilisation, 3)}"
+            )
         if j.status == "NG" and j.reasons:
             text += " — " + "; ".join(j.reasons)
         key = (j.status == "NG", j.utilisation)
@@ -59,7 +63,10 @@ def governing_text(m: MemberResult, ctx: Ctx) -> str:
         if c.ratio is not None or c.status == "NG":
             ck = (c.status == "NG", c.ratio or 0.0)
             if best is None or ck > best[0]:
-                best = (ck, f"{c.label}: {ctx.q(c.demand)} against {ctx.q(c.capacity)}, ratio {ctx.q(c.ratio, 3)}")
+                best = (
+                    ck,
+                    f"{c.label}: {ctx.q(c.demand)} against {ctx.q(c.capacity)}, ratio {ctx.q(c.ratio, 3)}",
+                )
     return best[1] if best else "no joints or checks"
 
 
@@ -75,24 +82,51 @@ def cover_story(ctx: Ctx, info: PageInfo, sections: list[tuple[str, str]]) -> li
         Paragraph("Structural calculation", st.h3),
         para(h.subject or h.project, st.h1),
         para(h.project, st.body),
-        Paragraph(f'Overall result: <font color="{colour}"><b>{esc(status)}</b></font>'
-                  + ("" if status == "OK" else " — see the members marked NG below"), st.body),
+        Paragraph(
+            f'Overall result: <font color="{colour}"><b>{esc(status)}</b></font>'
+            + ("" if status == "OK" else " — see the members marked NG below"),
+            st.body,
+        ),
         Spacer(1, 4),
     ]
     facts = [
-        ("Client", h.client or "—"), ("Job number", h.number or "—"),
-        ("Design method", f"{job.settings.method}"), ("Units", f"{job.settings.units}"),
+        ("Client", h.client or "—"),
+        ("Job number", h.number or "—"),
+        ("Design method", f"{job.settings.method}"),
+        ("Units", f"{job.settings.units}"),
         ("Revision", f"{h.revision}   {h.date}".strip()),
-        ("Job file", os.path.basename(job.path)), ("SHA-256", job.sha256),
+        ("Job file", os.path.basename(job.path)),
+        ("SHA-256", job.sha256),
     ]
-    ft = Table([[para(k, st.cell_bold), para(v, st.cell)] for k, v in facts],
-               colWidths=[78, left_w - 78], hAlign="LEFT")
-    ft.setStyle(TableStyle([("VALIGN", (0, 0), (-1, -1), "TOP"), ("LEFTPADDING", (0, 0), (-1, -1), 0),
-                            ("TOPPADDING", (0, 0), (-1, -1), 1), ("BOTTOMPADDING", (0, 0), (-1, -1), 1.5)]))
-    top = Table([[intro + [ft], SealBox(seal_w, seal_w, st.fonts.regular)]],
-                colWidths=[left_w + 14, seal_w], hAlign="LEFT")
-    top.setStyle(TableStyle([("VALIGN", (0, 0), (-1, -1), "TOP"), ("LEFTPADDING", (0, 0), (-1, -1), 0),
-                             ("RIGHTPADDING", (0, 0), (-1, -1), 0)]))
+    ft = Table(
+        [[para(k, st.cell_bold), para(v, st.cell)] for k, v in facts],
+        colWidths=[78, left_w - 78],
+        hAlign="LEFT",
+    )
+    ft.setStyle(
+        TableStyle(
+            [
+                ("VALIGN", (0, 0), (-1, -1), "TOP"),
+                ("LEFTPADDING", (0, 0), (-1, -1), 0),
+                ("TOPPADDING", (0, 0), (-1, -1), 1),
+                ("BOTTOMPADDING", (0, 0), (-1, -1), 1.5),
+            ]
+        )
+    )
+    top = Table(
+        [[intro + [ft], SealBox(seal_w, seal_w, st.fonts.regular)]],
+        colWidths=[left_w + 14, seal_w],
+        hAlign="LEFT",
+    )
+    top.setStyle(
+        TableStyle(
+            [
+                ("VALIGN", (0, 0), (-1, -1), "TOP"),
+                ("LEFTPADDING", (0, 0), (-1, -1), 0),
+                ("RIGHTPADDING", (0, 0), (-1, -1), 0),
+            ]
+        )
+    )
     story.append(top)
 
     story.append(Paragraph("Summary of members", st.h2))
@@ -122,9 +156,15 @@ def cover_story(ctx: Ctx, info: PageInfo, sections: list[tuple[str, str]]) -> li
             continue
         sheet = info.sections.get(sid)
         toc.append([title, str(sheet) if sheet else "—"])
-    story.append(grid(toc, [0.85 * w, 0.15 * w], st, zebra=False,
-                      extra=[("ALIGN", (1, 0), (1, -1), "RIGHT")]))
+    story.append(
+        grid(toc, [0.85 * w, 0.15 * w], st, zebra=False, extra=[("ALIGN", (1, 0), (1, -1), "RIGHT")])
+    )
     story.append(Spacer(1, 6))
-    story.append(Paragraph("This report is not valid unless reviewed, signed and sealed by a licensed "
-                           "professional engineer. Limitations and cautions are listed at the end.", st.small))
+    story.append(
+        Paragraph(
+            "This report is not valid unless reviewed, signed and sealed by a licensed "
+            "professional engineer. Limitations and cautions are listed at the end.",
+            st.small,
+        )
+    )
     return story

@@ -10,13 +10,16 @@ from reportlab.platypus import Paragraph
 
 from ...solve.results import MemberResult
 from ...steps import Step
-from .common import GOVERNS_TINT, Ctx, heading, grid, para
+from .common import GOVERNS_TINT, Ctx, grid, heading, para
 from .styles import esc
 
 __all__ = ["derivation_story", "group_steps", "step_rows"]
 
-_GROUPS = {"section": "Section properties (transformed section)", "shear": "Design shear",
-           "beam": "Loads and shear along the member"}
+_GROUPS = {
+    "section": "Section properties (transformed section)",
+    "shear": "Design shear",
+    "beam": "Loads and shear along the member",
+}
 
 
 def group_steps(m: MemberResult) -> list[tuple[str, str, list[Step]]]:
@@ -25,7 +28,7 @@ def group_steps(m: MemberResult) -> list[tuple[str, str, list[Step]]]:
     joints = {j.id: j for j in m.joints}
     groups: list[tuple[str, str, list[Step]]] = []
     for s in m.steps:
-        rest = s.key[len(prefix):] if s.key.startswith(prefix) else s.key
+        rest = s.key[len(prefix) :] if s.key.startswith(prefix) else s.key
         head = rest.split(".", 1)[0]
         gid, title = head, _GROUPS.get(head, head.replace("_", " ").capitalize())
         if head == "joint":
@@ -41,7 +44,7 @@ def group_steps(m: MemberResult) -> list[tuple[str, str, list[Step]]]:
 
 
 def _joint_id(rest: str, joints: dict) -> str:
-    body = rest[len("joint."):]
+    body = rest[len("joint.") :]
     for jid in sorted(joints, key=len, reverse=True):  # ids may contain dots
         if body == jid or body.startswith(jid + "."):
             return jid
@@ -76,13 +79,26 @@ def step_rows(steps: list[Step], ctx: Ctx, number_prefix: str) -> tuple[list[lis
 def derivation_story(m: MemberResult, ctx: Ctx, section_no: str) -> list:
     """Headings and one table per group of steps; rows split across pages with repeated headers."""
     st = ctx.styles
-    out: list = [*heading("Derivation", st.h2),
-                 Paragraph("Each step gives the formula, the formula with the numbers substituted, the result "
-                           "and its source. Steps that govern are tinted.", st.small)]
+    out: list = [
+        *heading("Derivation", st.h2),
+        Paragraph(
+            "Each step gives the formula, the formula with the numbers substituted, the result "
+            "and its source. Steps that govern are tinted.",
+            st.small,
+        ),
+    ]
     w = ctx.width
     for g, (_, title, steps) in enumerate(group_steps(m), 1):
         out += heading(f"{section_no}.{g}  {title}", st.h3)
         rows, extra = step_rows(steps, ctx, f"{section_no}.{g}.")
-        out.append(grid(rows, [0.09 * w, 0.63 * w, 0.28 * w], st, extra=extra, zebra=False,
-                        frame_height=ctx.frame_height))
+        out.append(
+            grid(
+                rows,
+                [0.09 * w, 0.63 * w, 0.28 * w],
+                st,
+                extra=extra,
+                zebra=False,
+                frame_height=ctx.frame_height,
+            )
+        )
     return out

@@ -32,8 +32,40 @@ FAMILY_STYLE = {
     "other": ("#eeeeee", "#888888", "none", 0.0),
 }
 PLANE = colors.HexColor("#b3261e")
-NICE = (1, 1.5, 2, 2.5, 3, 4, 5, 6, 8, 10, 12, 15, 16, 20, 24, 25, 30, 40, 48, 50, 60, 75, 80, 96, 100,
-        120, 150, 200, 250, 300, 400, 500)
+NICE = (
+    1,
+    1.5,
+    2,
+    2.5,
+    3,
+    4,
+    5,
+    6,
+    8,
+    10,
+    12,
+    15,
+    16,
+    20,
+    24,
+    25,
+    30,
+    40,
+    48,
+    50,
+    60,
+    75,
+    80,
+    96,
+    100,
+    120,
+    150,
+    200,
+    250,
+    300,
+    400,
+    500,
+)
 MAX_H = 300.0
 LEFT, RIGHT, BOTTOM, TOP = 78.0, 118.0, 62.0, 16.0
 
@@ -67,7 +99,7 @@ def _hatch(poly: SPolygon, kind: str, spacing: float, colour: str) -> list:
         return out
     dirs = {"diag": [(1, 1)], "back": [(1, -1)], "cross": [(1, 1), (1, -1)], "horiz": [(1, 0)]}[kind]
     span = (x1 - x0) + (y1 - y0)
-    for dx, dy in dirs:
+    for _dx, dy in dirs:
         n = int(span / spacing) + 2
         for i in range(n):
             if dy == 0:
@@ -77,8 +109,11 @@ def _hatch(poly: SPolygon, kind: str, spacing: float, colour: str) -> list:
                 line = LineString([(x0 - 1, yy), (x1 + 1, yy)])
             else:
                 c = (y0 - x1 if dy > 0 else y0 + x0) + i * spacing * math.sqrt(2)
-                line = (LineString([(x0 - 1, x0 - 1 + c), (x1 + 1, x1 + 1 + c)]) if dy > 0 else
-                        LineString([(x0 - 1, c - x0 + 1), (x1 + 1, c - x1 - 1)]))
+                line = (
+                    LineString([(x0 - 1, x0 - 1 + c), (x1 + 1, x1 + 1 + c)])
+                    if dy > 0
+                    else LineString([(x0 - 1, c - x0 + 1), (x1 + 1, c - x1 - 1)])
+                )
             piece = poly.intersection(line)
             for seg in getattr(piece, "geoms", [piece]):
                 if seg.is_empty or seg.geom_type != "LineString":
@@ -90,11 +125,15 @@ def _hatch(poly: SPolygon, kind: str, spacing: float, colour: str) -> list:
 
 def _ticks(x0, y0, x1, y1, col) -> list:
     """Oblique tick marks at both ends of a dimension line."""
-    return [Line(x - 2.5, y - 2.5, x + 2.5, y + 2.5, strokeColor=col, strokeWidth=0.7)
-            for x, y in ((x0, y0), (x1, y1))]
+    return [
+        Line(x - 2.5, y - 2.5, x + 2.5, y + 2.5, strokeColor=col, strokeWidth=0.7)
+        for x, y in ((x0, y0), (x1, y1))
+    ]
 
 
-def _pack(wanted: list[float], lo: float, hi: float, gap: float = 9.0, fixed: tuple[float, ...] = ()) -> list[float]:
+def _pack(
+    wanted: list[float], lo: float, hi: float, gap: float = 9.0, fixed: tuple[float, ...] = ()
+) -> list[float]:
     """Spread label heights so that no two are closer than ``gap`` (and avoid ``fixed`` ones)."""
     order = sorted(range(len(wanted)), key=lambda i: wanted[i])
     placed: dict[int, float] = {}
@@ -168,8 +207,13 @@ def section_drawing(m: MemberResult, ctx: Ctx) -> tuple[Drawing, str]:
             pts = [P(x, y) for x, y in s.vertices]
         elif s.kind == "circle":
             cx, cy = P(*s.centre)
-            pts = [(cx + s.radius * k * math.cos(a * math.pi / 32), cy + s.radius * k * math.sin(a * math.pi / 32))
-                   for a in range(64)]
+            pts = [
+                (
+                    cx + s.radius * k * math.cos(a * math.pi / 32),
+                    cy + s.radius * k * math.sin(a * math.pi / 32),
+                )
+                for a in range(64)
+            ]
         else:
             x0, y0 = P(s.bbox[0], s.bbox[1])
             x1, y1 = P(s.bbox[2], s.bbox[3])
@@ -186,8 +230,17 @@ def section_drawing(m: MemberResult, ctx: Ctx) -> tuple[Drawing, str]:
         text = plain(p.id)[:24]
         tw = stringWidth(text, bold, 6.5)
         if bx1 - bx0 > tw + 6 and by1 - by0 > 10:
-            dr.add(Rect(rp.x - tw / 2 - 1.5, rp.y - 2.5, tw + 3, 8.5, fillColor=colors.white,
-                        strokeColor=None, fillOpacity=0.85))
+            dr.add(
+                Rect(
+                    rp.x - tw / 2 - 1.5,
+                    rp.y - 2.5,
+                    tw + 3,
+                    8.5,
+                    fillColor=colors.white,
+                    strokeColor=None,
+                    fillOpacity=0.85,
+                )
+            )
             dr.add(String(rp.x, rp.y, text, fontName=bold, fontSize=6.5, textAnchor="middle"))
         elif rp.x <= ox + (xmin + xmax) / 2 * k:
             labels_left.append((text, rp.x, rp.y))
@@ -198,11 +251,29 @@ def section_drawing(m: MemberResult, ctx: Ctx) -> tuple[Drawing, str]:
     ybar = float((m.section.bottom + m.section.centroid).to("inch").magnitude)
     _, ny = P(0, ybar)
     lx0, lx1 = P(xmin, 0)[0] - 14, P(xmax, 0)[0] + 9
-    dr.add(Line(lx0, ny, lx1, ny, strokeColor=colors.HexColor("#1f3a93"), strokeWidth=0.8,
-                strokeDashArray=[7, 2, 1.2, 2]))
+    dr.add(
+        Line(
+            lx0,
+            ny,
+            lx1,
+            ny,
+            strokeColor=colors.HexColor("#1f3a93"),
+            strokeWidth=0.8,
+            strokeDashArray=[7, 2, 1.2, 2],
+        )
+    )
     na_text = f"N.A.  ȳ = {d.quantity(m.section.centroid)}"
-    dr.add(String(lx0 - 2, ny + 2, na_text, fontName=font, fontSize=6.5, textAnchor="end",
-                  fillColor=colors.HexColor("#1f3a93")))
+    dr.add(
+        String(
+            lx0 - 2,
+            ny + 2,
+            na_text,
+            fontName=font,
+            fontSize=6.5,
+            textAnchor="end",
+            fillColor=colors.HexColor("#1f3a93"),
+        )
+    )
 
     # part labels that did not fit inside their part: left column with leaders
     if labels_left:
@@ -231,16 +302,26 @@ def section_drawing(m: MemberResult, ctx: Ctx) -> tuple[Drawing, str]:
     dr.add(Line(wx0, dim_y, wx1, dim_y, strokeColor=dim, strokeWidth=0.6))
     for t in _ticks(wx0, dim_y, wx1, dim_y, dim):
         dr.add(t)
-    dr.add(String((wx0 + wx1) / 2, dim_y - 9, d.quantity(Q_(xmax - xmin, "inch")), fontName=font,
-                  fontSize=6.8, textAnchor="middle"))
+    dr.add(
+        String(
+            (wx0 + wx1) / 2,
+            dim_y - 9,
+            d.quantity(Q_(xmax - xmin, "inch")),
+            fontName=font,
+            fontSize=6.8,
+            textAnchor="middle",
+        )
+    )
 
     # shear planes with connector symbols, joint ids in a right column
     wanted, anchors, ys = [], [], []
     for j in m.joints:
         cont = j.continuous
         # the row's n connectors shared out over the joint's plane segments, one symbol each
-        share = [j.per_row // max(1, len(j.plane)) + (1 if k < j.per_row % max(1, len(j.plane)) else 0)
-                 for k in range(len(j.plane))]
+        share = [
+            j.per_row // max(1, len(j.plane)) + (1 if k < j.per_row % max(1, len(j.plane)) else 0)
+            for k in range(len(j.plane))
+        ]
         for k_seg, (a, b) in enumerate(j.plane):
             (x0, y0), (x1, y1) = P(*a), P(*b)
             dr.add(Line(x0, y0, x1, y1, strokeColor=PLANE, strokeWidth=2.0))
@@ -252,14 +333,30 @@ def section_drawing(m: MemberResult, ctx: Ctx) -> tuple[Drawing, str]:
                 n = max(2, int(length / 3))
                 for i in range(n + 1):
                     cx, cy = x0 + (x1 - x0) * i / n, y0 + (y1 - y0) * i / n
-                    dr.add(Line(cx - uy * 2.2, cy + ux * 2.2, cx + uy * 2.2, cy - ux * 2.2, strokeColor=PLANE,
-                                strokeWidth=0.5))
+                    dr.add(
+                        Line(
+                            cx - uy * 2.2,
+                            cy + ux * 2.2,
+                            cx + uy * 2.2,
+                            cy - ux * 2.2,
+                            strokeColor=PLANE,
+                            strokeWidth=0.5,
+                        )
+                    )
             else:
                 n = share[k_seg]
                 for i in range(n):
                     t = (i + 0.5) / n
-                    dr.add(Circle(x0 + (x1 - x0) * t, y0 + (y1 - y0) * t, 2.0, fillColor=colors.white,
-                                  strokeColor=PLANE, strokeWidth=0.8))
+                    dr.add(
+                        Circle(
+                            x0 + (x1 - x0) * t,
+                            y0 + (y1 - y0) * t,
+                            2.0,
+                            fillColor=colors.white,
+                            strokeColor=PLANE,
+                            strokeWidth=0.8,
+                        )
+                    )
         if j.plane:
             (a, b) = j.plane[0]
             (x0, y0), (x1, y1) = P(*a), P(*b)
@@ -273,8 +370,16 @@ def section_drawing(m: MemberResult, ctx: Ctx) -> tuple[Drawing, str]:
         col_x = dim_x + 16
         for (ax, ay, text, is_joint), y in zip(anchors, ys):
             col = PLANE if is_joint else colors.black
-            dr.add(Line(ax, ay, col_x - 2, y + 2, strokeColor=PLANE if is_joint else colors.HexColor("#555555"),
-                        strokeWidth=0.4))
+            dr.add(
+                Line(
+                    ax,
+                    ay,
+                    col_x - 2,
+                    y + 2,
+                    strokeColor=PLANE if is_joint else colors.HexColor("#555555"),
+                    strokeWidth=0.4,
+                )
+            )
             if not is_joint:
                 dr.add(Circle(ax, ay, 0.9, fillColor=colors.black, strokeColor=None))
             dr.add(String(col_x, y, text, fontName=bold, fontSize=min(6.5, gap - 1), fillColor=col))
@@ -308,8 +413,17 @@ def section_drawing(m: MemberResult, ctx: Ctx) -> tuple[Drawing, str]:
         dr.add(Rect(x, y, 12, 8, fillColor=None, strokeColor=colors.black, strokeWidth=0.5))
         dr.add(String(x + 15, y + 1.5, fam, fontName=font, fontSize=6.5))
         x += 20 + stringWidth(fam, font, 6.5) + 8
-    dr.add(Line(x, y + 4, x + 16, y + 4, strokeColor=colors.HexColor("#1f3a93"), strokeWidth=0.8,
-                strokeDashArray=[7, 2, 1.2, 2]))
+    dr.add(
+        Line(
+            x,
+            y + 4,
+            x + 16,
+            y + 4,
+            strokeColor=colors.HexColor("#1f3a93"),
+            strokeWidth=0.8,
+            strokeDashArray=[7, 2, 1.2, 2],
+        )
+    )
     dr.add(String(x + 19, y + 1.5, "neutral axis", fontName=font, fontSize=6.5))
     x += 70
     dr.add(Line(x, y + 4, x + 16, y + 4, strokeColor=PLANE, strokeWidth=2.0))
@@ -317,7 +431,9 @@ def section_drawing(m: MemberResult, ctx: Ctx) -> tuple[Drawing, str]:
     dr.add(String(x + 19, y + 1.5, "shear plane, connector", fontName=font, fontSize=6.5))
     x += 100
     _scale_bar(dr, ctx, x, y, k, font)
-    caption = f"Section of {m.id} to scale 1:{ratio:g} when printed at 100 %. Parts are tinted by material family."
+    caption = (
+        f"Section of {m.id} to scale 1:{ratio:g} when printed at 100 %. Parts are tinted by material family."
+    )
     if any(p.shape.kind == "properties" for p in parts):
         caption += " Dashed outlines are parts given by their properties (only the bounding box is known)."
     return dr, caption

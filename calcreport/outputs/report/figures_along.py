@@ -38,7 +38,8 @@ def as_given(q, system: str = "US") -> str:
     if unit not in _SIMPLE_UNITS:
         line = q.check("[force] / [length]")
         unit = {("US", True): "plf", ("US", False): "lbf", ("SI", True): "kN/m", ("SI", False): "kN"}[
-            (system, line)]
+            (system, line)
+        ]
         q = q.to(unit)
     return f"{fmt_number(float(q.magnitude), 4)} {unit}"
 
@@ -49,7 +50,9 @@ def _support(dr: Drawing, x: float, y: float, kind: str) -> None:
         for k in range(-8, 9, 4):
             dr.add(Line(x, y + k, x - 4, y + k - 4, strokeColor=INK, strokeWidth=0.5))
         return
-    dr.add(Polygon([x, y, x - 5, y - 8, x + 5, y - 8], strokeColor=INK, fillColor=colors.white, strokeWidth=0.8))
+    dr.add(
+        Polygon([x, y, x - 5, y - 8, x + 5, y - 8], strokeColor=INK, fillColor=colors.white, strokeWidth=0.8)
+    )
     if kind == "roller":
         dr.add(Line(x - 6, y - 10.5, x + 6, y - 10.5, strokeColor=INK, strokeWidth=0.6))
 
@@ -57,8 +60,14 @@ def _support(dr: Drawing, x: float, y: float, kind: str) -> None:
 def _arrow(dr: Drawing, x: float, y_top: float, y_tip: float, colour=LOAD_INK, width: float = 0.7) -> None:
     dr.add(Line(x, y_top, x, y_tip, strokeColor=colour, strokeWidth=width))
     d = 2.5 if y_top > y_tip else -2.5
-    dr.add(Polygon([x, y_tip, x - 1.8, y_tip + d, x + 1.8, y_tip + d], strokeColor=colour, fillColor=colour,
-                   strokeWidth=0.3))
+    dr.add(
+        Polygon(
+            [x, y_tip, x - 1.8, y_tip + d, x + 1.8, y_tip + d],
+            strokeColor=colour,
+            fillColor=colour,
+            strokeWidth=0.3,
+        )
+    )
 
 
 def _dim(dr: Drawing, x0: float, x1: float, y: float, text: str, font: str, size: float = 6.5) -> None:
@@ -67,11 +76,22 @@ def _dim(dr: Drawing, x0: float, x1: float, y: float, text: str, font: str, size
     for x in (x0, x1):
         dr.add(Line(x, y - 3, x, y + 3, strokeColor=DIM_INK, strokeWidth=0.5))
         dr.add(Line(x - 1.5, y - 1.5, x + 1.5, y + 1.5, strokeColor=DIM_INK, strokeWidth=0.7))
-    dr.add(String((x0 + x1) / 2, y + 2, plain(text), fontName=font, fontSize=size, textAnchor="middle",
-                   fillColor=DIM_INK))
+    dr.add(
+        String(
+            (x0 + x1) / 2,
+            y + 2,
+            plain(text),
+            fontName=font,
+            fontSize=size,
+            textAnchor="middle",
+            fillColor=DIM_INK,
+        )
+    )
 
 
-def loading_diagram(member: Member, fmt_q, fmt_pos, fonts, width: float, system: str = "US") -> Drawing | None:
+def loading_diagram(
+    member: Member, fmt_q, fmt_pos, fonts, width: float, system: str = "US"
+) -> Drawing | None:
     """Member line, supports, loads by case (uniform, linear, point) and span dimension strings.
 
     ``fmt_q`` turns a quantity into display text (the report's ``Ctx.q``).
@@ -104,28 +124,54 @@ def loading_diagram(member: Member, fmt_q, fmt_pos, fonts, width: float, system:
             if ld.kind == "point":
                 x = left + _inches(ld.at) * sx
                 _arrow(dr, x, base + band - 6, base, col, 1.0)
-                dr.add(String(x + 3, base + band - 7, plain(as_given(ld.magnitude, system)), fontName=fonts.regular,
-                              fontSize=6, fillColor=col))
+                dr.add(
+                    String(
+                        x + 3,
+                        base + band - 7,
+                        plain(as_given(ld.magnitude, system)),
+                        fontName=fonts.regular,
+                        fontSize=6,
+                        fillColor=col,
+                    )
+                )
                 continue
             a = _inches(ld.start) if ld.start is not None else 0.0
             b = _inches(ld.end) if ld.end is not None else L
             x0, x1 = left + a * sx, left + b * sx
             if ld.kind == "linear" and ld.magnitude_end is not None:
-                w0, w1 = abs(float(ld.magnitude.magnitude)), abs(float(ld.magnitude_end.to(ld.magnitude.units).magnitude))
+                w0, w1 = (
+                    abs(float(ld.magnitude.magnitude)),
+                    abs(float(ld.magnitude_end.to(ld.magnitude.units).magnitude)),
+                )
                 top = max(w0, w1) or 1.0
                 h0, h1 = 4 + (band - 12) * w0 / top, 4 + (band - 12) * w1 / top
                 text = f"{as_given(ld.magnitude, system)} → {as_given(ld.magnitude_end, system)}"
             else:
                 h0 = h1 = band - 8
                 text = as_given(ld.magnitude, system)
-            dr.add(Polygon([x0, base, x1, base, x1, base + h1, x0, base + h0], strokeColor=col, strokeWidth=0.6,
-                           fillColor=colors.Color(col.red, col.green, col.blue, alpha=0.12)))
+            dr.add(
+                Polygon(
+                    [x0, base, x1, base, x1, base + h1, x0, base + h0],
+                    strokeColor=col,
+                    strokeWidth=0.6,
+                    fillColor=colors.Color(col.red, col.green, col.blue, alpha=0.12),
+                )
+            )
             n = max(2, int((x1 - x0) / 14))
             for k in range(n + 1):
                 _arrow(dr, x0 + (x1 - x0) * k / n, base + min(h0, h1) * 0.6, base, col, 0.4)
             label = plain(text + (f"  {ld.label}" if ld.label else ""))
-            dr.add(String(x1 - 2, base + max(h0, h1) + 1.5, label, fontName=fonts.regular, fontSize=6,
-                          textAnchor="end", fillColor=col))
+            dr.add(
+                String(
+                    x1 - 2,
+                    base + max(h0, h1) + 1.5,
+                    label,
+                    fontName=fonts.regular,
+                    fontSize=6,
+                    textAnchor="end",
+                    fillColor=col,
+                )
+            )
     return dr
 
 
@@ -145,9 +191,15 @@ def demand_capacity_chart(j: JointResult, display, fonts, width: float) -> Drawi
         (c,), _ = series_values(display, [z.capacity])
         step_x += [a, b]
         step_y += [c, c]
-    return line_chart([Series("demand q(x)", xs, ys), Series("provided n·F/s", step_x, step_y, colour="#2e7d32")],
-                      f"x along the member ({xu})", f"q ({yu})", width, 140, fonts,
-                      title=f"Shear flow at joint {j.id}: demand and provided capacity")
+    return line_chart(
+        [Series("demand q(x)", xs, ys), Series("provided n·F/s", step_x, step_y, colour="#2e7d32")],
+        f"x along the member ({xu})",
+        f"q ({yu})",
+        width,
+        140,
+        fonts,
+        title=f"Shear flow at joint {j.id}: demand and provided capacity",
+    )
 
 
 def zone_elevation(j: JointResult, member: Member, fmt_q, fmt_pos, fonts, width: float) -> Drawing | None:
@@ -175,7 +227,15 @@ def zone_elevation(j: JointResult, member: Member, fmt_q, fmt_pos, fonts, width:
             dr.add(Line(left + x * sx, y0 + 3, left + x * sx, y0 + h - 3, strokeColor=col, strokeWidth=0.35))
         _dim(dr, left + a * sx, left + b * sx, y0 + h + 8, f"@ {fmt_q(z.spacing, 3)}", fonts.regular, 6)
         _dim(dr, left + a * sx, left + b * sx, 12, fmt_pos(Q_(b - a, "inch")), fonts.regular, 6)
-        dr.add(String(left + (a + b) / 2 * sx, 3, plain(f"{z.count} rows"), fontName=fonts.regular, fontSize=5.5,
-                      textAnchor="middle", fillColor=DIM_INK))
+        dr.add(
+            String(
+                left + (a + b) / 2 * sx,
+                3,
+                plain(f"{z.count} rows"),
+                fontName=fonts.regular,
+                fontSize=5.5,
+                textAnchor="middle",
+                fillColor=DIM_INK,
+            )
+        )
     return dr
-

@@ -10,7 +10,7 @@ from __future__ import annotations
 from ...model import Member
 from ...solve.results import MemberResult
 from ...units import Q_
-from .common import Ctx, heading, grid, marked_cell, para
+from .common import Ctx, grid, heading, marked_cell, para
 
 __all__ = ["description_story", "assumptions_story", "inputs_story", "ELASTIC_ASSUMPTIONS"]
 
@@ -75,8 +75,15 @@ def _parts_table(member: Member, ctx: Ctx):
     for p in member.parts:
         x0, y0, _, _ = p.shape.bbox
         pid = p.id + (f" — {p.label}" if p.label else "")
-        rows.append([marked_cell(ctx, f"member[{member.id}].part[{p.id}]", pid), _shape_text(p),
-                     _size_text(p, ctx), f"({ctx.q(_inch(x0))}, {ctx.q(_inch(y0))})", p.material.id])
+        rows.append(
+            [
+                marked_cell(ctx, f"member[{member.id}].part[{p.id}]", pid),
+                _shape_text(p),
+                _size_text(p, ctx),
+                f"({ctx.q(_inch(x0))}, {ctx.q(_inch(y0))})",
+                p.material.id,
+            ]
+        )
     return grid(rows, [0.17 * w, 0.21 * w, 0.26 * w, 0.22 * w, 0.14 * w], ctx.styles)
 
 
@@ -88,9 +95,18 @@ def _materials_table(member: Member, ctx: Ctx):
             used.append(mat)
     rows = [["Material", "Family", "E", "Design stresses", "Other"]]
     for mat in used:
-        stresses = [f"{k} = {ctx.q(v)}" for k, v in (("Fb", mat.Fb), ("Fv", mat.Fv), ("Fy", mat.Fy),
-                                                     ("Fu", mat.Fu), ("f′c", mat.fc), ("Fs", mat.extra.get("Fs")))
-                    if v is not None]
+        stresses = [
+            f"{k} = {ctx.q(v)}"
+            for k, v in (
+                ("Fb", mat.Fb),
+                ("Fv", mat.Fv),
+                ("Fy", mat.Fy),
+                ("Fu", mat.Fu),
+                ("f′c", mat.fc),
+                ("Fs", mat.extra.get("Fs")),
+            )
+            if v is not None
+        ]
         other = []
         if mat.G is not None:
             other.append(f"G = {ctx.q(mat.G, 3)}")
@@ -99,8 +115,15 @@ def _materials_table(member: Member, ctx: Ctx):
         if mat.extra.get("grade"):
             other.append(f"grade {mat.extra['grade']}")
         name = f"{mat.id} — {mat.name}" + (" (reference)" if mat.id == member.reference_material.id else "")
-        rows.append([marked_cell(ctx, f"material[{mat.id}]", name), mat.family, ctx.q(mat.E),
-                     "; ".join(stresses) or "—", "; ".join(other) or "—"])
+        rows.append(
+            [
+                marked_cell(ctx, f"material[{mat.id}]", name),
+                mat.family,
+                ctx.q(mat.E),
+                "; ".join(stresses) or "—",
+                "; ".join(other) or "—",
+            ]
+        )
     return grid(rows, [0.30 * w, 0.10 * w, 0.16 * w, 0.25 * w, 0.19 * w], ctx.styles)
 
 
@@ -119,8 +142,15 @@ def _connectors_table(m: MemberResult, ctx: Ctx):
             if v is not None:
                 given.append(f"{k} = {ctx.q(v)}")
         jid = j.id + (f" — {j.label}" if j.label else "")
-        rows.append([marked_cell(ctx, f"member[{m.id}].joint[{j.id}]", jid), ", ".join(j.holds),
-                     "; ".join(given), str(j.per_row), str(params.get("source", "") or sources.get(j.id) or "see derivation")])
+        rows.append(
+            [
+                marked_cell(ctx, f"member[{m.id}].joint[{j.id}]", jid),
+                ", ".join(j.holds),
+                "; ".join(given),
+                str(j.per_row),
+                str(params.get("source", "") or sources.get(j.id) or "see derivation"),
+            ]
+        )
     return grid(rows, [0.18 * w, 0.12 * w, 0.30 * w, 0.08 * w, 0.32 * w], ctx.styles)
 
 
@@ -132,12 +162,14 @@ def _shear_and_settings(m: MemberResult, ctx: Ctx):
         shear = f"V = {ctx.q(member.shear)} (given in the job file)"
     else:
         shear = f"from the loads along the member: V = {ctx.q(m.shear)} (see the derivation)"
-    rows = [["Item", "Value"],
-            [marked_cell(ctx, f"member[{m.id}].shear", "Design shear"), shear],
-            [marked_cell(ctx, "settings", "Design method"), s.method],
-            ["Spacing increment (rounding down)", ctx.q(s.spacing_step)],
-            ["Spacing limits (job-wide)", f"min {ctx.q(s.spacing_min)}, max {ctx.q(s.spacing_max)}"],
-            ["Reference material (transformed section)", member.reference_material.id]]
+    rows = [
+        ["Item", "Value"],
+        [marked_cell(ctx, f"member[{m.id}].shear", "Design shear"), shear],
+        [marked_cell(ctx, "settings", "Design method"), s.method],
+        ["Spacing increment (rounding down)", ctx.q(s.spacing_step)],
+        ["Spacing limits (job-wide)", f"min {ctx.q(s.spacing_min)}, max {ctx.q(s.spacing_max)}"],
+        ["Reference material (transformed section)", member.reference_material.id],
+    ]
     if member.span is not None:
         rows.append([marked_cell(ctx, f"member[{m.id}].span", "Span"), ctx.q(member.span)])
     return grid(rows, [0.40 * w, 0.60 * w], ctx.styles, zebra=False)
@@ -147,8 +179,12 @@ def inputs_story(m: MemberResult, ctx: Ctx) -> list:
     st = ctx.styles
     return [
         *heading("Inputs", st.h2),
-        *heading("Parts of the section", st.h3), _parts_table(m.member, ctx),
-        *heading("Materials", st.h3), _materials_table(m.member, ctx),
-        *heading("Connectors", st.h3), _connectors_table(m, ctx),
-        *heading("Design shear and settings", st.h3), _shear_and_settings(m, ctx),
+        *heading("Parts of the section", st.h3),
+        _parts_table(m.member, ctx),
+        *heading("Materials", st.h3),
+        _materials_table(m.member, ctx),
+        *heading("Connectors", st.h3),
+        _connectors_table(m, ctx),
+        *heading("Design shear and settings", st.h3),
+        _shear_and_settings(m, ctx),
     ]

@@ -18,8 +18,17 @@ from reportlab.platypus import BaseDocTemplate, Flowable, Frame, PageTemplate
 from .styles import Styles, draw_text, fit_text, plain
 from .template import Template
 
-__all__ = ["PageInfo", "ReportDoc", "SectionStart", "SheetRef", "MarginMark", "TITLE_H", "FOOTER_H", "GREY",
-           "RULE"]
+__all__ = [
+    "PageInfo",
+    "ReportDoc",
+    "SectionStart",
+    "SheetRef",
+    "MarginMark",
+    "TITLE_H",
+    "FOOTER_H",
+    "GREY",
+    "RULE",
+]
 
 TITLE_H = 70.0
 FOOTER_H = 22.0
@@ -50,7 +59,7 @@ class PageInfo:
     deferred: bool = False  # one pass: sheet numbers through forms defined at the end
     refs: dict[str, tuple[str, str, float]] = field(default_factory=dict)  # form → (section, font, size)
 
-    def sheet_ref(self, sid: str, font: str, size: float) -> "SheetRef":
+    def sheet_ref(self, sid: str, font: str, size: float) -> SheetRef:
         """A contents cell showing the first sheet of section ``sid`` (filled in at the end)."""
         name = f"crtoc{len(self.refs) + 1}"
         self.refs[name] = (sid, font, size)
@@ -137,11 +146,28 @@ class ReportDoc(BaseDocTemplate):
         self._subject_page = 0
         left, right, top, bottom = template.margins
         w, h = template.pagesize
-        super().__init__(target, pagesize=(w, h), leftMargin=left, rightMargin=right, topMargin=top,
-                         bottomMargin=bottom, invariant=1, **kw)
+        super().__init__(
+            target,
+            pagesize=(w, h),
+            leftMargin=left,
+            rightMargin=right,
+            topMargin=top,
+            bottomMargin=bottom,
+            invariant=1,
+            **kw,
+        )
         self.frame_height = h - top - bottom - TITLE_H - GAP - FOOTER_H - 4
-        frame = Frame(left, bottom + FOOTER_H + 4, w - left - right, self.frame_height,
-                      id="body", leftPadding=0, rightPadding=0, topPadding=0, bottomPadding=0)
+        frame = Frame(
+            left,
+            bottom + FOOTER_H + 4,
+            w - left - right,
+            self.frame_height,
+            id="body",
+            leftPadding=0,
+            rightPadding=0,
+            topPadding=0,
+            bottomPadding=0,
+        )
         self.addPageTemplates([PageTemplate("sheet", frames=[frame], onPageEnd=self._furniture)])
         self._canvasmaker = canvasmaker
 
@@ -268,8 +294,9 @@ class ReportDoc(BaseDocTemplate):
         self._value(c, sx, y1 - 45, info.revision or "—", sw, 11, bold=True)
         # bottom strip: prepared, checked, job number
         third = width / 3
-        for i, (lab, name, date) in enumerate((("Prepared", info.prepared, info.prepared_date),
-                                                ("Checked", info.checked, info.checked_date))):
+        for i, (lab, name, date) in enumerate(
+            (("Prepared", info.prepared, info.prepared_date), ("Checked", info.checked, info.checked_date))
+        ):
             bx = x0 + 5 + i * third
             self._label(c, bx, row - 10, lab)
             self._value(c, bx + 36, row - 10.5, f"{name or '—'}   {date}".strip(), third - 44, 7.4)
@@ -286,10 +313,16 @@ class ReportDoc(BaseDocTemplate):
         c.line(left, y, w - right, y)
         c.setFont(st.fonts.mono, 6.6)
         c.setFillColor(GREY)
-        t, size = fit_text(f"{info.job_file}  SHA-256 {info.sha_short}", st.fonts.mono, 6.6, (w - left - right) * 0.42)
+        t, size = fit_text(
+            f"{info.job_file}  SHA-256 {info.sha_short}", st.fonts.mono, 6.6, (w - left - right) * 0.42
+        )
         c.setFont(st.fonts.mono, size)
         c.drawString(left, y - 9, t)
         c.setFont(st.fonts.regular, 6.6)
-        c.drawRightString(w - right, y - 9, f"calcreport {info.version} — not valid unless reviewed, "
-                          "signed and sealed by a licensed engineer")
+        c.drawRightString(
+            w - right,
+            y - 9,
+            f"calcreport {info.version} — not valid unless reviewed, "
+            "signed and sealed by a licensed engineer",
+        )
         c.setFillColor(colors.black)

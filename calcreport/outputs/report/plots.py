@@ -12,8 +12,8 @@ Values are converted to display units by :func:`series_values`; the chart never 
 from __future__ import annotations
 
 import math
+from collections.abc import Sequence
 from dataclasses import dataclass
-from typing import Sequence
 
 from reportlab.graphics.charts.lineplots import LinePlot
 from reportlab.graphics.shapes import Drawing, Line, String
@@ -41,7 +41,11 @@ class Series:
 
 def series_values(display: Display, values: Sequence[Quantity] | Quantity) -> tuple[list[float], str]:
     """Quantities (a sequence or an array quantity) in the job's display unit, and that unit's symbol."""
-    items = list(values) if not isinstance(values, Quantity) or getattr(values.magnitude, "shape", ()) else [values]
+    items = (
+        list(values)
+        if not isinstance(values, Quantity) or getattr(values.magnitude, "shape", ())
+        else [values]
+    )
     out, unit = [], ""
     for v in items:
         mag, unit, _ = display.convert(v)
@@ -86,8 +90,15 @@ def _tick(v: float) -> str:
     return text
 
 
-def line_chart(series: Sequence[Series], x_label: str, y_label: str, width: float, height: float,
-               fonts: Fonts, title: str = "") -> Drawing:
+def line_chart(
+    series: Sequence[Series],
+    x_label: str,
+    y_label: str,
+    width: float,
+    height: float,
+    fonts: Fonts,
+    title: str = "",
+) -> Drawing:
     """A chart with axes, round ticks, a zero line, axis titles (give units) and a legend."""
     dr = Drawing(width, height)
     left, right, bottom, top = 52.0, 12.0, 30.0, 18.0 if title else 8.0
@@ -97,7 +108,9 @@ def line_chart(series: Sequence[Series], x_label: str, y_label: str, width: floa
     lp.width, lp.height = width - left - right, height - bottom - top - legend_h
     data = [list(zip(map(float, s.x), map(float, s.y))) for s in series if len(s.x)]
     if not data:
-        dr.add(String(width / 2, height / 2, "no data", fontName=fonts.regular, fontSize=7, textAnchor="middle"))
+        dr.add(
+            String(width / 2, height / 2, "no data", fontName=fonts.regular, fontSize=7, textAnchor="middle")
+        )
         return dr
     xs = [p[0] for d in data for p in d]
     ys = [p[1] for d in data for p in d] + [0.0]
@@ -128,8 +141,16 @@ def line_chart(series: Sequence[Series], x_label: str, y_label: str, width: floa
     if yt[0] < 0 < yt[-1]:
         y0 = lp.y + lp.height * (0 - yt[0]) / (yt[-1] - yt[0])
         dr.add(Line(lp.x, y0, lp.x + lp.width, y0, strokeColor=colors.black, strokeWidth=0.5))
-    dr.add(String(lp.x + lp.width / 2, lp.y - 22, plain(x_label), fontName=fonts.regular, fontSize=7,
-                  textAnchor="middle"))
+    dr.add(
+        String(
+            lp.x + lp.width / 2,
+            lp.y - 22,
+            plain(x_label),
+            fontName=fonts.regular,
+            fontSize=7,
+            textAnchor="middle",
+        )
+    )
     ylab = String(0, 0, plain(y_label), fontName=fonts.regular, fontSize=7, textAnchor="middle")
     from reportlab.graphics.shapes import Group
 
@@ -142,7 +163,17 @@ def line_chart(series: Sequence[Series], x_label: str, y_label: str, width: floa
         x = left
         for i, s in enumerate([s for s in series if len(s.x)]):
             col = colors.HexColor(s.colour or PALETTE[i % len(PALETTE)])
-            dr.add(Line(x, 4, x + 14, 4, strokeColor=col, strokeWidth=1.2, strokeDashArray=[3, 2] if s.dashed else None))
+            dr.add(
+                Line(
+                    x,
+                    4,
+                    x + 14,
+                    4,
+                    strokeColor=col,
+                    strokeWidth=1.2,
+                    strokeDashArray=[3, 2] if s.dashed else None,
+                )
+            )
             dr.add(String(x + 17, 1.5, plain(s.label), fontName=fonts.regular, fontSize=6.5))
             x += 30 + len(plain(s.label)) * 3.6
     return dr

@@ -48,39 +48,67 @@ NOT_CHECKED = (
 def _signature_table(ctx: Ctx) -> Table:
     st, h = ctx.styles, ctx.result.job.header
     w = ctx.width
-    rows = [[para("Role", st.cell_bold), para("Name", st.cell_bold), para("Signature", st.cell_bold),
-             para("Date", st.cell_bold)]]
-    for role, name, date in (("Prepared by", h.prepared_by, h.prepared_date),
-                             ("Checked by", h.checked_by, h.checked_date),
-                             ("Approved by", h.approved_by, "")):
+    rows = [
+        [
+            para("Role", st.cell_bold),
+            para("Name", st.cell_bold),
+            para("Signature", st.cell_bold),
+            para("Date", st.cell_bold),
+        ]
+    ]
+    for role, name, date in (
+        ("Prepared by", h.prepared_by, h.prepared_date),
+        ("Checked by", h.checked_by, h.checked_date),
+        ("Approved by", h.approved_by, ""),
+    ):
         rows.append([para(role, st.cell), para(name or "", st.cell), "", para(date or "", st.cell)])
-    t = Table(rows, colWidths=[0.17 * w, 0.30 * w, 0.33 * w, 0.20 * w], rowHeights=[None, 30, 30, 30],
-              hAlign="LEFT")
-    t.setStyle(TableStyle([
-        ("VALIGN", (0, 1), (-1, -1), "BOTTOM"),
-        ("BOX", (0, 0), (-1, -1), 0.7, colors.black),
-        ("LINEBELOW", (0, 0), (-1, -1), 0.4, RULE),
-        ("LINEBEFORE", (1, 0), (-1, -1), 0.4, RULE),
-        ("BACKGROUND", (0, 0), (-1, 0), st.tint),
-        ("LINEBELOW", (2, 1), (2, -1), 0.6, colors.black),
-    ]))
+    t = Table(
+        rows, colWidths=[0.17 * w, 0.30 * w, 0.33 * w, 0.20 * w], rowHeights=[None, 30, 30, 30], hAlign="LEFT"
+    )
+    t.setStyle(
+        TableStyle(
+            [
+                ("VALIGN", (0, 1), (-1, -1), "BOTTOM"),
+                ("BOX", (0, 0), (-1, -1), 0.7, colors.black),
+                ("LINEBELOW", (0, 0), (-1, -1), 0.4, RULE),
+                ("LINEBEFORE", (1, 0), (-1, -1), 0.4, RULE),
+                ("BACKGROUND", (0, 0), (-1, 0), st.tint),
+                ("LINEBELOW", (2, 1), (2, -1), 0.6, colors.black),
+            ]
+        )
+    )
     return t
 
 
 def signoff_story(ctx: Ctx) -> list:
     st, w = ctx.styles, ctx.width
-    comments = Table([[para("Checker's comments", st.cell_bold)]] + [[""] for _ in range(7)],
-                     colWidths=[w], rowHeights=[None] + [20] * 7, hAlign="LEFT")
-    comments.setStyle(TableStyle([("BOX", (0, 0), (-1, -1), 0.7, colors.black),
-                                  ("LINEBELOW", (0, 1), (-1, -2), 0.3, RULE),
-                                  ("BACKGROUND", (0, 0), (-1, 0), st.tint)]))
+    comments = Table(
+        [[para("Checker's comments", st.cell_bold)]] + [[""] for _ in range(7)],
+        colWidths=[w],
+        rowHeights=[None] + [20] * 7,
+        hAlign="LEFT",
+    )
+    comments.setStyle(
+        TableStyle(
+            [
+                ("BOX", (0, 0), (-1, -1), 0.7, colors.black),
+                ("LINEBELOW", (0, 1), (-1, -2), 0.3, RULE),
+                ("BACKGROUND", (0, 0), (-1, 0), st.tint),
+            ]
+        )
+    )
     return [
         Paragraph("Review and sign-off", st.h1),
-        Paragraph("By signing, the checker confirms that the inputs match the drawings and the brief, the "
-                  "assumptions are appropriate, and the results have been reviewed.", st.body),
+        Paragraph(
+            "By signing, the checker confirms that the inputs match the drawings and the brief, the "
+            "assumptions are appropriate, and the results have been reviewed.",
+            st.body,
+        ),
         KeepTogether([_signature_table(ctx), Spacer(1, 10), comments]),
         Spacer(1, 8),
-        Paragraph(f"Job file SHA-256: <font name=\"{st.fonts.mono}\">{esc(ctx.result.job.sha256)}</font>", st.small),
+        Paragraph(
+            f'Job file SHA-256: <font name="{st.fonts.mono}">{esc(ctx.result.job.sha256)}</font>', st.small
+        ),
     ]
 
 

@@ -20,9 +20,20 @@ from reportlab.lib.styles import ParagraphStyle
 from reportlab.pdfbase import pdfmetrics
 from reportlab.pdfbase.ttfonts import TTFont
 
-__all__ = ["FONT_DIR", "Fonts", "register_fonts", "Styles", "make_styles", "esc", "plain", "fit_text",
-           "font_runs", "text_width", "draw_text",
-           "FALLBACK_FONT"]
+__all__ = [
+    "FONT_DIR",
+    "Fonts",
+    "register_fonts",
+    "Styles",
+    "make_styles",
+    "esc",
+    "plain",
+    "fit_text",
+    "font_runs",
+    "text_width",
+    "draw_text",
+    "FALLBACK_FONT",
+]
 
 FONT_DIR = Path(__file__).resolve().parents[2] / "data" / "fonts"
 #: Embedded fallback for scripts DejaVu does not cover (CJK): Droid Sans Fallback (Apache 2.0),
@@ -53,8 +64,13 @@ def register_fonts(regular: Path | None = None, bold: Path | None = None, mono: 
         if name not in pdfmetrics.getRegisteredFontNames():
             pdfmetrics.registerFont(TTFont(name, str(path)))
         names[role] = name
-    pdfmetrics.registerFontFamily(names["regular"], normal=names["regular"], bold=names["bold"],
-                                  italic=names["regular"], boldItalic=names["bold"])
+    pdfmetrics.registerFontFamily(
+        names["regular"],
+        normal=names["regular"],
+        bold=names["bold"],
+        italic=names["regular"],
+        boldItalic=names["bold"],
+    )
     _BODY[0] = names["regular"]
     return Fonts(names["regular"], names["bold"], names["mono"])
 
@@ -82,7 +98,9 @@ def _covered(font_name: str) -> frozenset[int]:
 def _clean(text: str) -> str:
     """Drop control characters (keep tabs as spaces); NFC-normalise."""
     text = unicodedata.normalize("NFC", str(text))
-    return "".join(" " if c in "\t\r\n" else c for c in text if c in "\t\r\n" or unicodedata.category(c)[0] != "C")
+    return "".join(
+        " " if c in "\t\r\n" else c for c in text if c in "\t\r\n" or unicodedata.category(c)[0] != "C"
+    )
 
 
 _BODY = ["CR-DejaVuSans"]
@@ -196,28 +214,65 @@ class Styles:
 
 def make_styles(fonts: Fonts, accent: colors.Color, size: float = 9.0) -> Styles:
     """The report's styles: one sans family, modest sizes, accent colour for headings only."""
-    tint = colors.Color(accent.red + (1 - accent.red) * 0.88, accent.green + (1 - accent.green) * 0.88,
-                        accent.blue + (1 - accent.blue) * 0.88)
-    base = ParagraphStyle("body", fontName=fonts.regular, fontSize=size, leading=size * 1.3,
-                          alignment=TA_LEFT, splitLongWords=1, spaceAfter=size * 0.45)
+    tint = colors.Color(
+        accent.red + (1 - accent.red) * 0.88,
+        accent.green + (1 - accent.green) * 0.88,
+        accent.blue + (1 - accent.blue) * 0.88,
+    )
+    base = ParagraphStyle(
+        "body",
+        fontName=fonts.regular,
+        fontSize=size,
+        leading=size * 1.3,
+        alignment=TA_LEFT,
+        splitLongWords=1,
+        spaceAfter=size * 0.45,
+    )
 
     def derive(name: str, **kw) -> ParagraphStyle:
         return ParagraphStyle(name, parent=base, **kw)
 
     return Styles(
-        fonts=fonts, accent=accent, tint=tint, body=base,
+        fonts=fonts,
+        accent=accent,
+        tint=tint,
+        body=base,
         small=derive("small", fontSize=size - 1.5, leading=(size - 1.5) * 1.3),
         cell=derive("cell", fontSize=size - 1, leading=(size - 1) * 1.25, spaceAfter=0),
-        cell_bold=derive("cell_bold", fontName=fonts.bold, fontSize=size - 1, leading=(size - 1) * 1.25,
-                         spaceAfter=0),
-        cell_right=derive("cell_right", fontSize=size - 1, leading=(size - 1) * 1.25, spaceAfter=0,
-                          alignment=2),
+        cell_bold=derive(
+            "cell_bold", fontName=fonts.bold, fontSize=size - 1, leading=(size - 1) * 1.25, spaceAfter=0
+        ),
+        cell_right=derive(
+            "cell_right", fontSize=size - 1, leading=(size - 1) * 1.25, spaceAfter=0, alignment=2
+        ),
         formula=derive("formula", fontName=fonts.regular, fontSize=size, leading=size * 1.35, spaceAfter=0),
-        h1=derive("h1", fontName=fonts.bold, fontSize=size + 6, leading=(size + 6) * 1.25, textColor=accent,
-                  spaceBefore=0, spaceAfter=size * 0.8),
-        h2=derive("h2", fontName=fonts.bold, fontSize=size + 2.5, leading=(size + 2.5) * 1.3, textColor=accent,
-                  spaceBefore=size * 1.1, spaceAfter=size * 0.5),
-        h3=derive("h3", fontName=fonts.bold, fontSize=size + 0.5, leading=(size + 0.5) * 1.3,
-                  spaceBefore=size * 0.7, spaceAfter=size * 0.3),
-        caption=derive("caption", fontSize=size - 1.5, leading=(size - 1.5) * 1.3, textColor=colors.HexColor("#444444")),
+        h1=derive(
+            "h1",
+            fontName=fonts.bold,
+            fontSize=size + 6,
+            leading=(size + 6) * 1.25,
+            textColor=accent,
+            spaceBefore=0,
+            spaceAfter=size * 0.8,
+        ),
+        h2=derive(
+            "h2",
+            fontName=fonts.bold,
+            fontSize=size + 2.5,
+            leading=(size + 2.5) * 1.3,
+            textColor=accent,
+            spaceBefore=size * 1.1,
+            spaceAfter=size * 0.5,
+        ),
+        h3=derive(
+            "h3",
+            fontName=fonts.bold,
+            fontSize=size + 0.5,
+            leading=(size + 0.5) * 1.3,
+            spaceBefore=size * 0.7,
+            spaceAfter=size * 0.3,
+        ),
+        caption=derive(
+            "caption", fontSize=size - 1.5, leading=(size - 1.5) * 1.3, textColor=colors.HexColor("#444444")
+        ),
     )

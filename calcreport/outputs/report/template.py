@@ -26,8 +26,10 @@ from ...units import UnitParseError, parse
 __all__ = ["Template", "DEFAULT", "resolve_template", "load_template", "TEMPLATE_DIRS"]
 
 PAGE_SIZES = {"letter": LETTER, "a4": A4}
-TEMPLATE_DIRS = (Path(__file__).resolve().parents[3] / "templates",
-                 Path(__file__).resolve().parents[2] / "templates")
+TEMPLATE_DIRS = (
+    Path(__file__).resolve().parents[3] / "templates",
+    Path(__file__).resolve().parents[2] / "templates",
+)
 MAX_TEMPLATE_BYTES = 200_000
 MAX_LOGO_BYTES = 5_000_000
 _KEY = "settings.template"
@@ -69,22 +71,33 @@ def resolve_template(value: str, job_path: str) -> Path | None:
     if not value:
         return None
     if "/" in value or "\\" in value or value.endswith(".toml"):
-        path = (Path(job_path).resolve().parent / value)
+        path = Path(job_path).resolve().parent / value
         if not path.is_file():
-            raise JobError(job_path, _KEY, f"expected a template file; {value!r} (relative to the job file) "
-                           "does not exist or is not a regular file")
+            raise JobError(
+                job_path,
+                _KEY,
+                f"expected a template file; {value!r} (relative to the job file) "
+                "does not exist or is not a regular file",
+            )
         return path
     if not re.fullmatch(r"[A-Za-z0-9_.-]{1,60}", value):
-        raise JobError(job_path, _KEY, f"expected a template name like \"a4\" or a path to a .toml file, got {value!r}")
+        raise JobError(
+            job_path, _KEY, f'expected a template name like "a4" or a path to a .toml file, got {value!r}'
+        )
     names = [f"report-{value}.toml", f"{value}.toml"]
     for folder in TEMPLATE_DIRS:
         for n in names:
             if (folder / n).is_file():
                 return folder / n
-    known = sorted({p.stem.removeprefix("report-") for d in TEMPLATE_DIRS if d.is_dir()
-                    for p in d.glob("report-*.toml")})
-    raise JobError(job_path, _KEY, f"expected one of the report templates ({', '.join(known) or 'none installed'}) "
-                   f"or a path to a .toml file, got {value!r}")
+    known = sorted(
+        {p.stem.removeprefix("report-") for d in TEMPLATE_DIRS if d.is_dir() for p in d.glob("report-*.toml")}
+    )
+    raise JobError(
+        job_path,
+        _KEY,
+        f"expected one of the report templates ({', '.join(known) or 'none installed'}) "
+        f"or a path to a .toml file, got {value!r}",
+    )
 
 
 def load_template(value: str, job_path: str) -> Template:
@@ -123,7 +136,7 @@ def read_template_file(path: Path, job_path: str) -> Template:
 
     size = page.get("size", "letter")
     if not isinstance(size, str) or size.lower() not in PAGE_SIZES:
-        raise fail("page.size", f"expected \"letter\" or \"a4\", got {size!r}")
+        raise fail("page.size", f'expected "letter" or "a4", got {size!r}')
     margins = []
     for side, default in (("left", 54.0), ("right", 54.0), ("top", 40.0), ("bottom", 40.0)):
         raw = page.get(f"margin_{side}")
@@ -133,7 +146,9 @@ def read_template_file(path: Path, job_path: str) -> Template:
         try:
             pts = float(parse(raw, "length").to("inch").magnitude) * 72.0
         except (UnitParseError, TypeError, ValueError) as exc:
-            raise fail(f"page.margin_{side}", f"expected a length like \"0.75 in\" or \"20 mm\" ({exc})") from None
+            raise fail(
+                f"page.margin_{side}", f'expected a length like "0.75 in" or "20 mm" ({exc})'
+            ) from None
         if not 14.0 <= pts <= 144.0:
             raise fail(f"page.margin_{side}", "expected a margin from 0.2 in to 2 in (5 mm to 50 mm)")
         margins.append(pts)
@@ -141,13 +156,19 @@ def read_template_file(path: Path, job_path: str) -> Template:
     address = firm.get("address", [])
     if isinstance(address, str):
         address = [address]
-    if not isinstance(address, list) or not all(isinstance(a, str) and len(a) <= 200 for a in address) or len(address) > 6:
+    if (
+        not isinstance(address, list)
+        or not all(isinstance(a, str) and len(a) <= 200 for a in address)
+        or len(address) > 6
+    ):
         raise fail("firm.address", "expected up to 6 lines of text")
     logo = _file(path, firm.get("logo"), "firm.logo", fail, (".png", ".jpg", ".jpeg"), MAX_LOGO_BYTES)
     if logo is not None:
         _check_image(logo, fail)
-    fonts = [_file(path, style.get(k), f"style.{k}", fail, (".ttf",), 30_000_000)
-             for k in ("font", "font_bold", "font_mono")]
+    fonts = [
+        _file(path, style.get(k), f"style.{k}", fail, (".ttf",), 30_000_000)
+        for k in ("font", "font_bold", "font_mono")
+    ]
     for f, k in zip(fonts, ("font", "font_bold", "font_mono")):
         if f is not None:
             _check_font(f, f"style.{k}", fail)
@@ -156,10 +177,20 @@ def read_template_file(path: Path, job_path: str) -> Template:
         raise fail("style.font_size", f"expected a number of points from 7 to 12, got {fsize!r}")
     accent = style.get("accent", DEFAULT.accent)
     if not isinstance(accent, str) or not _HEX.match(accent):
-        raise fail("style.accent", f"expected a colour like \"#2b5d7d\", got {accent!r}")
-    return Template(name=path.name, page=size.lower(), margins=tuple(margins), firm=name,
-                    address=tuple(address), logo=logo, font=fonts[0], font_bold=fonts[1], font_mono=fonts[2],
-                    font_size=float(fsize), accent=accent)
+        raise fail("style.accent", f'expected a colour like "#2b5d7d", got {accent!r}')
+    return Template(
+        name=path.name,
+        page=size.lower(),
+        margins=tuple(margins),
+        firm=name,
+        address=tuple(address),
+        logo=logo,
+        font=fonts[0],
+        font_bold=fonts[1],
+        font_mono=fonts[2],
+        font_size=float(fsize),
+        accent=accent,
+    )
 
 
 def _table(doc: dict, name: str, fail) -> dict:
@@ -187,11 +218,13 @@ def _file(template: Path, value, key: str, fail, exts: tuple[str, ...], max_byte
         return None
     if not isinstance(value, str):
         raise fail(key, "expected a file path relative to the template")
-    p = (template.parent / value)
+    p = template.parent / value
     if p.suffix.lower() not in exts:
         raise fail(key, f"expected a {' or '.join(e.lstrip('.').upper() for e in exts)} file, got {value!r}")
     if not p.is_file():
-        raise fail(key, f"expected a regular file; {value!r} (relative to the template) is missing or not a file")
+        raise fail(
+            key, f"expected a regular file; {value!r} (relative to the template) is missing or not a file"
+        )
     if p.stat().st_size > max_bytes:
         raise fail(key, f"file larger than {max_bytes:,} bytes")
     return p.resolve()

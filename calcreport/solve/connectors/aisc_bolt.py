@@ -24,35 +24,102 @@ SRC = "ANSI/AISC 360-16"
 
 FIELDS = (
     Field("diameter", "length", required=True, help="nominal bolt diameter d"),
-    Field("group", "choice", default="A", choices=("A", "B", "C", "A307"),
-          help="bolt group of Table J3.2: A (e.g. F3125 A325), B (A490), C (F3043), or A307 common bolts"),
-    Field("threads", "choice", default="N", choices=("N", "X"),
-          help="N: threads included in the shear plane; X: excluded"),
-    Field("planes", "int", default=1, minimum=1, maximum=2, help="shear planes per bolt (2: held part in the middle)"),
-    Field("hole", "choice", default="standard",
-          choices=("standard", "oversized", "short_slot_transverse", "short_slot_parallel",
-                   "long_slot_transverse", "long_slot_parallel"),
-          help="hole type; \"transverse\"/\"parallel\" = slot direction relative to the force"),
-    Field("hole_length", "length", help="hole dimension along the force (default from Table J3.3 for standard and oversized holes)"),
-    Field("deformation_limited", "bool", default=True,
-          help="deformation at the bolt hole at service load is a design consideration (2.4·d·t·Fu)"),
+    Field(
+        "group",
+        "choice",
+        default="A",
+        choices=("A", "B", "C", "A307"),
+        help="bolt group of Table J3.2: A (e.g. F3125 A325), B (A490), C (F3043), or A307 common bolts",
+    ),
+    Field(
+        "threads",
+        "choice",
+        default="N",
+        choices=("N", "X"),
+        help="N: threads included in the shear plane; X: excluded",
+    ),
+    Field(
+        "planes",
+        "int",
+        default=1,
+        minimum=1,
+        maximum=2,
+        help="shear planes per bolt (2: held part in the middle)",
+    ),
+    Field(
+        "hole",
+        "choice",
+        default="standard",
+        choices=(
+            "standard",
+            "oversized",
+            "short_slot_transverse",
+            "short_slot_parallel",
+            "long_slot_transverse",
+            "long_slot_parallel",
+        ),
+        help='hole type; "transverse"/"parallel" = slot direction relative to the force',
+    ),
+    Field(
+        "hole_length",
+        "length",
+        help="hole dimension along the force (default from Table J3.3 for standard and oversized holes)",
+    ),
+    Field(
+        "deformation_limited",
+        "bool",
+        default=True,
+        help="deformation at the bolt hole at service load is a design consideration (2.4·d·t·Fu)",
+    ),
     Field("slip_critical", "bool", default=False, help="slip-critical joint (J3.8)"),
-    Field("surface", "choice", default="A", choices=("A", "B"), help="faying surface class: A (μ = 0.30) or B (μ = 0.50)"),
-    Field("fillers", "int", default=0, positive=False, minimum=0, help="number of fillers between the connected parts"),
+    Field(
+        "surface",
+        "choice",
+        default="A",
+        choices=("A", "B"),
+        help="faying surface class: A (μ = 0.30) or B (μ = 0.50)",
+    ),
+    Field(
+        "fillers",
+        "int",
+        default=0,
+        positive=False,
+        minimum=0,
+        help="number of fillers between the connected parts",
+    ),
     Field("pretension", "force", help="minimum bolt pretension Tb (default Table J3.1)"),
-    Field("held_thickness", "length", help="thickness of the held ply the bolt passes through (default: measured)"),
+    Field(
+        "held_thickness",
+        "length",
+        help="thickness of the held ply the bolt passes through (default: measured)",
+    ),
     Field("other_thickness", "length", help="thickness of the other ply (each outer ply in double shear)"),
-    Field("weathering", "bool", default=False, help="unpainted weathering steel exposed to corrosion (J3.5b limits)"),
+    Field(
+        "weathering",
+        "bool",
+        default=False,
+        help="unpainted weathering steel exposed to corrosion (J3.5b limits)",
+    ),
     Field("name", "text", help="how the report names the bolt"),
 )
 
 #: Nominal shear stress Fnv (ksi) by group and thread condition. AISC 360-16 Table J3.2.
-FNV = {("A", "N"): 54.0, ("A", "X"): 68.0, ("B", "N"): 68.0, ("B", "X"): 84.0,
-       ("C", "N"): 90.0, ("C", "X"): 113.0, ("A307", "N"): 27.0, ("A307", "X"): 27.0}
+FNV = {
+    ("A", "N"): 54.0,
+    ("A", "X"): 68.0,
+    ("B", "N"): 68.0,
+    ("B", "X"): 84.0,
+    ("C", "N"): 90.0,
+    ("C", "X"): 113.0,
+    ("A307", "N"): 27.0,
+    ("A307", "X"): 27.0,
+}
 
 #: Minimum bolt pretension Tb (kips). AISC 360-16 Table J3.1 (from memory).
-TB = {"A": {0.5: 12, 0.625: 19, 0.75: 28, 0.875: 39, 1.0: 51, 1.125: 64, 1.25: 81, 1.375: 97, 1.5: 118},
-      "B": {0.5: 15, 0.625: 24, 0.75: 35, 0.875: 49, 1.0: 64, 1.125: 80, 1.25: 102, 1.375: 121, 1.5: 148}}
+TB = {
+    "A": {0.5: 12, 0.625: 19, 0.75: 28, 0.875: 39, 1.0: 51, 1.125: 64, 1.25: 81, 1.375: 97, 1.5: 118},
+    "B": {0.5: 15, 0.625: 24, 0.75: 35, 0.875: 49, 1.0: 64, 1.125: 80, 1.25: 102, 1.375: 121, 1.5: 148},
+}
 
 #: Minimum edge distance (in) from the centre of a standard hole. AISC 360-16 Table J3.4 (from memory).
 EDGE_MIN = {0.5: 0.75, 0.625: 0.875, 0.75: 1.0, 0.875: 1.125, 1.0: 1.25, 1.125: 1.5, 1.25: 1.625}
@@ -91,10 +158,12 @@ def edge_min(d: float) -> float:
 
 def shear_nominal(Fnv: float, d: float, planes: int) -> float:
     """Rn = Fnv·Ab·ns (kips), Ab = π·d²/4. Source: AISC 360-16 §J3.6, Eq. J3-1."""
-    return Fnv * math.pi * d ** 2 / 4 * planes
+    return Fnv * math.pi * d**2 / 4 * planes
 
 
-def bearing_nominal(d: float, t: float, Fu: float, deformation_limited: bool, long_slot_transverse: bool = False) -> float:
+def bearing_nominal(
+    d: float, t: float, Fu: float, deformation_limited: bool, long_slot_transverse: bool = False
+) -> float:
     """Bearing Rn (kips): 2.4·d·t·Fu (deformation a consideration), 3.0·d·t·Fu (not), 2.0·d·t·Fu
     (long slots perpendicular to the force). Source: AISC 360-16 §J3.10, Eq. J3-6a, J3-6b, J3-6e."""
     if long_slot_transverse:
@@ -102,7 +171,9 @@ def bearing_nominal(d: float, t: float, Fu: float, deformation_limited: bool, lo
     return (2.4 if deformation_limited else 3.0) * d * t * Fu
 
 
-def tearout_nominal(lc: float, t: float, Fu: float, deformation_limited: bool, long_slot_transverse: bool = False) -> float:
+def tearout_nominal(
+    lc: float, t: float, Fu: float, deformation_limited: bool, long_slot_transverse: bool = False
+) -> float:
     """Tearout Rn (kips): 1.2·lc·t·Fu (deformation a consideration), 1.5·lc·t·Fu (not), 1.0·lc·t·Fu
     (long slots perpendicular to the force). Source: AISC 360-16 §J3.10, Eq. J3-6c, J3-6d, J3-6f."""
     if long_slot_transverse:
@@ -124,11 +195,21 @@ def _thick(log, name, label, given, part, c, key):
         log.add(name, label, name, "{t}", {"t": given}, given.to("in"), source="job file", note="given")
         return given.to("in").magnitude
     if c is None:
-        raise ConnectorError(f"{key}.{name.replace('t_', '')}_thickness",
-                             "expected held_thickness and other_thickness: the parts do not touch")
+        raise ConnectorError(
+            f"{key}.{name.replace('t_', '')}_thickness",
+            "expected held_thickness and other_thickness: the parts do not touch",
+        )
     t = thickness_normal(part, c)
-    log.add(name, label, name, "{t}", {"t": Q_(t, "in")}, Q_(t, "in"), source="geometry of the parts",
-            note=f"part {part.id} measured perpendicular to the {c.orientation} shear plane")
+    log.add(
+        name,
+        label,
+        name,
+        "{t}",
+        {"t": Q_(t, "in")},
+        Q_(t, "in"),
+        source="geometry of the parts",
+        note=f"part {part.id} measured perpendicular to the {c.orientation} shear plane",
+    )
     return t
 
 
@@ -146,21 +227,45 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
     other = c.other if c else ctx.other[0]
     for part in (held, other):
         if part.material.family != "steel" or part.material.Fu is None:
-            raise ConnectorError(f"{key}.type", f"expected steel parts with Fu for a steel bolt; part {part.id} "
-                                 f"is {part.material.family}" + ("" if part.material.Fu is not None else " without Fu"))
+            raise ConnectorError(
+                f"{key}.type",
+                f"expected steel parts with Fu for a steel bolt; part {part.id} "
+                f"is {part.material.family}" + ("" if part.material.Fu is not None else " without Fu"),
+            )
     th = _thick(log, "t_held", "Thickness of the held ply", p.get("held_thickness"), held, c, key)
     to = _thick(log, "t_other", "Thickness of the other ply", p.get("other_thickness"), other, c, key)
     lrfd = ctx.method == "LRFD"
     dq = Q_(d, "in")
-    Ab = log.add("Ab", "Nominal bolt area", "Ab = π·d²/4", "π × ({d})² / 4", {"d": dq}, Q_(math.pi * d * d / 4, "in**2"),
-                 source=f"{SRC} §J3.6")
+    Ab = log.add(
+        "Ab",
+        "Nominal bolt area",
+        "Ab = π·d²/4",
+        "π × ({d})² / 4",
+        {"d": dq},
+        Q_(math.pi * d * d / 4, "in**2"),
+        source=f"{SRC} §J3.6",
+    )
     Fnv = FNV[(p["group"], p["threads"])]
-    log.add("Fnv", "Nominal shear stress", "Fnv", "{F}", {"F": Q_(Fnv, "ksi")}, Q_(Fnv, "ksi"),
-            source=f"{SRC} Table J3.2", note=f"group {p['group']}, threads " +
-            ("included in the shear plane (N)" if p["threads"] == "N" else "excluded from the shear plane (X)"))
-    rn_v = log.add("Rn_shear", "Nominal shear strength of the bolt", "Rn = Fnv·Ab·ns", "{Fnv} × {Ab} × {ns}",
-                   {"Fnv": Q_(Fnv, "ksi"), "Ab": Ab, "ns": planes}, Q_(shear_nominal(Fnv, d, planes), "kip"),
-                   source=f"{SRC} §J3.6, Eq. J3-1").magnitude
+    log.add(
+        "Fnv",
+        "Nominal shear stress",
+        "Fnv",
+        "{F}",
+        {"F": Q_(Fnv, "ksi")},
+        Q_(Fnv, "ksi"),
+        source=f"{SRC} Table J3.2",
+        note=f"group {p['group']}, threads "
+        + ("included in the shear plane (N)" if p["threads"] == "N" else "excluded from the shear plane (X)"),
+    )
+    rn_v = log.add(
+        "Rn_shear",
+        "Nominal shear strength of the bolt",
+        "Rn = Fnv·Ab·ns",
+        "{Fnv} × {Ab} × {ns}",
+        {"Fnv": Q_(Fnv, "ksi"), "Ab": Ab, "ns": planes},
+        Q_(shear_nominal(Fnv, d, planes), "kip"),
+        source=f"{SRC} §J3.6, Eq. J3-1",
+    ).magnitude
     f, fsym = _resist(ctx.method, 0.75, 2.00)
     limits: list[tuple[str, float, str]] = [("bolt shear", rn_v * f, f"{SRC} §J3.6 (φ = 0.75, Ω = 2.00)")]
     hole = p.get("hole") or "standard"
@@ -172,12 +277,21 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
     coef = 2.0 if lst else (2.4 if defl else 3.0)
     for which, t, Fu, pid in plies:
         rb = bearing_nominal(d, t, Fu, defl, lst)
-        log.add(f"Rn_bearing_{which}", f"Nominal bearing strength at the hole in part {pid}",
-                f"Rn = {coef}·d·t·Fu", f"{coef} × {{d}} × {{t}} × {{Fu}}",
-                {"d": dq, "t": Q_(t, "in"), "Fu": Q_(Fu, "ksi")}, Q_(rb, "kip"), source=f"{SRC} §J3.10",
-                note=("both outer plies (2·t) in double shear; " if which == "other" and planes == 2 else "")
-                + ("deformation at the hole at service load is a design consideration" if defl else
-                   "deformation at the hole is not a design consideration"))
+        log.add(
+            f"Rn_bearing_{which}",
+            f"Nominal bearing strength at the hole in part {pid}",
+            f"Rn = {coef}·d·t·Fu",
+            f"{coef} × {{d}} × {{t}} × {{Fu}}",
+            {"d": dq, "t": Q_(t, "in"), "Fu": Q_(Fu, "ksi")},
+            Q_(rb, "kip"),
+            source=f"{SRC} §J3.10",
+            note=("both outer plies (2·t) in double shear; " if which == "other" and planes == 2 else "")
+            + (
+                "deformation at the hole at service load is a design consideration"
+                if defl
+                else "deformation at the hole is not a design consideration"
+            ),
+        )
         limits.append((f"bearing, part {pid}", rb * f, f"{SRC} §J3.10 (φ = 0.75, Ω = 2.00)"))
     if p.get("slip_critical"):
         mu = 0.30 if p["surface"] == "A" else 0.50
@@ -188,15 +302,26 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
             tb = TB.get(p["group"], {})
             Tb = next((v for k, v in tb.items() if abs(k - d) < 1e-6), None)
             if Tb is None:
-                raise ConnectorError(f"{key}.pretension", "expected pretension (a force): Table J3.1 has no value "
-                                     "for this bolt group and diameter here (groups A and B, 1/2 in to 1-1/2 in)")
+                raise ConnectorError(
+                    f"{key}.pretension",
+                    "expected pretension (a force): Table J3.1 has no value "
+                    "for this bolt group and diameter here (groups A and B, 1/2 in to 1-1/2 in)",
+                )
             tsrc = f"{SRC} Table J3.1 (from memory)"
-        log.add("Tb", "Minimum bolt pretension", "Tb", "{Tb}", {"Tb": Q_(Tb, "kip")}, Q_(Tb, "kip"), source=tsrc)
-        rs = log.add("Rn_slip", "Nominal slip resistance", "Rn = μ·Du·hf·Tb·ns", "{mu} × {Du} × {hf} × {Tb} × {ns}",
-                     {"mu": mu, "Du": 1.13, "hf": hf, "Tb": Q_(Tb, "kip"), "ns": planes},
-                     Q_(slip_nominal(mu, hf, Tb, planes), "kip"), source=f"{SRC} §J3.8, Eq. J3-4",
-                     note=f"class {p['surface']} surface; hf for {'at most one filler' if hf == 1.0 else 'two or more fillers'}; "
-                          "Du = 1.13").magnitude
+        log.add(
+            "Tb", "Minimum bolt pretension", "Tb", "{Tb}", {"Tb": Q_(Tb, "kip")}, Q_(Tb, "kip"), source=tsrc
+        )
+        rs = log.add(
+            "Rn_slip",
+            "Nominal slip resistance",
+            "Rn = μ·Du·hf·Tb·ns",
+            "{mu} × {Du} × {hf} × {Tb} × {ns}",
+            {"mu": mu, "Du": 1.13, "hf": hf, "Tb": Q_(Tb, "kip"), "ns": planes},
+            Q_(slip_nominal(mu, hf, Tb, planes), "kip"),
+            source=f"{SRC} §J3.8, Eq. J3-4",
+            note=f"class {p['surface']} surface; hf for {'at most one filler' if hf == 1.0 else 'two or more fillers'}; "
+            "Du = 1.13",
+        ).magnitude
         if hole in ("standard", "short_slot_transverse"):
             phi, om = 1.00, 1.50
         elif hole in ("oversized", "short_slot_parallel"):
@@ -207,11 +332,27 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
         limits.append(("slip", rs * fs, f"{SRC} §J3.8 ({hole.replace('_', ' ')} holes)"))
     gov = min(limits, key=lambda x: x[1])
     for i, (name, val, src) in enumerate(limits):
-        log.add(f"R_{i}", f"Available strength, {name}", ("φRn" if lrfd else "Rn/Ω"), "{v}", {"v": Q_(val, "kip")},
-                Q_(val, "kip"), source=src, governs=(name == gov[0]),
-                note="LRFD design strength" if lrfd else "ASD allowable strength")
-    R = log.add("R", "Available strength of one bolt", "R = min(limit states)", "{R}", {"R": Q_(gov[1], "kip")},
-                Q_(gov[1], "kip"), source=gov[2], note=f"{gov[0]} governs")
+        log.add(
+            f"R_{i}",
+            f"Available strength, {name}",
+            ("φRn" if lrfd else "Rn/Ω"),
+            "{v}",
+            {"v": Q_(val, "kip")},
+            Q_(val, "kip"),
+            source=src,
+            governs=(name == gov[0]),
+            note="LRFD design strength" if lrfd else "ASD allowable strength",
+        )
+    R = log.add(
+        "R",
+        "Available strength of one bolt",
+        "R = min(limit states)",
+        "{R}",
+        {"R": Q_(gov[1], "kip")},
+        Q_(gov[1], "kip"),
+        source=gov[2],
+        note=f"{gov[0]} governs",
+    )
     # Hole size, tearout → minimum spacing, detailing.
     if p.get("hole_length") is not None:
         dh = p["hole_length"].to("in").magnitude
@@ -221,41 +362,97 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
     elif hole == "oversized":
         dh, hsrc = oversized_hole(d), f"{SRC} Table J3.3 (from memory)"
     else:
-        raise ConnectorError(f"{key}.hole_length", "expected hole_length (slot length along the force) for slots parallel to the force")
-    log.add("dh", "Hole dimension along the force", "dh", "{dh}", {"dh": Q_(dh, "in")}, Q_(dh, "in"), source=hsrc)
+        raise ConnectorError(
+            f"{key}.hole_length",
+            "expected hole_length (slot length along the force) for slots parallel to the force",
+        )
+    log.add(
+        "dh", "Hole dimension along the force", "dh", "{dh}", {"dh": Q_(dh, "in")}, Q_(dh, "in"), source=hsrc
+    )
     ft, _ = _resist(ctx.method, 0.75, 2.00)
     tc = 1.0 if lst else (1.2 if defl else 1.5)
     t_min, Fu_min = min(((t, Fu) for _, t, Fu, _ in plies), key=lambda x: x[0] * x[1])
     lc_req = gov[1] / (ft * tc * t_min * Fu_min)
-    lcq = log.add("lc_req", "Clear distance at which tearout does not govern", f"lc = R / ({fsym}·{tc}·t·Fu)",
-                  f"{{R}} / ({{f}} × {tc} × {{t}} × {{Fu}})",
-                  {"R": R, "f": ft, "t": Q_(t_min, "in"), "Fu": Q_(Fu_min, "ksi")}, Q_(lc_req, "in"),
-                  source=f"{SRC} §J3.10, Eq. J3-6c", note="ply with the least t·Fu")
-    s_tear = log.add("s_tearout", "Bolt spacing at which tearout between holes does not govern", "s = lc + dh",
-                     "{lc} + {dh}", {"lc": lcq, "dh": Q_(dh, "in")}, Q_(lc_req + dh, "in"),
-                     source=f"{SRC} §J3.10 (lc = s − dh between holes)").magnitude
+    lcq = log.add(
+        "lc_req",
+        "Clear distance at which tearout does not govern",
+        f"lc = R / ({fsym}·{tc}·t·Fu)",
+        f"{{R}} / ({{f}} × {tc} × {{t}} × {{Fu}})",
+        {"R": R, "f": ft, "t": Q_(t_min, "in"), "Fu": Q_(Fu_min, "ksi")},
+        Q_(lc_req, "in"),
+        source=f"{SRC} §J3.10, Eq. J3-6c",
+        note="ply with the least t·Fu",
+    )
+    s_tear = log.add(
+        "s_tearout",
+        "Bolt spacing at which tearout between holes does not govern",
+        "s = lc + dh",
+        "{lc} + {dh}",
+        {"lc": lcq, "dh": Q_(dh, "in")},
+        Q_(lc_req + dh, "in"),
+        source=f"{SRC} §J3.10 (lc = s − dh between holes)",
+    ).magnitude
     s_min = max(8 / 3 * d, s_tear)
     t_thin = min(th, to)
     if p.get("weathering"):
         s_max, smsrc = min(14 * t_thin, 7.0), f"{SRC} §J3.5(b): 14·t ≤ 7 in (unpainted weathering steel)"
     else:
-        s_max, smsrc = min(24 * t_thin, 12.0), f"{SRC} §J3.5(a): 24·t ≤ 12 in (painted or not subject to corrosion)"
+        s_max, smsrc = (
+            min(24 * t_thin, 12.0),
+            f"{SRC} §J3.5(a): 24·t ≤ 12 in (painted or not subject to corrosion)",
+        )
     checks = [
-        Check(f"{key}.spacing_pref", "Preferred spacing 3d (minimum 2-2/3 d)", Q_(3 * d, "in"), None, None, "INFO",
-              source=f"{SRC} §J3.3"),
-        Check(f"{key}.end", "End distance of the end bolt so tearout does not govern", Q_(lc_req + dh / 2, "in"),
-              None, None, "INFO", source=f"{SRC} §J3.10 (lc = le − dh/2) and Table J3.4",
-              note="and not less than the Table J3.4 edge distance"),
-        Check(f"{key}.edge_max", "Maximum edge distance 12·t ≤ 6 in", None, Q_(min(12 * t_thin, 6.0), "in"), None,
-              "INFO", source=f"{SRC} §J3.5"),
+        Check(
+            f"{key}.spacing_pref",
+            "Preferred spacing 3d (minimum 2-2/3 d)",
+            Q_(3 * d, "in"),
+            None,
+            None,
+            "INFO",
+            source=f"{SRC} §J3.3",
+        ),
+        Check(
+            f"{key}.end",
+            "End distance of the end bolt so tearout does not govern",
+            Q_(lc_req + dh / 2, "in"),
+            None,
+            None,
+            "INFO",
+            source=f"{SRC} §J3.10 (lc = le − dh/2) and Table J3.4",
+            note="and not less than the Table J3.4 edge distance",
+        ),
+        Check(
+            f"{key}.edge_max",
+            "Maximum edge distance 12·t ≤ 6 in",
+            None,
+            Q_(min(12 * t_thin, 6.0), "in"),
+            None,
+            "INFO",
+            source=f"{SRC} §J3.5",
+        ),
     ]
     if c is not None:
         half = (c.hi - c.lo) / 2
         e = edge_min(d)
-        checks.insert(0, Check(f"{key}.edge", "Edge distance with one row centred in the contact", Q_(e, "in"),
-                               Q_(half, "in"), e / half, "OK" if half >= e - 1e-9 else "NG",
-                               source=f"{SRC} Table J3.4 (from memory)"))
-    return Capacity(value=R.to("kip"), continuous=False, description=p.get("name") or f"group {p['group']} bolt",
-                    source=f"{SRC} §J3", checks=tuple(checks), spacing_min=Q_(s_min, "in"),
-                    spacing_max=Q_(s_max, "in"),
-                    limits_source=f"{SRC} §J3.3 (2-2/3 d) or tearout spacing, whichever is larger; {smsrc}")
+        checks.insert(
+            0,
+            Check(
+                f"{key}.edge",
+                "Edge distance with one row centred in the contact",
+                Q_(e, "in"),
+                Q_(half, "in"),
+                e / half,
+                "OK" if half >= e - 1e-9 else "NG",
+                source=f"{SRC} Table J3.4 (from memory)",
+            ),
+        )
+    return Capacity(
+        value=R.to("kip"),
+        continuous=False,
+        description=p.get("name") or f"group {p['group']} bolt",
+        source=f"{SRC} §J3",
+        checks=tuple(checks),
+        spacing_min=Q_(s_min, "in"),
+        spacing_max=Q_(s_max, "in"),
+        limits_source=f"{SRC} §J3.3 (2-2/3 d) or tearout spacing, whichever is larger; {smsrc}",
+    )

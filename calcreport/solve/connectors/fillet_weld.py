@@ -28,10 +28,21 @@ SRC = "ANSI/AISC 360-16"
 FIELDS = (
     Field("size", "length", required=True, help="fillet weld leg size w"),
     Field("FEXX", "stress", default="70 ksi", help="electrode classification strength (E70: 70 ksi)"),
-    Field("welds", "int", default=2, minimum=1, help="weld lines at the joint (2: both sides of a web, both edges of a plate)"),
+    Field(
+        "welds",
+        "int",
+        default=2,
+        minimum=1,
+        help="weld lines at the joint (2: both sides of a web, both edges of a plate)",
+    ),
     Field("segment", "length", help="length of each intermittent segment; omit for continuous welds"),
-    Field("joint_form", "choice", default="auto", choices=("auto", "tee", "lap"),
-          help="tee (stem against a plate) or lap (plate lying on a plate, welded along its edges)"),
+    Field(
+        "joint_form",
+        "choice",
+        default="auto",
+        choices=("auto", "tee", "lap"),
+        help="tee (stem against a plate) or lap (plate lying on a plate, welded along its edges)",
+    ),
     Field("held_thickness", "length", help="plate thickness of the held part (default: measured)"),
     Field("other_thickness", "length", help="plate thickness of the other part (default: measured)"),
     Field("name", "text", help="how the report names the weld"),
@@ -86,8 +97,10 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
     other = c.other if c else ctx.other[0]
     for part in (held, other):
         if part.material.family != "steel":
-            raise ConnectorError(f"{key}.type", f"expected steel parts for a fillet weld; part {part.id} is "
-                                 f"{part.material.family}")
+            raise ConnectorError(
+                f"{key}.type",
+                f"expected steel parts for a fillet weld; part {part.id} is {part.material.family}",
+            )
     thick = {}
     for which, part in (("held", held), ("other", other)):
         given = p.get(f"{which}_thickness")
@@ -97,9 +110,20 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
             t, src = plate_thickness(part, c), "geometry of the parts"
             note = f"part {part.id}: the lesser of its depth from the {c.orientation} plane and its width along it"
         else:
-            raise ConnectorError(f"{key}.{which}_thickness", "expected held_thickness and other_thickness: the parts do not touch")
-        thick[which] = log.add(f"t_{which}", f"Plate thickness of the {which} part", f"t_{which}", "{t}",
-                               {"t": Q_(t, "in")}, Q_(t, "in"), source=src, note=note).magnitude
+            raise ConnectorError(
+                f"{key}.{which}_thickness",
+                "expected held_thickness and other_thickness: the parts do not touch",
+            )
+        thick[which] = log.add(
+            f"t_{which}",
+            f"Plate thickness of the {which} part",
+            f"t_{which}",
+            "{t}",
+            {"t": Q_(t, "in")},
+            Q_(t, "in"),
+            source=src,
+            note=note,
+        ).magnitude
     # Joint form.
     form = p.get("joint_form") or "auto"
     narrow = held
@@ -111,21 +135,57 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
     src_w = f"{SRC} §J2.4, Table J2.5"
     te, Fnw, rn = strength_per_inch(w, FEXX)
     wq = Q_(w, "in")
-    teq = log.add("te", "Effective throat", "te = 0.707·w", "0.707 × {w}", {"w": wq}, Q_(te, "in"),
-                  source=f"{SRC} §J2.2a", note="equal legs, no penetration credit")
-    Fq = log.add("Fnw", "Nominal weld stress", "Fnw = 0.60·FEXX", "0.60 × {F}", {"F": Q_(FEXX, "ksi")},
-                 Q_(Fnw, "ksi"), source=src_w)
-    rnq = log.add("rn", "Nominal strength per inch of one weld", "rn = Fnw·te", "{F} × {te}",
-                  {"F": Fq, "te": teq}, Q_(rn, "kip/in"), source=f"{SRC} Eq. J2-3",
-                  note="directional strength increase not used (longitudinal welds)")
+    teq = log.add(
+        "te",
+        "Effective throat",
+        "te = 0.707·w",
+        "0.707 × {w}",
+        {"w": wq},
+        Q_(te, "in"),
+        source=f"{SRC} §J2.2a",
+        note="equal legs, no penetration credit",
+    )
+    Fq = log.add(
+        "Fnw",
+        "Nominal weld stress",
+        "Fnw = 0.60·FEXX",
+        "0.60 × {F}",
+        {"F": Q_(FEXX, "ksi")},
+        Q_(Fnw, "ksi"),
+        source=src_w,
+    )
+    rnq = log.add(
+        "rn",
+        "Nominal strength per inch of one weld",
+        "rn = Fnw·te",
+        "{F} × {te}",
+        {"F": Fq, "te": teq},
+        Q_(rn, "kip/in"),
+        source=f"{SRC} Eq. J2-3",
+        note="directional strength increase not used (longitudinal welds)",
+    )
     f = 0.75 if lrfd else 1 / 2.00
-    r1 = log.add("r_weld", "Available strength per inch of one weld", "φ·rn" if lrfd else "rn/Ω",
-                 "{f} × {rn}", {"f": f, "rn": rnq}, Q_(rn * f, "kip/in"), source=src_w,
-                 note="φ = 0.75 (LRFD)" if lrfd else "Ω = 2.00 (ASD): factor 1/Ω")
+    r1 = log.add(
+        "r_weld",
+        "Available strength per inch of one weld",
+        "φ·rn" if lrfd else "rn/Ω",
+        "{f} × {rn}",
+        {"f": f, "rn": rnq},
+        Q_(rn * f, "kip/in"),
+        source=src_w,
+        note="φ = 0.75 (LRFD)" if lrfd else "Ω = 2.00 (ASD): factor 1/Ω",
+    )
     weld_total = rn * f * n
     limits = [("weld metal", weld_total, src_w)]
-    log.add("r_welds", "Available strength per inch of the weld lines", "n·r", "{n} × {r}", {"n": n, "r": r1},
-            Q_(weld_total, "kip/in"), source=src_w)
+    log.add(
+        "r_welds",
+        "Available strength per inch of the weld lines",
+        "n·r",
+        "{n} × {r}",
+        {"n": n, "r": r1},
+        Q_(weld_total, "kip/in"),
+        source=src_w,
+    )
     # Base metal, J4.2: stem carries all welds (tee); each lap-plate edge carries one weld (lap).
     bm = narrow.material
     t_bm = thick[narrow_w]
@@ -134,56 +194,167 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
         Fy, Fu = bm.Fy.to("ksi").magnitude, bm.Fu.to("ksi").magnitude
         fy_f = 1.00 if lrfd else 1 / 1.50
         fu_f = 0.75 if lrfd else 1 / 2.00
-        by = log.add("r_base_yield", f"Base-metal shear yielding per inch, part {narrow.id}",
-                     "m·f·0.60·Fy·t", "{m} × {f} × 0.60 × {Fy} × {t}",
-                     {"m": count, "f": fy_f, "Fy": bm.Fy, "t": Q_(t_bm, "in")}, Q_(count * fy_f * 0.6 * Fy * t_bm, "kip/in"),
-                     source=f"{SRC} §J4.2, Eq. J4-3 (φ = 1.00, Ω = 1.50)",
-                     note=("tee joint: the stem's section carries all weld lines" if form == "tee" else
-                           "lap joint: the plate's section at each welded edge carries one weld line")).magnitude
-        bu = log.add("r_base_rupture", f"Base-metal shear rupture per inch, part {narrow.id}",
-                     "m·f·0.60·Fu·t", "{m} × {f} × 0.60 × {Fu} × {t}",
-                     {"m": count, "f": fu_f, "Fu": bm.Fu, "t": Q_(t_bm, "in")}, Q_(count * fu_f * 0.6 * Fu * t_bm, "kip/in"),
-                     source=f"{SRC} §J4.2, Eq. J4-4 (φ = 0.75, Ω = 2.00)").magnitude
+        by = log.add(
+            "r_base_yield",
+            f"Base-metal shear yielding per inch, part {narrow.id}",
+            "m·f·0.60·Fy·t",
+            "{m} × {f} × 0.60 × {Fy} × {t}",
+            {"m": count, "f": fy_f, "Fy": bm.Fy, "t": Q_(t_bm, "in")},
+            Q_(count * fy_f * 0.6 * Fy * t_bm, "kip/in"),
+            source=f"{SRC} §J4.2, Eq. J4-3 (φ = 1.00, Ω = 1.50)",
+            note=(
+                "tee joint: the stem's section carries all weld lines"
+                if form == "tee"
+                else "lap joint: the plate's section at each welded edge carries one weld line"
+            ),
+        ).magnitude
+        bu = log.add(
+            "r_base_rupture",
+            f"Base-metal shear rupture per inch, part {narrow.id}",
+            "m·f·0.60·Fu·t",
+            "{m} × {f} × 0.60 × {Fu} × {t}",
+            {"m": count, "f": fu_f, "Fu": bm.Fu, "t": Q_(t_bm, "in")},
+            Q_(count * fu_f * 0.6 * Fu * t_bm, "kip/in"),
+            source=f"{SRC} §J4.2, Eq. J4-4 (φ = 0.75, Ω = 2.00)",
+        ).magnitude
         limits += [("base metal yielding", by, f"{SRC} §J4.2"), ("base metal rupture", bu, f"{SRC} §J4.2")]
-    base_check = None if (bm.Fy is not None and bm.Fu is not None) else Check(
-        f"{key}.base_metal", "Base-metal shear (J4.2) not checked: material lacks Fy or Fu", None, None, None,
-        "INFO", source=f"{SRC} §J4.2")
+    base_check = (
+        None
+        if (bm.Fy is not None and bm.Fu is not None)
+        else Check(
+            f"{key}.base_metal",
+            "Base-metal shear (J4.2) not checked: material lacks Fy or Fu",
+            None,
+            None,
+            None,
+            "INFO",
+            source=f"{SRC} §J4.2",
+        )
+    )
     gov = min(limits, key=lambda x: x[1])
     for i, (name, val, src) in enumerate(limits):
-        log.add(f"q_{i}", f"Available strength per inch, {name}", "r", "{v}", {"v": Q_(val, "kip/in")},
-                Q_(val, "kip/in"), source=src, governs=name == gov[0])
-    q = log.add("q_cap", "Available strength per inch of joint", "r = min(limit states)", "{r}",
-                {"r": Q_(gov[1], "kip/in")}, Q_(gov[1], "kip/in"), source=gov[2], note=f"{gov[0]} governs")
+        log.add(
+            f"q_{i}",
+            f"Available strength per inch, {name}",
+            "r",
+            "{v}",
+            {"v": Q_(val, "kip/in")},
+            Q_(val, "kip/in"),
+            source=src,
+            governs=name == gov[0],
+        )
+    q = log.add(
+        "q_cap",
+        "Available strength per inch of joint",
+        "r = min(limit states)",
+        "{r}",
+        {"r": Q_(gov[1], "kip/in")},
+        Q_(gov[1], "kip/in"),
+        source=gov[2],
+        note=f"{gov[0]} governs",
+    )
     # Detailing.
     t_thin = min(thick.values())
     wmin = min_fillet(t_thin)
-    checks = [Check(f"{key}.min_size", "Minimum fillet size for the thinner part joined", Q_(wmin, "in"), wq,
-                    wmin / w, "OK" if w >= wmin - 1e-9 else "NG", source=f"{SRC} Table J2.4")]
+    checks = [
+        Check(
+            f"{key}.min_size",
+            "Minimum fillet size for the thinner part joined",
+            Q_(wmin, "in"),
+            wq,
+            wmin / w,
+            "OK" if w >= wmin - 1e-9 else "NG",
+            source=f"{SRC} Table J2.4",
+        )
+    ]
     if base_check:
         checks.append(base_check)
     if form == "lap":
         wmax = max_fillet_along_edge(t_bm)
-        checks.append(Check(f"{key}.max_size", "Maximum fillet size along the plate edge", wq, Q_(wmax, "in"),
-                            w / wmax, "OK" if w <= wmax + 1e-9 else "NG", source=f"{SRC} §J2.2b(b)"))
+        checks.append(
+            Check(
+                f"{key}.max_size",
+                "Maximum fillet size along the plate edge",
+                wq,
+                Q_(wmax, "in"),
+                w / wmax,
+                "OK" if w <= wmax + 1e-9 else "NG",
+                source=f"{SRC} §J2.2b(b)",
+            )
+        )
     else:
-        checks.append(Check(f"{key}.max_size", "Maximum fillet size along edges does not apply (tee joint)",
-                            None, None, None, "INFO", source=f"{SRC} §J2.2b(b)"))
+        checks.append(
+            Check(
+                f"{key}.max_size",
+                "Maximum fillet size along edges does not apply (tee joint)",
+                None,
+                None,
+                None,
+                "INFO",
+                source=f"{SRC} §J2.2b(b)",
+            )
+        )
     seg = p.get("segment")
     if seg is None:
-        checks.append(Check(f"{key}.length", "Continuous weld: effective length at least 4w", Q_(4 * w, "in"),
-                            None, None, "INFO", source=f"{SRC} §J2.2b(c)"))
-        return Capacity(value=q.to("kip/in"), continuous=True, description=p.get("name") or "fillet weld",
-                        source=f"{SRC} §J2.4", checks=tuple(checks))
+        checks.append(
+            Check(
+                f"{key}.length",
+                "Continuous weld: effective length at least 4w",
+                Q_(4 * w, "in"),
+                None,
+                None,
+                "INFO",
+                source=f"{SRC} §J2.2b(c)",
+            )
+        )
+        return Capacity(
+            value=q.to("kip/in"),
+            continuous=True,
+            description=p.get("name") or "fillet weld",
+            source=f"{SRC} §J2.4",
+            checks=tuple(checks),
+        )
     L = seg.to("in").magnitude
     lmin = max(4 * w, 1.5)
-    checks.append(Check(f"{key}.segment", "Intermittent segment length at least 4w and 1-1/2 in", Q_(lmin, "in"),
-                        seg.to("in"), lmin / L, "OK" if L >= lmin - 1e-9 else "NG", source=f"{SRC} §J2.2b(c), (e)"))
-    checks.append(Check(f"{key}.pitch_max", "Maximum pitch of intermittent welds: no general limit for flexural "
-                        "members; D4 / E6 limits for built-up tension / compression members not checked",
-                        None, None, None, "INFO", source=f"{SRC} §J2.2b, D4, E6"))
-    F = log.add("F_segment", "Available strength of one segment group (one segment on each weld line)",
-                "F = r·L_seg", "{r} × {L}", {"r": q, "L": seg.to("in")}, (q * seg).to("kip"), source=f"{SRC} §J2.4",
-                note="effective length = segment length")
-    return Capacity(value=F, continuous=False, description=p.get("name") or "intermittent fillet weld",
-                    source=f"{SRC} §J2.4", checks=tuple(checks), spacing_min=seg.to("in"),
-                    limits_source="pitch not less than the segment length (geometry)")
+    checks.append(
+        Check(
+            f"{key}.segment",
+            "Intermittent segment length at least 4w and 1-1/2 in",
+            Q_(lmin, "in"),
+            seg.to("in"),
+            lmin / L,
+            "OK" if L >= lmin - 1e-9 else "NG",
+            source=f"{SRC} §J2.2b(c), (e)",
+        )
+    )
+    checks.append(
+        Check(
+            f"{key}.pitch_max",
+            "Maximum pitch of intermittent welds: no general limit for flexural "
+            "members; D4 / E6 limits for built-up tension / compression members not checked",
+            None,
+            None,
+            None,
+            "INFO",
+            source=f"{SRC} §J2.2b, D4, E6",
+        )
+    )
+    F = log.add(
+        "F_segment",
+        "Available strength of one segment group (one segment on each weld line)",
+        "F = r·L_seg",
+        "{r} × {L}",
+        {"r": q, "L": seg.to("in")},
+        (q * seg).to("kip"),
+        source=f"{SRC} §J2.4",
+        note="effective length = segment length",
+    )
+    return Capacity(
+        value=F,
+        continuous=False,
+        description=p.get("name") or "intermittent fillet weld",
+        source=f"{SRC} §J2.4",
+        checks=tuple(checks),
+        spacing_min=seg.to("in"),
+        limits_source="pitch not less than the segment length (geometry)",
+    )

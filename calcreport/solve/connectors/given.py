@@ -9,9 +9,16 @@ from ..results import Capacity
 
 KIND = "given"
 FIELDS = (
-    Field("value", "force", required=True, help="design value of one connector (ASD allowable or LRFD design strength)"),
-    Field("source", "text", required=True, help="where the value comes from: table, edition, evaluation report"),
-    Field("name", "text", default="connector", help="what the connector is, e.g. \"10d common nail\""),
+    Field(
+        "value",
+        "force",
+        required=True,
+        help="design value of one connector (ASD allowable or LRFD design strength)",
+    ),
+    Field(
+        "source", "text", required=True, help="where the value comes from: table, edition, evaluation report"
+    ),
+    Field("name", "text", default="connector", help='what the connector is, e.g. "10d common nail"'),
 )
 
 
@@ -22,6 +29,14 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
     strength); no adjustment is applied. Source: as stated in the job file.
     """
     p = spec.params
-    F = log.add("F", f"Design value of one {p['name']}", "F", "{F}", {"F": p["value"]}, p["value"],
-                source=p["source"], note="given value, used as stated")
+    F = log.add(
+        "F",
+        f"Design value of one {p['name']}",
+        "F",
+        "{F}",
+        {"F": p["value"]},
+        p["value"],
+        source=p["source"],
+        note="given value, used as stated",
+    )
     return Capacity(value=F, continuous=False, description=p["name"], source=p["source"])

@@ -22,7 +22,14 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
     Used as stated for the job's design method; no adjustment applied. Source: as stated.
     """
     p = spec.params
-    q_cap = log.add("q_cap", f"Design value of the {p['name']} per unit length", "q_cap", "{q}",
-                    {"q": p["value"]}, p["value"].to("lbf/in"), source=p["source"],
-                    note="given value, used as stated")
+    q_cap = log.add(
+        "q_cap",
+        f"Design value of the {p['name']} per unit length",
+        "q_cap",
+        "{q}",
+        {"q": p["value"]},
+        p["value"].to("lbf/in"),
+        source=p["source"],
+        note="given value, used as stated",
+    )
     return Capacity(value=q_cap, continuous=True, description=p["name"], source=p["source"])

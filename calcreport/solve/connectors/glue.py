@@ -21,13 +21,29 @@ from .geometry import extent_along, find_contact, thickness_normal
 
 KIND = "glue"
 FIELDS = (
-    Field("tau", "stress", required=True, help="allowable shear stress of the glue line (usually that of the wood)"),
-    Field("source", "text", default="allowable shear stress as stated in the job", help="where tau comes from"),
+    Field(
+        "tau",
+        "stress",
+        required=True,
+        help="allowable shear stress of the glue line (usually that of the wood)",
+    ),
+    Field(
+        "source", "text", default="allowable shear stress as stated in the job", help="where tau comes from"
+    ),
     Field("name", "text", default="glue line", help="what the adhesive is"),
-    Field("rolling_shear", "stress", help="allowable rolling shear of plywood glued on its face (default: the plywood material's Fs)"),
+    Field(
+        "rolling_shear",
+        "stress",
+        help="allowable rolling shear of plywood glued on its face (default: the plywood material's Fs)",
+    ),
     Field("rolling_source", "text", help="where the rolling shear value comes from"),
-    Field("rolling_factor", "number", default=1.0, maximum=1.0,
-          help="reduction the panel specification requires at this glue line (1.0: none)"),
+    Field(
+        "rolling_factor",
+        "number",
+        default=1.0,
+        maximum=1.0,
+        help="reduction the panel specification requires at this glue line (1.0: none)",
+    ),
 )
 
 
@@ -52,8 +68,15 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
     """
     p = spec.params
     b = ctx.plane_width
-    q_tau = log.add("q_cap", "Shear-flow capacity of the glue line", "q_cap = τ_allow · b", "{tau} × {b}",
-                    {"tau": p["tau"], "b": b}, (p["tau"] * b).to("lbf/in"), source=p["source"])
+    q_tau = log.add(
+        "q_cap",
+        "Shear-flow capacity of the glue line",
+        "q_cap = τ_allow · b",
+        "{tau} × {b}",
+        {"tau": p["tau"], "b": b},
+        (p["tau"] * b).to("lbf/in"),
+        source=p["source"],
+    )
     ply = _flat_plywood(ctx)
     if ply is None:
         return Capacity(value=q_tau, continuous=True, description=p["name"], source=p["source"])
@@ -63,23 +86,48 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
     raw = extra.get("Fs") if extra.get("Fs") is not None else extra.get("rolling_shear")
     if fs is None and raw is not None:
         fs = parse(raw, "stress") if isinstance(raw, str) else raw
-        src = src or extra.get("rolling_shear_source") or (
-            f"rolling shear Fs of material {ply.material.id} ({ply.material.name}) as given in the job")
+        src = (
+            src
+            or extra.get("rolling_shear_source")
+            or (f"rolling shear Fs of material {ply.material.id} ({ply.material.name}) as given in the job")
+        )
     if fs is None:
-        chk = Check(f"{ctx.key}.connector.rolling_shear", f"Rolling shear in plywood part {ply.id} not checked",
-                    None, None, None, "INFO", source="panel design specification (e.g. APA PDS), value not given",
-                    note="give rolling_shear for the plywood glued on its face")
-        return Capacity(value=q_tau, continuous=True, description=p["name"], source=p["source"], checks=(chk,))
+        chk = Check(
+            f"{ctx.key}.connector.rolling_shear",
+            f"Rolling shear in plywood part {ply.id} not checked",
+            None,
+            None,
+            None,
+            "INFO",
+            source="panel design specification (e.g. APA PDS), value not given",
+            note="give rolling_shear for the plywood glued on its face",
+        )
+        return Capacity(
+            value=q_tau, continuous=True, description=p["name"], source=p["source"], checks=(chk,)
+        )
     src = src or "allowable rolling shear of the plywood as stated in the job (panel design specification)"
     C = p.get("rolling_factor") or 1.0
-    q_rs = log.add("q_rolling", f"Rolling-shear capacity of plywood part {ply.id} at the glue line",
-                   "q_rs = Fs_rolling · C · b", "{fs} × {C} × {b}", {"fs": fs, "C": C, "b": b},
-                   (fs * C * b).to("lbf/in"), source=src,
-                   note="shear across the plies of a panel glued on its face" + (
-                       "; reduction C as required by the panel specification" if C != 1.0 else ""))
+    q_rs = log.add(
+        "q_rolling",
+        f"Rolling-shear capacity of plywood part {ply.id} at the glue line",
+        "q_rs = Fs_rolling · C · b",
+        "{fs} × {C} × {b}",
+        {"fs": fs, "C": C, "b": b},
+        (fs * C * b).to("lbf/in"),
+        source=src,
+        note="shear across the plies of a panel glued on its face"
+        + ("; reduction C as required by the panel specification" if C != 1.0 else ""),
+    )
     gov_rs = q_rs < q_tau
-    q = log.add("q_glue", "Shear-flow capacity of the glued joint", "q = min(q_cap, q_rs)", "min({a}, {b})",
-                {"a": q_tau, "b": q_rs}, min(q_tau, q_rs), source=src if gov_rs else p["source"],
-                note="rolling shear governs" if gov_rs else "glue-line shear governs", governs=True)
-    return Capacity(value=q, continuous=True, description=p["name"],
-                    source=(src if gov_rs else p["source"]))
+    q = log.add(
+        "q_glue",
+        "Shear-flow capacity of the glued joint",
+        "q = min(q_cap, q_rs)",
+        "min({a}, {b})",
+        {"a": q_tau, "b": q_rs},
+        min(q_tau, q_rs),
+        source=src if gov_rs else p["source"],
+        note="rolling shear governs" if gov_rs else "glue-line shear governs",
+        governs=True,
+    )
+    return Capacity(value=q, continuous=True, description=p["name"], source=(src if gov_rs else p["source"]))

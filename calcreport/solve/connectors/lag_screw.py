@@ -17,7 +17,7 @@ from .nds_factors import COMMON_FIELDS
 
 KIND = "lag_screw"
 FIELDS = (
-    Field("size", "text", help="nominal diameter, e.g. \"1/2\" or \"3/8 in\" (1/4 to 1)"),
+    Field("size", "text", help='nominal diameter, e.g. "1/2" or "3/8 in" (1/4 to 1)'),
     Field("diameter", "length", help="shank diameter D (instead of size)"),
     Field("root_diameter", "length", help="root diameter Dr (with diameter)"),
     Field("length", "length", required=True, help="lag screw length L"),
@@ -33,14 +33,26 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
     p = spec.params
     key = f"{ctx.key}.connector"
     size = (p.get("size") or "").strip().lower().replace("in", "").replace('"', "").strip()
-    D, Dr, Dy, threads, dy_note = screw_diameters(p, key, LAG_SCREWS, size, '"1/2", "3/8", "5/8", "3/4"',
-                                                  "a lag screw diameter", threads_default=False)
+    D, Dr, Dy, threads, dy_note = screw_diameters(
+        p, key, LAG_SCREWS, size, '"1/2", "3/8", "5/8", "3/4"', "a lag screw diameter", threads_default=False
+    )
     tip = p["tip_length"].to("in").magnitude if p.get("tip_length") is not None else D
     if p.get("Fyb") is not None:
         fyb, fsrc = p["Fyb"].to("psi").magnitude, "given for this connector"
     else:
         fyb, fsrc = fyb_lag_screw(D), "NDS-2018 Tables 12J/12K footnote, Fyb by diameter (from memory)"
-    f = Fastener("lag_screw", p.get("name") or "lag screw", D, Dy, p["length"].to("in").magnitude, fyb, fsrc,
-                 min_pen=4.0, tip=tip, reduced_rd=(D >= 0.25 and Dy < 0.25),
-                 dy_note=dy_note + ("; tip length E = D assumed (conservative)" if p.get("tip_length") is None else ""))
+    f = Fastener(
+        "lag_screw",
+        p.get("name") or "lag screw",
+        D,
+        Dy,
+        p["length"].to("in").magnitude,
+        fyb,
+        fsrc,
+        min_pen=4.0,
+        tip=tip,
+        reduced_rd=(D >= 0.25 and Dy < 0.25),
+        dy_note=dy_note
+        + ("; tip length E = D assumed (conservative)" if p.get("tip_length") is None else ""),
+    )
     return design_dowel(spec, ctx, log, f)

@@ -18,7 +18,9 @@ from .nds_factors import COMMON_FIELDS
 
 KIND = "nail"
 FIELDS = (
-    Field("size", "text", help="pennyweight and type, e.g. \"16d common\", \"10d box\", \"16d sinker\", \"20d spike\""),
+    Field(
+        "size", "text", help='pennyweight and type, e.g. "16d common", "10d box", "16d sinker", "20d spike"'
+    ),
     Field("diameter", "length", help="shank diameter D (instead of size)"),
     Field("length", "length", help="nail length L (instead of size)"),
     Field("Fyb", "stress", help="bending yield strength (default by diameter, NDS nail table footnotes)"),
@@ -33,15 +35,21 @@ def fastener(p: dict, key: str) -> Fastener:
     if p.get("size"):
         n = nail(p["size"])
         if n is None:
-            some = ", ".join(f'"{s}"' for s in ("8d common", "10d common", "16d common", "16d box", "16d sinker", "20d spike"))
-            raise ConnectorError(f"{key}.size", f"expected a nail size such as {some} "
-                                 f"({len(nail_names())} sizes known: 6d-60d common, box, sinker, spikes)")
+            some = ", ".join(
+                f'"{s}"'
+                for s in ("8d common", "10d common", "16d common", "16d box", "16d sinker", "20d spike")
+            )
+            raise ConnectorError(
+                f"{key}.size",
+                f"expected a nail size such as {some} "
+                f"({len(nail_names())} sizes known: 6d-60d common, box, sinker, spikes)",
+            )
         D, L, desc, src = n.D, n.L, p.get("name") or f"{n.name} nail", CATALOG_SOURCE
     elif p.get("diameter") is not None and p.get("length") is not None:
         D, L = p["diameter"].to("in").magnitude, p["length"].to("in").magnitude
         desc, src = p.get("name") or "nail", "job file"
     else:
-        raise ConnectorError(f"{key}.size", "expected size (e.g. \"16d common\") or both diameter and length")
+        raise ConnectorError(f"{key}.size", 'expected size (e.g. "16d common") or both diameter and length')
     if p.get("Fyb") is not None:
         fyb, fsrc = p["Fyb"].to("psi").magnitude, "given for this connector"
     else:
@@ -53,5 +61,11 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
     """Lateral design value of one nail or spike. Source: NDS-2018 §12.3, Table 11.3.1."""
     key = f"{ctx.key}.connector"
     f = fastener(spec.params, key)
-    return design_dowel(spec, ctx, log, f, toe_nail=bool(spec.params.get("toe_nail")),
-                        diaphragm=bool(spec.params.get("diaphragm")))
+    return design_dowel(
+        spec,
+        ctx,
+        log,
+        f,
+        toe_nail=bool(spec.params.get("toe_nail")),
+        diaphragm=bool(spec.params.get("diaphragm")),
+    )

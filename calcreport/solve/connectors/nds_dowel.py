@@ -30,13 +30,23 @@ from . import ConnectorError
 from .geometry import find_contact, thickness_normal
 from .nds_catalog import species_g
 from .nds_factors import adjust
-from .nds_yield import NDS, fe_parallel, fe_perpendicular, fe_small, fe_steel, hankinson, log_yield_modes, yield_modes
+from .nds_yield import (
+    NDS,
+    fe_parallel,
+    fe_perpendicular,
+    fe_small,
+    fe_steel,
+    hankinson,
+    log_yield_modes,
+    yield_modes,
+)
 
 __all__ = ["Fastener", "design_dowel", "screw_diameters"]
 
 
-def screw_diameters(p: dict, key: str, catalog: dict, size_key: str, example: str, what: str,
-                    threads_default: bool):
+def screw_diameters(
+    p: dict, key: str, catalog: dict, size_key: str, example: str, what: str, threads_default: bool
+):
     """Shank D, root Dr and the diameter Dy used in the yield equations (Dr when the threads lie
     in the shear plane) of a screw or lag screw, from its catalogue size or given diameters.
 
@@ -82,9 +92,11 @@ class Fastener:
 def _members(p: dict, ctx, key: str):
     c = find_contact(ctx.held, ctx.other)
     if c is None and (p.get("side_thickness") is None or p.get("main_thickness") is None):
-        raise ConnectorError(f"{key}.side_thickness",
-                             "expected side_thickness and main_thickness (lengths): the held and other "
-                             "parts do not touch, so their thicknesses cannot be measured")
+        raise ConnectorError(
+            f"{key}.side_thickness",
+            "expected side_thickness and main_thickness (lengths): the held and other "
+            "parts do not touch, so their thicknesses cannot be measured",
+        )
     held = c.held if c else ctx.held[0]
     other = c.other if c else ctx.other[0]
     planes = p.get("planes") or 1
@@ -108,12 +120,21 @@ def _members(p: dict, ctx, key: str):
 def _thickness(log: StepLog, name: str, label: str, given, part: Part, c, why: str) -> float:
     if given is not None:
         t = given.to("in").magnitude
-        log.add(name, label, name, "{t}", {"t": given}, given.to("in"), source="job file",
-                note=f"given; {why}")
+        log.add(
+            name, label, name, "{t}", {"t": given}, given.to("in"), source="job file", note=f"given; {why}"
+        )
     else:
         t = thickness_normal(part, c)
-        log.add(name, label, name, "{t}", {"t": Q_(t, "in")}, Q_(t, "in"), source="geometry of the parts",
-                note=f"part {part.id} measured perpendicular to the {c.orientation} shear plane; {why}")
+        log.add(
+            name,
+            label,
+            name,
+            "{t}",
+            {"t": Q_(t, "in")},
+            Q_(t, "in"),
+            source="geometry of the parts",
+            note=f"part {part.id} measured perpendicular to the {c.orientation} shear plane; {why}",
+        )
     return t
 
 
@@ -125,8 +146,10 @@ def plywood_g(mat) -> tuple[float, str]:
     text = f"{mat.extra.get('grade') or ''} {mat.name}".lower()
     if "structural i" in text or "structural 1" in text or "marine" in text:
         return 0.50, f"material {mat.id}: Structural I / Marine plywood, NDS-2018 Table 12.3.3B (from memory)"
-    return 0.42, (f"material {mat.id}: plywood of other or unstated grade, NDS-2018 Table 12.3.3B "
-                  "(from memory; the lower panel value)")
+    return 0.42, (
+        f"material {mat.id}: plywood of other or unstated grade, NDS-2018 Table 12.3.3B "
+        "(from memory; the lower panel value)"
+    )
 
 
 def _specific_gravity(log: StepLog, p: dict, part: Part, which: str, key: str) -> float:
@@ -139,64 +162,113 @@ def _specific_gravity(log: StepLog, p: dict, part: Part, which: str, key: str) -
     elif p.get("species"):
         g = species_g(p["species"])
         if g is None:
-            raise ConnectorError(f"{key}.species", "expected a species combination of NDS Table 12.3.3A, "
-                                 "e.g. \"Douglas Fir-Larch\", \"Southern Pine\", \"Hem-Fir\", \"Spruce-Pine-Fir\"")
+            raise ConnectorError(
+                f"{key}.species",
+                "expected a species combination of NDS Table 12.3.3A, "
+                'e.g. "Douglas Fir-Larch", "Southern Pine", "Hem-Fir", "Spruce-Pine-Fir"',
+            )
         src = f"species {p['species']}, NDS-2018 Table 12.3.3A (from memory)"
     else:
-        raise ConnectorError(f"{key}.G_{which}", f"expected G_{which} (specific gravity), a species, or a G on "
-                             f"material {part.material.id}")
-    log.add(f"G_{which}", f"Specific gravity of the {which} member", f"G_{which}", "{G}", {"G": g}, g,
-            source=src)
+        raise ConnectorError(
+            f"{key}.G_{which}",
+            f"expected G_{which} (specific gravity), a species, or a G on material {part.material.id}",
+        )
+    log.add(
+        f"G_{which}", f"Specific gravity of the {which} member", f"G_{which}", "{G}", {"G": g}, g, source=src
+    )
     return g
 
 
-def _bearing(log: StepLog, p: dict, part: Part, which: str, f: Fastener, t: float, theta: float,
-             key: str) -> float:
+def _bearing(
+    log: StepLog, p: dict, part: Part, which: str, f: Fastener, t: float, theta: float, key: str
+) -> float:
     """Dowel bearing strength (psi) of the side or main member, with its steps."""
     sym = "Fes" if which == "side" else "Fem"
     mat = part.material
     if mat.family == "steel":
         if mat.Fu is None:
-            raise ConnectorError(f"{key}.side_member", f"expected an Fu on steel material {mat.id} "
-                                 "(needed for its dowel bearing strength)")
+            raise ConnectorError(
+                f"{key}.side_member",
+                f"expected an Fu on steel material {mat.id} (needed for its dowel bearing strength)",
+            )
         Fu = mat.Fu.to("psi").magnitude
         fe, mult, form = fe_steel(Fu, t, p.get("steel_form") or "auto")
-        log.add(sym, f"Dowel bearing strength of the {which} member (steel)", f"{sym} = k·Fu",
-                "{k} × {Fu}", {"k": mult, "Fu": mat.Fu}, Q_(fe, "psi"),
-                source=f"{NDS} §12.3.4, Appendix I (from memory)",
-                note=f"{form.replace('_', '-')} steel" + (" (t ≥ 1/4 in)" if form == "hot_rolled" else " (t < 1/4 in)"))
+        log.add(
+            sym,
+            f"Dowel bearing strength of the {which} member (steel)",
+            f"{sym} = k·Fu",
+            "{k} × {Fu}",
+            {"k": mult, "Fu": mat.Fu},
+            Q_(fe, "psi"),
+            source=f"{NDS} §12.3.4, Appendix I (from memory)",
+            note=f"{form.replace('_', '-')} steel"
+            + (" (t ≥ 1/4 in)" if form == "hot_rolled" else " (t < 1/4 in)"),
+        )
         return fe
     if mat.family not in ("wood", "plywood", "other"):
-        raise ConnectorError(f"{key}.side_member", f"expected wood, plywood or steel members; material "
-                             f"{mat.id} is {mat.family}")
+        raise ConnectorError(
+            f"{key}.side_member",
+            f"expected wood, plywood or steel members; material {mat.id} is {mat.family}",
+        )
     G = _specific_gravity(log, p, part, which, key)
     src = f"{NDS} Table 12.3.3 footnote 2"
-    note = ("NDS tables tabulate Fe rounded (to 50 psi for D < 1/4 in, e.g. 4650 psi at G = 0.50); "
-            "the equation is used here unrounded")
+    note = (
+        "NDS tables tabulate Fe rounded (to 50 psi for D < 1/4 in, e.g. 4650 psi at G = 0.50); "
+        "the equation is used here unrounded"
+    )
     if f.D < 0.25:
-        return log.add(sym, f"Dowel bearing strength of the {which} member", f"{sym} = 16600·G^1.84",
-                       "16600 × {G}^1.84", {"G": G}, Q_(fe_small(G), "psi"), source=src, note=note
-                       ).to("psi").magnitude
+        return (
+            log.add(
+                sym,
+                f"Dowel bearing strength of the {which} member",
+                f"{sym} = 16600·G^1.84",
+                "16600 × {G}^1.84",
+                {"G": G},
+                Q_(fe_small(G), "psi"),
+                source=src,
+                note=note,
+            )
+            .to("psi")
+            .magnitude
+        )
     fpar = fe_parallel(G)
-    fpar_q = log.add(f"{sym}_par", f"Dowel bearing strength parallel to grain, {which} member",
-                     f"{sym}∥ = 11200·G", "11200 × {G}", {"G": G}, Q_(fpar, "psi"), source=src)
+    fpar_q = log.add(
+        f"{sym}_par",
+        f"Dowel bearing strength parallel to grain, {which} member",
+        f"{sym}∥ = 11200·G",
+        "11200 × {G}",
+        {"G": G},
+        Q_(fpar, "psi"),
+        source=src,
+    )
     if theta <= 0:
         return fpar
     fperp = fe_perpendicular(G, f.D)
-    fperp_q = log.add(f"{sym}_perp", f"Dowel bearing strength perpendicular to grain, {which} member",
-                      f"{sym}⊥ = 6100·G^1.45 / √D", "6100 × {G}^1.45 / √{D}", {"G": G, "D": Q_(f.D, "in")},
-                      Q_(fperp, "psi"), source=src)
+    fperp_q = log.add(
+        f"{sym}_perp",
+        f"Dowel bearing strength perpendicular to grain, {which} member",
+        f"{sym}⊥ = 6100·G^1.45 / √D",
+        "6100 × {G}^1.45 / √{D}",
+        {"G": G, "D": Q_(f.D, "in")},
+        Q_(fperp, "psi"),
+        source=src,
+    )
     fe = hankinson(fpar, fperp, theta)
-    log.add(sym, f"Dowel bearing strength at the load angle, {which} member",
-            f"{sym}θ = Fe∥·Fe⊥ / (Fe∥·sin²θ + Fe⊥·cos²θ)",
-            "{par} × {perp} / ({par} × sin²({th}°) + {perp} × cos²({th}°))",
-            {"par": fpar_q, "perp": fperp_q, "th": float(theta)}, Q_(fe, "psi"),
-            source=f"{NDS} §12.3.3.2, Appendix J (Hankinson formula)")
+    log.add(
+        sym,
+        f"Dowel bearing strength at the load angle, {which} member",
+        f"{sym}θ = Fe∥·Fe⊥ / (Fe∥·sin²θ + Fe⊥·cos²θ)",
+        "{par} × {perp} / ({par} × sin²({th}°) + {perp} × cos²({th}°))",
+        {"par": fpar_q, "perp": fperp_q, "th": float(theta)},
+        Q_(fe, "psi"),
+        source=f"{NDS} §12.3.3.2, Appendix J (Hankinson formula)",
+    )
     return fe
 
 
-def design_dowel(spec: ConnectorSpec, ctx, log: StepLog, f: Fastener, *, toe_nail: bool = False,
-                 diaphragm: bool = False) -> Capacity:
+def design_dowel(
+    spec: ConnectorSpec, ctx, log: StepLog, f: Fastener, *, toe_nail: bool = False, diaphragm: bool = False
+) -> Capacity:
     """Reference and adjusted lateral design value of one fastener, with detailing checks.
 
     Source: NDS-2018 §12.3 (yield limit equations), §11.3 (adjustment), §12.5 (geometry).
@@ -208,16 +280,34 @@ def design_dowel(spec: ConnectorSpec, ctx, log: StepLog, f: Fastener, *, toe_nai
     ts = _thickness(log, "ts", "Side member thickness", p.get("side_thickness"), side, c, why)
     tm = _thickness(log, "tm", "Main member thickness", p.get("main_thickness"), main, c, why)
     if side.material.family == "steel" and main.material.family == "steel":
-        raise ConnectorError(f"{key}.type", "expected a wood member on at least one side for an NDS "
-                             "fastener; for steel plates use type = \"steel_bolt\"")
+        raise ConnectorError(
+            f"{key}.type",
+            "expected a wood member on at least one side for an NDS "
+            'fastener; for steel plates use type = "steel_bolt"',
+        )
     checks: list[Check] = []
     D = f.D
     if f.L is None:
         ls, lm = ts, tm
-        log.add("ls", "Bearing length in the side member", "ls = ts", "{ts}", {"ts": Q_(ts, "in")},
-                Q_(ls, "in"), source=f"{NDS} §12.3.5", note="bolt through both members")
-        log.add("lm", "Bearing length in the main member", "lm = tm", "{tm}", {"tm": Q_(tm, "in")},
-                Q_(lm, "in"), source=f"{NDS} §12.3.5")
+        log.add(
+            "ls",
+            "Bearing length in the side member",
+            "ls = ts",
+            "{ts}",
+            {"ts": Q_(ts, "in")},
+            Q_(ls, "in"),
+            source=f"{NDS} §12.3.5",
+            note="bolt through both members",
+        )
+        log.add(
+            "lm",
+            "Bearing length in the main member",
+            "lm = tm",
+            "{tm}",
+            {"tm": Q_(tm, "in")},
+            Q_(lm, "in"),
+            source=f"{NDS} §12.3.5",
+        )
     else:
         if planes == 1:
             pen = f.L - ts
@@ -226,59 +316,144 @@ def design_dowel(spec: ConnectorSpec, ctx, log: StepLog, f: Fastener, *, toe_nai
             pen = f.L - ts - tm
             tmpl, vals = "{L} − {ts} − {tm}", {"L": Q_(f.L, "in"), "ts": Q_(ts, "in"), "tm": Q_(tm, "in")}
         if pen <= 0:
-            raise ConnectorError(f"{key}.size", "expected a fastener longer than the members it passes "
-                                 "through before the last one (it does not reach the member it must hold)")
-        log.add("p", "Penetration into the " + ("main" if planes == 1 else "far side") + " member",
-                "p = L − ts" if planes == 1 else "p = L − ts − tm", tmpl, vals, Q_(pen, "in"),
-                source="geometry")
+            raise ConnectorError(
+                f"{key}.size",
+                "expected a fastener longer than the members it passes "
+                "through before the last one (it does not reach the member it must hold)",
+            )
+        log.add(
+            "p",
+            "Penetration into the " + ("main" if planes == 1 else "far side") + " member",
+            "p = L − ts" if planes == 1 else "p = L − ts − tm",
+            tmpl,
+            vals,
+            Q_(pen, "in"),
+            source="geometry",
+        )
         pmin = f.min_pen * D
-        checks.append(Check(f"{key}.penetration", "Penetration at least the minimum",
-                            Q_(pmin, "in"), Q_(pen, "in"), pmin / pen,
-                            "OK" if pen >= pmin - 1e-9 else "NG",
-                            source=f"{NDS} Chapter 12 minimum penetration "
-                                   f"{'6D' if f.min_pen == 6 else '4D'} (from memory)",
-                            note="lateral values may not be used with less penetration"))
+        checks.append(
+            Check(
+                f"{key}.penetration",
+                "Penetration at least the minimum",
+                Q_(pmin, "in"),
+                Q_(pen, "in"),
+                pmin / pen,
+                "OK" if pen >= pmin - 1e-9 else "NG",
+                source=f"{NDS} Chapter 12 minimum penetration "
+                f"{'6D' if f.min_pen == 6 else '4D'} (from memory)",
+                note="lateral values may not be used with less penetration",
+            )
+        )
         if planes == 1:
             lm = min(pen - f.tip, tm)
             ls = ts
-            log.add("lm", "Dowel bearing length in the main member", "lm = min(p − E, tm)",
-                    "min({p} − {E}, {tm})", {"p": Q_(pen, "in"), "E": Q_(f.tip, "in"), "tm": Q_(tm, "in")},
-                    Q_(lm, "in"), source=f"{NDS} §12.3.5",
-                    note="E = tapered tip length" if f.tip else "no tip deduction for this fastener")
-            log.add("ls", "Dowel bearing length in the side member", "ls = ts", "{ts}", {"ts": Q_(ts, "in")},
-                    Q_(ls, "in"), source=f"{NDS} §12.3.5")
+            log.add(
+                "lm",
+                "Dowel bearing length in the main member",
+                "lm = min(p − E, tm)",
+                "min({p} − {E}, {tm})",
+                {"p": Q_(pen, "in"), "E": Q_(f.tip, "in"), "tm": Q_(tm, "in")},
+                Q_(lm, "in"),
+                source=f"{NDS} §12.3.5",
+                note="E = tapered tip length" if f.tip else "no tip deduction for this fastener",
+            )
+            log.add(
+                "ls",
+                "Dowel bearing length in the side member",
+                "ls = ts",
+                "{ts}",
+                {"ts": Q_(ts, "in")},
+                Q_(ls, "in"),
+                source=f"{NDS} §12.3.5",
+            )
         else:
             lm = tm
             ls = min(ts, pen - f.tip)
-            log.add("lm", "Dowel bearing length in the main member", "lm = tm", "{tm}", {"tm": Q_(tm, "in")},
-                    Q_(lm, "in"), source=f"{NDS} §12.3.5")
-            log.add("ls", "Dowel bearing length in each side member", "ls = min(ts, p − E)",
-                    "min({ts}, {p} − {E})", {"ts": Q_(ts, "in"), "p": Q_(pen, "in"), "E": Q_(f.tip, "in")},
-                    Q_(ls, "in"), source=f"{NDS} §12.3.5", note="the lesser bearing of the two side members")
+            log.add(
+                "lm",
+                "Dowel bearing length in the main member",
+                "lm = tm",
+                "{tm}",
+                {"tm": Q_(tm, "in")},
+                Q_(lm, "in"),
+                source=f"{NDS} §12.3.5",
+            )
+            log.add(
+                "ls",
+                "Dowel bearing length in each side member",
+                "ls = min(ts, p − E)",
+                "min({ts}, {p} − {E})",
+                {"ts": Q_(ts, "in"), "p": Q_(pen, "in"), "E": Q_(f.tip, "in")},
+                Q_(ls, "in"),
+                source=f"{NDS} §12.3.5",
+                note="the lesser bearing of the two side members",
+            )
         if lm <= 0 or ls <= 0:
-            raise ConnectorError(f"{key}.size", "expected a longer fastener: no bearing length remains "
-                                 "in the main member after the tip")
+            raise ConnectorError(
+                f"{key}.size",
+                "expected a longer fastener: no bearing length remains in the main member after the tip",
+            )
     th_s, th_m = p.get("angle_side") or 0.0, p.get("angle_main") or 0.0
     Fes = _bearing(log, p, side, "side", f, ts, th_s, key)
     Fem = _bearing(log, p, main, "main", f, tm, th_m, key)
-    log.add("D", "Diameter used in the yield equations", "D", "{D}", {"D": Q_(f.Dy, "in")}, Q_(f.Dy, "in"),
-            source=f"{NDS} §12.3.7", note=f.dy_note or "shank diameter")
-    log.add("Fyb", "Dowel bending yield strength", "Fyb", "{Fyb}", {"Fyb": Q_(f.Fyb, "psi")},
-            Q_(f.Fyb, "psi"), source=f.fyb_source)
+    log.add(
+        "D",
+        "Diameter used in the yield equations",
+        "D",
+        "{D}",
+        {"D": Q_(f.Dy, "in")},
+        Q_(f.Dy, "in"),
+        source=f"{NDS} §12.3.7",
+        note=f.dy_note or "shank diameter",
+    )
+    log.add(
+        "Fyb",
+        "Dowel bending yield strength",
+        "Fyb",
+        "{Fyb}",
+        {"Fyb": Q_(f.Fyb, "psi")},
+        Q_(f.Fyb, "psi"),
+        source=f.fyb_source,
+    )
     theta = max(th_s, th_m)
     modes = yield_modes(f.Dy, lm, ls, Fem, Fes, f.Fyb, theta, planes, f.reduced_rd)
     gov = log_yield_modes(log, modes, planes)
-    Z = log.add("Z", "Reference lateral design value (governing yield mode)", "Z = min(Z_modes)",
-                "{Z}", {"Z": Q_(gov.Z, "lbf")}, Q_(gov.Z, "lbf"), source=f"{NDS} §12.3.1",
-                note=f"mode {gov.mode} governs").magnitude
+    Z = log.add(
+        "Z",
+        "Reference lateral design value (governing yield mode)",
+        "Z = min(Z_modes)",
+        "{Z}",
+        {"Z": Q_(gov.Z, "lbf")},
+        Q_(gov.Z, "lbf"),
+        source=f"{NDS} §12.3.1",
+        note=f"mode {gov.mode} governs",
+    ).magnitude
     steel_side = side.material.family == "steel"
-    Zp, used = adjust(log.child("adj"), Z, p, ctx, D=D, fastener=f.kind, side=side, main=main,
-                   steel_side=steel_side, toe_nail=toe_nail, diaphragm=diaphragm)
+    Zp, used = adjust(
+        log.child("adj"),
+        Z,
+        p,
+        ctx,
+        D=D,
+        fastener=f.kind,
+        side=side,
+        main=main,
+        steel_side=steel_side,
+        toe_nail=toe_nail,
+        diaphragm=diaphragm,
+    )
     smin, smax, lsrc = _detailing(checks, key, f, c, ls, lm, theta)
-    return Capacity(value=Q_(Zp, "lbf"), continuous=False, description=f.description,
-                    source=f"{NDS} §12.3 yield limit equations, Table 11.3.1 adjustment",
-                    checks=tuple(checks), spacing_min=smin, spacing_max=smax, limits_source=lsrc,
-                    duration_factor=used.get("CD", used.get("λ")))
+    return Capacity(
+        value=Q_(Zp, "lbf"),
+        continuous=False,
+        description=f.description,
+        source=f"{NDS} §12.3 yield limit equations, Table 11.3.1 adjustment",
+        checks=tuple(checks),
+        spacing_min=smin,
+        spacing_max=smax,
+        limits_source=lsrc,
+        duration_factor=used.get("CD", used.get("λ")),
+    )
 
 
 def _detailing(checks: list[Check], key: str, f: Fastener, c, ls: float, lm: float, theta: float):
@@ -289,27 +464,77 @@ def _detailing(checks: list[Check], key: str, f: Fastener, c, ls: float, lm: flo
         src = f"{NDS} Tables 12.5.1A-12.5.1D (from memory)"
         l_over_d = min(lm, ls) / D
         edge = 1.5 * D
-        note = "load parallel to grain, l/D ≤ 6: 1.5D" if l_over_d <= 6 else (
-            "l/D > 6: the greater of 1.5D and half the spacing between rows")
+        note = (
+            "load parallel to grain, l/D ≤ 6: 1.5D"
+            if l_over_d <= 6
+            else ("l/D > 6: the greater of 1.5D and half the spacing between rows")
+        )
         if theta > 0:
             edge, note = 4.0 * D, "loaded edge with load perpendicular to grain: 4D"
         if half is not None:
-            checks.append(Check(f"{key}.edge", "Edge distance with one row centred in the contact",
-                                Q_(edge, "in"), Q_(half, "in"), edge / half, "OK" if half >= edge - 1e-9 else "NG",
-                                source=src, note=note))
-        checks.append(Check(f"{key}.end", "End distance from the member end (full design value)",
-                            Q_(7.0 * D, "in"), None, None, "INFO", source=src,
-                            note="parallel to grain: 7D in tension (softwoods; 5D hardwoods), 4D in compression; "
-                                 "minimum 3.5D / 2D with CΔ reduction"))
-        checks.append(Check(f"{key}.row_spacing", "Spacing between rows", Q_(1.5 * D, "in"), None, None,
-                            "INFO", source=src, note="load parallel to grain: 1.5D, rows not over 5 in apart"))
+            checks.append(
+                Check(
+                    f"{key}.edge",
+                    "Edge distance with one row centred in the contact",
+                    Q_(edge, "in"),
+                    Q_(half, "in"),
+                    edge / half,
+                    "OK" if half >= edge - 1e-9 else "NG",
+                    source=src,
+                    note=note,
+                )
+            )
+        checks.append(
+            Check(
+                f"{key}.end",
+                "End distance from the member end (full design value)",
+                Q_(7.0 * D, "in"),
+                None,
+                None,
+                "INFO",
+                source=src,
+                note="parallel to grain: 7D in tension (softwoods; 5D hardwoods), 4D in compression; "
+                "minimum 3.5D / 2D with CΔ reduction",
+            )
+        )
+        checks.append(
+            Check(
+                f"{key}.row_spacing",
+                "Spacing between rows",
+                Q_(1.5 * D, "in"),
+                None,
+                None,
+                "INFO",
+                source=src,
+                note="load parallel to grain: 1.5D, rows not over 5 in apart",
+            )
+        )
         return Q_(4.0 * D, "in"), None, src + ": 4D along the row for CΔ = 1.0 (3D absolute minimum)"
     src = "common practice, no source (NDS-2018 asks nail spacing that prevents splitting without numbers)"
     edge = 5.0 * D
     if half is not None:
-        checks.append(Check(f"{key}.edge", "Edge distance with one row centred in the contact",
-                            Q_(edge, "in"), Q_(half, "in"), edge / half, "OK" if half >= edge - 1e-9 else "NG",
-                            source=src, note="5D (2.5D with pre-bored holes) to avoid splitting"))
-    checks.append(Check(f"{key}.end", "End distance from the member end", Q_(15.0 * D, "in"), None, None,
-                        "INFO", source=src, note="15D without pre-boring (10D pre-bored)"))
+        checks.append(
+            Check(
+                f"{key}.edge",
+                "Edge distance with one row centred in the contact",
+                Q_(edge, "in"),
+                Q_(half, "in"),
+                edge / half,
+                "OK" if half >= edge - 1e-9 else "NG",
+                source=src,
+                note="5D (2.5D with pre-bored holes) to avoid splitting",
+            )
+        )
+    checks.append(
+        Check(
+            f"{key}.end",
+            "End distance from the member end",
+            Q_(15.0 * D, "in"),
+            None,
+            None,
+            "INFO",
+            source=src,
+            note="15D without pre-boring (10D pre-bored)",
+        )
+    )
     return Q_(10.0 * D, "in"), None, src + ": 10D along the grain"

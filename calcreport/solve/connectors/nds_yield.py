@@ -21,8 +21,22 @@ from ...steps import StepLog
 from ...units import Q_
 
 __all__ = [
-    "fe_small", "fe_parallel", "fe_perpendicular", "hankinson", "fe_wood", "fe_steel", "k_theta",
-    "k_d", "rd", "k1", "k2", "k3", "ModeResult", "yield_modes", "log_yield_modes", "NDS",
+    "fe_small",
+    "fe_parallel",
+    "fe_perpendicular",
+    "hankinson",
+    "fe_wood",
+    "fe_steel",
+    "k_theta",
+    "k_d",
+    "rd",
+    "k1",
+    "k2",
+    "k3",
+    "ModeResult",
+    "yield_modes",
+    "log_yield_modes",
+    "NDS",
 ]
 
 NDS = "ANSI/AWC NDS-2018"
@@ -33,7 +47,7 @@ def fe_small(G: float) -> float:
 
     Source: NDS-2018 Table 12.3.3 footnote 2.
     """
-    return 16600.0 * G ** 1.84
+    return 16600.0 * G**1.84
 
 
 def fe_parallel(G: float) -> float:
@@ -49,7 +63,7 @@ def fe_perpendicular(G: float, D: float) -> float:
 
     Source: NDS-2018 Table 12.3.3 footnote 2.
     """
-    return 6100.0 * G ** 1.45 / math.sqrt(D)
+    return 6100.0 * G**1.45 / math.sqrt(D)
 
 
 def hankinson(f_par: float, f_perp: float, theta_deg: float) -> float:
@@ -121,17 +135,17 @@ def rd(mode: str, D: float, theta_deg: float, reduced: bool = False) -> tuple[fl
 
 def k1(Re: float, Rt: float) -> float:
     """k1 = [√(Re + 2Re²(1+Rt+Rt²) + Rt²Re³) − Re(1+Rt)] / (1+Re). Source: NDS-2018 Table 12.3.1A."""
-    return (math.sqrt(Re + 2 * Re ** 2 * (1 + Rt + Rt ** 2) + Rt ** 2 * Re ** 3) - Re * (1 + Rt)) / (1 + Re)
+    return (math.sqrt(Re + 2 * Re**2 * (1 + Rt + Rt**2) + Rt**2 * Re**3) - Re * (1 + Rt)) / (1 + Re)
 
 
 def k2(Re: float, Fyb: float, D: float, Fem: float, lm: float) -> float:
     """k2 = −1 + √(2(1+Re) + 2·Fyb·(1+2Re)·D²/(3·Fem·lm²)). Source: NDS-2018 Table 12.3.1A."""
-    return -1 + math.sqrt(2 * (1 + Re) + 2 * Fyb * (1 + 2 * Re) * D ** 2 / (3 * Fem * lm ** 2))
+    return -1 + math.sqrt(2 * (1 + Re) + 2 * Fyb * (1 + 2 * Re) * D**2 / (3 * Fem * lm**2))
 
 
 def k3(Re: float, Fyb: float, D: float, Fem: float, ls: float) -> float:
     """k3 = −1 + √(2(1+Re)/Re + 2·Fyb·(2+Re)·D²/(3·Fem·ls²)). Source: NDS-2018 Table 12.3.1A."""
-    return -1 + math.sqrt(2 * (1 + Re) / Re + 2 * Fyb * (2 + Re) * D ** 2 / (3 * Fem * ls ** 2))
+    return -1 + math.sqrt(2 * (1 + Re) / Re + 2 * Fyb * (2 + Re) * D**2 / (3 * Fem * ls**2))
 
 
 @dataclass(frozen=True)
@@ -147,8 +161,17 @@ class ModeResult:
     values: dict
 
 
-def yield_modes(D: float, lm: float, ls: float, Fem: float, Fes: float, Fyb: float,
-                theta_deg: float = 0.0, planes: int = 1, reduced: bool = False) -> list[ModeResult]:
+def yield_modes(
+    D: float,
+    lm: float,
+    ls: float,
+    Fem: float,
+    Fes: float,
+    Fyb: float,
+    theta_deg: float = 0.0,
+    planes: int = 1,
+    reduced: bool = False,
+) -> list[ModeResult]:
     """All yield modes of NDS-2018 Table 12.3.1A.
 
     Single shear (``planes=1``): Im, Is, II, IIIm, IIIs, IV. Double shear (``planes=2``, ``ls``
@@ -161,9 +184,17 @@ def yield_modes(D: float, lm: float, ls: float, Fem: float, Fes: float, Fyb: flo
 
     def add(mode, z_fn, symbol, template, extra):
         r, expr = rd(mode, D, theta_deg, reduced)
-        out.append(ModeResult(mode, z_fn(r), r, expr, symbol, template,
-                              {"D": D, "lm": lm, "ls": ls, "Fem": Fem, "Fes": Fes, "Fyb": Fyb,
-                               "Re": Re, "Rd": r, **extra}))
+        out.append(
+            ModeResult(
+                mode,
+                z_fn(r),
+                r,
+                expr,
+                symbol,
+                template,
+                {"D": D, "lm": lm, "ls": ls, "Fem": Fem, "Fes": Fes, "Fyb": Fyb, "Re": Re, "Rd": r, **extra},
+            )
+        )
 
     iv = math.sqrt(2 * Fem * Fyb / (3 * (1 + Re)))
     K3 = k3(Re, Fyb, D, Fem, ls)
@@ -172,21 +203,51 @@ def yield_modes(D: float, lm: float, ls: float, Fem: float, Fes: float, Fyb: flo
         K2 = k2(Re, Fyb, D, Fem, lm)
         add("Im", lambda r: D * lm * Fem / r, "Z = D·lm·Fem / Rd", "{D} × {lm} × {Fem} / {Rd}", {})
         add("Is", lambda r: D * ls * Fes / r, "Z = D·ls·Fes / Rd", "{D} × {ls} × {Fes} / {Rd}", {})
-        add("II", lambda r: K1 * D * ls * Fes / r, "Z = k1·D·ls·Fes / Rd",
-            "{k1} × {D} × {ls} × {Fes} / {Rd}", {"k1": K1})
-        add("IIIm", lambda r: K2 * D * lm * Fem / ((1 + 2 * Re) * r), "Z = k2·D·lm·Fem / ((1 + 2Re)·Rd)",
-            "{k2} × {D} × {lm} × {Fem} / ((1 + 2 × {Re}) × {Rd})", {"k2": K2})
-        add("IIIs", lambda r: K3 * D * ls * Fem / ((2 + Re) * r), "Z = k3·D·ls·Fem / ((2 + Re)·Rd)",
-            "{k3} × {D} × {ls} × {Fem} / ((2 + {Re}) × {Rd})", {"k3": K3})
-        add("IV", lambda r: D ** 2 / r * iv, "Z = (D²/Rd)·√(2·Fem·Fyb / (3(1 + Re)))",
-            "({D})² / {Rd} × √(2 × {Fem} × {Fyb} / (3 × (1 + {Re})))", {})
+        add(
+            "II",
+            lambda r: K1 * D * ls * Fes / r,
+            "Z = k1·D·ls·Fes / Rd",
+            "{k1} × {D} × {ls} × {Fes} / {Rd}",
+            {"k1": K1},
+        )
+        add(
+            "IIIm",
+            lambda r: K2 * D * lm * Fem / ((1 + 2 * Re) * r),
+            "Z = k2·D·lm·Fem / ((1 + 2Re)·Rd)",
+            "{k2} × {D} × {lm} × {Fem} / ((1 + 2 × {Re}) × {Rd})",
+            {"k2": K2},
+        )
+        add(
+            "IIIs",
+            lambda r: K3 * D * ls * Fem / ((2 + Re) * r),
+            "Z = k3·D·ls·Fem / ((2 + Re)·Rd)",
+            "{k3} × {D} × {ls} × {Fem} / ((2 + {Re}) × {Rd})",
+            {"k3": K3},
+        )
+        add(
+            "IV",
+            lambda r: D**2 / r * iv,
+            "Z = (D²/Rd)·√(2·Fem·Fyb / (3(1 + Re)))",
+            "({D})² / {Rd} × √(2 × {Fem} × {Fyb} / (3 × (1 + {Re})))",
+            {},
+        )
     elif planes == 2:
         add("Im", lambda r: D * lm * Fem / r, "Z = D·lm·Fem / Rd", "{D} × {lm} × {Fem} / {Rd}", {})
         add("Is", lambda r: 2 * D * ls * Fes / r, "Z = 2·D·ls·Fes / Rd", "2 × {D} × {ls} × {Fes} / {Rd}", {})
-        add("IIIs", lambda r: 2 * K3 * D * ls * Fem / ((2 + Re) * r), "Z = 2·k3·D·ls·Fem / ((2 + Re)·Rd)",
-            "2 × {k3} × {D} × {ls} × {Fem} / ((2 + {Re}) × {Rd})", {"k3": K3})
-        add("IV", lambda r: 2 * D ** 2 / r * iv, "Z = (2·D²/Rd)·√(2·Fem·Fyb / (3(1 + Re)))",
-            "2 × ({D})² / {Rd} × √(2 × {Fem} × {Fyb} / (3 × (1 + {Re})))", {})
+        add(
+            "IIIs",
+            lambda r: 2 * K3 * D * ls * Fem / ((2 + Re) * r),
+            "Z = 2·k3·D·ls·Fem / ((2 + Re)·Rd)",
+            "2 × {k3} × {D} × {ls} × {Fem} / ((2 + {Re}) × {Rd})",
+            {"k3": K3},
+        )
+        add(
+            "IV",
+            lambda r: 2 * D**2 / r * iv,
+            "Z = (2·D²/Rd)·√(2·Fem·Fyb / (3(1 + Re)))",
+            "2 × ({D})² / {Rd} × √(2 × {Fem} × {Fyb} / (3 × (1 + {Re})))",
+            {},
+        )
     else:
         raise ValueError("planes must be 1 or 2")
     return out
@@ -203,30 +264,68 @@ def log_yield_modes(log: StepLog, modes: list[ModeResult], planes: int) -> ModeR
     """Write Re, Rt, k-factors, every mode (governing one flagged) and Z; return the governing mode."""
     v = modes[0].values
     src = f"{NDS} Table 12.3.1A"
-    log.add("Re", "Ratio of dowel bearing strengths", "Re = Fem / Fes", "{Fem} / {Fes}",
-            {"Fem": _q("Fem", v["Fem"]), "Fes": _q("Fes", v["Fes"])}, v["Re"], source=src)
-    log.add("Rt", "Ratio of member bearing lengths", "Rt = lm / ls", "{lm} / {ls}",
-            {"lm": _q("lm", v["lm"]), "ls": _q("ls", v["ls"])}, v["lm"] / v["ls"], source=src)
-    syms = {"k1": ("k1 = [√(Re + 2Re²(1+Rt+Rt²) + Rt²Re³) − Re(1+Rt)] / (1+Re)",
-                   "[√({Re} + 2×{Re}²×(1 + {Rt} + {Rt}²) + {Rt}²×{Re}³) − {Re}×(1 + {Rt})] / (1 + {Re})"),
-            "k2": ("k2 = −1 + √(2(1+Re) + 2·Fyb·(1+2Re)·D² / (3·Fem·lm²))",
-                   "−1 + √(2×(1 + {Re}) + 2×{Fyb}×(1 + 2×{Re})×({D})² / (3×{Fem}×({lm})²))"),
-            "k3": ("k3 = −1 + √(2(1+Re)/Re + 2·Fyb·(2+Re)·D² / (3·Fem·ls²))",
-                   "−1 + √(2×(1 + {Re})/{Re} + 2×{Fyb}×(2 + {Re})×({D})² / (3×{Fem}×({ls})²))")}
-    vals = {"Re": v["Re"], "Rt": v["lm"] / v["ls"], "Fyb": _q("Fyb", v["Fyb"]), "D": _q("D", v["D"]),
-            "Fem": _q("Fem", v["Fem"]), "lm": _q("lm", v["lm"]), "ls": _q("ls", v["ls"])}
+    log.add(
+        "Re",
+        "Ratio of dowel bearing strengths",
+        "Re = Fem / Fes",
+        "{Fem} / {Fes}",
+        {"Fem": _q("Fem", v["Fem"]), "Fes": _q("Fes", v["Fes"])},
+        v["Re"],
+        source=src,
+    )
+    log.add(
+        "Rt",
+        "Ratio of member bearing lengths",
+        "Rt = lm / ls",
+        "{lm} / {ls}",
+        {"lm": _q("lm", v["lm"]), "ls": _q("ls", v["ls"])},
+        v["lm"] / v["ls"],
+        source=src,
+    )
+    syms = {
+        "k1": (
+            "k1 = [√(Re + 2Re²(1+Rt+Rt²) + Rt²Re³) − Re(1+Rt)] / (1+Re)",
+            "[√({Re} + 2×{Re}²×(1 + {Rt} + {Rt}²) + {Rt}²×{Re}³) − {Re}×(1 + {Rt})] / (1 + {Re})",
+        ),
+        "k2": (
+            "k2 = −1 + √(2(1+Re) + 2·Fyb·(1+2Re)·D² / (3·Fem·lm²))",
+            "−1 + √(2×(1 + {Re}) + 2×{Fyb}×(1 + 2×{Re})×({D})² / (3×{Fem}×({lm})²))",
+        ),
+        "k3": (
+            "k3 = −1 + √(2(1+Re)/Re + 2·Fyb·(2+Re)·D² / (3·Fem·ls²))",
+            "−1 + √(2×(1 + {Re})/{Re} + 2×{Fyb}×(2 + {Re})×({D})² / (3×{Fem}×({ls})²))",
+        ),
+    }
+    vals = {
+        "Re": v["Re"],
+        "Rt": v["lm"] / v["ls"],
+        "Fyb": _q("Fyb", v["Fyb"]),
+        "D": _q("D", v["D"]),
+        "Fem": _q("Fem", v["Fem"]),
+        "lm": _q("lm", v["lm"]),
+        "ls": _q("ls", v["ls"]),
+    }
     done: set[str] = set()
     for m in modes:
         for k in ("k1", "k2", "k3"):
             if k in m.values and k not in done:
                 done.add(k)
-                log.add(k, f"Yield-mode coefficient {k}", syms[k][0], syms[k][1], vals, m.values[k],
-                        source=src)
+                log.add(
+                    k, f"Yield-mode coefficient {k}", syms[k][0], syms[k][1], vals, m.values[k], source=src
+                )
     gov = min(modes, key=lambda m: m.Z)
     for m in modes:
         slots = {n for _, n, _, _ in string.Formatter().parse(m.template) if n}
         vals = {n: _q(n, m.values[n]) for n in slots}
-        log.add(f"Z_{m.mode}", f"Yield mode {m.mode} ({'double' if planes == 2 else 'single'} shear)",
-                m.symbol, m.template, vals, Q_(m.Z, "lbf"), source=src,
-                note=f"Rd = {m.rd_expr} (NDS-2018 Table 12.3.1B)", governs=m is gov)
+        log.add(
+            f"Z_{m.mode}",
+            f"Yield mode {m.mode} ({'double' if planes == 2 else 'single'} shear)",
+            m.symbol,
+            m.template,
+            vals,
+            Q_(m.Z, "lbf"),
+            source=src,
+            note=f"Rd = {m.rd_expr} (NDS-2018 Table 12.3.1B)",
+            governs=m is gov,
+        )
     return gov

@@ -15,14 +15,18 @@ FIELDS = (
     Field("tau", "stress", required=True, help="allowable (or design) average shear stress on the shank"),
     Field("planes", "int", default=1, help="number of shear planes the shank crosses"),
     Field("name", "text", default="pin", help="what the connector is"),
-    Field("source", "text", default="average shear stress on the shank; mechanics of materials",
-          help="where the allowable stress comes from"),
+    Field(
+        "source",
+        "text",
+        default="average shear stress on the shank; mechanics of materials",
+        help="where the allowable stress comes from",
+    ),
 )
 
 
 def shank_area(d):
     """Cross-sectional area of a round shank, A = π·d²/4 (geometry)."""
-    return math.pi * d ** 2 / 4
+    return math.pi * d**2 / 4
 
 
 def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
@@ -32,8 +36,22 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
     """
     p = spec.params
     d, tau, m = p["diameter"], p["tau"], p["planes"]
-    A = log.add("A", "Shank area", "A = π·d²/4", "π × ({d})² / 4", {"d": d},
-                shank_area(d).to("in**2"), source="geometry")
-    F = log.add("F", f"Shear capacity of one {p['name']}", "F = τ·A·m", "{tau} × {A} × {m}",
-                {"tau": tau, "A": A, "m": m}, (tau * A * m).to("lbf"), source=p["source"])
+    A = log.add(
+        "A",
+        "Shank area",
+        "A = π·d²/4",
+        "π × ({d})² / 4",
+        {"d": d},
+        shank_area(d).to("in**2"),
+        source="geometry",
+    )
+    F = log.add(
+        "F",
+        f"Shear capacity of one {p['name']}",
+        "F = τ·A·m",
+        "{tau} × {A} × {m}",
+        {"tau": tau, "A": A, "m": m},
+        (tau * A * m).to("lbf"),
+        source=p["source"],
+    )
     return Capacity(value=F, continuous=False, description=f"{p['name']}, d = shank", source=p["source"])

@@ -25,20 +25,46 @@ KIND = "stud"
 SRC = "ANSI/AISC 360-16"
 
 FIELDS = (
-    Field("diameter", "length", required=True, help="stud shank diameter dsa (3/4 in or less; up to 1 in in solid slabs)"),
-    Field("Fu", "stress", default="65 ksi", help="specified minimum tensile strength of the stud (65 ksi: AWS D1.1 Type B)"),
+    Field(
+        "diameter",
+        "length",
+        required=True,
+        help="stud shank diameter dsa (3/4 in or less; up to 1 in in solid slabs)",
+    ),
+    Field(
+        "Fu",
+        "stress",
+        default="65 ksi",
+        help="specified minimum tensile strength of the stud (65 ksi: AWS D1.1 Type B)",
+    ),
     Field("fc", "stress", help="concrete f'c (default: the concrete part's material)"),
-    Field("wc", "weight_density", help="concrete unit weight (default: the concrete material's density, else 145 pcf)"),
-    Field("deck", "choice", default="none", choices=("none", "parallel", "perpendicular"),
-          help="formed steel deck: none (solid slab), ribs parallel or perpendicular to the beam"),
+    Field(
+        "wc",
+        "weight_density",
+        help="concrete unit weight (default: the concrete material's density, else 145 pcf)",
+    ),
+    Field(
+        "deck",
+        "choice",
+        default="none",
+        choices=("none", "parallel", "perpendicular"),
+        help="formed steel deck: none (solid slab), ribs parallel or perpendicular to the beam",
+    ),
     Field("rib_ratio", "number", help="wr/hr, average rib width over rib height (deck parallel)"),
     Field("per_rib", "int", default=1, minimum=1, help="studs in one deck rib (deck perpendicular)"),
-    Field("strong_position", "bool", default=False, help="deck perpendicular with e_mid-ht ≥ 2 in (Rp = 0.75)"),
+    Field(
+        "strong_position", "bool", default=False, help="deck perpendicular with e_mid-ht ≥ 2 in (Rp = 0.75)"
+    ),
     Field("slab_thickness", "length", help="total slab thickness (default: the concrete part's depth)"),
     Field("length", "length", help="stud length after installation (checked ≥ 4·dsa)"),
     Field("base_thickness", "length", help="thickness of the flange the stud is welded to (dsa ≤ 2.5·t)"),
     Field("over_web", "bool", default=False, help="studs welded over the web (lifts the 2.5·t limit)"),
-    Field("lightweight", "bool", default=False, help="lightweight concrete (edge distance 10 in instead of 8 in)"),
+    Field(
+        "lightweight",
+        "bool",
+        default=False,
+        help="lightweight concrete (edge distance 10 in instead of 8 in)",
+    ),
     Field("phi", "number", default=0.65, maximum=1.0, help="LRFD resistance factor per anchor"),
     Field("omega", "number", default=2.31, help="ASD safety factor per anchor"),
     Field("name", "text", help="how the report names the stud"),
@@ -47,7 +73,7 @@ FIELDS = (
 
 def concrete_modulus(wc_pcf: float, fc_ksi: float) -> float:
     """Ec = wc^1.5·√f'c (ksi), wc in pcf. Source: AISC 360-16 §I2.1b / §I8.2a."""
-    return wc_pcf ** 1.5 * math.sqrt(fc_ksi)
+    return wc_pcf**1.5 * math.sqrt(fc_ksi)
 
 
 def rg_rp(deck: str, rib_ratio: float | None, per_rib: int, strong: bool) -> tuple[float, float, str]:
@@ -60,8 +86,14 @@ def rg_rp(deck: str, rib_ratio: float | None, per_rib: int, strong: bool) -> tup
         return 0.85, 0.75, "deck parallel to the beam, wr/hr < 1.5 (single stud)"
     rg = 1.0 if per_rib == 1 else (0.85 if per_rib == 2 else 0.7)
     rp = 0.75 if strong else 0.6
-    return rg, rp, ("deck perpendicular to the beam; studs per rib as given; "
-                    + ("e_mid-ht ≥ 2 in" if strong else "e_mid-ht < 2 in"))
+    return (
+        rg,
+        rp,
+        (
+            "deck perpendicular to the beam; studs per rib as given; "
+            + ("e_mid-ht ≥ 2 in" if strong else "e_mid-ht < 2 in")
+        ),
+    )
 
 
 def qn(Asa: float, fc: float, Ec: float, Rg: float, Rp: float, Fu: float) -> tuple[float, float, float]:
@@ -101,29 +133,73 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
     Fuq = _stress(p.get("Fu"), "65 ksi")
     Fu = Fuq.to("ksi").magnitude
     dq = Q_(d, "in")
-    Asa = log.add("Asa", "Stud shank area", "Asa = π·dsa²/4", "π × ({d})² / 4", {"d": dq},
-                  Q_(math.pi * d * d / 4, "in**2"), source="geometry").magnitude
+    Asa = log.add(
+        "Asa",
+        "Stud shank area",
+        "Asa = π·dsa²/4",
+        "π × ({d})² / 4",
+        {"d": dq},
+        Q_(math.pi * d * d / 4, "in**2"),
+        source="geometry",
+    ).magnitude
     log.add("wc", "Concrete unit weight", "wc", "{wc}", {"wc": wcq}, wcq.to("pcf"), source=wsrc)
-    Ec = log.add("Ec", "Concrete modulus of elasticity", "Ec = wc^1.5·√f'c", "{wc}^1.5 × √{fc}",
-                 {"wc": wc, "fc": fc}, Q_(concrete_modulus(wc, fc), "ksi"), source=f"{SRC} §I8.2a (ksi, wc in pcf)",
-                 note="wc in pcf and f'c in ksi as pure numbers, result in ksi").magnitude
-    Rg, Rp, why = rg_rp(p.get("deck") or "none", p.get("rib_ratio"), p.get("per_rib") or 1, bool(p.get("strong_position")))
+    Ec = log.add(
+        "Ec",
+        "Concrete modulus of elasticity",
+        "Ec = wc^1.5·√f'c",
+        "{wc}^1.5 × √{fc}",
+        {"wc": wc, "fc": fc},
+        Q_(concrete_modulus(wc, fc), "ksi"),
+        source=f"{SRC} §I8.2a (ksi, wc in pcf)",
+        note="wc in pcf and f'c in ksi as pure numbers, result in ksi",
+    ).magnitude
+    Rg, Rp, why = rg_rp(
+        p.get("deck") or "none", p.get("rib_ratio"), p.get("per_rib") or 1, bool(p.get("strong_position"))
+    )
     log.add("Rg", "Group effect factor", "Rg", "{v}", {"v": Rg}, Rg, source=f"{SRC} §I8.2a", note=why)
     log.add("Rp", "Position effect factor", "Rp", "{v}", {"v": Rp}, Rp, source=f"{SRC} §I8.2a", note=why)
     a, b, Q = qn(Asa, fc, Ec, Rg, Rp, Fu)
-    log.add("Qn_concrete", "Concrete limit", "0.5·Asa·√(f'c·Ec)", "0.5 × {A} × √({fc} × {Ec})",
-            {"A": Q_(Asa, "in**2"), "fc": fcq, "Ec": Q_(Ec, "ksi")}, Q_(a, "kip"), source=f"{SRC} Eq. I8-1",
-            governs=a <= b)
-    log.add("Qn_steel", "Stud steel limit", "Rg·Rp·Asa·Fu", "{Rg} × {Rp} × {A} × {Fu}",
-            {"Rg": Rg, "Rp": Rp, "A": Q_(Asa, "in**2"), "Fu": Fuq}, Q_(b, "kip"), source=f"{SRC} Eq. I8-1",
-            governs=b < a)
-    Qq = log.add("Qn", "Nominal shear strength of one stud", "Qn = min(0.5·Asa·√(f'c·Ec), Rg·Rp·Asa·Fu)",
-                 "min({a}, {b})", {"a": Q_(a, "kip"), "b": Q_(b, "kip")}, Q_(Q, "kip"), source=f"{SRC} Eq. I8-1")
+    log.add(
+        "Qn_concrete",
+        "Concrete limit",
+        "0.5·Asa·√(f'c·Ec)",
+        "0.5 × {A} × √({fc} × {Ec})",
+        {"A": Q_(Asa, "in**2"), "fc": fcq, "Ec": Q_(Ec, "ksi")},
+        Q_(a, "kip"),
+        source=f"{SRC} Eq. I8-1",
+        governs=a <= b,
+    )
+    log.add(
+        "Qn_steel",
+        "Stud steel limit",
+        "Rg·Rp·Asa·Fu",
+        "{Rg} × {Rp} × {A} × {Fu}",
+        {"Rg": Rg, "Rp": Rp, "A": Q_(Asa, "in**2"), "Fu": Fuq},
+        Q_(b, "kip"),
+        source=f"{SRC} Eq. I8-1",
+        governs=b < a,
+    )
+    Qq = log.add(
+        "Qn",
+        "Nominal shear strength of one stud",
+        "Qn = min(0.5·Asa·√(f'c·Ec), Rg·Rp·Asa·Fu)",
+        "min({a}, {b})",
+        {"a": Q_(a, "kip"), "b": Q_(b, "kip")},
+        Q_(Q, "kip"),
+        source=f"{SRC} Eq. I8-1",
+    )
     lrfd = ctx.method == "LRFD"
     f = (p.get("phi") or 0.65) if lrfd else 1.0 / (p.get("omega") or 2.31)
-    R = log.add("R", "Available shear strength of one stud", "φv·Qn" if lrfd else "Qn/Ωv", "{f} × {Q}",
-                {"f": f, "Q": Qq}, (Qq * f).to("kip"), source=f"{SRC} §I8.3a factors (φv = 0.65, Ωv = 2.31)",
-                note="per-anchor factor applied to the I8.2a nominal strength; stated choice, see model notes")
+    R = log.add(
+        "R",
+        "Available shear strength of one stud",
+        "φv·Qn" if lrfd else "Qn/Ωv",
+        "{f} × {Q}",
+        {"f": f, "Q": Qq},
+        (Qq * f).to("kip"),
+        source=f"{SRC} §I8.3a factors (φv = 0.65, Ωv = 2.31)",
+        note="per-anchor factor applied to the I8.2a nominal strength; stated choice, see model notes",
+    )
     # Detailing, I8.1 and I8.2d.
     c = find_contact(ctx.held, ctx.other)
     if p.get("slab_thickness") is not None:
@@ -135,36 +211,105 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
         ts, tsrc = y1 - y0, f"bounding-box depth of part {conc.id}"
     else:
         raise ConnectorError(f"{key}.slab_thickness", "expected slab_thickness (a length)")
-    log.add("t_slab", "Total slab thickness", "t", "{t}", {"t": Q_(ts, "in")}, Q_(ts, "in"), source="geometry of the parts",
-            note=tsrc)
+    log.add(
+        "t_slab",
+        "Total slab thickness",
+        "t",
+        "{t}",
+        {"t": Q_(ts, "in")},
+        Q_(ts, "in"),
+        source="geometry of the parts",
+        note=tsrc,
+    )
     perp = (p.get("deck") or "none") == "perpendicular"
     smin = 4 * d if perp else 6 * d
     smax = min(8 * ts, 36.0)
     checks = []
     dmax = 1.0 if (p.get("deck") or "none") == "none" else 0.75
-    checks.append(Check(f"{key}.diameter", "Stud diameter limit", dq, Q_(dmax, "in"), d / dmax,
-                        "OK" if d <= dmax + 1e-9 else "NG", source=f"{SRC} §I8.1",
-                        note="3/4 in, or up to 1 in for shear transfer in solid slabs"))
+    checks.append(
+        Check(
+            f"{key}.diameter",
+            "Stud diameter limit",
+            dq,
+            Q_(dmax, "in"),
+            d / dmax,
+            "OK" if d <= dmax + 1e-9 else "NG",
+            source=f"{SRC} §I8.1",
+            note="3/4 in, or up to 1 in for shear transfer in solid slabs",
+        )
+    )
     tb = p.get("base_thickness")
     if tb is None and stl is not None and c is not None:
         tb = Q_(thickness_normal(stl, c), "in")
     if p.get("over_web"):
-        checks.append(Check(f"{key}.base", "dsa ≤ 2.5·t does not apply: studs over the web", None, None, None, "INFO",
-                            source=f"{SRC} §I8.1"))
+        checks.append(
+            Check(
+                f"{key}.base",
+                "dsa ≤ 2.5·t does not apply: studs over the web",
+                None,
+                None,
+                None,
+                "INFO",
+                source=f"{SRC} §I8.1",
+            )
+        )
     elif tb is not None:
         lim = 2.5 * tb.to("in").magnitude
-        checks.append(Check(f"{key}.base", "Stud diameter at most 2.5 × flange thickness", dq, Q_(lim, "in"), d / lim,
-                            "OK" if d <= lim + 1e-9 else "NG", source=f"{SRC} §I8.1"))
+        checks.append(
+            Check(
+                f"{key}.base",
+                "Stud diameter at most 2.5 × flange thickness",
+                dq,
+                Q_(lim, "in"),
+                d / lim,
+                "OK" if d <= lim + 1e-9 else "NG",
+                source=f"{SRC} §I8.1",
+            )
+        )
     if p.get("length") is not None:
         L = p["length"].to("in").magnitude
-        checks.append(Check(f"{key}.length", "Stud length after installation at least 4·dsa", Q_(4 * d, "in"),
-                            p["length"].to("in"), 4 * d / L, "OK" if L >= 4 * d - 1e-9 else "NG", source=f"{SRC} §I8.2"))
-    checks.append(Check(f"{key}.transverse", "Transverse spacing of studs at least 4·dsa; 1 in lateral cover",
-                        Q_(4 * d, "in"), None, None, "INFO", source=f"{SRC} §I8.2d(b), (d)"))
-    checks.append(Check(f"{key}.edge", "Distance to a free edge in the direction of the shear force",
-                        Q_(10.0 if p.get("lightweight") else 8.0, "in"), None, None, "INFO", source=f"{SRC} §I8.2d(c)"))
-    return Capacity(value=R, continuous=False, description=p.get("name") or "headed stud anchor",
-                    source=f"{SRC} §I8.2a", checks=tuple(checks), spacing_min=Q_(smin, "in"),
-                    spacing_max=Q_(smax, "in"),
-                    limits_source=f"{SRC} §I8.2d(d), (e): " + ("4·dsa in deck ribs perpendicular to the beam"
-                                                              if perp else "6·dsa along the beam") + "; 8·t ≤ 36 in")
+        checks.append(
+            Check(
+                f"{key}.length",
+                "Stud length after installation at least 4·dsa",
+                Q_(4 * d, "in"),
+                p["length"].to("in"),
+                4 * d / L,
+                "OK" if L >= 4 * d - 1e-9 else "NG",
+                source=f"{SRC} §I8.2",
+            )
+        )
+    checks.append(
+        Check(
+            f"{key}.transverse",
+            "Transverse spacing of studs at least 4·dsa; 1 in lateral cover",
+            Q_(4 * d, "in"),
+            None,
+            None,
+            "INFO",
+            source=f"{SRC} §I8.2d(b), (d)",
+        )
+    )
+    checks.append(
+        Check(
+            f"{key}.edge",
+            "Distance to a free edge in the direction of the shear force",
+            Q_(10.0 if p.get("lightweight") else 8.0, "in"),
+            None,
+            None,
+            "INFO",
+            source=f"{SRC} §I8.2d(c)",
+        )
+    )
+    return Capacity(
+        value=R,
+        continuous=False,
+        description=p.get("name") or "headed stud anchor",
+        source=f"{SRC} §I8.2a",
+        checks=tuple(checks),
+        spacing_min=Q_(smin, "in"),
+        spacing_max=Q_(smax, "in"),
+        limits_source=f"{SRC} §I8.2d(d), (e): "
+        + ("4·dsa in deck ribs perpendicular to the beam" if perp else "6·dsa along the beam")
+        + "; 8·t ≤ 36 in",
+    )

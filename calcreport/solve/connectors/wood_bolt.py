@@ -28,8 +28,10 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
     p = spec.params
     D = p["diameter"].to("in").magnitude
     if not 0.25 <= D <= 1.0:
-        raise ConnectorError(f"{ctx.key}.connector.diameter",
-                             "expected a bolt diameter from 1/4 in to 1 in (NDS-2018 §12.3 yield equations)")
+        raise ConnectorError(
+            f"{ctx.key}.connector.diameter",
+            "expected a bolt diameter from 1/4 in to 1 in (NDS-2018 §12.3 yield equations)",
+        )
     if p.get("Fyb") is not None:
         fyb, fsrc = p["Fyb"].to("psi").magnitude, "given for this connector"
     else:

@@ -17,7 +17,7 @@ from .nds_factors import COMMON_FIELDS
 
 KIND = "wood_screw"
 FIELDS = (
-    Field("size", "text", help="gauge, e.g. \"10g\" (6g-24g)"),
+    Field("size", "text", help='gauge, e.g. "10g" (6g-24g)'),
     Field("diameter", "length", help="shank diameter D (instead of size)"),
     Field("root_diameter", "length", help="root diameter Dr (with diameter)"),
     Field("length", "length", required=True, help="screw length L"),
@@ -32,12 +32,23 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
     p = spec.params
     key = f"{ctx.key}.connector"
     size = (p.get("size") or "").strip().lower().replace(" ", "").replace("gauge", "g").replace("#", "")
-    D, Dr, Dy, threads, dy_note = screw_diameters(p, key, WOOD_SCREWS, size, '"10g", "8g", "12g", "14g"',
-                                                  "a wood screw gauge", threads_default=True)
+    D, Dr, Dy, threads, dy_note = screw_diameters(
+        p, key, WOOD_SCREWS, size, '"10g", "8g", "12g", "14g"', "a wood screw gauge", threads_default=True
+    )
     if p.get("Fyb") is not None:
         fyb, fsrc = p["Fyb"].to("psi").magnitude, "given for this connector"
     else:
         fyb, fsrc = fyb_wood_screw(D), "NDS-2018 Table 12L footnote, Fyb by diameter (from memory)"
-    f = Fastener("wood_screw", p.get("name") or "wood screw", D, Dy, p["length"].to("in").magnitude, fyb, fsrc,
-                 min_pen=6.0, reduced_rd=(D >= 0.25 and Dy < 0.25), dy_note=dy_note)
+    f = Fastener(
+        "wood_screw",
+        p.get("name") or "wood screw",
+        D,
+        Dy,
+        p["length"].to("in").magnitude,
+        fyb,
+        fsrc,
+        min_pen=6.0,
+        reduced_rd=(D >= 0.25 and Dy < 0.25),
+        dy_note=dy_note,
+    )
     return design_dowel(spec, ctx, log, f)
