@@ -12,6 +12,7 @@ from ..units import Quantity
 __all__ = [
     "SolveError",
     "Check",
+    "Unchecked",
     "PartProps",
     "SectionResult",
     "Capacity",
@@ -47,6 +48,22 @@ class Check:
     status: str  # "OK", "NG" or "INFO"
     source: str = ""
     note: str = ""
+
+
+@dataclass(frozen=True)
+class Unchecked:
+    """A check a practising engineer would expect for this member that did not run, and why.
+
+    ``key`` names the member (``member[H1].flexure``); ``label`` says what was not checked in words
+    ("flexure of the steel girder"); ``clause`` is the standard's clause that would govern it
+    ("AISC 360-16 Chapter F"); ``reason`` says why it did not run ("no Fy given for part web",
+    "not implemented"). Outputs list these beside the status; a status never rests on them.
+    """
+
+    key: str
+    label: str
+    clause: str
+    reason: str
 
 
 @dataclass(frozen=True)
@@ -134,6 +151,7 @@ class MemberResult:
     steps: tuple[Step, ...]
     status: str
     beam: Any = None  # analysis along the member, when loads are given
+    not_checked: tuple[Unchecked, ...] = ()  # what a checker would expect that did not run
 
 
 @dataclass(frozen=True)
