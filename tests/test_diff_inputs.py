@@ -10,7 +10,7 @@ from __future__ import annotations
 
 import pytest
 
-from calcreport.outputs.diff import diff_inputs, input_quantity, same_input
+from calcreport.review.diff import diff_inputs, input_quantity, same_input
 
 
 @pytest.mark.parametrize(
@@ -155,7 +155,7 @@ def test_result_values_compare_quantities_arrays_and_words():
     """1 ft = 12 in (NIST SP 811, App. B.8); arrays element-wise with the same tolerance."""
     import numpy as np
 
-    from calcreport.outputs.diff import same_value
+    from calcreport.review.diff import same_value
     from calcreport.units import Q_
 
     assert same_value(Q_(1.0, "ft"), Q_(12.0, "inch"))

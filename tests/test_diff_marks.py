@@ -11,8 +11,8 @@ import shutil
 import pytest
 from review_helpers import DEMO, demo_text, edited, git, with_part, write
 
-from calcreport.outputs.diff import changed_keys, compute_diff
-from calcreport.outputs.review_io import revision_marks, revision_marks_since, side_from_bytes, side_from_file
+from calcreport.review.diff import changed_keys, compute_diff
+from calcreport.review.revisions import revision_marks, revision_marks_since, side_from_bytes, side_from_file
 
 
 def _side(text: str, label: str = "new.toml"):

@@ -20,10 +20,10 @@ import pypdf
 import pytest
 from review_helpers import ROOT, edited, git, run, write
 
-from calcreport.outputs.diff import changed_keys, compute_diff
-from calcreport.outputs.diff_schedule import diff_schedules, is_zone_step, zone_text
-from calcreport.outputs.diff_text import check_titles, display_for
-from calcreport.outputs.review_io import side_from_bytes
+from calcreport.review.diff import changed_keys, compute_diff
+from calcreport.review.diff_schedule import diff_schedules, is_zone_step, zone_text
+from calcreport.review.diff_text import check_titles, display_for
+from calcreport.review.revisions import side_from_bytes
 
 JOB = ROOT / "jobs" / "pavilion-ridge-box-beam.toml"
 SNOW = ('w = "175 plf"', 'w = "210 plf"')

@@ -27,7 +27,7 @@ def test_help_documents_exit_codes(capsys):
 def test_parser_does_not_import_pdf_libraries():
     code = (
         "import sys, calcreport.cli as c; c.build_parser(); "
-        "print(','.join(m for m in ('reportlab', 'pypdf', 'calcreport.outputs.diff') if m in sys.modules))"
+        "print(','.join(m for m in ('reportlab', 'pypdf', 'calcreport.review.diff') if m in sys.modules))"
     )
     r = subprocess.run([sys.executable, "-c", code], cwd=ROOT, capture_output=True, text=True, check=True)
     assert r.stdout.strip() == ""

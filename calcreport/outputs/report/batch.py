@@ -77,7 +77,7 @@ def build_one(task: Task) -> Outcome:
         tpl = load_template(r.job.settings.template, r.job.path)
         keys, mark = frozenset(), ""
         if task.since is not None:
-            from ..review_io import revision_marks_since
+            from ...review.revisions import revision_marks_since
 
             marks = revision_marks_since(task.job, task.since, r)
             keys, mark = marks.changed_keys, marks.mark

@@ -10,7 +10,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 
 from ..errors import JobError
-from .pdfmeta import KEY_DOCUMENT, KEY_JOB_SHA256, KEY_VERSION
+from ..outputs.pdfmeta import KEY_DOCUMENT, KEY_JOB_SHA256, KEY_VERSION
 
 __all__ = ["PdfStamp", "Verdict", "read_stamp", "verify", "render_verdict"]
 

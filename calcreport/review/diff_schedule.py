@@ -23,7 +23,7 @@ from typing import Any
 
 from ..solve.results import JobResult
 from .compare import same_value
-from .fmt import Display
+from ..outputs.fmt import Display
 
 __all__ = [
     "ScheduleChange",

@@ -24,7 +24,7 @@ from .diff import (
     input_quantity,
 )
 from .diff_schedule import figures_text, zone_text
-from .fmt import Display
+from ..outputs.fmt import Display
 
 __all__ = [
     "render_diff",
