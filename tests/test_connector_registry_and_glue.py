@@ -10,7 +10,7 @@ from conn_fixtures import context, rect, run, step, wood
 
 from calcreport.fields import Field
 from calcreport.solve.connectors import _MODULES, kinds, model_for
-from calcreport.solve.connectors.geometry import find_contact, plate_thickness, thickness_normal
+from calcreport.solve.connectors.shear_plane import find_contact, plate_thickness, thickness_normal
 from calcreport.units import DIMENSIONS, Q_
 
 KINDS = {"nail", "wood_screw", "lag_screw", "wood_bolt", "steel_bolt", "fillet_weld", "stud", "glue"}

@@ -15,7 +15,7 @@ except ModuleNotFoundError:  # Python < 3.11
     import tomli as tomllib  # type: ignore[no-redef]
 
 from ..errors import JobError
-from ..geometry import contact_segments, isolated_parts, overlapping_pairs
+from ..outlines import contact_segments, isolated_parts, overlapping_pairs
 from ..model import ConnectorSpec, Header, Job, Joint, Material, Member, Part, RevisionEntry, Settings
 from ..solve import connectors
 from ..units import parse

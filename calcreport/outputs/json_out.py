@@ -16,7 +16,7 @@ from ..solve.results import Check, JobResult, JointResult, MemberResult
 from ..steps import Step
 from ..units import Quantity
 from .fmt import Display
-from .json_along import along_json, schedule_json
+from .json_loads import along_json, schedule_json
 
 __all__ = ["to_dict", "dumps", "write_results_json", "json_path_for", "SCHEMA_VERSION"]
 

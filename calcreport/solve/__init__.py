@@ -7,7 +7,7 @@ then per joint: Q, shear flow, connector design value (:mod:`.connectors`) and s
 
 from __future__ import annotations
 
-from ..geometry import contact_segments
+from ..outlines import contact_segments
 from ..model import Job, Joint, Member, Settings
 from ..steps import StepLog
 from ..units import Q_, Quantity
@@ -38,7 +38,7 @@ def solve_member(member: Member, settings: Settings) -> MemberResult:
     section = section_properties(member, log.child("section"))
     beam = None
     if member.loads or member.self_weight:
-        from .along import analyse_member  # loads along the member
+        from .member_loads import analyse_member  # loads along the member
 
         beam = analyse_member(member, section, settings, log.child("beam"))
         V = beam.V_design
@@ -82,7 +82,7 @@ def _plane_shear(
     fvs = [p.material.Fv for p in (*held, *other) if p.material.Fv is not None]
     if not fvs:
         return ()
-    from .checks import shear_stress_check
+    from .member_checks import shear_stress_check
 
     Fv = min(fvs, key=lambda q: float(q.to("psi").magnitude))
     return (
@@ -143,7 +143,7 @@ def solve_joint(
     cap = connectors.design(joint.connector, ctx, log.child("connector"))
     demand = None
     if beam is not None and cap.duration_factor is not None:
-        from .along import duration_demand
+        from .member_loads import duration_demand
 
         demand = duration_demand(beam, cap.duration_factor, settings.method, log.child("duration"))
         if demand is not None:
@@ -169,7 +169,7 @@ def solve_joint(
         cap_row = (joint.per_row * cap.value).to("lbf")
     schedule = None
     if beam is not None and not cap.continuous:
-        from .along import joint_schedule
+        from .member_loads import joint_schedule
 
         schedule = joint_schedule(
             beam, Q, section, joint, cap.value, res, settings, log.child("schedule"), demand=demand

@@ -246,7 +246,7 @@ def first_moment_above(member: Member, section: SectionResult, y_cut: float) -> 
     """
     from shapely.geometry import box
 
-    from ..geometry import outline
+    from ..outlines import outline
 
     bottom = float(section.bottom.to("inch").magnitude)
     ybar = float(section.centroid.to("inch").magnitude) + bottom

@@ -26,8 +26,8 @@ from ... import __version__
 from ...solve.results import JobResult
 from ..fmt import Display
 from ..pdfmeta import job_metadata
-from .along import member_figures
-from .checks import results_story
+from .loads_section import member_figures
+from .results_tables import results_story
 from .common import Ctx, para
 from .cover import cover_story
 from .derivations import derivation_story

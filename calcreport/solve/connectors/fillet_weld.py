@@ -20,7 +20,7 @@ from ...steps import StepLog
 from ...units import Q_, parse
 from ..results import Capacity, Check
 from . import ConnectorError
-from .geometry import extent_along, find_contact, plate_thickness, thickness_normal
+from .shear_plane import extent_along, find_contact, plate_thickness, thickness_normal
 
 KIND = "fillet_weld"
 SRC = "ANSI/AISC 360-16"

@@ -17,7 +17,7 @@ from ...model import ConnectorSpec, Part
 from ...steps import StepLog
 from ...units import parse
 from ..results import Capacity, Check
-from .geometry import extent_along, find_contact, thickness_normal
+from .shear_plane import extent_along, find_contact, thickness_normal
 
 KIND = "glue"
 FIELDS = (

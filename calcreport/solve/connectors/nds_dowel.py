@@ -27,7 +27,7 @@ from ...steps import StepLog
 from ...units import Q_
 from ..results import Capacity, Check
 from . import ConnectorError
-from .geometry import find_contact, thickness_normal
+from .shear_plane import find_contact, thickness_normal
 from .nds_catalog import species_g
 from .nds_factors import adjust
 from .nds_yield import (

@@ -19,7 +19,7 @@ from ...steps import StepLog
 from ...units import Q_, parse
 from ..results import Capacity, Check
 from . import ConnectorError
-from .geometry import find_contact, thickness_normal
+from .shear_plane import find_contact, thickness_normal
 
 KIND = "stud"
 SRC = "ANSI/AISC 360-16"

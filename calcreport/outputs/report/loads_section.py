@@ -22,7 +22,7 @@ from reportlab.platypus import Flowable, KeepTogether
 from ...solve.results import JointResult, MemberResult
 from ...units import Q_, Quantity
 from .common import Ctx, grid, heading, para
-from .figures_along import demand_capacity_chart, loading_diagram, zone_elevation
+from .loads_figures import demand_capacity_chart, loading_diagram, zone_elevation
 from .plots import Series, line_chart, positions, series_values
 
 __all__ = ["member_figures", "beam_figures", "schedule_figures", "schedule_key", "zone_rows"]

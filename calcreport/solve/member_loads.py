@@ -15,7 +15,7 @@ from ..model import Combination, Joint, Load, Member, Settings
 from ..steps import StepLog
 from ..units import Q_, Quantity
 from .beam import BeamInputError, BeamResult, analyse, self_weight
-from .checks import Fibre, bending_checks, deflection_checks, shear_stress_check
+from .member_checks import Fibre, bending_checks, deflection_checks, shear_stress_check
 from .combinations import (
     SOURCE_ASD,
     SOURCE_DURATION,
@@ -156,7 +156,7 @@ SOURCE_NOT_CHECKED = "not checked by the tool; check by hand (e.g. panel shear o
 
 def _neutral_axis_shear(member, section, V, log) -> Check | None:
     """τ at the neutral axis where the parts cut there all give Fv (mechanics of materials)."""
-    from ..geometry import is_rectangle, outline
+    from ..outlines import is_rectangle, outline
 
     y = section.centroid.to("inch").magnitude + section.bottom.to("inch").magnitude
     cut = [p for p in member.parts if p.shape.bbox[1] < y < p.shape.bbox[3]]

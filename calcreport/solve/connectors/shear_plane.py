@@ -22,7 +22,7 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
-from ...geometry import is_rectangle
+from ...outlines import is_rectangle
 from ...model import Part
 
 __all__ = ["Contact", "find_contact", "thickness_normal", "extent_along", "plate_thickness"]
