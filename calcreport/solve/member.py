@@ -1,0 +1,207 @@
+"""Solver: validated model → results with derivation steps. Formats nothing.
+
+``solve_job(job)`` runs, per member: section properties (:mod:`.section`), design shear,
+then per joint: Q, shear flow, connector design value (:mod:`.connectors`) and spacing
+(:mod:`.spacing`).
+"""
+
+from __future__ import annotations
+
+from ..outlines import contact_segments
+from ..model import Job, Joint, Member, Settings
+from ..steps import StepLog
+from ..units import Q_, Quantity
+from . import connectors
+from .results import JobResult, JointResult, MemberResult, SectionResult, SolveError, worst
+from .section import first_moment, section_properties
+from .spacing import combine_limits, continuous_check, discrete_spacing, shear_flow
+
+__all__ = ["solve_job", "solve_member", "SolveError"]
+
+
+def solve_job(job: Job) -> JobResult:
+    """Solve every member of ``job`` in order."""
+    members = tuple(solve_member(m, job.settings) for m in job.members)
+    return JobResult(job=job, members=members, status=worst(m.status for m in members))
+
+
+def _design_shear(member: Member, log: StepLog) -> Quantity:
+    V = member.shear
+    return log.add(
+        "V", "Design shear", "V (given)", "{V}", {"V": V}, V.to("lbf"), source="stated in the job file"
+    )
+
+
+def solve_member(member: Member, settings: Settings) -> MemberResult:
+    """Section, shear and every joint of one member."""
+    log = StepLog(f"member.{member.id}")
+    section = section_properties(member, log.child("section"))
+    beam = None
+    if member.loads or member.self_weight:
+        from .member_loads import analyse_member  # loads along the member
+
+        beam = analyse_member(member, section, settings, log.child("beam"))
+        V = beam.V_design
+    else:
+        V = _design_shear(member, log.child("shear"))
+    joints = tuple(solve_joint(member, section, j, V, settings, log, beam) for j in member.joints)
+    checks = _keyed(beam.checks, f"member[{member.id}]") if beam is not None else ()
+    status = worst([j.status for j in joints] + [c.status for c in checks])
+    return MemberResult(
+        id=member.id,
+        member=member,
+        section=section,
+        shear=V,
+        joints=joints,
+        checks=checks,
+        steps=tuple(log.steps),
+        status=status,
+        beam=beam,
+    )
+
+
+def _keyed(checks, prefix: str) -> tuple:
+    """Checks with keys that name their member (and joint), so keys are unique in a job."""
+    from dataclasses import replace
+
+    return tuple(c if c.key.startswith("member[") else replace(c, key=f"{prefix}.{c.key}") for c in checks)
+
+
+def _plane_shear(
+    joint: Joint, held, other, V: Quantity, Q: Quantity, section: SectionResult, b: Quantity, log: StepLog
+) -> tuple:
+    """Horizontal shear stress at the level of a horizontal joint plane, τ = V·Q/(I·b), against the
+    smallest Fv of the parts that meet there (mechanics of materials, shear formula). This is the
+    stress in the material just beside the plane (a web under a nailed flange). Skipped for glue
+    lines (their capacity is that check), for vertical planes (a web nailed to the side of a flange:
+    the stress that matters there is the web's panel shear at the neutral axis) and where no part
+    at the plane states Fv."""
+    segments = contact_segments(list(held), list(other))
+    if joint.connector.kind == "glue" or not segments or any(abs(a[1] - b_[1]) > 1e-6 for a, b_ in segments):
+        return ()
+    fvs = [p.material.Fv for p in (*held, *other) if p.material.Fv is not None]
+    if not fvs:
+        return ()
+    from .member_checks import shear_stress_check
+
+    Fv = min(fvs, key=lambda q: float(q.to("psi").magnitude))
+    return (
+        shear_stress_check(
+            f"joint.{joint.id}",
+            V,
+            Q,
+            section.inertia,
+            b,
+            Fv,
+            log,
+            label=f"Horizontal shear stress at the level of joint {joint.id}",
+        ),
+    )
+
+
+def solve_joint(
+    member: Member,
+    section: SectionResult,
+    joint: Joint,
+    V: Quantity,
+    settings: Settings,
+    mlog: StepLog,
+    beam=None,
+) -> JointResult:
+    """Q, shear flow, connector capacity and spacing at one joint."""
+    log = mlog.child(f"joint.{joint.id}")
+    held = [p for p in member.parts if p.id in joint.holds]
+    rest = [p for p in member.parts if p.id not in joint.holds]
+    segments = contact_segments(held, rest)
+    touching = {p.id for p in rest if contact_segments(held, [p])}
+    other = [p for p in rest if p.id in touching]
+    contact = sum(((a[0] - b[0]) ** 2 + (a[1] - b[1]) ** 2) ** 0.5 for a, b in segments)
+    if joint.width is not None:
+        b = log.add(
+            "b",
+            "Width of the shear plane",
+            "b (given)",
+            "{b}",
+            {"b": joint.width},
+            joint.width.to("inch"),
+            source="stated in the job file",
+        )
+    else:
+        b = log.add(
+            "b",
+            "Width of the shear plane",
+            "b = Σ contact lengths",
+            "{b}",
+            {"b": Q_(contact, "inch")},
+            Q_(contact, "inch"),
+            source="geometry of the placed parts",
+        )
+    Q = first_moment(section, joint.holds, log)
+    ctx = connectors.JointContext(
+        settings.method, tuple(held), tuple(other), b, settings, f"member[{member.id}].joint[{joint.id}]"
+    )
+    cap = connectors.design(joint.connector, ctx, log.child("connector"))
+    demand = None
+    if beam is not None and cap.duration_factor is not None:
+        from .member_loads import duration_demand
+
+        demand = duration_demand(beam, cap.duration_factor, settings.method, log.child("duration"))
+        if demand is not None:
+            V = demand[2]
+    q = shear_flow(V, Q, section.inertia, log)
+    if cap.continuous:
+        if joint.connector.kind == "glue":
+            log.add(
+                "tau",
+                "Shear stress on the glue line",
+                "τ = V·Q / (I·b)",
+                "{V} × {Q} / ({I} × {b})",
+                {"V": V, "Q": Q, "I": section.inertia, "b": b},
+                (V * Q / (section.inertia * b)).to("psi"),
+                source="mechanics of materials: shear formula τ = V·Q/(I·b)",
+            )
+        res = continuous_check(q, cap.value, log)
+        cap_row = cap.value
+    else:
+        s_min = combine_limits(settings.spacing_min, joint.spacing_min, cap.spacing_min, pick=max)
+        s_max = combine_limits(settings.spacing_max, joint.spacing_max, cap.spacing_max, pick=min)
+        res = discrete_spacing(q, joint.per_row, cap.value, settings.spacing_step, s_min, s_max, log)
+        cap_row = (joint.per_row * cap.value).to("lbf")
+    schedule = None
+    if beam is not None and not cap.continuous:
+        from .member_loads import joint_schedule
+
+        schedule = joint_schedule(
+            beam, Q, section, joint, cap.value, res, settings, log.child("schedule"), demand=demand
+        )
+    checks = _keyed(
+        tuple(cap.checks) + _plane_shear(joint, held, other, V, Q, section, b, log),
+        f"member[{member.id}].joint[{joint.id}]",
+    )
+    status = worst([res.status] + [c.status for c in checks] + ([schedule.status] if schedule else []))
+    return JointResult(
+        id=joint.id,
+        label=joint.label,
+        holds=joint.holds,
+        Q=Q,
+        shear=V,
+        shear_flow=q,
+        connector=cap.description,
+        connector_source=cap.source,
+        per_row=joint.per_row,
+        capacity=cap.value,
+        capacity_row=cap_row,
+        continuous=cap.continuous,
+        spacing_required=res.required,
+        spacing_provided=res.provided,
+        spacing_min=res.s_min,
+        spacing_max=res.s_max,
+        utilisation=res.utilisation,
+        status=status,
+        reasons=res.reasons,
+        checks=checks,
+        plane=tuple(segments),
+        plane_width=b,
+        steps=tuple(s for s in log.steps if s.key.startswith(log.prefix + ".")),
+        schedule=schedule,
+    )
