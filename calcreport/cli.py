@@ -22,7 +22,7 @@ from . import __version__  # noqa: E402
 __all__ = ["main"]
 
 EXIT_OK, EXIT_NG, EXIT_INVALID = 0, 1, 2
-TEMPLATE_DIR = Path(__file__).resolve().parent.parent / "templates"
+TEMPLATE_DIR = Path(__file__).resolve().parent / "data" / "templates"
 STARTERS = {
     "box": "starter-box-beam.toml",
     "girder": "starter-plate-girder.toml",

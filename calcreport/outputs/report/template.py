@@ -26,10 +26,7 @@ from ...units import UnitParseError, parse
 __all__ = ["Template", "DEFAULT", "resolve_template", "load_template", "TEMPLATE_DIRS"]
 
 PAGE_SIZES = {"letter": LETTER, "a4": A4}
-TEMPLATE_DIRS = (
-    Path(__file__).resolve().parents[3] / "templates",
-    Path(__file__).resolve().parents[2] / "templates",
-)
+TEMPLATE_DIRS = (Path(__file__).resolve().parents[2] / "data" / "templates",)
 MAX_TEMPLATE_BYTES = 200_000
 MAX_LOGO_BYTES = 5_000_000
 _KEY = "settings.template"
