@@ -25,10 +25,10 @@ def _fail(message: str) -> int:
 
 def _cmd_diff(args) -> int:
     from ..errors import JobError
+    from ..outputs.json_out import dumps
     from . import revisions as review_io
     from .diff import compute_diff
     from .diff_text import diff_to_dict, render_diff
-    from ..outputs.json_out import dumps
 
     if args.since is not None and len(args.jobs) != 1:
         return _fail("calcreport diff: error: with --since give exactly one JOB.toml (see --help)")

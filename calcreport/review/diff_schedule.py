@@ -21,9 +21,9 @@ from collections.abc import Iterable
 from dataclasses import dataclass
 from typing import Any
 
+from ..outputs.fmt import Display
 from ..solve.results import JobResult
 from .compare import same_value
-from ..outputs.fmt import Display
 
 __all__ = [
     "ScheduleChange",

@@ -11,6 +11,7 @@ import datetime as _dt
 from typing import Any
 
 from .. import __version__
+from ..outputs.fmt import Display
 from ..steps import Step
 from ..units import Quantity
 from .diff import (
@@ -24,7 +25,6 @@ from .diff import (
     input_quantity,
 )
 from .diff_schedule import figures_text, zone_text
-from ..outputs.fmt import Display
 
 __all__ = [
     "render_diff",

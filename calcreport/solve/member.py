@@ -7,8 +7,8 @@ then per joint: Q, shear flow, connector design value (:mod:`.connectors`) and s
 
 from __future__ import annotations
 
-from ..outlines import contact_segments
 from ..model import Job, Joint, Member, Settings
+from ..outlines import contact_segments
 from ..steps import StepLog
 from ..units import Q_, Quantity
 from . import connectors

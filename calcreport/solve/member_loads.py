@@ -15,7 +15,6 @@ from ..model import Combination, Joint, Load, Member, Settings
 from ..steps import StepLog
 from ..units import Q_, Quantity
 from .beam import BeamInputError, BeamResult, analyse, self_weight
-from .member_checks import Fibre, bending_checks, deflection_checks, shear_stress_check
 from .combinations import (
     SOURCE_ASD,
     SOURCE_DURATION,
@@ -25,6 +24,7 @@ from .combinations import (
     standard_combinations,
     time_effect,
 )
+from .member_checks import Fibre, bending_checks, deflection_checks, shear_stress_check
 from .results import Check, SectionResult, SolveError
 from .schedule import Schedule, zoned_schedule
 from .section import first_moment_above

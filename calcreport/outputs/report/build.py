@@ -26,14 +26,14 @@ from ... import __version__
 from ...solve.results import JobResult
 from ..fmt import Display
 from ..pdfmeta import job_metadata
-from .loads_section import member_figures
-from .results_tables import results_story
 from .common import Ctx, para
 from .cover import cover_story
 from .derivations import derivation_story
 from .drawing import section_drawing
 from .inputs import assumptions_story, description_story, inputs_story
+from .loads_section import member_figures
 from .pages import PageInfo, ReportDoc, SectionStart
+from .results_tables import results_story
 from .signoff import limitations_story, signoff_story
 from .styles import esc, make_styles, register_fonts
 from .template import Template, load_template

@@ -22,8 +22,8 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
-from ...outlines import is_rectangle
 from ...model import Part
+from ...outlines import is_rectangle
 
 __all__ = ["Contact", "find_contact", "thickness_normal", "extent_along", "plate_thickness"]
 
