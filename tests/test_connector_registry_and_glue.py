@@ -87,3 +87,14 @@ def test_glue_rolling_shear_from_material_extra_and_missing():
     cap, _ = run("glue", {"tau": Q_(95, "psi")}, context([fl], [web], width=1.5))
     assert cap.value.to("lbf/in").magnitude == pytest.approx(95 * 1.5)
     assert cap.checks[0].status == "INFO"
+
+
+def test_declared_keys_and_models_agree():
+    """Every declared connector type has a model and each model takes its keys from the declarations
+    (calcreport/keys/connectors.py), which the job-file reader validates against."""
+    from calcreport.keys.connectors import CONNECTOR_FIELDS
+
+    assert list(CONNECTOR_FIELDS) == list(_MODULES)
+    for kind in kinds():
+        assert model_for(kind).FIELDS is CONNECTOR_FIELDS[kind]
+        assert model_for(kind).KIND == kind

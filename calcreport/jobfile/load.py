@@ -15,9 +15,9 @@ except ModuleNotFoundError:  # Python < 3.11
     import tomli as tomllib  # type: ignore[no-redef]
 
 from ..errors import JobError
-from ..outlines import contact_segments, isolated_parts, overlapping_pairs
+from ..keys import connectors
 from ..model import ConnectorSpec, Header, Job, Joint, Material, Member, Part, RevisionEntry, Settings
-from ..solve import connectors
+from ..outlines import contact_segments, isolated_parts, overlapping_pairs
 from ..units import parse
 from .lines import LineIndex
 from .parts import read_part
@@ -276,7 +276,7 @@ def _joints(t: Table, parts: dict[str, Part]):
             )
         ct = jt.table("connector", required=True)
         kind = ct.choice("type", connectors.kinds(), required=True)
-        params = ct.fields(connectors.model_for(kind).FIELDS)
+        params = ct.fields(connectors.fields_for(kind))
         given = tuple(k for k in ct.data if k != "type")
         ct.done()
         joint = Joint(

@@ -26,8 +26,8 @@ from __future__ import annotations
 
 from dataclasses import replace
 
+from ..keys.loads import STANDARD_CASES
 from ..model import Combination, Load, Member, Settings, Support
-from ..solve.combinations import STANDARD_CASES
 from ..units import Q_
 from .reader import Table
 

@@ -12,6 +12,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 from itertools import combinations as _subsets
 
+from ..keys.loads import LIVE_TYPE, STANDARD_CASES
 from ..model import Combination
 
 __all__ = [
@@ -26,9 +27,6 @@ __all__ = [
     "Pattern",
 ]
 
-STANDARD_CASES = ("D", "L", "Lr", "S", "R", "W")
-#: Variable gravity loads whose partial (span by span) application is checked.
-LIVE_TYPE = ("L", "Lr", "S", "R")
 SOURCE_LRFD = "ASCE 7-22 §2.3.1 (basic combinations, strength design)"
 SOURCE_ASD = "ASCE 7-22 §2.4.1 (basic combinations, allowable stress design)"
 SOURCE_PATTERN = "ASCE 7-22 §4.3.3 (partial loading)"

@@ -11,7 +11,7 @@ from __future__ import annotations
 
 import math
 
-from ...fields import Field
+from ...keys.connectors import CONNECTOR_FIELDS
 from ...model import ConnectorSpec
 from ...steps import StepLog
 from ...units import Q_
@@ -22,86 +22,7 @@ from .shear_plane import find_contact, thickness_normal
 KIND = "steel_bolt"
 SRC = "ANSI/AISC 360-16"
 
-FIELDS = (
-    Field("diameter", "length", required=True, help="nominal bolt diameter d"),
-    Field(
-        "group",
-        "choice",
-        default="A",
-        choices=("A", "B", "C", "A307"),
-        help="bolt group of Table J3.2: A (e.g. F3125 A325), B (A490), C (F3043), or A307 common bolts",
-    ),
-    Field(
-        "threads",
-        "choice",
-        default="N",
-        choices=("N", "X"),
-        help="N: threads included in the shear plane; X: excluded",
-    ),
-    Field(
-        "planes",
-        "int",
-        default=1,
-        minimum=1,
-        maximum=2,
-        help="shear planes per bolt (2: held part in the middle)",
-    ),
-    Field(
-        "hole",
-        "choice",
-        default="standard",
-        choices=(
-            "standard",
-            "oversized",
-            "short_slot_transverse",
-            "short_slot_parallel",
-            "long_slot_transverse",
-            "long_slot_parallel",
-        ),
-        help='hole type; "transverse"/"parallel" = slot direction relative to the force',
-    ),
-    Field(
-        "hole_length",
-        "length",
-        help="hole dimension along the force (default from Table J3.3 for standard and oversized holes)",
-    ),
-    Field(
-        "deformation_limited",
-        "bool",
-        default=True,
-        help="deformation at the bolt hole at service load is a design consideration (2.4·d·t·Fu)",
-    ),
-    Field("slip_critical", "bool", default=False, help="slip-critical joint (J3.8)"),
-    Field(
-        "surface",
-        "choice",
-        default="A",
-        choices=("A", "B"),
-        help="faying surface class: A (μ = 0.30) or B (μ = 0.50)",
-    ),
-    Field(
-        "fillers",
-        "int",
-        default=0,
-        positive=False,
-        minimum=0,
-        help="number of fillers between the connected parts",
-    ),
-    Field("pretension", "force", help="minimum bolt pretension Tb (default Table J3.1)"),
-    Field(
-        "held_thickness",
-        "length",
-        help="thickness of the held ply the bolt passes through (default: measured)",
-    ),
-    Field("other_thickness", "length", help="thickness of the other ply (each outer ply in double shear)"),
-    Field(
-        "weathering",
-        "bool",
-        default=False,
-        help="unpainted weathering steel exposed to corrosion (J3.5b limits)",
-    ),
-    Field("name", "text", help="how the report names the bolt"),
-)
+FIELDS = CONNECTOR_FIELDS[KIND]
 
 #: Nominal shear stress Fnv (ksi) by group and thread condition. AISC 360-16 Table J3.2.
 FNV = {

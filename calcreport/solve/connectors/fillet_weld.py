@@ -14,7 +14,7 @@ overrides this reading of the geometry.
 
 from __future__ import annotations
 
-from ...fields import Field
+from ...keys.connectors import CONNECTOR_FIELDS
 from ...model import ConnectorSpec
 from ...steps import StepLog
 from ...units import Q_, parse
@@ -25,28 +25,7 @@ from .shear_plane import extent_along, find_contact, plate_thickness, thickness_
 KIND = "fillet_weld"
 SRC = "ANSI/AISC 360-16"
 
-FIELDS = (
-    Field("size", "length", required=True, help="fillet weld leg size w"),
-    Field("FEXX", "stress", default="70 ksi", help="electrode classification strength (E70: 70 ksi)"),
-    Field(
-        "welds",
-        "int",
-        default=2,
-        minimum=1,
-        help="weld lines at the joint (2: both sides of a web, both edges of a plate)",
-    ),
-    Field("segment", "length", help="length of each intermittent segment; omit for continuous welds"),
-    Field(
-        "joint_form",
-        "choice",
-        default="auto",
-        choices=("auto", "tee", "lap"),
-        help="tee (stem against a plate) or lap (plate lying on a plate, welded along its edges)",
-    ),
-    Field("held_thickness", "length", help="plate thickness of the held part (default: measured)"),
-    Field("other_thickness", "length", help="plate thickness of the other part (default: measured)"),
-    Field("name", "text", help="how the report names the weld"),
-)
+FIELDS = CONNECTOR_FIELDS[KIND]
 
 
 def min_fillet(t_thinner: float) -> float:

@@ -2,24 +2,13 @@
 
 from __future__ import annotations
 
-from ...fields import Field
+from ...keys.connectors import CONNECTOR_FIELDS
 from ...model import ConnectorSpec
 from ...steps import StepLog
 from ..results import Capacity
 
 KIND = "given"
-FIELDS = (
-    Field(
-        "value",
-        "force",
-        required=True,
-        help="design value of one connector (ASD allowable or LRFD design strength)",
-    ),
-    Field(
-        "source", "text", required=True, help="where the value comes from: table, edition, evaluation report"
-    ),
-    Field("name", "text", default="connector", help='what the connector is, e.g. "10d common nail"'),
-)
+FIELDS = CONNECTOR_FIELDS[KIND]
 
 
 def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:

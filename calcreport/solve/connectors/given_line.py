@@ -3,17 +3,13 @@ or a tested adhesive line), with the text of its source."""
 
 from __future__ import annotations
 
-from ...fields import Field
+from ...keys.connectors import CONNECTOR_FIELDS
 from ...model import ConnectorSpec
 from ...steps import StepLog
 from ..results import Capacity
 
 KIND = "given_line"
-FIELDS = (
-    Field("value", "line_load", required=True, help="design value per unit length of the connection"),
-    Field("source", "text", required=True, help="where the value comes from: table, edition, report"),
-    Field("name", "text", default="continuous connection", help="what the connection is"),
-)
+FIELDS = CONNECTOR_FIELDS[KIND]
 
 
 def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:

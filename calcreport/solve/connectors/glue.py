@@ -12,7 +12,7 @@ an INFO check says rolling shear was not checked.
 
 from __future__ import annotations
 
-from ...fields import Field
+from ...keys.connectors import CONNECTOR_FIELDS
 from ...model import ConnectorSpec, Part
 from ...steps import StepLog
 from ...units import parse
@@ -20,31 +20,7 @@ from ..results import Capacity, Check
 from .shear_plane import extent_along, find_contact, thickness_normal
 
 KIND = "glue"
-FIELDS = (
-    Field(
-        "tau",
-        "stress",
-        required=True,
-        help="allowable shear stress of the glue line (usually that of the wood)",
-    ),
-    Field(
-        "source", "text", default="allowable shear stress as stated in the job", help="where tau comes from"
-    ),
-    Field("name", "text", default="glue line", help="what the adhesive is"),
-    Field(
-        "rolling_shear",
-        "stress",
-        help="allowable rolling shear of plywood glued on its face (default: the plywood material's Fs)",
-    ),
-    Field("rolling_source", "text", help="where the rolling shear value comes from"),
-    Field(
-        "rolling_factor",
-        "number",
-        default=1.0,
-        maximum=1.0,
-        help="reduction the panel specification requires at this glue line (1.0: none)",
-    ),
-)
+FIELDS = CONNECTOR_FIELDS[KIND]
 
 
 def _flat_plywood(ctx) -> Part | None:

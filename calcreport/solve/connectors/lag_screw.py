@@ -7,25 +7,15 @@ tool deducts E = D, which is longer than the tabulated tips (conservative, state
 
 from __future__ import annotations
 
-from ...fields import Field
+from ...keys.connectors import CONNECTOR_FIELDS
 from ...model import ConnectorSpec
 from ...steps import StepLog
 from ..results import Capacity
 from .nds_catalog import LAG_SCREWS, fyb_lag_screw
 from .nds_dowel import Fastener, design_dowel, screw_diameters
-from .nds_factors import COMMON_FIELDS
 
 KIND = "lag_screw"
-FIELDS = (
-    Field("size", "text", help='nominal diameter, e.g. "1/2" or "3/8 in" (1/4 to 1)'),
-    Field("diameter", "length", help="shank diameter D (instead of size)"),
-    Field("root_diameter", "length", help="root diameter Dr (with diameter)"),
-    Field("length", "length", required=True, help="lag screw length L"),
-    Field("tip_length", "length", help="tapered tip length E (default: D, conservative)"),
-    Field("threads_in_plane", "bool", default=False, help="threaded part in the shear plane (use Dr)"),
-    Field("Fyb", "stress", help="bending yield strength (default by diameter)"),
-    Field("name", "text", help="how the report names the lag screw"),
-) + COMMON_FIELDS
+FIELDS = CONNECTOR_FIELDS[KIND]
 
 
 def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:

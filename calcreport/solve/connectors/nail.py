@@ -7,27 +7,16 @@ unless given. The design value is per nail, adjusted for ASD or LRFD (see :mod:`
 
 from __future__ import annotations
 
-from ...fields import Field
+from ...keys.connectors import CONNECTOR_FIELDS
 from ...model import ConnectorSpec
 from ...steps import StepLog
 from ..results import Capacity
 from . import ConnectorError
 from .nds_catalog import CATALOG_SOURCE, fyb_nail, nail, nail_names
 from .nds_dowel import Fastener, design_dowel
-from .nds_factors import COMMON_FIELDS
 
 KIND = "nail"
-FIELDS = (
-    Field(
-        "size", "text", help='pennyweight and type, e.g. "16d common", "10d box", "16d sinker", "20d spike"'
-    ),
-    Field("diameter", "length", help="shank diameter D (instead of size)"),
-    Field("length", "length", help="nail length L (instead of size)"),
-    Field("Fyb", "stress", help="bending yield strength (default by diameter, NDS nail table footnotes)"),
-    Field("toe_nail", "bool", default=False, help="toe-nailed (Ctn = 0.83)"),
-    Field("diaphragm", "bool", default=False, help="diaphragm construction (Cdi = 1.1)"),
-    Field("name", "text", help="how the report names the nail"),
-) + COMMON_FIELDS
+FIELDS = CONNECTOR_FIELDS[KIND]
 
 
 def fastener(p: dict, key: str) -> Fastener:

@@ -11,7 +11,7 @@ from __future__ import annotations
 
 import math
 
-from ...fields import Field
+from ...keys.connectors import NDS_COMMON
 from ...model import Part
 from ...steps import StepLog
 from ...units import Q_
@@ -21,88 +21,7 @@ __all__ = ["COMMON_FIELDS", "group_action", "part_area", "adjust"]
 
 SRC = "ANSI/AWC NDS-2018"
 
-COMMON_FIELDS = (
-    Field("side_thickness", "length", help="side member thickness ts (default: measured from the parts)"),
-    Field("main_thickness", "length", help="main member thickness tm (default: measured from the parts)"),
-    Field(
-        "side_member",
-        "choice",
-        default="auto",
-        choices=("auto", "held", "other"),
-        help="which part the fastener head is in; auto = the thinner part at the plane, the held part on a tie",
-    ),
-    Field(
-        "G_side",
-        "number",
-        minimum=0.2,
-        maximum=1.2,
-        help="specific gravity of the side member (default: its material's G)",
-    ),
-    Field(
-        "G_main",
-        "number",
-        minimum=0.2,
-        maximum=1.2,
-        help="specific gravity of the main member (default: its material's G)",
-    ),
-    Field(
-        "species",
-        "text",
-        help='species combination for G where a material gives none, e.g. "Douglas Fir-Larch"',
-    ),
-    Field(
-        "angle_side",
-        "number",
-        default=0.0,
-        positive=False,
-        minimum=0.0,
-        maximum=90.0,
-        help="angle of load to grain in the side member, degrees (shear flow along a member: 0)",
-    ),
-    Field(
-        "angle_main",
-        "number",
-        default=0.0,
-        positive=False,
-        minimum=0.0,
-        maximum=90.0,
-        help="angle of load to grain in the main member, degrees",
-    ),
-    Field(
-        "planes",
-        "int",
-        default=1,
-        minimum=1,
-        maximum=2,
-        help="shear planes: 1 single shear, 2 double shear (held part in the middle)",
-    ),
-    Field(
-        "CD",
-        "number",
-        maximum=2.0,
-        help="load duration factor (ASD); default: the job's load_duration, else 1.0",
-    ),
-    Field("wet_service", "bool", default=False, help="moisture content above 19 % in service (CM = 0.7)"),
-    Field("CM", "number", maximum=1.0, help="wet service factor, overriding wet_service"),
-    Field("Ct", "number", default=1.0, maximum=1.0, help="temperature factor (1.0 up to 100 °F sustained)"),
-    Field("end_grain", "bool", default=False, help="fastener in end grain (Ceg = 0.67)"),
-    Field("time_effect", "number", default=0.8, maximum=1.25, help="LRFD time effect factor λ"),
-    Field(
-        "row_count",
-        "int",
-        default=1,
-        minimum=1,
-        help="fasteners in a row that act together (group action, D ≥ 1/4 in)",
-    ),
-    Field("row_spacing", "length", help="spacing of the fasteners in that row (needed when row_count > 1)"),
-    Field(
-        "steel_form",
-        "choice",
-        default="auto",
-        choices=("auto", "hot_rolled", "cold_formed"),
-        help="steel side plate: hot-rolled (Fe = 1.5·Fu) or cold-formed (1.375·Fu); auto by t ≥ 1/4 in",
-    ),
-)
+COMMON_FIELDS = NDS_COMMON
 
 
 def part_area(part: Part) -> float:

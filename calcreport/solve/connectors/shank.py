@@ -4,24 +4,13 @@ from __future__ import annotations
 
 import math
 
-from ...fields import Field
+from ...keys.connectors import CONNECTOR_FIELDS
 from ...model import ConnectorSpec
 from ...steps import StepLog
 from ..results import Capacity
 
 KIND = "shank"
-FIELDS = (
-    Field("diameter", "length", required=True, help="shank diameter d"),
-    Field("tau", "stress", required=True, help="allowable (or design) average shear stress on the shank"),
-    Field("planes", "int", default=1, help="number of shear planes the shank crosses"),
-    Field("name", "text", default="pin", help="what the connector is"),
-    Field(
-        "source",
-        "text",
-        default="average shear stress on the shank; mechanics of materials",
-        help="where the allowable stress comes from",
-    ),
-)
+FIELDS = CONNECTOR_FIELDS[KIND]
 
 
 def shank_area(d):

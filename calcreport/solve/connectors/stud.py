@@ -13,7 +13,7 @@ from __future__ import annotations
 
 import math
 
-from ...fields import Field
+from ...keys.connectors import CONNECTOR_FIELDS
 from ...model import ConnectorSpec
 from ...steps import StepLog
 from ...units import Q_, parse
@@ -24,51 +24,7 @@ from .shear_plane import find_contact, thickness_normal
 KIND = "stud"
 SRC = "ANSI/AISC 360-16"
 
-FIELDS = (
-    Field(
-        "diameter",
-        "length",
-        required=True,
-        help="stud shank diameter dsa (3/4 in or less; up to 1 in in solid slabs)",
-    ),
-    Field(
-        "Fu",
-        "stress",
-        default="65 ksi",
-        help="specified minimum tensile strength of the stud (65 ksi: AWS D1.1 Type B)",
-    ),
-    Field("fc", "stress", help="concrete f'c (default: the concrete part's material)"),
-    Field(
-        "wc",
-        "weight_density",
-        help="concrete unit weight (default: the concrete material's density, else 145 pcf)",
-    ),
-    Field(
-        "deck",
-        "choice",
-        default="none",
-        choices=("none", "parallel", "perpendicular"),
-        help="formed steel deck: none (solid slab), ribs parallel or perpendicular to the beam",
-    ),
-    Field("rib_ratio", "number", help="wr/hr, average rib width over rib height (deck parallel)"),
-    Field("per_rib", "int", default=1, minimum=1, help="studs in one deck rib (deck perpendicular)"),
-    Field(
-        "strong_position", "bool", default=False, help="deck perpendicular with e_mid-ht ≥ 2 in (Rp = 0.75)"
-    ),
-    Field("slab_thickness", "length", help="total slab thickness (default: the concrete part's depth)"),
-    Field("length", "length", help="stud length after installation (checked ≥ 4·dsa)"),
-    Field("base_thickness", "length", help="thickness of the flange the stud is welded to (dsa ≤ 2.5·t)"),
-    Field("over_web", "bool", default=False, help="studs welded over the web (lifts the 2.5·t limit)"),
-    Field(
-        "lightweight",
-        "bool",
-        default=False,
-        help="lightweight concrete (edge distance 10 in instead of 8 in)",
-    ),
-    Field("phi", "number", default=0.65, maximum=1.0, help="LRFD resistance factor per anchor"),
-    Field("omega", "number", default=2.31, help="ASD safety factor per anchor"),
-    Field("name", "text", help="how the report names the stud"),
-)
+FIELDS = CONNECTOR_FIELDS[KIND]
 
 
 def concrete_modulus(wc_pcf: float, fc_ksi: float) -> float:

@@ -6,21 +6,16 @@ the middle). Fyb = 45,000 psi unless given (NDS bolt tables' basis).
 
 from __future__ import annotations
 
-from ...fields import Field
+from ...keys.connectors import CONNECTOR_FIELDS
 from ...model import ConnectorSpec
 from ...steps import StepLog
 from ..results import Capacity
 from . import ConnectorError
 from .nds_catalog import FYB_BOLT
 from .nds_dowel import Fastener, design_dowel
-from .nds_factors import COMMON_FIELDS
 
 KIND = "wood_bolt"
-FIELDS = (
-    Field("diameter", "length", required=True, help="bolt diameter D (1/4 in to 1 in)"),
-    Field("Fyb", "stress", help="bending yield strength (default 45,000 psi)"),
-    Field("name", "text", help="how the report names the bolt"),
-) + COMMON_FIELDS
+FIELDS = CONNECTOR_FIELDS[KIND]
 
 
 def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:

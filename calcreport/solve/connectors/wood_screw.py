@@ -7,24 +7,15 @@ equations, as the NDS screw tables do (from memory).
 
 from __future__ import annotations
 
-from ...fields import Field
+from ...keys.connectors import CONNECTOR_FIELDS
 from ...model import ConnectorSpec
 from ...steps import StepLog
 from ..results import Capacity
 from .nds_catalog import WOOD_SCREWS, fyb_wood_screw
 from .nds_dowel import Fastener, design_dowel, screw_diameters
-from .nds_factors import COMMON_FIELDS
 
 KIND = "wood_screw"
-FIELDS = (
-    Field("size", "text", help='gauge, e.g. "10g" (6g-24g)'),
-    Field("diameter", "length", help="shank diameter D (instead of size)"),
-    Field("root_diameter", "length", help="root diameter Dr (with diameter)"),
-    Field("length", "length", required=True, help="screw length L"),
-    Field("threads_in_plane", "bool", default=True, help="threaded part in the shear plane (use Dr)"),
-    Field("Fyb", "stress", help="bending yield strength (default by diameter)"),
-    Field("name", "text", help="how the report names the screw"),
-) + COMMON_FIELDS
+FIELDS = CONNECTOR_FIELDS[KIND]
 
 
 def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
