@@ -141,7 +141,7 @@ def build_parser() -> argparse.ArgumentParser:
 
 def _add_optional_commands(sub) -> None:
     """Commands provided by output packages register themselves here (report, diff, verify)."""
-    for module in ("calcreport.outputs.report.commands", "calcreport.review.commands"):
+    for module in ("calcreport.commands.build", "calcreport.commands.review"):
         try:
             mod = __import__(module, fromlist=["register"])
         except ModuleNotFoundError as exc:

@@ -10,7 +10,7 @@ from pathlib import Path
 
 import pytest
 
-from calcreport.outputs.report.batch import Task, build_one, expand_jobs, run_jobs
+from calcreport.commands.batch import Task, build_one, expand_jobs, run_jobs
 from tests.conftest import ROOT
 
 JOBS = sorted((ROOT / "jobs").glob("*.toml"))
@@ -114,7 +114,7 @@ def test_progress_line_only_on_a_terminal(tmp_path):
             return True
 
     tasks = [Task(f"job{i}.toml", tmp_path / f"job{i}.pdf") for i in range(3)]
-    from calcreport.outputs.report.batch import Outcome
+    from calcreport.commands.batch import Outcome
 
     def work(t):
         return Outcome(t.job, 0, f"wrote {t.out}")

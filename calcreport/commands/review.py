@@ -26,9 +26,9 @@ def _fail(message: str) -> int:
 def _cmd_diff(args) -> int:
     from ..errors import JobError
     from ..outputs.json_out import dumps
-    from . import revisions as review_io
-    from .diff import compute_diff
-    from .diff_text import diff_to_dict, render_diff
+    from ..review import revisions as review_io
+    from ..review.diff import compute_diff
+    from ..review.diff_text import diff_to_dict, render_diff
 
     if args.since is not None and len(args.jobs) != 1:
         return _fail("calcreport diff: error: with --since give exactly one JOB.toml (see --help)")
@@ -47,7 +47,7 @@ def _cmd_diff(args) -> int:
         return _fail(str(exc))
     diff = compute_diff(old, new)
     if args.pdf:
-        from .change_report import write_change_report
+        from ..review.change_report import write_change_report
 
         try:
             write_change_report(diff, args.pdf)
@@ -61,7 +61,7 @@ def _cmd_diff(args) -> int:
 
 def _cmd_verify(args) -> int:
     from ..errors import JobError
-    from .verify import render_verdict, verify
+    from ..review.verify import render_verdict, verify
 
     try:
         verdict = verify(args.pdf, args.job)

@@ -66,18 +66,18 @@ def _one_line(text: str) -> str:
 
 def build_one(task: Task) -> Outcome:
     """Solve, render and write one report; every failure becomes exit 2 with one line."""
-    from ...cli import solve_file
-    from ...errors import JobError
+    from ..cli import solve_file
+    from ..errors import JobError
 
     try:
         r = solve_file(task.job)
-        from .build import render_pdf, write_atomic
-        from .template import load_template
+        from ..outputs.report.build import render_pdf, write_atomic
+        from ..outputs.report.template import load_template
 
         tpl = load_template(r.job.settings.template, r.job.path)
         keys, mark = frozenset(), ""
         if task.since is not None:
-            from ...review.revisions import revision_marks_since
+            from ..review.revisions import revision_marks_since
 
             marks = revision_marks_since(task.job, task.since, r)
             keys, mark = marks.changed_keys, marks.mark
@@ -96,7 +96,7 @@ def build_one(task: Task) -> Outcome:
     try:
         write_atomic(pdf, task.out)
         if task.json:
-            from ..json_out import write_results_json
+            from ..outputs.json_out import write_results_json
 
             write_results_json(r, task.out)
     except OSError as exc:
@@ -152,9 +152,9 @@ def run_jobs(
             from concurrent.futures import ProcessPoolExecutor, as_completed
 
             if work is build_one:  # import once here: forked workers inherit the loaded modules
-                from ...jobfile import load_job  # noqa: F401
-                from ...solve import solve_job  # noqa: F401
-                from . import build  # noqa: F401
+                from ..jobfile import load_job  # noqa: F401
+                from ..outputs.report import build  # noqa: F401
+                from ..solve import solve_job  # noqa: F401
 
             with ProcessPoolExecutor(max_workers=workers) as pool:
                 futures = {pool.submit(work, t): i for i, t in enumerate(tasks)}
