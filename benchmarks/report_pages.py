@@ -121,8 +121,8 @@ def bare_reportlab(pages: int) -> float:
 def main(members: int = 200) -> None:
     from pypdf import PdfReader
 
-    from calcreport.cli import solve_file
     from calcreport.outputs.report.build import render_pdf
+    from calcreport.pipeline import solve_file
 
     with tempfile.TemporaryDirectory() as tmp:
         job = Path(tmp) / "bench-200.toml"

@@ -21,13 +21,8 @@ from . import __version__  # noqa: E402
 
 __all__ = ["main"]
 
-EXIT_OK, EXIT_NG, EXIT_INVALID = 0, 1, 2
-TEMPLATE_DIR = Path(__file__).resolve().parent / "data" / "templates"
-STARTERS = {
-    "box": "starter-box-beam.toml",
-    "girder": "starter-plate-girder.toml",
-    "tee": "starter-glued-tee.toml",
-}
+from .errors import EXIT_INVALID, EXIT_NG, EXIT_OK  # noqa: E402
+from .resources import STARTERS  # noqa: E402
 
 
 class _Parser(argparse.ArgumentParser):
@@ -40,66 +35,69 @@ def _fail(message: str) -> int:
     return EXIT_INVALID
 
 
-def solve_file(path: str):
-    """Load and solve one job file; raises JobError with file/key/line on bad input."""
-    from .errors import JobError
-    from .jobfile import load_job
-    from .solve import SolveError, solve_job
-    from .solve.connectors import ConnectorError
-
-    job = load_job(path)
-    try:
-        return solve_job(job)
-    except (ConnectorError, SolveError) as exc:
-        raise JobError(path, exc.key, str(exc)) from None
-    except (
-        ArithmeticError,
-        ValueError,
-        TypeError,
-        RecursionError,
-    ) as exc:  # a defect of ours: still one line, exit 2
-        raise JobError(
-            path,
-            "",
-            f"internal error while solving ({type(exc).__name__}: {exc}); please report it with the job file",
-        ) from None
-
-
 def _cmd_check(args) -> int:
     from .errors import JobError
     from .outputs.json_out import dumps, to_dict
     from .outputs.table import render_job
+    from .pipeline import check_report_inputs, solve_file
 
-    results, worst = [], EXIT_OK
+    if args.jobs.count("-") > 1:
+        return _fail("calcreport check: error: standard input (-) can be read only once (see --help)")
+    results, failed = [], []
     for path in args.jobs:
         try:
-            results.append(solve_file(path))
+            r = solve_file(path)
+            check_report_inputs(r.job)
         except JobError as exc:
-            return _fail(str(exc))
-    for r in results:
-        worst = max(worst, EXIT_NG if r.status == "NG" else EXIT_OK)
-    if args.json:
-        data = [to_dict(r) for r in results]
-        sys.stdout.write(dumps(data[0] if len(data) == 1 else {"jobs": data}))
-    else:
-        sys.stdout.write("\n".join(render_job(r) for r in results))
-    return worst
+            failed.append(str(exc))
+            continue
+        results.append(r)
+    worst = max((EXIT_NG if r.status == "NG" else EXIT_OK for r in results), default=EXIT_OK)
+    if results and not args.quiet:
+        if args.json:
+            data = [to_dict(r) for r in results]
+            sys.stdout.write(dumps(data[0] if len(data) == 1 and not failed else {"jobs": data}))
+        else:
+            sys.stdout.write("\n".join(render_job(r) for r in results))
+    if len(args.jobs) == 1:
+        for line in failed:
+            print(line, file=sys.stderr)
+    elif failed:
+        print(f"calcreport check: {len(failed)} of {len(args.jobs)} jobs invalid:", file=sys.stderr)
+        for line in failed:
+            print(f"  {line}", file=sys.stderr)
+    return EXIT_INVALID if failed else worst
 
 
 def _cmd_new(args) -> int:
-    src = TEMPLATE_DIR / STARTERS[args.kind]
+    from .resources import starter_text
+
     dest = Path(args.path)
+    if args.path == "-":
+        sys.stdout.write(starter_text(args.kind))
+        return EXIT_OK
     if dest.exists() and not args.force:
         return _fail(f"{dest}: already exists (use --force to overwrite)")
-    try:
-        text = src.read_text(encoding="utf-8")
-    except OSError:
-        return _fail(f"{src}: starter template not found (is the templates/ folder beside the package?)")
+    text = starter_text(args.kind)
     tmp = dest.with_name(dest.name + ".tmp")
-    tmp.write_text(text, encoding="utf-8")
-    os.replace(tmp, dest)
-    print(f"wrote {dest} — edit it, then run: calcreport check {dest}")
+    try:
+        tmp.write_text(text, encoding="utf-8")
+        os.replace(tmp, dest)
+    except OSError as exc:
+        tmp.unlink(missing_ok=True)
+        return _fail(f"{dest}: cannot write the file ({exc.strerror or exc})")
+    if not args.quiet:
+        print(f"wrote {dest} — edit it, then run: calcreport check {dest}")
     return EXIT_OK
+
+
+def _common() -> argparse.ArgumentParser:
+    """Options every command takes."""
+    common = argparse.ArgumentParser(add_help=False)
+    common.add_argument(
+        "-q", "--quiet", action="store_true", help="print only errors (the exit code tells the outcome)"
+    )
+    return common
 
 
 def build_parser() -> argparse.ArgumentParser:
@@ -109,6 +107,7 @@ def build_parser() -> argparse.ArgumentParser:
         "with calculation reports for review and seal.",
     )
     p.add_argument("--version", action="version", version=f"calcreport {__version__}")
+    common = _common()
     sub = p.add_subparsers(dest="command", parser_class=_Parser, metavar="COMMAND")
     sub.required = True
     c = sub.add_parser(
@@ -116,15 +115,19 @@ def build_parser() -> argparse.ArgumentParser:
         help="solve job files and print a table per member",
         description="Solve each job file and print, per member, each joint's shear flow, "
         "capacity per row, required and practical spacing and status. "
-        "Exit 0 all OK, 1 some NG, 2 invalid input.",
+        "Also reads the report template (with its logo and fonts) that build would use. "
+        "An invalid job is listed and the next one is checked. "
+        "Exit 0 all OK, 1 some NG, 2 some job invalid.",
+        parents=[common],
     )
-    c.add_argument("jobs", nargs="+", metavar="JOB.toml")
+    c.add_argument("jobs", nargs="+", metavar="JOB.toml", help="job files; - reads one from standard input")
     c.add_argument("--json", action="store_true", help="print results as JSON (schema in the README)")
     c.set_defaults(func=_cmd_check)
     n = sub.add_parser(
         "new",
         help="write a commented starter job file",
-        description="Write a commented starter job file from templates/.",
+        description="Write a commented starter job file (- prints it on standard output).",
+        parents=[common],
     )
     n.add_argument("path", nargs="?", default="job.toml", help="where to write it (default job.toml)")
     n.add_argument(
@@ -135,20 +138,12 @@ def build_parser() -> argparse.ArgumentParser:
     )
     n.add_argument("--force", action="store_true", help="overwrite an existing file")
     n.set_defaults(func=_cmd_new)
-    _add_optional_commands(sub)
+    from .commands import build, review, schema
+
+    build.register(sub, common)
+    review.register(sub, common)
+    schema.register(sub, common)
     return p
-
-
-def _add_optional_commands(sub) -> None:
-    """Commands provided by output packages register themselves here (report, diff, verify)."""
-    for module in ("calcreport.commands.build", "calcreport.commands.review"):
-        try:
-            mod = __import__(module, fromlist=["register"])
-        except ModuleNotFoundError as exc:
-            if exc.name and module.startswith(exc.name):
-                continue
-            raise
-        mod.register(sub)
 
 
 def main(argv: list[str] | None = None) -> int:

@@ -2,7 +2,11 @@
 
 from __future__ import annotations
 
-__all__ = ["JobError", "UsageError", "one_line"]
+__all__ = ["JobError", "one_line", "EXIT_OK", "EXIT_NG", "EXIT_INVALID"]
+
+#: Exit codes of every command: 0 all OK (diff: no result changed; verify: match), 1 some NG
+#: (diff: some result changed; verify: mismatch), 2 invalid input or usage (nothing written).
+EXIT_OK, EXIT_NG, EXIT_INVALID = 0, 1, 2
 
 
 class JobError(Exception):
@@ -25,7 +29,3 @@ def one_line(text: str) -> str:
     """``text`` with control and line-breaking characters shown as escapes, so that a message
     quoting the job file stays on one line."""
     return "".join(c if (c.isprintable() or c == " ") else repr(c)[1:-1] for c in text)
-
-
-class UsageError(Exception):
-    """Wrong command-line use (exit code 2)."""

@@ -11,8 +11,8 @@ import re
 
 from review_helpers import demo_text, run, write
 
-from calcreport.cli import solve_file
 from calcreport.outputs.json_out import dumps, json_path_for, to_dict, write_results_json
+from calcreport.pipeline import solve_file
 
 
 def _numbers(node):

@@ -20,9 +20,9 @@ import pytest
 pypdf = pytest.importorskip("pypdf")
 
 from calcreport import __version__  # noqa: E402
-from calcreport.cli import solve_file  # noqa: E402
 from calcreport.outputs.fmt import Display  # noqa: E402
 from calcreport.outputs.report.build import build_pdf, render_pdf  # noqa: E402
+from calcreport.pipeline import solve_file  # noqa: E402
 
 ROOT = Path(__file__).resolve().parent.parent
 DEMO = ROOT / "jobs" / "boathouse-door-header.toml"

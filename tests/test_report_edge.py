@@ -10,11 +10,11 @@ import pytest
 
 pypdf = pytest.importorskip("pypdf")
 
-from calcreport.cli import solve_file  # noqa: E402
 from calcreport.errors import JobError  # noqa: E402
 from calcreport.outputs.report import build as build_mod  # noqa: E402
 from calcreport.outputs.report.build import build_pdf  # noqa: E402
 from calcreport.outputs.report.template import load_template  # noqa: E402
+from calcreport.pipeline import solve_file  # noqa: E402
 
 ROOT = Path(__file__).resolve().parent.parent
 DEMO = ROOT / "jobs" / "boathouse-door-header.toml"

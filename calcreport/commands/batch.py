@@ -17,7 +17,7 @@ from typing import TextIO
 
 __all__ = ["Task", "Outcome", "expand_jobs", "build_one", "run_jobs", "default_workers"]
 
-EXIT_OK, EXIT_NG, EXIT_INVALID = 0, 1, 2
+from ..errors import EXIT_INVALID, EXIT_NG, EXIT_OK
 
 
 @dataclass(frozen=True)
@@ -66,8 +66,8 @@ def _one_line(text: str) -> str:
 
 def build_one(task: Task) -> Outcome:
     """Solve, render and write one report; every failure becomes exit 2 with one line."""
-    from ..cli import solve_file
     from ..errors import JobError
+    from ..pipeline import solve_file
 
     try:
         r = solve_file(task.job)
@@ -135,11 +135,16 @@ class _Progress:
 
 
 def run_jobs(
-    tasks: list[Task], workers: int, stream: TextIO | None = None, work: Callable[[Task], Outcome] = build_one
+    tasks: list[Task],
+    workers: int,
+    stream: TextIO | None = None,
+    work: Callable[[Task], Outcome] = build_one,
+    quiet: bool = False,
 ) -> list[Outcome]:
-    """Run every task (``workers`` processes when more than one) and return outcomes in task order."""
+    """Run every task (``workers`` processes when more than one) and return outcomes in task order;
+    ``quiet``: no progress line."""
     stream = stream if stream is not None else sys.stderr
-    progress = _Progress(len(tasks), stream)
+    progress = _Progress(0 if quiet else len(tasks), stream)
     outcomes: dict[int, Outcome] = {}
     workers = max(1, min(workers, len(tasks)))
     try:

@@ -2,7 +2,7 @@
 
 Each job is built independently and atomically (:mod:`.batch`), several at a time with ``-j``.
 
-Registered by :func:`calcreport.cli._add_optional_commands`. Nothing from the PDF stack is imported
+Registered by :func:`calcreport.cli.build_parser`. Nothing from the PDF stack is imported
 here at module level, so ``calcreport check`` stays light.
 """
 
@@ -14,10 +14,10 @@ from pathlib import Path
 
 __all__ = ["register", "cmd_build", "output_paths"]
 
-EXIT_OK, EXIT_NG, EXIT_INVALID = 0, 1, 2
+from ..errors import EXIT_INVALID, EXIT_OK
 
 
-def register(sub) -> None:
+def register(sub, common) -> None:
     b = sub.add_parser(
         "build",
         help="write a PDF calculation report per job file (or per job in a folder)",
@@ -27,8 +27,14 @@ def register(sub) -> None:
         "its own and written atomically: an invalid job writes nothing and is listed in a summary at the "
         "end, the other jobs are still written. Exit code: the worst of all jobs — 0 all OK, 1 some NG "
         "(the reports are still written and show NG), 2 some job invalid or not written.",
+        parents=[common],
     )
-    b.add_argument("jobs", nargs="+", metavar="JOB.toml|FOLDER")
+    b.add_argument(
+        "jobs",
+        nargs="+",
+        metavar="JOB.toml|FOLDER",
+        help="job files or folders; - reads one job from standard input",
+    )
     b.add_argument(
         "-o",
         "--output",
@@ -74,7 +80,7 @@ def _workers(text: str) -> int:
 def output_paths(jobs: list[str], output: str | None, folder: bool = False) -> list[Path]:
     """The PDF path of each job (see ``--output``; ``folder``: -o names a folder even for one job);
     raises ValueError for a clash or misuse."""
-    stems = [Path(j).stem for j in jobs]
+    stems = ["job" if j == "-" else Path(j).stem for j in jobs]
     if output is None:
         folder = Path("out")
     else:
@@ -112,11 +118,14 @@ def cmd_build(args) -> int:
         print(f"calcreport build: {exc}", file=sys.stderr)
         return EXIT_INVALID
     tasks = [Task(j, p, args.since, args.json) for j, p in zip(jobs, paths)]
-    workers = args.workers or default_workers()
-    outcomes = run_jobs(tasks, workers)
+    workers = 1 if "-" in jobs else (args.workers or default_workers())  # stdin is read here
+    if jobs.count("-") > 1:
+        print("calcreport build: standard input (-) can be read only once", file=sys.stderr)
+        return EXIT_INVALID
+    outcomes = run_jobs(tasks, workers, quiet=args.quiet)
     failed = [o for o in outcomes if o.code == EXIT_INVALID]
     for o in outcomes:
-        if o.code != EXIT_INVALID:
+        if o.code != EXIT_INVALID and not args.quiet:
             print(o.line)
     if len(tasks) == 1:
         for o in failed:

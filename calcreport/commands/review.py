@@ -1,7 +1,7 @@
-"""The ``diff`` and ``verify`` commands (registered by :func:`calcreport.cli._add_optional_commands`).
+"""The ``diff`` and ``verify`` commands (registered by :func:`calcreport.cli.build_parser`).
 
-Only argparse wiring lives here; the work is in :mod:`.review_io`, :mod:`.diff`, :mod:`.diff_text`,
-:mod:`.change_report` and :mod:`.verify`, imported when a command runs.
+Only argparse wiring lives here; the work is in :mod:`calcreport.review` (``revisions``, ``diff``, ``diff_text``,
+``change_report``, ``verify``), imported when a command runs.
 
 Exit codes of ``diff``: 0 no result changed (inputs may have), 1 some result changed, 2 invalid
 input or usage. Exit codes of ``verify``: 0 match, 1 mismatch, 2 unreadable PDF or invalid job.
@@ -13,9 +13,10 @@ import sys
 
 __all__ = ["register", "EXIT_SAME", "EXIT_CHANGED", "EXIT_MATCH", "EXIT_MISMATCH", "EXIT_INVALID"]
 
-EXIT_SAME, EXIT_CHANGED = 0, 1
-EXIT_MATCH, EXIT_MISMATCH = 0, 1
-EXIT_INVALID = 2
+from ..errors import EXIT_INVALID, EXIT_NG, EXIT_OK
+
+EXIT_SAME, EXIT_CHANGED = EXIT_OK, EXIT_NG
+EXIT_MATCH, EXIT_MISMATCH = EXIT_OK, EXIT_NG
 
 
 def _fail(message: str) -> int:
@@ -55,7 +56,8 @@ def _cmd_diff(args) -> int:
             return _fail(str(exc))
         except OSError as exc:
             return _fail(f"{args.pdf}: cannot write the change report ({exc.strerror or exc})")
-    sys.stdout.write(dumps(diff_to_dict(diff)) if args.json else render_diff(diff))
+    if not args.quiet:
+        sys.stdout.write(dumps(diff_to_dict(diff)) if args.json else render_diff(diff))
     return EXIT_CHANGED if diff.results_changed else EXIT_SAME
 
 
@@ -67,11 +69,12 @@ def _cmd_verify(args) -> int:
         verdict = verify(args.pdf, args.job)
     except JobError as exc:
         return _fail(str(exc))
-    sys.stdout.write(render_verdict(verdict))
+    if not args.quiet:
+        sys.stdout.write(render_verdict(verdict))
     return EXIT_MATCH if verdict.match else EXIT_MISMATCH
 
 
-def register(sub) -> None:
+def register(sub, common) -> None:
     """Add ``diff`` and ``verify`` to the ``calcreport`` sub-command parser."""
     d = sub.add_parser(
         "diff",
@@ -81,7 +84,8 @@ def register(sub) -> None:
         "derivation step, by step key), then "
         'changed inputs by key path ("12 in" and "1 ft" are the same input), then added and removed '
         "members, parts, joints, loads and materials. Values are shown in the new job's units. "
-        "Exit 0 no result changed, 1 some result changed, 2 invalid input.",
+        "Exit 0 no result changed, 1 some result changed, 2 invalid input (one that does not solve).",
+        parents=[common],
     )
     d.add_argument(
         "jobs", nargs="+", metavar="JOB.toml", help="OLD.toml NEW.toml; or one JOB.toml with --since"
@@ -99,6 +103,7 @@ def register(sub) -> None:
         help="check that a PDF report was built from exactly this job file",
         description="Compare the job-file SHA-256 stamped in a calcreport PDF with the job file. "
         "Exit 0 match, 1 mismatch, 2 unreadable PDF or invalid job file.",
+        parents=[common],
     )
     v.add_argument("pdf", metavar="REPORT.pdf")
     v.add_argument("job", metavar="JOB.toml")

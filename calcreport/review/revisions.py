@@ -1,6 +1,6 @@
 """Read the two revisions a review compares: job files on disk, or an older revision from git.
 
-Every job is fully validated (:func:`calcreport.jobfile.load_text`) and solved; problems raise
+Every job is fully validated and solved through :mod:`calcreport.pipeline`; problems raise
 :class:`calcreport.errors.JobError` so the command line prints one line and exits 2.
 """
 
@@ -9,16 +9,13 @@ from __future__ import annotations
 import hashlib
 import os
 import subprocess
+import tomllib
 from dataclasses import dataclass
-
-try:
-    import tomllib
-except ModuleNotFoundError:  # Python < 3.11
-    import tomli as tomllib  # type: ignore[no-redef]
 
 from ..errors import JobError
 from ..jobfile import load_text
 from ..jobfile.load import MAX_FILE_BYTES
+from ..pipeline import STDIN, label_for, read_bytes, solve
 from ..solve.results import JobResult
 from .diff import Side, changed_keys, compute_diff
 
@@ -27,7 +24,6 @@ __all__ = [
     "side_from_bytes",
     "side_from_git",
     "git_show",
-    "solve_loaded",
     "RevisionMarks",
     "revision_marks",
     "revision_marks_since",
@@ -36,40 +32,16 @@ __all__ = [
 GIT_TIMEOUT_S = 30
 
 
-def solve_loaded(job) -> JobResult:
-    """Solve a validated job, turning solver/connector errors into a located JobError."""
-    from ..solve import SolveError, solve_job
-    from ..solve.connectors import ConnectorError
-
-    try:
-        return solve_job(job)
-    except (ConnectorError, SolveError) as exc:
-        raise JobError(job.path, exc.key, str(exc)) from None
-
-
 def side_from_bytes(data: bytes, label: str) -> Side:
     """Validate, solve and keep the raw TOML of job-file bytes; ``label`` names it in messages."""
     job = load_text(data, label)
     doc = tomllib.loads(data.decode("utf-8"))  # cannot fail: load_text has read it already
-    return Side(label, job, solve_loaded(job), doc)
-
-
-def _read(path: str) -> bytes:
-    try:
-        size = os.path.getsize(path)
-        if size > MAX_FILE_BYTES:
-            raise JobError(
-                path, "", f"file is {size:,} bytes; a job file may have at most {MAX_FILE_BYTES:,}"
-            )
-        with open(path, "rb") as fh:
-            return fh.read()
-    except OSError as exc:
-        raise JobError(path, "", f"cannot read the file ({exc.strerror or exc})") from None
+    return Side(label, job, solve(job), doc)
 
 
 def side_from_file(path: str) -> Side:
-    """A revision read from a job file on disk."""
-    return side_from_bytes(_read(path), path)
+    """A revision read from a job file on disk (``-``: standard input)."""
+    return side_from_bytes(read_bytes(path), label_for(path))
 
 
 def _git(args: list[str], cwd: str, path: str) -> bytes:
@@ -97,6 +69,10 @@ def git_show(path: str, rev: str) -> tuple[bytes, str]:
     Raises:
         JobError: not inside a git repository, or the revision or the path does not exist there.
     """
+    if path == STDIN:
+        raise JobError(
+            label_for(path), "", "--since needs a job file in a git repository, not standard input"
+        )
     if not rev or rev.startswith("-"):
         raise JobError(path, "", f"expected a git revision after --since, got {rev!r}")
     real = os.path.realpath(path)
@@ -151,7 +127,7 @@ def revision_marks_since(job_path: str, rev: str, new_result: JobResult | None =
     if new_result is None:
         new = side_from_file(job_path)
     else:
-        data = _read(job_path)
+        data = read_bytes(job_path)
         if hashlib.sha256(data).hexdigest() != new_result.job.sha256:
             raise JobError(job_path, "", "the file changed while the report was being built; run again")
         new = Side(job_path, new_result.job, new_result, tomllib.loads(data.decode("utf-8")))

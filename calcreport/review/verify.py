@@ -74,10 +74,10 @@ def read_stamp(pdf_path: str) -> PdfStamp:
 
 def verify(pdf_path: str, job_path: str) -> Verdict:
     """Compare the job hash stamped in ``pdf_path`` with the (validated) job file ``job_path``."""
-    from ..jobfile import load_job
+    from ..pipeline import load
 
     stamp = read_stamp(pdf_path)
-    job = load_job(job_path)
+    job = load(job_path)
     return Verdict(pdf_path, job_path, stamp, job.sha256)
 
 

@@ -1,32 +1,28 @@
 """Report templates: page size, margins, firm block, optional logo, fonts and accent colour.
 
-A template is a small TOML file in ``templates/`` (``report-<name>.toml``) or anywhere, named by
-``[settings] template = "…"`` in the job file: a bare name (``"a4"``, ``"report-a4"``) is looked up
-in ``templates/``; text with a ``/`` or ending in ``.toml`` is a path relative to the job file.
+A template is a small TOML file shipped in ``calcreport/data/templates/`` (``report-<name>.toml``)
+or anywhere, named by ``[settings] template = "…"`` in the job file: a bare name (``"a4"``,
+``"report-a4"``) is one of the shipped templates; text with a ``/`` or ending in ``.toml`` is a path relative to the job file.
 Problems raise :class:`JobError` at ``settings.template`` (exit code 2, nothing written).
 """
 
 from __future__ import annotations
 
 import re
+import tomllib
 from dataclasses import dataclass, field
 from pathlib import Path
-
-try:
-    import tomllib
-except ModuleNotFoundError:  # pragma: no cover
-    import tomli as tomllib  # type: ignore[no-redef]
 
 from reportlab.lib import colors
 from reportlab.lib.pagesizes import A4, LETTER
 
 from ...errors import JobError
+from ...resources import builtin_template, builtin_template_names
 from ...units import UnitParseError, parse
 
-__all__ = ["Template", "DEFAULT", "resolve_template", "load_template", "TEMPLATE_DIRS"]
+__all__ = ["Template", "DEFAULT", "resolve_template", "load_template"]
 
 PAGE_SIZES = {"letter": LETTER, "a4": A4}
-TEMPLATE_DIRS = (Path(__file__).resolve().parents[2] / "data" / "templates",)
 MAX_TEMPLATE_BYTES = 200_000
 MAX_LOGO_BYTES = 5_000_000
 _KEY = "settings.template"
@@ -81,14 +77,10 @@ def resolve_template(value: str, job_path: str) -> Path | None:
         raise JobError(
             job_path, _KEY, f'expected a template name like "a4" or a path to a .toml file, got {value!r}'
         )
-    names = [f"report-{value}.toml", f"{value}.toml"]
-    for folder in TEMPLATE_DIRS:
-        for n in names:
-            if (folder / n).is_file():
-                return folder / n
-    known = sorted(
-        {p.stem.removeprefix("report-") for d in TEMPLATE_DIRS if d.is_dir() for p in d.glob("report-*.toml")}
-    )
+    found = builtin_template(value)
+    if found is not None:
+        return found
+    known = builtin_template_names()
     raise JobError(
         job_path,
         _KEY,
