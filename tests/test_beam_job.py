@@ -154,7 +154,7 @@ BAD = [
         "missing load value",
         'w = "200 plf"',
         'wl = "200 plf"',
-        ["member[M].load[2]", "missing required key 'w'"],
+        ["member[M].load[2].wl", "unknown key 'wl' (did you mean 'w'?)"],  # named before the missing w
     ),
     (
         "bad kind",

@@ -8,14 +8,11 @@ from __future__ import annotations
 
 import hashlib
 import os
-
-try:
-    import tomllib
-except ModuleNotFoundError:  # Python < 3.11
-    import tomli as tomllib  # type: ignore[no-redef]
+import tomllib
 
 from ..errors import JobError
 from ..keys import connectors
+from ..keys import job as decl
 from ..model import ConnectorSpec, Header, Job, Joint, Material, Member, Part, RevisionEntry, Settings
 from ..outlines import contact_segments, isolated_parts, overlapping_pairs
 from ..units import parse
@@ -38,7 +35,7 @@ MAX_MEMBERS = 500
 MAX_PARTS = 60
 MAX_JOINTS = 60
 MAX_MATERIALS = 200
-FAMILIES = ("wood", "plywood", "glulam", "steel", "concrete", "aluminum", "other")
+FAMILIES = decl.FAMILIES
 
 
 def load_job(path: str) -> Job:
@@ -83,6 +80,7 @@ def load_text(data: bytes, path: str = "<job>") -> Job:
         ) from None
     src = Source(path, LineIndex(text))
     root = Table(doc, src, (), "")
+    root.expect(decl.names(decl.ROOT))
     header = _header(root.table("job", required=True))
     settings = _settings(root.table("settings") or Table({}, src, ("settings",), "settings"))
     materials = _materials(root)
@@ -97,8 +95,10 @@ def load_text(data: bytes, path: str = "<job>") -> Job:
 
 
 def _header(t: Table) -> Header:
+    t.expect(decl.names(decl.JOB))
     history = []
     for r in t.tables("history", id_key="mark"):
+        r.expect(decl.names(decl.HISTORY))
         history.append(
             RevisionEntry(r.text("mark", True), r.text("date"), r.text("by"), r.text("description"))
         )
@@ -123,6 +123,7 @@ def _header(t: Table) -> Header:
 
 
 def _settings(t: Table) -> Settings:
+    t.expect(decl.names(decl.SETTINGS))
     units = t.choice("units", ("US", "SI"), "US")
     method = t.choice("method", ("ASD", "LRFD"), "ASD")
     step = t.quantity(
@@ -147,6 +148,7 @@ def _settings(t: Table) -> Settings:
     display = {}
     dt = t.table("display")
     if dt is not None:
+        dt.expect(decl.names(decl.DISPLAY))
         for kind, dim in (
             ("force", "force"),
             ("length", "length"),
@@ -168,6 +170,7 @@ def _settings(t: Table) -> Settings:
 def _materials(root: Table) -> dict[str, Material]:
     out: dict[str, Material] = {}
     for t, mid in root.id_tables("material", MAX_MATERIALS, "material"):
+        t.expect(decl.names(decl.MATERIAL))
         density = None
         if t.has("density"):
             raw = t.raw("density")
@@ -197,6 +200,7 @@ def _materials(root: Table) -> dict[str, Material]:
 
 
 def _member(t: Table, materials: dict[str, Material], settings: Settings) -> Member:
+    t.expect(decl.names(decl.MEMBER))
     mid = t.ident("id")
     part_tables = t.tables("part")
     if not part_tables:
@@ -254,6 +258,7 @@ def _loads_hook(t: Table, member: Member, settings: Settings) -> Member:
 
 def _joints(t: Table, parts: dict[str, Part]):
     for jt, jid in t.id_tables("joint", MAX_JOINTS, "joint"):
+        jt.expect(decl.names(decl.JOINT))
         holds = jt.raw("holds", True, "the list of part ids held on one side of the shear plane")
         if isinstance(holds, str):
             holds = [holds]

@@ -26,6 +26,7 @@ from __future__ import annotations
 
 from dataclasses import replace
 
+from ..keys import job as decl
 from ..keys.loads import STANDARD_CASES
 from ..model import Combination, Load, Member, Settings, Support
 from ..units import Q_
@@ -40,8 +41,8 @@ MAX_COMBINATIONS = 100
 #: span is a typing slip) and the shortest (1 in). Common practice, no source.
 MAX_SPAN_FT = 2000
 MIN_SPAN_IN = 1.0
-SUPPORT_TYPES = ("pin", "roller", "fixed")
-LOAD_KINDS = ("uniform", "point", "linear")
+SUPPORT_TYPES = decl.SUPPORT_TYPES
+LOAD_KINDS = decl.LOAD_KINDS
 
 
 def read_loads(t: Table, member: Member, settings: Settings) -> Member:
@@ -127,6 +128,7 @@ def _position(t: Table, name: str, span, required: bool = False):
 
 
 def _support(t: Table, span) -> Support:
+    t.expect(decl.names(decl.SUPPORT))
     s = Support(_position(t, "at", span, required=True), t.choice("type", SUPPORT_TYPES, "pin"))
     t.done()
     return s
@@ -147,6 +149,7 @@ def _case(t: Table) -> str:
 
 
 def _load(t: Table, span) -> Load:
+    t.expect(decl.names(decl.LOAD))
     t.ident(
         "id", required=False
     )  # optional short id: lets a revision diff follow a load that moved in the list
@@ -183,6 +186,7 @@ def _load(t: Table, span) -> Load:
 
 
 def _combination(t: Table, cases: set[str]) -> Combination:
+    t.expect(decl.names(decl.COMBINATION))
     name = t.text("name", required=True)
     ft = t.table("factors", required=True)
     factors: dict[str, float] = {}

@@ -20,36 +20,18 @@ from __future__ import annotations
 import math
 from dataclasses import replace
 
+from ..keys import job as decl
 from ..model import Material, Part, Shape
 from .lumber import LumberSizeError, dressed_size
 from .reader import Table
 
 __all__ = ["read_part", "SHAPES", "MAX_VERTICES"]
 
-SHAPES = ("rect", "plate", "lumber", "bar", "polygon", "rolled")
-PLACEMENTS = ("on", "below", "left_of", "right_of", "at")
+SHAPES = decl.SHAPES
+PLACEMENTS = decl.PLACEMENTS
 MAX_VERTICES = 2000
 #: every key a part table may hold, whatever its shape
-PART_KEYS = (
-    "id",
-    "shape",
-    "material",
-    "label",
-    "width",
-    "depth",
-    "thickness",
-    "upright",
-    "size",
-    "flat",
-    "diameter",
-    "points",
-    "area",
-    "inertia",
-    "centroid",
-    "designation",
-    "align",
-    "offset",
-) + PLACEMENTS
+PART_KEYS = decl.names(decl.PART)
 #: Smallest part dimension (0.001 in = 0.025 mm): thinner is a typing slip, and it would make the
 #: section's area vanish (common practice, no source).
 MIN_DIMENSION = 1e-3

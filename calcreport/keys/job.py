@@ -1,0 +1,274 @@
+"""Every table and key of a job file, as data: what the reader accepts (each table is checked
+against its declaration before it is read, :meth:`calcreport.jobfile.reader.Table.expect`) and
+what the JSON Schema for editors says (:mod:`calcreport.schema`). The connector tables come from
+:mod:`.connectors`.
+
+To add a key: declare it here (name, kind, help), then read it in :mod:`calcreport.jobfile`;
+regenerate the shipped schema with ``python -m calcreport schema > calcreport/data/job.schema.json``.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+from ..fields import Field
+
+__all__ = ["TableSpec", "JOB", "SETTINGS", "MATERIAL", "MEMBER", "PART", "JOINT", "ROOT", "names"]
+
+#: Shapes of a part and the ways to place one (see docs/job-format.md).
+SHAPES = ("rect", "plate", "lumber", "bar", "polygon", "rolled")
+PLACEMENTS = ("on", "below", "left_of", "right_of", "at")
+FAMILIES = ("wood", "plywood", "glulam", "steel", "concrete", "aluminum", "other")
+SUPPORT_TYPES = ("pin", "roller", "fixed")
+LOAD_KINDS = ("uniform", "point", "linear")
+
+
+@dataclass(frozen=True)
+class TableSpec:
+    """A table of the job file: its keys, its sub-tables, whether it is an array (``[[name]]``).
+
+    ``free`` names the kind of every key of a table whose keys are the user's (a load case →
+    a number, for ``deflection_limits`` and ``factors``); ``connector``: the keys depend on
+    ``type`` (:data:`calcreport.keys.connectors.CONNECTOR_FIELDS`).
+    """
+
+    name: str
+    help: str
+    fields: tuple[Field, ...] = ()
+    tables: tuple[TableSpec, ...] = ()
+    array: bool = False
+    required: bool = False
+    free: str = ""
+    connector: bool = False
+
+
+def names(spec: TableSpec) -> tuple[str, ...]:
+    """Every key the table may hold: its fields and its sub-tables."""
+    return tuple(f.name for f in spec.fields) + tuple(t.name for t in spec.tables)
+
+
+HISTORY = TableSpec(
+    "history",
+    "revision history, one table per revision, newest last",
+    (
+        Field("mark", "text", required=True, help="revision mark, e.g. A or 1"),
+        Field("date", "text", help="date of the revision"),
+        Field("by", "text", help="who made it"),
+        Field("description", "text", help="what changed"),
+    ),
+    array=True,
+)
+
+JOB = TableSpec(
+    "job",
+    "project header: what the title block and cover show",
+    (
+        Field("project", "text", required=True, help="project name"),
+        Field("number", "text", help="project or job number"),
+        Field("client", "text", help="client"),
+        Field("subject", "text", help="what this calculation is about"),
+        Field("prepared_by", "text", help="engineer who prepared the calculation"),
+        Field("checked_by", "text", help="engineer who checked it"),
+        Field("revision", "text", default="0", help="current revision mark (drawn in revision triangles)"),
+        Field("date", "text", help="date of issue"),
+        Field("prepared_date", "text", help="date prepared"),
+        Field("checked_date", "text", help="date checked"),
+        Field("approved_by", "text", help="who approved it"),
+        Field("notes", "texts", help="notes printed on the cover"),
+    ),
+    (HISTORY,),
+    required=True,
+)
+
+DISPLAY = TableSpec(
+    "display",
+    "units the outputs print in, overriding those of settings.units",
+    (
+        Field("force", "unit", help='unit for forces, e.g. "kip" or "kN"'),
+        Field("length", "unit", help='unit for lengths, e.g. "in" or "mm"'),
+        Field("stress", "unit", help='unit for stresses, e.g. "psi" or "MPa"'),
+        Field("shear_flow", "unit", help='unit for shear flow, e.g. "lbf/in" or "N/mm"'),
+        Field("moment", "unit", help='unit for moments, e.g. "kip*ft" or "kN*m"'),
+    ),
+)
+
+DEFLECTION_LIMITS = TableSpec(
+    "deflection_limits",
+    "span over deflection limit per load case or combination name, e.g. { L = 360, total = 240 }",
+    free="number",
+)
+
+SETTINGS = TableSpec(
+    "settings",
+    "design method, units and spacing rules for the whole job",
+    (
+        Field("units", "choice", default="US", choices=("US", "SI"), help="units the outputs use"),
+        Field("method", "choice", default="ASD", choices=("ASD", "LRFD"), help="design method"),
+        Field(
+            "spacing_step", "length", help="practical spacings are multiples of this (default 1/4 in, 5 mm)"
+        ),
+        Field("spacing_max", "length", help="largest connector spacing allowed in every joint"),
+        Field("spacing_min", "length", help="smallest connector spacing allowed in every joint"),
+        Field("zones_per_half", "int", default=3, minimum=1, maximum=12, help="most zones per half span"),
+        Field("zone_module", "length", help="zone boundaries fall on multiples of this length"),
+        Field("template", "text", help='report template: "letter", "a4" or a path to a .toml file'),
+        Field(
+            "load_duration",
+            "number",
+            minimum=0.5,
+            maximum=2.0,
+            help="load duration factor CD for wood (ASD) where a connector does not state its own",
+        ),
+    ),
+    (DEFLECTION_LIMITS, DISPLAY),
+)
+
+MATERIAL = TableSpec(
+    "material",
+    "a material that parts refer to by id",
+    (
+        Field("id", "id", required=True, help="short id the parts use"),
+        Field("name", "text", help="name printed in the report"),
+        Field("E", "stress", required=True, help="modulus of elasticity"),
+        Field("family", "choice", default="other", choices=FAMILIES, help="kind of material"),
+        Field("Fb", "stress", help="allowable (ASD) or design (LRFD) bending stress"),
+        Field("Fv", "stress", help="allowable or design shear stress"),
+        Field("Fy", "stress", help="yield stress (steel)"),
+        Field("Fu", "stress", help="tensile strength (steel)"),
+        Field("fc", "stress", help="specified compressive strength f'c (concrete)"),
+        Field("G", "number", minimum=0.2, maximum=1.2, help="specific gravity (wood, NDS Table 12.3.3A)"),
+        Field("density", "weight_density", help='weight (or mass) density, e.g. "35 pcf" or "500 kg/m^3"'),
+        Field("Fs", "stress", help="rolling shear of plywood (panel face glued to a flange)"),
+        Field("grade", "text", help="grade or species text printed in the report"),
+    ),
+    array=True,
+    required=True,
+)
+
+PART = TableSpec(
+    "part",
+    "one piece of the section, placed against a part listed before it",
+    (
+        Field("id", "id", required=True, help="short id that joints and placements refer to"),
+        Field("shape", "choice", required=True, choices=SHAPES, help="how the part's outline is given"),
+        Field("material", "text", required=True, help="id of a [[material]]"),
+        Field("label", "text", help="name printed in the report"),
+        Field("width", "length", help="width (rect, plate, rolled)"),
+        Field("depth", "length", help="depth (rect, rolled)"),
+        Field("thickness", "length", help="thickness (plate)"),
+        Field("upright", "bool", default=False, help="plate standing on edge (a web)"),
+        Field("size", "text", help='nominal lumber size, e.g. "2x10" (lumber)'),
+        Field("flat", "bool", default=False, help="lumber laid flat (default on edge)"),
+        Field("diameter", "length", help="diameter (bar)"),
+        Field("points", "points", help='outline as [x, y] points, e.g. [["0 in", "0 in"], ...] (polygon)'),
+        Field("area", "area", help="area (rolled)"),
+        Field("inertia", "inertia", help="moment of inertia about its own centroid (rolled)"),
+        Field("centroid", "length", help="height of the centroid above the bottom (rolled; default depth/2)"),
+        Field("designation", "text", help='designation printed in the report, e.g. "W12x26" (rolled)'),
+        Field("on", "text", help="id of the part this one sits on"),
+        Field("below", "text", help="id of the part this one hangs below"),
+        Field("left_of", "text", help="id of the part this one is left of"),
+        Field("right_of", "text", help="id of the part this one is right of"),
+        Field("at", "point", help='position of the lower left corner, e.g. ["0 in", "9.25 in"]'),
+        Field("align", "choice", choices=("centre", "left", "right", "bottom", "top"), help="alignment"),
+        Field("offset", "length", positive=False, help="shift along the face after aligning"),
+    ),
+    array=True,
+    required=True,
+)
+
+CONNECTOR = TableSpec(
+    "connector",
+    "the connector across the joint's shear plane; its keys depend on type",
+    required=True,
+    connector=True,
+)
+
+JOINT = TableSpec(
+    "joint",
+    "a shear plane between the held parts and the rest, and the connector across it",
+    (
+        Field("id", "id", required=True, help="short id"),
+        Field("holds", "ids", required=True, help="ids of the parts on one side of the shear plane"),
+        Field("per_row", "int", default=1, minimum=1, maximum=50, help="connectors in each row"),
+        Field("label", "text", help="name printed in the report"),
+        Field("width", "length", help="width of the shear plane (default: measured from the parts)"),
+        Field("spacing_max", "length", help="largest spacing allowed in this joint"),
+        Field("spacing_min", "length", help="smallest spacing allowed in this joint"),
+    ),
+    (CONNECTOR,),
+    array=True,
+)
+
+SUPPORT = TableSpec(
+    "support",
+    "a support (none given: a pin at each end)",
+    (
+        Field("at", "length", required=True, positive=False, help="position from the left end"),
+        Field("type", "choice", default="pin", choices=SUPPORT_TYPES, help="pin, roller or fixed"),
+    ),
+    array=True,
+)
+
+LOAD = TableSpec(
+    "load",
+    "a load along the member",
+    (
+        Field("id", "id", help="short id that lets a revision diff follow the load"),
+        Field("case", "text", required=True, help="D, L, Lr, S, R, W or a case name of the job's own"),
+        Field("kind", "choice", required=True, choices=LOAD_KINDS, help="uniform, point or linear"),
+        Field("label", "text", help="name printed in the report"),
+        Field("P", "force", positive=False, help="point load"),
+        Field("at", "length", positive=False, help="position of a point load"),
+        Field("w", "line_load", positive=False, help="uniform load"),
+        Field("w_start", "line_load", positive=False, help="linear load at its start"),
+        Field("w_end", "line_load", positive=False, help="linear load at its end"),
+        Field("from", "length", positive=False, help="start of a partial load (default: the left end)"),
+        Field("to", "length", positive=False, help="end of a partial load (default: the right end)"),
+    ),
+    array=True,
+)
+
+FACTORS = TableSpec(
+    "factors", "load factor per case, e.g. { D = 1.2, L = 1.6 }", required=True, free="number"
+)
+
+COMBINATION = TableSpec(
+    "combination",
+    "a load combination of the job's own (none given: ASCE 7-22 basic combinations)",
+    (
+        Field("name", "text", required=True, help="name printed in the report"),
+        Field("source", "text", help="where the combination comes from"),
+    ),
+    (FACTORS,),
+    array=True,
+)
+
+MEMBER = TableSpec(
+    "member",
+    "a built-up member: its parts, joints and either a design shear or loads along it",
+    (
+        Field("id", "id", required=True, help="short id"),
+        Field("title", "text", help="title printed in the report"),
+        Field("description", "text", help="description printed in the report"),
+        Field(
+            "reference_material",
+            "text",
+            help="material the section is transformed to (default: the first part's)",
+        ),
+        Field("shear", "force", positive=False, help="design shear V (instead of loads along the member)"),
+        Field("assumptions", "texts", help="design assumptions printed in the report"),
+        Field("notes", "texts", help="notes printed in the report"),
+        Field("span", "length", help="member length (with loads along it)"),
+        Field("self_weight", "bool", default=False, help="add the parts' weight as dead load D"),
+    ),
+    (PART, JOINT, SUPPORT, LOAD, COMBINATION),
+    array=True,
+    required=True,
+)
+
+ROOT = TableSpec(
+    "",
+    "a calcreport job file",
+    tables=(JOB, SETTINGS, MATERIAL, MEMBER),
+)
