@@ -91,9 +91,9 @@ def _cmd_new(args) -> int:
     return EXIT_OK
 
 
-def _common() -> argparse.ArgumentParser:
+def _common() -> _Parser:
     """Options every command takes."""
-    common = argparse.ArgumentParser(add_help=False)
+    common = _Parser(add_help=False)
     common.add_argument(
         "-q", "--quiet", action="store_true", help="print only errors (the exit code tells the outcome)"
     )

@@ -19,11 +19,16 @@ diff compares them.
 
 from __future__ import annotations
 
+from collections.abc import Mapping
 from dataclasses import dataclass, field
+from typing import Any, TypeVar
 
 from .units import Quantity
 
 Value = Quantity | float | int | str
+#: The type of a step's result: :meth:`StepLog.add` returns what it was given, so typed code keeps
+#: a Quantity a Quantity.
+R = TypeVar("R", bound=Value)
 
 __all__ = ["Step", "Value", "StepLog", "step"]
 
@@ -49,7 +54,7 @@ def step(
     label: str,
     symbol: str,
     template: str,
-    values: dict[str, Value],
+    values: Mapping[str, Any],
     result: Value,
     source: str = "",
     note: str = "",
@@ -86,13 +91,13 @@ class StepLog:
         label: str,
         symbol: str,
         template: str,
-        values: dict[str, Value],
-        result: Value,
+        values: Mapping[str, Any],
+        result: R,
         source: str = "",
         note: str = "",
         governs: bool = False,
         positions: tuple[str, ...] = (),
-    ) -> Value:
+    ) -> R:
         """Append a step keyed ``prefix.name`` and return its result (so code reads as math)."""
         self.steps.append(
             step(

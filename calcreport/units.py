@@ -10,6 +10,7 @@ from __future__ import annotations
 
 import re
 from functools import cache
+from typing import Any
 
 import pint
 
@@ -135,7 +136,7 @@ def parse(text: object, expected: str | None = None) -> Quantity:
                 "raised to a plain exponent from -12 to 12, like in^4)"
             )
     try:
-        q = Q_(norm)
+        q: Any = Q_(norm)
     except Exception as exc:  # pint raises several kinds; the message is ours
         raise UnitParseError(f"expected {what}, could not read {text!r} ({type(exc).__name__})") from None
     if not isinstance(q, pint.Quantity):

@@ -75,7 +75,8 @@ def build_one(task: Task) -> Outcome:
         from ..outputs.report.template import load_template
 
         tpl = load_template(r.job.settings.template, r.job.path)
-        keys, mark = frozenset(), ""
+        keys: frozenset[str] = frozenset()
+        mark = ""
         if task.since is not None:
             from ..review.revisions import revision_marks_since
 
@@ -83,7 +84,7 @@ def build_one(task: Task) -> Outcome:
             keys, mark = marks.changed_keys, marks.mark
         pdf = render_pdf(r, tpl, keys, mark)
     except JobError as exc:
-        return Outcome(task.job, EXIT_INVALID, _one_line(exc))
+        return Outcome(task.job, EXIT_INVALID, _one_line(str(exc)))
     except Exception as exc:  # a defect of ours: still one line, exit 2, nothing written
         return Outcome(
             task.job,

@@ -81,8 +81,9 @@ def output_paths(jobs: list[str], output: str | None, folder: bool = False) -> l
     """The PDF path of each job (see ``--output``; ``folder``: -o names a folder even for one job);
     raises ValueError for a clash or misuse."""
     stems = ["job" if j == "-" else Path(j).stem for j in jobs]
+    base: Path
     if output is None:
-        folder = Path("out")
+        base = Path("out")
     else:
         out = Path(output)
         is_folder = (
@@ -98,8 +99,8 @@ def output_paths(jobs: list[str], output: str | None, folder: bool = False) -> l
             if out.suffix.lower() != ".pdf":
                 raise ValueError(f"{output}: expected a .pdf file name or a folder ending in /")
             return [out]
-        folder = out
-    paths = [folder / f"{s}.pdf" for s in stems]
+        base = out
+    paths = [base / f"{s}.pdf" for s in stems]
     seen: dict[Path, str] = {}
     for job, p in zip(jobs, paths):
         if p in seen:

@@ -46,9 +46,9 @@ class LineIndex:
                 for k in range(1, len(current) + 1):  # a table first named by a sub-table header
                     self._lines.setdefault(current[:k], number)
                 continue
-            k = _KEY.match(raw)
-            if k:
-                self._lines.setdefault(current + tuple(_split_dotted(k.group(1))), number)
+            km = _KEY.match(raw)
+            if km:
+                self._lines.setdefault(current + tuple(_split_dotted(km.group(1))), number)
 
     def line(self, path: Path) -> int | None:
         """Line of ``path`` or of its nearest ancestor that has one; None if unknown."""

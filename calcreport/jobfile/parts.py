@@ -19,6 +19,7 @@ from __future__ import annotations
 
 import math
 from dataclasses import replace
+from typing import Literal, overload
 
 from ..keys import job as decl
 from ..model import Material, Part, Shape
@@ -38,6 +39,10 @@ MIN_DIMENSION = 1e-3
 _IN = "inch"
 
 
+@overload
+def _len(t: Table, name: str, required: Literal[True] = ...) -> float: ...
+@overload
+def _len(t: Table, name: str, required: bool) -> float | None: ...
 def _len(t: Table, name: str, required: bool = True) -> float | None:
     q = t.quantity(name, "length", required=required)
     if q is None:
@@ -160,9 +165,9 @@ def _place(t: Table, s: Shape, placed: dict[str, Part], first: bool) -> Shape:
         xy = t.raw("at")
         if not isinstance(xy, list) or len(xy) != 2:
             raise t.error("at", 'expected [x, y] like ["0 in", "9.25 in"]')
-        x = t.parse_quantity(("at", 0), xy[0], "length", positive=False)
-        y = t.parse_quantity(("at", 1), xy[1], "length", positive=False)
-        return _translate(s, float(x.to(_IN).magnitude), float(y.to(_IN).magnitude))
+        xq = t.parse_quantity(("at", 0), xy[0], "length", positive=False)
+        yq = t.parse_quantity(("at", 1), xy[1], "length", positive=False)
+        return _translate(s, float(xq.to(_IN).magnitude), float(yq.to(_IN).magnitude))
     ref_id = t.text(how)
     if ref_id not in placed:
         hint = f" (known so far: {', '.join(placed)})" if placed else ""

@@ -6,7 +6,7 @@ import difflib
 import math
 from collections.abc import Iterable
 from dataclasses import dataclass
-from typing import Any
+from typing import Any, Literal, overload
 
 from ..errors import JobError
 from ..fields import Field
@@ -106,6 +106,37 @@ class Table:
             raise self.error(name, f"expected lines of at most {MAX_TEXT} characters")
         return tuple(v)
 
+    @overload
+    def quantity(
+        self,
+        name: str,
+        dim: str,
+        required: Literal[True],
+        positive: bool = ...,
+        default: Quantity | None = ...,
+        allow_zero: bool = ...,
+    ) -> Quantity: ...
+    @overload
+    def quantity(
+        self,
+        name: str,
+        dim: str,
+        required: bool = ...,
+        positive: bool = ...,
+        *,
+        default: Quantity,
+        allow_zero: bool = ...,
+    ) -> Quantity: ...
+    @overload
+    def quantity(
+        self,
+        name: str,
+        dim: str,
+        required: bool = ...,
+        positive: bool = ...,
+        default: Quantity | None = ...,
+        allow_zero: bool = ...,
+    ) -> Quantity | None: ...
     def quantity(
         self,
         name: str,
@@ -137,6 +168,14 @@ class Table:
             )
         return q
 
+    @overload
+    def integer(
+        self, name: str, default: int, minimum: int = ..., maximum: int = ..., required: bool = ...
+    ) -> int: ...
+    @overload
+    def integer(
+        self, name: str, default: None = ..., minimum: int = ..., maximum: int = ..., required: bool = ...
+    ) -> int | None: ...
     def integer(
         self,
         name: str,
@@ -154,6 +193,34 @@ class Table:
             raise self.error(name, f"expected a whole number from {minimum} to {maximum}, got {v}")
         return v
 
+    @overload
+    def number(
+        self,
+        name: str,
+        default: float | None = ...,
+        *,
+        required: Literal[True],
+        minimum: float | None = ...,
+        maximum: float | None = ...,
+    ) -> float: ...
+    @overload
+    def number(
+        self,
+        name: str,
+        default: float,
+        required: bool = ...,
+        minimum: float | None = ...,
+        maximum: float | None = ...,
+    ) -> float: ...
+    @overload
+    def number(
+        self,
+        name: str,
+        default: None = ...,
+        required: bool = ...,
+        minimum: float | None = ...,
+        maximum: float | None = ...,
+    ) -> float | None: ...
     def number(
         self,
         name: str,
@@ -179,6 +246,29 @@ class Table:
             raise self.error(name, f"expected true or false, got {_kind(v)}")
         return v
 
+    @overload
+    def choice(
+        self, name: str, choices: Iterable[str], default: str, required: bool = ..., fold_case: bool = ...
+    ) -> str: ...
+    @overload
+    def choice(
+        self,
+        name: str,
+        choices: Iterable[str],
+        default: None = ...,
+        *,
+        required: Literal[True],
+        fold_case: bool = ...,
+    ) -> str: ...
+    @overload
+    def choice(
+        self,
+        name: str,
+        choices: Iterable[str],
+        default: None = ...,
+        required: bool = ...,
+        fold_case: bool = ...,
+    ) -> str | None: ...
     def choice(
         self,
         name: str,
@@ -199,6 +289,10 @@ class Table:
         hint = _suggest(v, choices)
         raise self.error(name, f"expected one of {', '.join(choices)}, got {v!r}{hint}")
 
+    @overload
+    def table(self, name: str, required: Literal[True]) -> Table: ...
+    @overload
+    def table(self, name: str, required: bool = ...) -> Table | None: ...
     def table(self, name: str, required: bool = False) -> Table | None:
         v = self.raw(name, required, "a table")
         if v is None:

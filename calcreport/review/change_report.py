@@ -184,7 +184,7 @@ class _Build:
                 a, b = value_pair(self.d, s.old.result, s.new.result)
                 if not s.result_changed:
                     a, b = f"{a}; {self.d.substituted(s.old)}", f"{b}; {self.d.substituted(s.new)}"
-            rows.append([self.mark(f"{ref.label} ({ref.symbol})") + [para(s.key, self.st.small)], a, b])
+            rows.append([self.mark(f"{ref.label} ({ref.symbol})") + [para(s.key, self.st.small)], a, b])  # type: ignore[union-attr]
         if not rows:
             return []
         return [

@@ -18,7 +18,7 @@ from __future__ import annotations
 import re
 from collections.abc import Iterable
 from dataclasses import dataclass
-from typing import Any
+from typing import Any, TypeGuard
 
 from ..model import Job
 from ..solve.results import Check, JobResult, JointResult, MemberResult
@@ -289,7 +289,7 @@ def same_input(a: Any, b: Any, rtol: float = INPUT_RTOL) -> bool:
     return type(a) is type(b) and a == b
 
 
-def _is_table_array(v: Any) -> bool:
+def _is_table_array(v: Any) -> TypeGuard[list[dict]]:
     return isinstance(v, list) and bool(v) and all(isinstance(x, dict) for x in v)
 
 

@@ -146,7 +146,7 @@ def _step_line(d: Display, c: StepChange) -> str:
     assert s is not None
     head = f"{c.key}  {s.label}  ({s.symbol})"
     if c.old is None:
-        return f"{head}: new step = {d.value(c.new.result)}"
+        return f"{head}: new step = {d.value(s.result)}"
     if c.new is None:
         return f"{head}: step no longer made (was {d.value(c.old.result)})"
     if not c.result_changed:
@@ -310,8 +310,8 @@ def diff_to_dict(diff: JobDiff) -> dict[str, Any]:
         "steps": [
             {
                 "key": s.key,
-                "label": (s.new or s.old).label,
-                "symbol": (s.new or s.old).symbol,
+                "label": (s.new or s.old).label,  # type: ignore[union-attr]  # one side exists
+                "symbol": (s.new or s.old).symbol,  # type: ignore[union-attr]
                 "result_changed": s.result_changed,
                 "old": _step(d, s.old),
                 "new": _step(d, s.new),

@@ -8,6 +8,7 @@ only here, when a PDF is read.
 from __future__ import annotations
 
 from dataclasses import dataclass
+from typing import Any
 
 from ..errors import JobError
 from ..outputs.pdfmeta import KEY_DOCUMENT, KEY_JOB_SHA256, KEY_VERSION
@@ -54,7 +55,7 @@ def read_stamp(pdf_path: str) -> PdfStamp:
     try:
         with open(pdf_path, "rb") as fh:
             reader = pypdf.PdfReader(fh)
-            info = reader.metadata or {}
+            info: Any = reader.metadata or {}
             sha = info.get("/" + KEY_JOB_SHA256)
             version = info.get("/" + KEY_VERSION)
             document = info.get("/" + KEY_DOCUMENT)

@@ -21,6 +21,7 @@ Everything here is float arithmetic in one consistent unit system chosen by the 
 
 from __future__ import annotations
 
+from collections.abc import Sequence
 from dataclasses import dataclass
 
 import numpy as np
@@ -80,7 +81,7 @@ def build_mesh(
     length: float,
     supports: list[FESupport],
     loads: list[FELoad],
-    extra: list[float] = (),
+    extra: Sequence[float] = (),
     divisions: int = 240,
 ) -> Mesh:
     """Nodes at ends, supports, load points/ends and ``extra`` points, refined so that no element

@@ -40,14 +40,15 @@ _ROOF = ("Lr", "S", "R")
 # entries are expanded; ``"ROOF"`` stands for (Lr or S or R). Factors from ASCE 7-22 §2.3.1
 # equations 1-5 and §2.4.1 equations 1-7 (combinations with earthquake load E are not included;
 # E is not a load case of this tool).
-_LRFD = [
+_Row = tuple[str, str, list[tuple[float | None, str]]]
+_LRFD: list[_Row] = [
     ("1", "D", [(1.4, "D")]),
     ("2", "L", [(1.2, "D"), (1.6, "L"), (0.5, "ROOF")]),
     ("3", "ROOF", [(1.2, "D"), (1.6, "ROOF"), (None, "L|0.5W")]),
     ("4", "W", [(1.2, "D"), (1.0, "W"), (1.0, "L"), (0.5, "ROOF")]),
     ("5", "W", [(0.9, "D"), (1.0, "W")]),
 ]
-_ASD = [
+_ASD: list[_Row] = [
     ("1", "D", [(1.0, "D")]),
     ("2", "L", [(1.0, "D"), (1.0, "L")]),
     ("3", "ROOF", [(1.0, "D"), (1.0, "ROOF")]),

@@ -7,6 +7,7 @@ section was found. Each returns a :class:`calcreport.solve.results.Check` and ap
 from __future__ import annotations
 
 from dataclasses import dataclass
+from typing import Any
 
 from ..steps import StepLog
 from ..units import Q_, Quantity  # noqa: F401 (Q_ is used in the examples)
@@ -161,7 +162,7 @@ def deflection_check(
     return Check(
         f"deflection.{name}",
         label,
-        abs(delta).to("inch"),
+        abs(delta).to("inch"),  # type: ignore[arg-type]  # pint types abs() as PlainQuantity
         allow,
         ratio,
         _status(ratio),
@@ -194,7 +195,8 @@ def deflection_checks(beam, limits: dict[str, float], log: StepLog | None = None
         else:
             continue
         for seg in beam.segments:
-            worst, label = None, ""
+            worst: Any = None
+            label = ""
             for factors, text in sets:
                 dl = beam.deflection_max(factors, seg.index)
                 if worst is None or dl > worst:

@@ -10,6 +10,7 @@ its zoned schedule.
 from __future__ import annotations
 
 from dataclasses import dataclass
+from typing import Any
 
 from ..model import Combination, Joint, Load, Member, Settings
 from ..steps import StepLog
@@ -65,7 +66,7 @@ def analyse_member(member: Member, section: SectionResult, settings: Settings, l
     loads = list(member.loads)
     sw = None
     if member.self_weight:
-        sw = self_weight([(pp.area, p.material.density) for pp, p in zip(section.parts, member.parts)], log)
+        sw = self_weight([(pp.area, p.material.density) for pp, p in zip(section.parts, member.parts)], log)  # type: ignore[misc]
         loads.append(Load("D", "uniform", sw, label="self-weight", key=f"member[{member.id}].self_weight"))
     cases = list(dict.fromkeys(ld.case for ld in loads))
     if member.combinations:
@@ -102,9 +103,10 @@ def analyse_member(member: Member, section: SectionResult, settings: Settings, l
     )
     from ..model import Support
 
-    supports = list(member.supports) or [Support(Q_(0.0, "inch")), Support(member.span)]
+    span: Any = member.span  # the reader requires a span with loads along the member
+    supports = list(member.supports) or [Support(Q_(0.0, "inch")), Support(span)]
     try:
-        beam = analyse(member.span, supports, loads, list(combos), EI=EI, log=log)
+        beam = analyse(span, supports, loads, list(combos), EI=EI, log=log)
     except BeamInputError as exc:
         raise _error(exc) from None
     env = beam.envelope

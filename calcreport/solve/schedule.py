@@ -18,6 +18,7 @@ shear flow (rounded down to the increment, capped by s_max) over the whole lengt
 from __future__ import annotations
 
 from dataclasses import dataclass
+from typing import Any
 
 import numpy as np
 
@@ -160,7 +161,7 @@ def zoned_schedule(
     )
     s1 = np.floor(min(nF / peak if peak > 0 else np.inf, smax) / inc * (1 + 1e-9) + 1e-9) * inc
     n_single = int(1 + np.ceil(L / s1 - 1e-9)) if s1 >= smin - 1e-9 and s1 > 0 else None
-    common = dict(
+    common: dict[str, Any] = dict(
         count_min=n_min,
         symmetric=False,
         zones_per_half=zones_per_half,

@@ -327,7 +327,8 @@ def _optimise(
         tot = 1 + fl[zl][:, None] + fr[K - zl][None, :] + cc
         j = int(np.argmin(tot))
         if tot.flat[j] < best - _EPS:
-            best, arg = float(tot.flat[j]), (zl, *np.unravel_index(j, tot.shape))
+            a, b = np.unravel_index(j, tot.shape)
+            best, arg = float(tot.flat[j]), (zl, int(a), int(b))
     if arg is None or not np.isfinite(best):
         return None
     zl, i, j = arg

@@ -9,6 +9,7 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass
+from typing import Any
 
 from ..model import Member, Part, Shape
 from ..steps import StepLog
@@ -219,7 +220,9 @@ def first_moment(section: SectionResult, held: tuple[str, ...], log: StepLog):
     The held parts lie on one side of the shear plane; the sign is dropped (Q is a magnitude).
     """
     by_id = {p.id: p for p in section.parts}
-    slots, terms, total = {}, [], None
+    slots: dict[str, Any] = {}
+    terms: list[str] = []
+    total: Any = None
     for i, pid in enumerate(held):
         p = by_id[pid]
         slots[f"nA{i + 1}"] = p.area_transformed

@@ -9,7 +9,7 @@ from __future__ import annotations
 
 from ...model import Member
 from ...solve.results import MemberResult
-from ...units import Q_
+from ...units import Q_, Quantity
 from .common import Ctx, grid, heading, marked_cell, para
 
 __all__ = ["description_story", "assumptions_story", "inputs_story", "ELASTIC_ASSUMPTIONS"]
@@ -25,7 +25,7 @@ ELASTIC_ASSUMPTIONS = (
 )
 
 
-def _inch(v: float) -> Q_:
+def _inch(v: float) -> Quantity:
     return Q_(v, "inch")
 
 
@@ -89,7 +89,7 @@ def _parts_table(member: Member, ctx: Ctx):
 
 def _materials_table(member: Member, ctx: Ctx):
     w = ctx.width
-    used = []
+    used: list = []
     for mat in [p.material for p in member.parts] + [member.reference_material]:
         if mat.id not in [u.id for u in used]:
             used.append(mat)

@@ -213,8 +213,8 @@ def zone_elevation(j: JointResult, member: Member, fmt_q, fmt_pos, fonts, width:
     dr = Drawing(width, 74)
     y0, h = 34.0, 16.0
     dr.add(Rect(left, y0, L * sx, h, strokeColor=INK, fillColor=colors.HexColor("#f3efe6"), strokeWidth=0.8))
-    for s in member.supports:
-        _support(dr, left + _inches(s.x) * sx, y0 - 1, s.kind)
+    for sup in member.supports:
+        _support(dr, left + _inches(sup.x) * sx, y0 - 1, sup.kind)
     for i, z in enumerate(sch.zones):
         a, b, s = _inches(z.start), _inches(z.end), _inches(z.spacing)
         col = colors.HexColor(PALETTE[i % 2 * 2])

@@ -43,7 +43,7 @@ def series_values(display: Display, values: Sequence[Quantity] | Quantity) -> tu
     """Quantities (a sequence or an array quantity) in the job's display unit, and that unit's symbol."""
     items = (
         list(values)
-        if not isinstance(values, Quantity) or getattr(values.magnitude, "shape", ())
+        if not isinstance(values, Quantity) or getattr(values.magnitude, "shape", None)
         else [values]
     )
     out, unit = [], ""
@@ -56,7 +56,7 @@ def series_values(display: Display, values: Sequence[Quantity] | Quantity) -> tu
 def positions(display: Display, values: Sequence[Quantity] | Quantity) -> tuple[list[float], str]:
     """Positions along the member for a chart's x axis: feet (US) or metres (SI), and the unit."""
     unit = "m" if display.system == "SI" else "ft"
-    if isinstance(values, Quantity) and getattr(values.magnitude, "shape", ()):
+    if isinstance(values, Quantity) and getattr(values.magnitude, "shape", None):
         return [float(v) for v in values.to(unit).magnitude], unit
     return [float(v.to(unit).magnitude) for v in values], unit
 

@@ -95,7 +95,7 @@ def _covered(font_name: str) -> frozenset[int]:
     return frozenset(getattr(font.face, "charToGlyph", {}).keys())
 
 
-def _clean(text: str) -> str:
+def _clean(text: object) -> str:
     """Drop control characters (keep tabs as spaces); NFC-normalise."""
     text = unicodedata.normalize("NFC", str(text))
     return "".join(

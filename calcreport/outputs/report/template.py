@@ -170,7 +170,7 @@ def read_template_file(path: Path, job_path: str) -> Template:
     return Template(
         name=path.name,
         page=size.lower(),
-        margins=tuple(margins),
+        margins=(margins[0], margins[1], margins[2], margins[3]),
         firm=name,
         address=tuple(address),
         logo=logo,

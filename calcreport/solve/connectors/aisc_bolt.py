@@ -192,9 +192,9 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
     hole = p.get("hole") or "standard"
     lst = hole == "long_slot_transverse"
     defl = bool(p.get("deformation_limited", True))
-    plies = [("held", th, held.material.Fu.to("ksi").magnitude, held.id)]
+    plies = [("held", th, held.material.Fu.to("ksi").magnitude, held.id)]  # type: ignore[union-attr]
     t_oth = to * (2 if planes == 2 else 1)
-    plies.append(("other", t_oth, other.material.Fu.to("ksi").magnitude, other.id))
+    plies.append(("other", t_oth, other.material.Fu.to("ksi").magnitude, other.id))  # type: ignore[union-attr]
     coef = 2.0 if lst else (2.4 if defl else 3.0)
     for which, t, Fu, pid in plies:
         rb = bearing_nominal(d, t, Fu, defl, lst)

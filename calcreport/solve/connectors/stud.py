@@ -75,9 +75,9 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
     stl = next((x for x in parts if x.material.family == "steel"), None)
     if conc is None and p.get("fc") is None:
         raise ConnectorError(f"{key}.fc", "expected fc (concrete f'c) or a concrete part in the joint")
-    fcq = _stress(p.get("fc"), None) or conc.material.fc
+    fcq = _stress(p.get("fc"), None) or conc.material.fc  # type: ignore[union-attr]  # conc given when fc is not
     if fcq is None:
-        raise ConnectorError(f"{key}.fc", f"expected fc: material {conc.material.id} has no fc")
+        raise ConnectorError(f"{key}.fc", f"expected fc: material {conc.material.id} has no fc")  # type: ignore[union-attr]
     fc = fcq.to("ksi").magnitude
     if p.get("wc") is not None:
         wcq, wsrc = p["wc"], "given for this connector"
