@@ -78,13 +78,11 @@ def _cmd_new(args) -> int:
         return EXIT_OK
     if dest.exists() and not args.force:
         return _fail(f"{dest}: already exists (use --force to overwrite)")
-    text = starter_text(args.kind)
-    tmp = dest.with_name(dest.name + ".tmp")
+    from .atomic import write_atomic
+
     try:
-        tmp.write_text(text, encoding="utf-8")
-        os.replace(tmp, dest)
+        write_atomic(starter_text(args.kind), dest)
     except OSError as exc:
-        tmp.unlink(missing_ok=True)
         return _fail(f"{dest}: cannot write the file ({exc.strerror or exc})")
     if not args.quiet:
         print(f"wrote {dest} — edit it, then run: calcreport check {dest}")

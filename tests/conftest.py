@@ -4,7 +4,6 @@ from __future__ import annotations
 
 import io
 import os
-import sys
 import textwrap
 from contextlib import redirect_stderr, redirect_stdout
 from pathlib import Path
@@ -19,7 +18,6 @@ if os.environ.get("CI"):
     hypothesis_settings.load_profile("ci")
 
 ROOT = Path(__file__).resolve().parent.parent
-sys.path.insert(0, str(ROOT))
 
 HEADER = """
 [job]

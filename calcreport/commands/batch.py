@@ -71,7 +71,8 @@ def build_one(task: Task) -> Outcome:
 
     try:
         r = solve_file(task.job)
-        from ..outputs.report.build import render_pdf, write_atomic
+        from ..atomic import write_atomic
+        from ..outputs.report.build import render_pdf
         from ..outputs.report.template import load_template
 
         tpl = load_template(r.job.settings.template, r.job.path)

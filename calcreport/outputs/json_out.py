@@ -12,6 +12,7 @@ from pathlib import Path
 from typing import Any
 
 from .. import __version__
+from ..atomic import write_atomic
 from ..solve.results import Check, JobResult, JointResult, MemberResult
 from ..steps import Step
 from ..units import Quantity
@@ -183,12 +184,4 @@ def write_results_json(result: JobResult, pdf_path: str | os.PathLike) -> Path:
     figures, no timestamps, only the job file's base name. A temporary file in the same folder is
     renamed over the target, so a reader never sees a half-written file.
     """
-    out = json_path_for(pdf_path)
-    tmp = out.with_name(f".{out.name}.{os.getpid()}.tmp")
-    try:
-        tmp.write_text(dumps(to_dict(result)), encoding="utf-8", newline="\n")
-        os.replace(tmp, out)
-    finally:
-        if tmp.exists():
-            tmp.unlink()
-    return out
+    return write_atomic(dumps(to_dict(result)), json_path_for(pdf_path))

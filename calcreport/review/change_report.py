@@ -17,8 +17,8 @@ from reportlab.pdfgen.canvas import Canvas
 from reportlab.platypus import Spacer
 
 from .. import __version__
+from ..atomic import write_atomic
 from ..outputs.pdfmeta import job_metadata, stamp
-from ..outputs.report.build import write_atomic
 from ..outputs.report.common import grid, heading, para
 from ..outputs.report.pages import MarginMark, PageInfo, ReportDoc
 from ..outputs.report.styles import make_styles, register_fonts

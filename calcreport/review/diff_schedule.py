@@ -71,10 +71,6 @@ class ScheduleChange:
     def key(self) -> str:
         return f"{self.owner}.schedule"
 
-    @property
-    def zones_changed(self) -> bool:
-        return "zones" in self.changed
-
 
 def is_zone_step(key: str) -> bool:
     """True for a per-zone schedule step (``member.RB1.joint.top-webs.schedule.zone.2``)."""

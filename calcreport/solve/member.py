@@ -167,7 +167,13 @@ def solve_joint(
     else:
         s_min = combine_limits(settings.spacing_min, joint.spacing_min, cap.spacing_min, pick=max)
         s_max = combine_limits(settings.spacing_max, joint.spacing_max, cap.spacing_max, pick=min)
-        res = discrete_spacing(q, joint.per_row, cap.value, settings.spacing_step, s_min, s_max, log)
+        own = cap.spacing_max is not None and s_max is not None and s_max == cap.spacing_max.to("inch")
+        src = (
+            (cap.limits_source or "detailing limit of the connector model")
+            if own
+            else "stated in the job file"
+        )
+        res = discrete_spacing(q, joint.per_row, cap.value, settings.spacing_step, s_min, s_max, log, src)
         cap_row = (joint.per_row * cap.value).to("lbf")
     schedule = None
     if beam is not None and not cap.continuous:

@@ -2,7 +2,7 @@
 
 from __future__ import annotations
 
-from dataclasses import dataclass, field
+from dataclasses import dataclass
 from typing import Any
 
 from ..model import Job, Member
@@ -159,4 +159,3 @@ class JobResult:
     job: Job
     members: tuple[MemberResult, ...]
     status: str
-    extra: dict[str, Any] = field(default_factory=dict)

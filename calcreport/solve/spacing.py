@@ -63,8 +63,10 @@ def discrete_spacing(
     s_min: Quantity | None,
     s_max: Quantity | None,
     log: StepLog,
+    limit_source: str = "detailing limit",
 ) -> SpacingResult:
-    """Required spacing s = n·F/q, practical spacing rounded down, limits applied.
+    """Required spacing s = n·F/q, practical spacing rounded down, limits applied; ``limit_source``
+    is cited where the maximum spacing caps the practical one.
 
     A practical spacing below ``s_min`` makes the joint NG (the connector cannot be placed that
     closely); the reason is stated. Source: equilibrium of a connector row (s·q = n·F); rounding
@@ -131,7 +133,7 @@ def discrete_spacing(
             "min({s}, {s_max})",
             {"s": rounded, "s_max": s_max},
             s_max.to("inch"),
-            source="detailing limit",
+            source=limit_source,
         )
     util = float((q * prov / nF).to(""))
     status = "OK"

@@ -13,7 +13,6 @@ import hashlib
 import io
 import os
 import re
-import tempfile
 import time
 from pathlib import Path
 
@@ -23,6 +22,7 @@ from reportlab.pdfgen.canvas import Canvas
 from reportlab.platypus import KeepTogether, PageBreak, Paragraph
 
 from ... import __version__
+from ...atomic import write_atomic
 from ...solve.results import JobResult
 from ..fmt import Display
 from ..pdfmeta import job_metadata
@@ -214,12 +214,6 @@ def render_pdf(
     return pdf
 
 
-def _umask() -> int:
-    mask = os.umask(0o022)
-    os.umask(mask)
-    return mask
-
-
 def build_pdf(
     result: JobResult,
     out_path: str | os.PathLike,
@@ -234,25 +228,3 @@ def build_pdf(
     """
     pdf = render_pdf(result, template, changed_keys, revision_mark)
     return write_atomic(pdf, out_path)
-
-
-def write_atomic(data: bytes, out_path: str | os.PathLike) -> Path:
-    """Write ``data`` through a temporary file in the same folder and ``os.replace``."""
-    out = Path(out_path)
-    folder = out.parent if str(out.parent) else Path(".")
-    folder.mkdir(parents=True, exist_ok=True)
-    fd, tmp = tempfile.mkstemp(prefix=f".{out.name}.", suffix=".tmp", dir=folder)
-    try:
-        with os.fdopen(fd, "wb") as fh:
-            fh.write(data)
-            fh.flush()
-            os.fsync(fh.fileno())
-        os.chmod(tmp, 0o666 & ~_umask())
-        os.replace(tmp, out)
-    except BaseException:
-        try:
-            os.unlink(tmp)
-        except OSError:
-            pass
-        raise
-    return out

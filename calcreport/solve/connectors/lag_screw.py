@@ -11,7 +11,7 @@ from ...keys.connectors import CONNECTOR_FIELDS
 from ...model import ConnectorSpec
 from ...steps import StepLog
 from ..results import Capacity
-from .nds_catalog import LAG_SCREWS, fyb_lag_screw
+from .nds_catalog import LAG_SCREWS, bending_yield
 from .nds_dowel import Fastener, design_dowel, screw_diameters
 
 KIND = "lag_screw"
@@ -27,10 +27,7 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
         p, key, LAG_SCREWS, size, '"1/2", "3/8", "5/8", "3/4"', "a lag screw diameter", threads_default=False
     )
     tip = p["tip_length"].to("in").magnitude if p.get("tip_length") is not None else D
-    if p.get("Fyb") is not None:
-        fyb, fsrc = p["Fyb"].to("psi").magnitude, "given for this connector"
-    else:
-        fyb, fsrc = fyb_lag_screw(D), "NDS-2018 Tables 12J/12K footnote, Fyb by diameter (from memory)"
+    fyb, fsrc = bending_yield("lag_screw", D, p.get("Fyb"))
     f = Fastener(
         "lag_screw",
         p.get("name") or "lag screw",

@@ -12,7 +12,7 @@ from ...model import ConnectorSpec
 from ...steps import StepLog
 from ..results import Capacity
 from . import ConnectorError
-from .nds_catalog import CATALOG_SOURCE, fyb_nail, nail, nail_names
+from .nds_catalog import CATALOG_SOURCE, bending_yield, nail, nail_names
 from .nds_dowel import Fastener, design_dowel
 
 KIND = "nail"
@@ -39,10 +39,7 @@ def fastener(p: dict, key: str) -> Fastener:
         desc, src = p.get("name") or "nail", "job file"
     else:
         raise ConnectorError(f"{key}.size", 'expected size (e.g. "16d common") or both diameter and length')
-    if p.get("Fyb") is not None:
-        fyb, fsrc = p["Fyb"].to("psi").magnitude, "given for this connector"
-    else:
-        fyb, fsrc = fyb_nail(D), "NDS-2018 nail tables (12N-12R) footnote, Fyb by diameter (from memory)"
+    fyb, fsrc = bending_yield("nail", D, p.get("Fyb"))
     return Fastener("nail", desc, D, D, L, fyb, fsrc, min_pen=6.0, dy_note=f"shank diameter ({src})")
 
 

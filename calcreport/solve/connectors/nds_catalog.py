@@ -25,6 +25,7 @@ __all__ = [
     "fyb_wood_screw",
     "fyb_lag_screw",
     "FYB_BOLT",
+    "bending_yield",
     "CATALOG_SOURCE",
 ]
 
@@ -272,3 +273,20 @@ def fyb_lag_screw(D: float) -> float:
 #: Bending yield strength assumed for bolts. Source: NDS 2018 Tables 12A-12I footnote
 #: (Fyb = 45,000 psi), from memory.
 FYB_BOLT = 45_000.0
+
+#: Fastener kind → default Fyb by diameter D (in) and the clause the step cites.
+_FYB_DEFAULTS = {
+    "nail": (fyb_nail, "NDS-2018 nail tables (12N-12R) footnote, Fyb by diameter"),
+    "wood_screw": (fyb_wood_screw, "NDS-2018 Table 12L footnote, Fyb by diameter"),
+    "lag_screw": (fyb_lag_screw, "NDS-2018 Tables 12J/12K footnote, Fyb by diameter"),
+    "wood_bolt": (lambda D: FYB_BOLT, "NDS-2018 bolt tables (12A-12I) footnote, Fyb = 45,000 psi"),
+}
+
+
+def bending_yield(kind: str, D: float, given) -> tuple[float, str]:
+    """Bending yield strength Fyb (psi) of a dowel fastener and where it comes from: the value the
+    job gives (a quantity, or None), else the NDS 2018 default for ``kind`` by diameter ``D`` (in)."""
+    if given is not None:
+        return float(given.to("psi").magnitude), "given for this connector"
+    look_up, source = _FYB_DEFAULTS[kind]
+    return look_up(D), source

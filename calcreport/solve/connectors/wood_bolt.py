@@ -11,7 +11,7 @@ from ...model import ConnectorSpec
 from ...steps import StepLog
 from ..results import Capacity
 from . import ConnectorError
-from .nds_catalog import FYB_BOLT
+from .nds_catalog import bending_yield
 from .nds_dowel import Fastener, design_dowel
 
 KIND = "wood_bolt"
@@ -27,9 +27,6 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
             f"{ctx.key}.connector.diameter",
             "expected a bolt diameter from 1/4 in to 1 in (NDS-2018 §12.3 yield equations)",
         )
-    if p.get("Fyb") is not None:
-        fyb, fsrc = p["Fyb"].to("psi").magnitude, "given for this connector"
-    else:
-        fyb, fsrc = FYB_BOLT, "NDS-2018 bolt tables (12A-12I) footnote, Fyb = 45,000 psi (from memory)"
+    fyb, fsrc = bending_yield("wood_bolt", D, p.get("Fyb"))
     f = Fastener("bolt", p.get("name") or "bolt in wood", D, D, None, fyb, fsrc)
     return design_dowel(spec, ctx, log, f)

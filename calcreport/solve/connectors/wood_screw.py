@@ -11,7 +11,7 @@ from ...keys.connectors import CONNECTOR_FIELDS
 from ...model import ConnectorSpec
 from ...steps import StepLog
 from ..results import Capacity
-from .nds_catalog import WOOD_SCREWS, fyb_wood_screw
+from .nds_catalog import WOOD_SCREWS, bending_yield
 from .nds_dowel import Fastener, design_dowel, screw_diameters
 
 KIND = "wood_screw"
@@ -26,10 +26,7 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
     D, Dr, Dy, threads, dy_note = screw_diameters(
         p, key, WOOD_SCREWS, size, '"10g", "8g", "12g", "14g"', "a wood screw gauge", threads_default=True
     )
-    if p.get("Fyb") is not None:
-        fyb, fsrc = p["Fyb"].to("psi").magnitude, "given for this connector"
-    else:
-        fyb, fsrc = fyb_wood_screw(D), "NDS-2018 Table 12L footnote, Fyb by diameter (from memory)"
+    fyb, fsrc = bending_yield("wood_screw", D, p.get("Fyb"))
     f = Fastener(
         "wood_screw",
         p.get("name") or "wood screw",
