@@ -31,6 +31,8 @@ def _cmd_diff(args) -> int:
     from ..review.diff import compute_diff
     from ..review.diff_text import diff_to_dict, render_diff
 
+    if args.jobs.count("-") > 1:
+        return _fail("calcreport diff: error: standard input (-) can be read only once (see --help)")
     if args.since is not None and len(args.jobs) != 1:
         return _fail("calcreport diff: error: with --since give exactly one JOB.toml (see --help)")
     if args.since is None and len(args.jobs) != 2:

@@ -35,11 +35,12 @@ def job_metadata(job_sha256: str, document: str, base_sha256: str = "") -> dict[
 def stamp(canvas, entries: Mapping[str, str]) -> None:
     """Add ``entries`` (names without the leading slash) to the info dictionary of ``canvas``.
 
-    Works for a bare :class:`reportlab.pdfgen.canvas.Canvas` and for the canvas a platypus
-    document template passes to its page callbacks (call it from ``onFirstPage``).
+    The one stamper of calcreport's documents (calculation report and change report). Works for a
+    bare :class:`reportlab.pdfgen.canvas.Canvas` and for the canvas a platypus document template
+    passes to its page callbacks; the standard entries (title, author …) set before or after are
+    kept. The dictionary is written in a fixed order, so the same document gives the same bytes.
     """
-    from reportlab.pdfbase.pdfdoc import PDFInfo, PDFName, PDFString
-    from reportlab.pdfbase.pdfdoc import format as pdf_format
+    from reportlab.pdfbase.pdfdoc import PDFDate, PDFDictionary, PDFInfo, PDFName, PDFString
 
     for name in entries:
         if not name or not name.isalnum():
@@ -49,20 +50,27 @@ def stamp(canvas, entries: Mapping[str, str]) -> None:
     extra = dict(getattr(current, "calcreport_extra", {}))
     extra.update(entries)
 
-    class _Info(type(current) if isinstance(current, PDFInfo) else PDFInfo):  # type: ignore[misc]
-        calcreport_extra = extra
+    class _Info(PDFInfo):
+        calcreport_extra: dict[str, str] = {}
 
         def format(self, document):
-            text = super().format(document)
-            end = text.rstrip().rfind(b">>")
-            if end < 0:  # not a dictionary: leave it alone rather than write a broken file
-                return text
-            add = b"".join(
-                b"\n" + pdf_format(PDFName(k), document) + b" " + pdf_format(PDFString(v), document)
-                for k, v in sorted(self.calcreport_extra.items())
+            D = {
+                "Title": PDFString(self.title),
+                "Author": PDFString(self.author),
+                "Subject": PDFString(self.subject),
+                "Keywords": PDFString(self.keywords),
+                "Creator": PDFString(self.creator),
+                "Producer": PDFString(self.producer),
+                "Trapped": PDFName(self.trapped),
+            }
+            D["ModDate"] = D["CreationDate"] = PDFDate(
+                ts=document._timeStamp, dateFormatter=self._dateFormatter
             )
-            return text[:end] + add + b"\n" + text[end:]
+            for k, v in self.calcreport_extra.items():
+                D[k] = PDFString(v)
+            return PDFDictionary(D).format(document)
 
     info = _Info()
     info.__dict__.update(current.__dict__)
+    info.calcreport_extra = extra
     doc.info = info

@@ -17,7 +17,6 @@ import time
 from pathlib import Path
 
 from reportlab.lib.utils import TimeStamp
-from reportlab.pdfbase.pdfdoc import PDFDate, PDFDictionary, PDFInfo, PDFName, PDFString
 from reportlab.pdfgen.canvas import Canvas
 from reportlab.platypus import KeepTogether, PageBreak, Paragraph
 
@@ -26,6 +25,7 @@ from ...atomic import write_atomic
 from ...solve.results import JobResult
 from ..fmt import Display
 from ..pdfmeta import job_metadata
+from ..pdfmeta import stamp as stamp_info
 from .common import Ctx, para
 from .cover import cover_story
 from .derivations import derivation_story
@@ -39,27 +39,6 @@ from .styles import esc, make_styles, register_fonts
 from .template import Template, load_template
 
 __all__ = ["build_pdf", "render_pdf", "write_atomic", "report_sections"]
-
-
-class _Info(PDFInfo):
-    """Document information with our custom entries (read back by ``calcreport verify``)."""
-
-    extra: dict[str, str] = {}
-
-    def format(self, document):
-        D = {
-            "Title": PDFString(self.title),
-            "Author": PDFString(self.author),
-            "Subject": PDFString(self.subject),
-            "Keywords": PDFString(self.keywords),
-            "Creator": PDFString(self.creator),
-            "Producer": PDFString(self.producer),
-            "Trapped": PDFName(self.trapped),
-        }
-        D["ModDate"] = D["CreationDate"] = PDFDate(ts=document._timeStamp, dateFormatter=self._dateFormatter)
-        for k, v in self.extra.items():
-            D[k] = PDFString(v)
-        return PDFDictionary(D).format(document)
 
 
 def _timestamp(job_date: str) -> TimeStamp:
@@ -91,10 +70,8 @@ def _canvasmaker(extra: dict[str, str], stamp: TimeStamp):
         def __init__(self, *a, **kw):
             kw["invariant"] = 1
             super().__init__(*a, **kw)
-            info = _Info()
-            info.extra = dict(extra)
-            info.invariant = 1
-            self._doc.info = info
+            stamp_info(self, extra)  # our entries, read back by `calcreport verify`
+            self._doc.info.invariant = 1
             self._doc._timeStamp = stamp
             sig = self._doc.signature = hashlib.md5(usedforsecurity=False)  # file id from our date only
             sig.update(b"a reportlab document")
