@@ -25,8 +25,8 @@ test: $(STAMP)
 	$(BIN)/python -m pytest
 
 lint: $(STAMP)
-	$(BIN)/ruff check calcreport tests benchmarks
-	$(BIN)/ruff format --check calcreport tests benchmarks
+	$(BIN)/ruff check calcreport tests benchmarks tools
+	$(BIN)/ruff format --check calcreport tests benchmarks tools
 	$(BIN)/mypy
 
 schema: $(STAMP)
