@@ -119,7 +119,11 @@ def build_parser() -> argparse.ArgumentParser:
         parents=[common],
     )
     c.add_argument("jobs", nargs="+", metavar="JOB.toml", help="job files; - reads one from standard input")
-    c.add_argument("--json", action="store_true", help="print results as JSON (its JSON Schema: calcreport schema --results)")
+    c.add_argument(
+        "--json",
+        action="store_true",
+        help="print results as JSON (its JSON Schema: calcreport schema --results)",
+    )
     c.set_defaults(func=_cmd_check)
     n = sub.add_parser(
         "new",
