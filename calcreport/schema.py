@@ -24,9 +24,9 @@ RESULTS_SCHEMA_ID = "calcreport-results.schema.json"
 DRAFT = "https://json-schema.org/draft/2020-12/schema"
 
 _DIMENSION_EXAMPLES = {
-    "length": '"3.5 in", "89 mm", "11 ft 2 in"',
+    "length": '"3.5 in", "1-1/2 in", "89 mm"',
     "force": '"4.2 kip", "18 kN"',
-    "stress": '"1,600 psi", "11 MPa"',
+    "stress": '"1600 psi", "11 MPa"',
     "line_load": '"250 plf", "3.6 kN/m"',
     "area": '"16.9 in^2"',
     "inertia": '"204 in^4"',

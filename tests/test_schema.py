@@ -80,3 +80,13 @@ def test_schema_command_prints_both(capsys):
     assert json.loads(capsys.readouterr().out)["$id"] == job_schema()["$id"]
     assert main(["schema", "--results"]) == 0
     assert "results" in json.loads(capsys.readouterr().out)["title"]
+
+
+def test_unit_examples_in_the_schema_are_read_by_the_tool():
+    """Every example a key description offers is accepted by the reader's unit parser."""
+    from calcreport.schema import _DIMENSION_EXAMPLES
+    from calcreport.units import parse
+
+    for dim, examples in _DIMENSION_EXAMPLES.items():
+        for example in examples.split(", "):
+            assert parse(example.strip('"'), dim) is not None, (dim, example)
