@@ -40,11 +40,17 @@ HIGHLIGHT = colors.HexColor("#fff0a0")
 MAX_PASSES = 4
 
 
-def _canvas_class(entries: dict[str, str]):
+def _canvas_class(entries: dict[str, str], job_date: str = ""):
+    from .report.epoch import reportlab_epoch, timestamp
+
+    stamp_time = timestamp(job_date)  # the new revision's date in UTC (see report/epoch.py)
+
     class _ChangeCanvas(Canvas):
         def __init__(self, *a, **kw):
             kw["invariant"] = 1
-            super().__init__(*a, **kw)
+            with reportlab_epoch(int(stamp_time.t)):  # reportlab reads SOURCE_DATE_EPOCH itself
+                super().__init__(*a, **kw)
+            self._doc._timeStamp = stamp_time
             self.setCreator(f"calcreport {__version__}")
             stamp(self, entries)
 
@@ -227,7 +233,7 @@ def render_change_report(diff: JobDiff) -> bytes:
     info = _page_info(diff, tpl)
     info.sections = {}
     h = job.header
-    maker = _canvas_class(job_metadata(job.sha256, "change report", diff.old.job.sha256))
+    maker = _canvas_class(job_metadata(job.sha256, "change report", diff.old.job.sha256), h.date)
     pdf = b""
     for _ in range(MAX_PASSES):
         buf = io.BytesIO()

@@ -30,6 +30,13 @@ def _cmd_diff(args) -> int:
     from .diff_text import diff_to_dict, render_diff
     from .json_out import dumps
 
+    if args.pdf:
+        from .report.epoch import EpochError, source_date_epoch
+
+        try:
+            source_date_epoch()  # the change report's date; refused before anything is read
+        except EpochError as exc:
+            return _fail(f"calcreport diff: {exc}")
     if args.since is not None and len(args.jobs) != 1:
         return _fail("calcreport diff: error: with --since give exactly one JOB.toml (see --help)")
     if args.since is None and len(args.jobs) != 2:

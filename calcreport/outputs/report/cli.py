@@ -104,11 +104,13 @@ def output_paths(jobs: list[str], output: str | None, folder: bool = False) -> l
 
 def cmd_build(args) -> int:
     from .batch import Task, default_workers, expand_jobs, run_jobs
+    from .epoch import EpochError, source_date_epoch
 
     try:
+        source_date_epoch()  # a malformed value is refused once, before any job is built
         jobs = expand_jobs(args.jobs)
         paths = output_paths(jobs, args.output, folder=any(os.path.isdir(j) for j in args.jobs))
-    except ValueError as exc:
+    except (ValueError, EpochError) as exc:
         print(f"calcreport build: {exc}", file=sys.stderr)
         return EXIT_INVALID
     tasks = [Task(j, p, args.since, args.json) for j, p in zip(jobs, paths)]
