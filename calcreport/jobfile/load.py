@@ -7,7 +7,6 @@ where known, and what was expected.
 from __future__ import annotations
 
 import hashlib
-import os
 
 try:
     import tomllib
@@ -42,18 +41,13 @@ FAMILIES = ("wood", "plywood", "glulam", "steel", "concrete", "aluminum", "other
 
 
 def load_job(path: str) -> Job:
-    """Read and validate the job file at ``path``."""
+    """Read and validate the job file at ``path`` (a regular file of at most MAX_FILE_BYTES)."""
+    from ..safeio import FileRefused, read_regular
+
     try:
-        size = os.path.getsize(path)
-    except OSError as exc:
-        raise JobError(path, "", f"cannot read the file ({exc.strerror or exc})") from None
-    if size > MAX_FILE_BYTES:
-        raise JobError(path, "", f"file is {size:,} bytes; a job file may have at most {MAX_FILE_BYTES:,}")
-    try:
-        with open(path, "rb") as fh:
-            data = fh.read()
-    except OSError as exc:
-        raise JobError(path, "", f"cannot read the file ({exc.strerror or exc})") from None
+        data = read_regular(path, MAX_FILE_BYTES, "a job file")
+    except FileRefused as exc:
+        raise JobError(path, "", str(exc)) from None
     return load_text(data, path)
 
 

@@ -55,16 +55,12 @@ def side_from_bytes(data: bytes, label: str) -> Side:
 
 
 def _read(path: str) -> bytes:
+    from ..safeio import FileRefused, read_regular
+
     try:
-        size = os.path.getsize(path)
-        if size > MAX_FILE_BYTES:
-            raise JobError(
-                path, "", f"file is {size:,} bytes; a job file may have at most {MAX_FILE_BYTES:,}"
-            )
-        with open(path, "rb") as fh:
-            return fh.read()
-    except OSError as exc:
-        raise JobError(path, "", f"cannot read the file ({exc.strerror or exc})") from None
+        return read_regular(path, MAX_FILE_BYTES, "a job file")
+    except FileRefused as exc:
+        raise JobError(path, "", str(exc)) from None
 
 
 def side_from_file(path: str) -> Side:

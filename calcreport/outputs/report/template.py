@@ -115,12 +115,16 @@ def read_template_file(path: Path, job_path: str) -> Template:
         where = f"{path.name}: {key}: " if key else f"{path.name}: "
         return JobError(job_path, _KEY, where + msg)
 
+    from ...safeio import FileRefused, read_regular
+
     try:
-        if path.stat().st_size > MAX_TEMPLATE_BYTES:
-            raise fail("", f"template file larger than {MAX_TEMPLATE_BYTES:,} bytes")
-        doc = tomllib.loads(path.read_bytes().decode("utf-8"))
-    except (OSError, UnicodeDecodeError) as exc:
-        raise fail("", f"cannot read the template ({exc})") from None
+        doc = tomllib.loads(read_regular(path, MAX_TEMPLATE_BYTES, "a report template").decode("utf-8"))
+    except FileRefused as exc:
+        raise fail("", str(exc)) from None
+    except UnicodeDecodeError as exc:
+        raise fail(
+            "", f"cannot read the template (expected UTF-8 text, bad byte at offset {exc.start})"
+        ) from None
     except tomllib.TOMLDecodeError as exc:
         raise fail("", f"TOML syntax error: {exc}") from None
     known = {"page", "firm", "style"}
