@@ -74,8 +74,9 @@ class Table:
         v = self.raw(name, required, "text")
         if v is None:
             return default
-        if isinstance(v, (int, float)) and not isinstance(v, bool):
-            v = str(v)
+        if isinstance(v, (int, float)) and not isinstance(v, bool):  # not read back as written
+            shown = repr(v) if isinstance(v, int) or math.isfinite(v) else "…"
+            raise self.error(name, f'expected text in quotes (like {name} = "{shown}"), got {_kind(v)}')
         if not isinstance(v, str):
             raise self.error(name, f"expected text, got {_kind(v)}")
         if len(v) > MAX_TEXT:
@@ -167,6 +168,8 @@ class Table:
             return default
         if isinstance(v, bool) or not isinstance(v, (int, float)) or not math.isfinite(v):
             raise self.error(name, f"expected a plain number, got {_kind(v)}")
+        if v != 0 and abs(v) < 2.2250738585072014e-308:  # subnormal: digits already lost
+            raise self.error(name, f"expected a plain number, got {_kind(v)} (too small to hold exactly)")
         if (minimum is not None and v < minimum) or (maximum is not None and v > maximum):
             raise self.error(name, f"expected a number from {minimum} to {maximum}, got {v}")
         return float(v)
