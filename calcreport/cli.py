@@ -156,8 +156,8 @@ def main(argv: list[str] | None = None) -> int:
     args = parser.parse_args(argv)
     try:
         return args.func(args)
-    except KeyboardInterrupt:
-        return _fail("interrupted")
+    except KeyboardInterrupt as exc:  # also SIGTERM during a build (safewrite.Terminated)
+        return _fail(f"calcreport: {exc}" if str(exc) else "interrupted")
     except BrokenPipeError:
         return EXIT_OK
 

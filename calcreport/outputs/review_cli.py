@@ -54,10 +54,12 @@ def _cmd_diff(args) -> int:
         return _fail(str(exc))
     diff = compute_diff(old, new)
     if args.pdf:
+        from ..safewrite import termination_handled
         from .change_report import write_change_report
 
         try:
-            write_change_report(diff, args.pdf)
+            with termination_handled():  # SIGTERM/SIGINT: the temporary file is removed
+                write_change_report(diff, args.pdf)
         except JobError as exc:  # the new job's report template
             return _fail(str(exc))
         except OSError as exc:

@@ -12,7 +12,6 @@ from __future__ import annotations
 import hashlib
 import io
 import os
-import tempfile
 from pathlib import Path
 
 from reportlab.lib.utils import TimeStamp
@@ -196,12 +195,6 @@ def render_pdf(
     return pdf
 
 
-def _umask() -> int:
-    mask = os.umask(0o022)
-    os.umask(mask)
-    return mask
-
-
 def build_pdf(
     result: JobResult,
     out_path: str | os.PathLike,
@@ -219,22 +212,8 @@ def build_pdf(
 
 
 def write_atomic(data: bytes, out_path: str | os.PathLike) -> Path:
-    """Write ``data`` through a temporary file in the same folder and ``os.replace``."""
-    out = Path(out_path)
-    folder = out.parent if str(out.parent) else Path(".")
-    folder.mkdir(parents=True, exist_ok=True)
-    fd, tmp = tempfile.mkstemp(prefix=f".{out.name}.", suffix=".tmp", dir=folder)
-    try:
-        with os.fdopen(fd, "wb") as fh:
-            fh.write(data)
-            fh.flush()
-            os.fsync(fh.fileno())
-        os.chmod(tmp, 0o666 & ~_umask())
-        os.replace(tmp, out)
-    except BaseException:
-        try:
-            os.unlink(tmp)
-        except OSError:
-            pass
-        raise
-    return out
+    """Write ``data`` through a temporary file in the same folder and ``os.replace``
+    (:func:`calcreport.safewrite.write_set`, which also clears stale temporary files of ours)."""
+    from ...safewrite import write_set
+
+    return write_set([(out_path, data)])[0]

@@ -56,6 +56,14 @@ def register(sub) -> None:
         action="store_true",
         help="also write the results JSON beside each PDF (same name, .json; stable for git)",
     )
+    b.add_argument(
+        "--timeout",
+        type=_seconds,
+        metavar="SECONDS",
+        default=None,
+        help="stop a job that takes longer than SECONDS (each job then runs in its own process); "
+        "it fails with one line, the other jobs go on",
+    )
     b.set_defaults(func=cmd_build)
 
 
@@ -69,6 +77,19 @@ def _workers(text: str) -> int:
     if not 1 <= n <= 256:
         raise argparse.ArgumentTypeError(f"expected a number of processes from 1 to 256, got {text!r}")
     return n
+
+
+def _seconds(text: str) -> float:
+    import argparse
+    import math
+
+    try:
+        t = float(text)
+    except ValueError:
+        t = math.nan
+    if not (math.isfinite(t) and 0.1 <= t <= 86_400):
+        raise argparse.ArgumentTypeError(f"expected a time limit in seconds from 0.1 to 86400, got {text!r}")
+    return t
 
 
 def output_paths(jobs: list[str], output: str | None, folder: bool = False) -> list[Path]:
@@ -115,7 +136,10 @@ def cmd_build(args) -> int:
         return EXIT_INVALID
     tasks = [Task(j, p, args.since, args.json) for j, p in zip(jobs, paths)]
     workers = args.workers or default_workers()
-    outcomes = run_jobs(tasks, workers)
+    from ...safewrite import termination_handled
+
+    with termination_handled():  # SIGTERM/SIGINT: temporary files removed, children stopped
+        outcomes = run_jobs(tasks, workers, timeout=getattr(args, "timeout", None))
     failed = [o for o in outcomes if o.code == EXIT_INVALID]
     for o in outcomes:
         if o.code != EXIT_INVALID:
