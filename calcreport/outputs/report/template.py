@@ -235,17 +235,14 @@ def _file(template: Path, value, key: str, fail, exts: tuple[str, ...], max_byte
 
 
 def _check_image(p: Path, fail) -> None:
-    head = p.read_bytes()[:8]
-    if not (head.startswith(b"\x89PNG\r\n\x1a\n") or head.startswith(b"\xff\xd8\xff")):
-        raise fail("firm.logo", f"expected a PNG or JPEG image; {p.name} is neither")
-    try:
-        from reportlab.lib.utils import ImageReader
+    """Pixel dimensions from the header first (:mod:`.image_guard`), then a guarded decode."""
+    from ...safeio import FileRefused
+    from .image_guard import ImageRefused, checked_image
 
-        w, h = ImageReader(str(p)).getSize()
-    except Exception as exc:  # reportlab/PIL raise many kinds for broken images
-        raise fail("firm.logo", f"cannot read the image ({type(exc).__name__})") from None
-    if w <= 0 or h <= 0:
-        raise fail("firm.logo", "image has no size")
+    try:
+        checked_image(p)
+    except (ImageRefused, FileRefused) as exc:
+        raise fail("firm.logo", f"{p.name}: {exc}") from None
 
 
 def _check_font(p: Path, key: str, fail) -> None:
