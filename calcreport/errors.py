@@ -2,7 +2,9 @@
 
 from __future__ import annotations
 
-__all__ = ["JobError", "UsageError", "one_line"]
+__all__ = ["JobError", "UsageError", "one_line", "excerpt", "EXCERPT_CHARS"]
+
+EXCERPT_CHARS = 80
 
 
 class JobError(Exception):
@@ -17,7 +19,8 @@ class JobError(Exception):
 
     def __str__(self) -> str:
         where = f"{self.path}:{self.line}" if self.line else self.path
-        key = f" {self.key}:" if self.key else ""
+        shown = self.key if len(self.key) <= 2 * EXCERPT_CHARS else self.key[: 2 * EXCERPT_CHARS - 1] + "…"
+        key = f" {shown}:" if self.key else ""
         return one_line(f"{where}:{key} {self.message}")
 
 
@@ -25,6 +28,13 @@ def one_line(text: str) -> str:
     """``text`` with control and line-breaking characters shown as escapes, so that a message
     quoting the job file stays on one line."""
     return "".join(c if (c.isprintable() or c == " ") else repr(c)[1:-1] for c in text)
+
+
+def excerpt(value: object, limit: int = EXCERPT_CHARS) -> str:
+    """A value quoted in an error line: its repr, on one line, cut to about ``limit`` characters
+    with "…" — so a message never carries a long text (or another file's content) whole."""
+    text = one_line(repr(value))
+    return text if len(text) <= limit else text[: max(8, limit - 1)] + "…"
 
 
 class UsageError(Exception):

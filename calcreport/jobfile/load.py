@@ -13,7 +13,7 @@ try:
 except ModuleNotFoundError:  # Python < 3.11
     import tomli as tomllib  # type: ignore[no-redef]
 
-from ..errors import JobError
+from ..errors import JobError, excerpt
 from ..geometry import contact_segments, isolated_parts, overlapping_pairs
 from ..model import ConnectorSpec, Header, Job, Joint, Material, Member, Part, RevisionEntry, Settings
 from ..solve import connectors
@@ -215,7 +215,7 @@ def _member(t: Table, materials: dict[str, Material], settings: Settings) -> Mem
     ref_id = t.text("reference_material", default=parts[0].material.id)
     if ref_id not in materials:
         raise t.error(
-            "reference_material", f"expected a material id ({', '.join(materials)}), got {ref_id!r}"
+            "reference_material", f"expected a material id ({', '.join(materials)}), got {excerpt(ref_id)}"
         )
     shear = t.quantity("shear", "force", allow_zero=True)
     joints = tuple(_joints(t, placed))
@@ -255,7 +255,7 @@ def _joints(t: Table, parts: dict[str, Part]):
             raise jt.error("holds", 'expected a list of part ids, like ["top_flange"]')
         for h in holds:
             if h not in parts:
-                raise jt.error("holds", f"expected part ids ({', '.join(parts)}), got unknown {h!r}")
+                raise jt.error("holds", f"expected part ids ({', '.join(parts)}), got unknown {excerpt(h)}")
         if len(set(holds)) == len(parts):
             raise jt.error(
                 "holds",

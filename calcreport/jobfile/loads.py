@@ -26,6 +26,7 @@ from __future__ import annotations
 
 from dataclasses import replace
 
+from ..errors import excerpt
 from ..model import Combination, Load, Member, Settings, Support
 from ..solve.combinations import STANDARD_CASES
 from ..units import Q_
@@ -138,7 +139,7 @@ def _case(t: Table) -> str:
         raise t.error(
             "case",
             f"expected a load case name (D, L, Lr, S, R, W or a short name of "
-            f"letters and digits), got {t.data['case']!r}",
+            f"letters and digits), got {excerpt(t.data['case'])}",
         )
     for std in STANDARD_CASES:
         if case.lower() == std.lower():
@@ -191,7 +192,8 @@ def _combination(t: Table, cases: set[str]) -> Combination:
         f = ft.number(raw, required=True, minimum=-10.0, maximum=10.0)
         if case not in cases:
             raise ft.error(
-                raw, f"no loads of case {case!r} on this member (cases: {', '.join(sorted(cases)) or 'none'})"
+                raw,
+                f"no loads of case {excerpt(case)} on this member (cases: {', '.join(sorted(cases)) or 'none'})",
             )
         factors[case] = f
     ft.done()

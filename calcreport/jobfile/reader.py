@@ -8,7 +8,7 @@ from collections.abc import Iterable
 from dataclasses import dataclass
 from typing import Any
 
-from ..errors import JobError
+from ..errors import JobError, excerpt
 from ..fields import Field
 from ..units import Quantity, UnitParseError, parse
 from .lines import LineIndex
@@ -200,7 +200,7 @@ class Table:
             if v == c or (fold_case and v.lower() == c.lower()):
                 return c
         hint = _suggest(v, choices)
-        raise self.error(name, f"expected one of {', '.join(choices)}, got {v!r}{hint}")
+        raise self.error(name, f"expected one of {', '.join(choices)}, got {excerpt(v)}{hint}")
 
     def table(self, name: str, required: bool = False) -> Table | None:
         v = self.raw(name, required, "a table")
@@ -281,14 +281,14 @@ class Table:
         for name in self.data:
             if name not in allowed:
                 hint = _suggest(name, sorted(allowed))
-                raise self.error(name, f"unknown key '{name}'{hint}")
+                raise self.error(name, f"unknown key {excerpt(name)}{hint}")
 
     def done(self) -> None:
         """Reject keys that no getter asked for, suggesting the closest known key."""
         for name in self.data:
             if name not in self._known:
                 hint = _suggest(name, sorted(self._known))
-                raise self.error(name, f"unknown key '{name}'{hint}")
+                raise self.error(name, f"unknown key {excerpt(name)}{hint}")
 
 
 def _suggest(word: str, options: Iterable[str]) -> str:

@@ -224,10 +224,10 @@ class _Build:
         ]
 
 
-def render_change_report(diff: JobDiff) -> bytes:
+def render_change_report(diff: JobDiff, allow_outside: bool = False) -> bytes:
     """The change report as PDF bytes, laid out until the sheet count is stable."""
     job = diff.new.job
-    tpl = load_template(job.settings.template, job.path)
+    tpl = load_template(job.settings.template, job.path, allow_outside)
     fonts = register_fonts(tpl.font, tpl.font_bold, tpl.font_mono)
     styles = make_styles(fonts, tpl.accent_color, tpl.font_size)
     info = _page_info(diff, tpl)
@@ -258,6 +258,6 @@ def render_change_report(diff: JobDiff) -> bytes:
     return pdf
 
 
-def write_change_report(diff: JobDiff, out_path: str) -> None:
+def write_change_report(diff: JobDiff, out_path: str, allow_outside: bool = False) -> None:
     """Write the change report to ``out_path`` atomically (nothing half-written on failure)."""
-    write_atomic(render_change_report(diff), out_path)
+    write_atomic(render_change_report(diff, allow_outside), out_path)

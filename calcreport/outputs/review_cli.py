@@ -59,7 +59,7 @@ def _cmd_diff(args) -> int:
 
         try:
             with termination_handled():  # SIGTERM/SIGINT: the temporary file is removed
-                write_change_report(diff, args.pdf)
+                write_change_report(diff, args.pdf, getattr(args, "allow_outside", False))
         except JobError as exc:  # the new job's report template
             return _fail(str(exc))
         except OSError as exc:
@@ -102,6 +102,12 @@ def register(sub) -> None:
     )
     d.add_argument("--json", action="store_true", help="print the diff as JSON (schema in docs/review.md)")
     d.add_argument("--pdf", metavar="OUT.pdf", help="also write a change report PDF for reviewers")
+    d.add_argument(
+        "--allow-outside",
+        action="store_true",
+        help="with --pdf: let the report template, logo and fonts come from outside the job's folder "
+        "and the shipped templates (refused by default)",
+    )
     d.set_defaults(func=_cmd_diff)
     v = sub.add_parser(
         "verify",

@@ -16,7 +16,7 @@ try:
 except ModuleNotFoundError:  # Python < 3.11
     import tomli as tomllib  # type: ignore[no-redef]
 
-from ..errors import JobError
+from ..errors import JobError, excerpt
 from ..jobfile import load_text
 from ..jobfile.load import MAX_FILE_BYTES
 from ..solve.results import JobResult
@@ -94,7 +94,7 @@ def git_show(path: str, rev: str) -> tuple[bytes, str]:
         JobError: not inside a git repository, or the revision or the path does not exist there.
     """
     if not rev or rev.startswith("-"):
-        raise JobError(path, "", f"expected a git revision after --since, got {rev!r}")
+        raise JobError(path, "", f"expected a git revision after --since, got {excerpt(rev)}")
     real = os.path.realpath(path)
     if not os.path.isfile(real):
         raise JobError(path, "", "cannot read the file (No such file or directory)")
@@ -107,11 +107,11 @@ def git_show(path: str, rev: str) -> tuple[bytes, str]:
     try:
         _git(["rev-parse", "--verify", "--quiet", f"{rev}^{{commit}}"], top, path)
     except _GitError:
-        raise JobError(path, "", f"git revision {rev!r} not found in {top}") from None
+        raise JobError(path, "", f"git revision {excerpt(rev)} not found in {top}") from None
     try:
         data = _git(["show", f"{rev}:{rel}"], top, path)
     except _GitError:
-        raise JobError(path, "", f"{rel} does not exist at git revision {rev!r}") from None
+        raise JobError(path, "", f"{rel} does not exist at git revision {excerpt(rev)}") from None
     if len(data) > MAX_FILE_BYTES:
         raise JobError(
             f"{rev}:{rel}", "", f"file is {len(data):,} bytes; a job file may have at most {MAX_FILE_BYTES:,}"

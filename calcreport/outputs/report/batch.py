@@ -27,6 +27,7 @@ class Task:
     out: Path
     since: str | None = None
     json: bool = False
+    allow_outside: bool = False  # template, logo and fonts may lie outside the job's folder
 
 
 @dataclass(frozen=True)
@@ -75,7 +76,7 @@ def build_one(task: Task) -> Outcome:
         from .build import render_pdf
         from .template import load_template
 
-        tpl = load_template(r.job.settings.template, r.job.path)
+        tpl = load_template(r.job.settings.template, r.job.path, task.allow_outside)
         keys, mark = frozenset(), ""
         if task.since is not None:
             from ..review_io import revision_marks_since

@@ -57,6 +57,12 @@ def register(sub) -> None:
         help="also write the results JSON beside each PDF (same name, .json; stable for git)",
     )
     b.add_argument(
+        "--allow-outside",
+        action="store_true",
+        help="let a job's report template, logo and fonts come from outside the job's folder and "
+        "the shipped templates (refused by default)",
+    )
+    b.add_argument(
         "--timeout",
         type=_seconds,
         metavar="SECONDS",
@@ -134,7 +140,9 @@ def cmd_build(args) -> int:
     except (ValueError, EpochError) as exc:
         print(f"calcreport build: {exc}", file=sys.stderr)
         return EXIT_INVALID
-    tasks = [Task(j, p, args.since, args.json) for j, p in zip(jobs, paths)]
+    tasks = [
+        Task(j, p, args.since, args.json, getattr(args, "allow_outside", False)) for j, p in zip(jobs, paths)
+    ]
     workers = args.workers or default_workers()
     from ...safewrite import termination_handled
 
