@@ -88,7 +88,6 @@ def test_change_report_template_rule(tmp_path, cli):
 def test_values_from_another_file_are_quoted_short(tmp_path, cli):
     secret = "line one of a private file\n" + "s3cr3t " * 400
     (tmp_path / "jobs").mkdir()
-    (tmp_path / "jobs" / "firm.toml").write_text()
     (tmp_path / "jobs" / "firm.toml").write_text('[page]\nsize = """' + secret + '"""\n', encoding="utf-8")
     line = _one_line(
         *cli("build", str(_job(tmp_path / "jobs", "firm.toml")), "-o", str(tmp_path / "o") + "/"), "page.size"
