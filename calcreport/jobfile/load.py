@@ -30,6 +30,7 @@ __all__ = [
     "MAX_PARTS",
     "MAX_JOINTS",
     "MAX_MATERIALS",
+    "MAX_HISTORY",
 ]
 
 MAX_FILE_BYTES = 2_000_000
@@ -37,6 +38,7 @@ MAX_MEMBERS = 500
 MAX_PARTS = 60
 MAX_JOINTS = 60
 MAX_MATERIALS = 200
+MAX_HISTORY = 30
 FAMILIES = ("wood", "plywood", "glulam", "steel", "concrete", "aluminum", "other")
 
 
@@ -92,7 +94,12 @@ def load_text(data: bytes, path: str = "<job>") -> Job:
 
 def _header(t: Table) -> Header:
     history = []
-    for r in t.tables("history", id_key="mark"):
+    entries = t.tables("history", id_key="mark")
+    if len(entries) > MAX_HISTORY:  # each entry is a row of the cover's revision table
+        raise t.error(
+            "history", f"expected at most {MAX_HISTORY} revision history entries, got {len(entries):,}"
+        )
+    for r in entries:
         history.append(
             RevisionEntry(r.text("mark", True), r.text("date"), r.text("by"), r.text("description"))
         )

@@ -13,9 +13,11 @@ from ..fields import Field
 from ..units import Quantity, UnitParseError, parse
 from .lines import LineIndex
 
-__all__ = ["Source", "Table"]
+__all__ = ["Source", "Table", "MAX_TEXT", "MAX_LINES"]
 
 MAX_TEXT = 2000
+#: Lines in one list of text (notes, assumptions); each is printed in the report (ours, no source).
+MAX_LINES = 50
 
 
 @dataclass
@@ -95,12 +97,17 @@ class Table:
             )
         return v
 
-    def texts(self, name: str) -> tuple[str, ...]:
+    def texts(self, name: str, limit: int | None = None) -> tuple[str, ...]:
+        """A list of text lines (notes, assumptions): at most ``limit`` (default MAX_LINES) lines,
+        refused by count before any line is looked at — each line becomes report text."""
+        limit = MAX_LINES if limit is None else limit
         v = self.raw(name)
         if v is None:
             return ()
         if isinstance(v, str):
             v = [v]
+        if isinstance(v, list) and len(v) > limit:
+            raise self.error(name, f"expected at most {limit} lines, got {len(v):,}")
         if not isinstance(v, list) or not all(isinstance(s, str) for s in v):
             raise self.error(name, "expected a list of text lines")
         if any(len(s) > MAX_TEXT for s in v):

@@ -101,7 +101,18 @@ def git_show(path: str, rev: str) -> tuple[bytes, str]:
     folder = os.path.dirname(real)
     try:
         top = _git(["rev-parse", "--show-toplevel"], folder, path).decode("utf-8").strip()
-    except _GitError:
+    except _GitError as exc:
+        if "dubious ownership" in str(exc):  # git ≥ 2.35.2 refuses repositories of other users
+            said = str(exc)
+            repo = (
+                said.split("repository at '", 1)[1].rsplit("'", 1)[0] if "repository at '" in said else folder
+            )
+            raise JobError(
+                path,
+                "",
+                'git refuses to read the repository here: it belongs to another user ("dubious ownership"); '
+                f"if you trust it, run: git config --global --add safe.directory {excerpt(repo, 200)}",
+            ) from None
         raise JobError(path, "", "not inside a git repository (needed for --since)") from None
     rel = os.path.relpath(real, os.path.realpath(top)).replace(os.sep, "/")
     try:
