@@ -126,11 +126,11 @@ def remove_stale_temps(folder: str | os.PathLike) -> list[str]:
     removed: list[str] = []
     host, now, me = _host(), time.time(), os.geteuid() if hasattr(os, "geteuid") else None
     try:
-        entries = list(os.scandir(folder))
+        entries = list(os.scandir(os.fspath(folder)))
     except OSError:
         return removed
     for e in entries:
-        m = TEMP_PATTERN.match(e.name)
+        m = TEMP_PATTERN.match(str(e.name))
         if not m or os.path.join(str(folder), e.name) in _LIVE:
             continue
         try:
@@ -144,7 +144,7 @@ def remove_stale_temps(folder: str | os.PathLike) -> list[str]:
         if ours_dead or now - st.st_mtime > STALE_AFTER_S:
             try:
                 os.unlink(e.path)
-                removed.append(e.name)
+                removed.append(str(e.name))
             except OSError:
                 pass
     return removed

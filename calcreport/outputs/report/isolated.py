@@ -128,7 +128,7 @@ def run_isolated(
                 children.append(_Child(ctx, work))
             for c in children:
                 if c.job is None and pending:
-                    i = pending.popleft()
+                    i: int = pending.popleft()
                     try:
                         c.give(i, tasks[i])
                     except OSError:  # the child is already gone: it answers as dead below
@@ -139,8 +139,9 @@ def run_isolated(
                 wait_for = max(0.0, min(c.since + timeout for c in busy) - time.monotonic())
             wait([c.conn for c in busy] + [c.proc.sentinel for c in busy], wait_for)
             for c in busy:
+                if c.job is None:
+                    continue
                 i = c.job
-                assert i is not None
                 outcome = None
                 if c.conn.poll():
                     try:
