@@ -78,7 +78,7 @@ def _cmd_new(args) -> int:
         return EXIT_OK
     if dest.exists() and not args.force:
         return _fail(f"{dest}: already exists (use --force to overwrite)")
-    from .atomic import write_atomic
+    from .safewrite import write_atomic
 
     try:
         write_atomic(starter_text(args.kind), dest)
@@ -153,8 +153,8 @@ def main(argv: list[str] | None = None) -> int:
     args = parser.parse_args(argv)
     try:
         return args.func(args)
-    except KeyboardInterrupt:
-        return _fail("interrupted")
+    except KeyboardInterrupt as exc:  # also SIGTERM during a build (safewrite.Terminated)
+        return _fail(f"calcreport: {exc}" if str(exc) else "interrupted")
     except BrokenPipeError:
         return EXIT_OK
 

@@ -7,7 +7,6 @@ here, so the error mapping lives in one place. ``-`` as a path reads the job fro
 
 from __future__ import annotations
 
-import os
 import sys
 from typing import TYPE_CHECKING
 
@@ -49,14 +48,12 @@ def read_bytes(path: str) -> bytes:
                 STDIN_LABEL, "", f"more than {limit:,} bytes; a job file may have at most {limit:,}"
             )
         return data
+    from .safeio import FileRefused, read_regular
+
     try:
-        size = os.path.getsize(path)
-        if size > limit:
-            raise JobError(path, "", f"file is {size:,} bytes; a job file may have at most {limit:,}")
-        with open(path, "rb") as fh:
-            return fh.read()
-    except OSError as exc:
-        raise JobError(path, "", f"cannot read the file ({exc.strerror or exc})") from None
+        return read_regular(path, limit, "a job file")
+    except FileRefused as exc:
+        raise JobError(path, "", str(exc)) from None
 
 
 def load(path: str) -> Job:

@@ -124,7 +124,7 @@ def parse(text: object, expected: str | None = None) -> Quantity:
     if isinstance(text, (int, float)):
         if expected:
             raise UnitParseError(f"expected {what}, got the bare number {text!r}")
-        return Q_(float(text), "")
+        return check_magnitude(Q_(float(text), ""), text, what)
     if len(text) > 80 or not _SAFE.match(text):
         raise UnitParseError(f"expected {what}, got {text[:40]!r}")
     norm = _normalise(text)
@@ -152,4 +152,29 @@ def parse(text: object, expected: str | None = None) -> Quantity:
         if q.dimensionless:
             raise UnitParseError(f"expected {what}, got {text!r} without a unit")
         raise UnitParseError(f"expected {what}, got {text!r} which is a {dimension_name(q)}")
+    return check_magnitude(q, text, what)
+
+
+def check_magnitude(q: Quantity, text: object, what: str) -> Quantity:
+    """``q`` unchanged if its magnitude, as written and in base units, is finite and either zero or
+    a normal float (not subnormal, i.e. not below 2.2e-308 in size, where floats lose digits).
+
+    A value that cannot be held exactly as written (``"5e-324 in"``, ``"nan in"``, ``"inf psi"``,
+    ``"1e308 mi"`` which overflows in metres) is refused rather than silently rounded.
+    """
+    import math
+    import sys
+
+    shown = repr(text)[:80]
+    try:
+        mags = [float(q.magnitude), float(q.to_base_units().magnitude)]
+    except (TypeError, ValueError, ArithmeticError):
+        raise UnitParseError(f"expected {what}, got {shown}") from None
+    for m in mags:
+        if not math.isfinite(m):
+            raise UnitParseError(f"expected {what}, got {shown} (not a finite number)")
+        if m != 0 and abs(m) < sys.float_info.min:
+            raise UnitParseError(
+                f"expected {what}, got {shown} (too small to hold exactly; use zero or a normal size)"
+            )
     return q

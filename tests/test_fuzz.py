@@ -8,6 +8,7 @@ half on two cores."""
 
 from __future__ import annotations
 
+import json
 import random
 import string
 from pathlib import Path
@@ -157,10 +158,19 @@ VALUES = [
     "pin",
     "fixed",
     "roller",
+    # hostile magnitudes and text (issue 13): subnormal, non-finite, long whitespace runs
+    "5e-324 in",
+    "1e-310 kip",
+    "-nan in",
+    "infinity psi",
+    " " * 3000 + "x",
+    "a" + " \t" * 1500 + "=",
 ]
 
 scalar = st.one_of(
     st.sampled_from(VALUES),
+    st.sampled_from([5e-324, -2.5e-310, float("inf"), float("-inf"), float("nan")]),
+    st.lists(st.sampled_from(["x", "1 in", 3]), min_size=45, max_size=70),  # long lists, near the caps
     st.integers(-(10**6), 10**6),
     st.floats(allow_nan=False, allow_infinity=False),
     st.booleans(),
@@ -175,6 +185,10 @@ def toml_value(v) -> str:
         return "true" if v else "false"
     if isinstance(v, int):
         return str(v)
+    if isinstance(v, float) and v != v:
+        return "nan"
+    if isinstance(v, float) and v in (float("inf"), float("-inf")):
+        return "inf" if v > 0 else "-inf"
     if isinstance(v, float):
         return repr(v) if "e" in repr(v) or "." in repr(v) else repr(v) + ".0"
     if isinstance(v, list):
@@ -200,12 +214,23 @@ document = st.tuples(
 )
 
 
+def strict_json(text: str):
+    """json.loads refusing NaN and Infinity, which strict JSON (RFC 8259 §6) does not have."""
+
+    def refuse(name):
+        raise AssertionError(f"non-standard JSON constant {name}")
+
+    return json.loads(text, parse_constant=refuse)
+
+
 def _check_case(tmp_path, text: str) -> None:
     p = tmp_path / "fuzz.toml"
     p.write_text(text, encoding="utf-8")
     code, out, err = run_cli("check", "--json", str(p))
     assert code in (0, 1, 2), (code, err)
     assert "Traceback" not in err and "internal error" not in err, err
+    if code in (0, 1):
+        strict_json(out)
     if code == 2:
         lines = err.strip().splitlines()
         assert len(lines) == 1 and lines[0].startswith(str(p)), err

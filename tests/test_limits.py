@@ -114,7 +114,7 @@ def test_huge_array_of_text_lines_is_read_once_and_refused_by_key(write_job, cli
     body = GOOD.replace(
         'id = "M"', 'id = "M"\nnotes = [' + ", ".join(['"x"'] * 300_000) + "]\nnotes_x = 1", 1
     )
-    refused(cli, write_job(job_text(body)), "member[M].notes_x", "unknown key")
+    refused(cli, write_job(job_text(body)), "member[M].notes", "at most 50 lines", "300,000")
 
 
 def test_very_long_text_is_refused(write_job, cli):

@@ -2,8 +2,9 @@
 
 ``build_one`` is the unit of work (a top-level function, so a process pool can run it): it never
 raises for a bad job — it returns the exit code and the line to print. ``run_jobs`` runs the tasks
-in order in this process (one worker) or in a :class:`concurrent.futures.ProcessPoolExecutor`,
-shows a progress line on a terminal and returns the outcomes in job order.
+in order in this process (one worker) or each in its own child process (:mod:`.isolated`: a job
+whose process dies or overruns ``--timeout`` fails alone), shows a progress line on a terminal and
+returns the outcomes in job order.
 """
 
 from __future__ import annotations
@@ -26,6 +27,7 @@ class Task:
     out: Path
     since: str | None = None
     json: bool = False
+    allow_outside: bool = False  # template, logo and fonts may lie outside the job's folder
 
 
 @dataclass(frozen=True)
@@ -71,11 +73,10 @@ def build_one(task: Task) -> Outcome:
 
     try:
         r = solve_file(task.job)
-        from ..atomic import write_atomic
         from ..outputs.report.build import render_pdf
         from ..outputs.report.template import load_template
 
-        tpl = load_template(r.job.settings.template, r.job.path)
+        tpl = load_template(r.job.settings.template, r.job.path, task.allow_outside)
         keys: frozenset[str] = frozenset()
         mark = ""
         if task.since is not None:
@@ -95,15 +96,33 @@ def build_one(task: Task) -> Outcome:
                 "please report it with the job file"
             ),
         )
-    try:
-        write_atomic(pdf, task.out)
-        if task.json:
-            from ..outputs.json_out import write_results_json
+    from ..safewrite import write_set
 
-            write_results_json(r, task.out)
-    except OSError as exc:
+    files = [(task.out, pdf)]
+    try:
+        if task.json:  # the PDF and its JSON are moved into place together, or neither is
+            from ..outputs.json_out import dumps, json_path_for, to_dict
+
+            files.append((json_path_for(task.out), dumps(to_dict(r)).encode("utf-8")))
+    except Exception as exc:  # a defect of ours: still one line, exit 2, nothing written
         return Outcome(
-            task.job, EXIT_INVALID, _one_line(f"{task.out}: cannot write the report ({exc.strerror or exc})")
+            task.job,
+            EXIT_INVALID,
+            _one_line(
+                f"{task.job}: internal error while writing the results JSON ({type(exc).__name__}: {exc})"
+            ),
+        )
+    try:
+        write_set(files)
+    except OSError as exc:
+        kept = " and ".join(Path(p).name for p, _ in files)
+        return Outcome(
+            task.job,
+            EXIT_INVALID,
+            _one_line(
+                f"{task.out}: cannot write the report ({exc.strerror or exc}); nothing was written, "
+                f"any earlier {kept} left as they were"
+            ),
         )
     extra = f" and {task.out.with_suffix('.json').name}" if task.json else ""
     return Outcome(
@@ -142,44 +161,47 @@ def run_jobs(
     stream: TextIO | None = None,
     work: Callable[[Task], Outcome] = build_one,
     quiet: bool = False,
+    timeout: float | None = None,
 ) -> list[Outcome]:
-    """Run every task (``workers`` processes when more than one) and return outcomes in task order;
-    ``quiet``: no progress line."""
+    """Run every task and return outcomes in task order; ``quiet``: no progress line.
+
+    With one worker and no ``timeout`` the tasks run in this process, one after the other.
+    Otherwise each runs in its own child process (:mod:`.isolated`), ``workers`` at a time: a
+    child that dies fails only its job, and ``timeout`` (seconds) stops a job that runs longer.
+    """
     stream = stream if stream is not None else sys.stderr
     progress = _Progress(0 if quiet else len(tasks), stream)
     outcomes: dict[int, Outcome] = {}
     workers = max(1, min(workers, len(tasks)))
     try:
-        if workers == 1:
+        if workers == 1 and timeout is None:
             for i, t in enumerate(tasks):
                 progress.show(f"building {Path(t.job).name}…")
                 outcomes[i] = work(t)
                 progress.done += 1
         else:
-            from concurrent.futures import ProcessPoolExecutor, as_completed
+            from .isolated import run_isolated
 
-            if work is build_one:  # import once here: forked workers inherit the loaded modules
+            if work is build_one:  # import once here: forked children inherit the loaded modules
                 from ..jobfile import load_job  # noqa: F401
                 from ..outputs.report import build  # noqa: F401
+                from ..outputs.report.styles import _register_fallback, register_fonts
                 from ..solve import solve_job  # noqa: F401
 
-            with ProcessPoolExecutor(max_workers=workers) as pool:
-                futures = {pool.submit(work, t): i for i, t in enumerate(tasks)}
-                progress.show(f"building {len(tasks)} jobs on {workers} processes…")
-                for f in as_completed(futures):
-                    i = futures[f]
-                    try:
-                        outcomes[i] = f.result()
-                    except Exception as exc:  # a worker died (killed, out of memory): that job only
-                        outcomes[i] = Outcome(
-                            tasks[i].job,
-                            EXIT_INVALID,
-                            _one_line(
-                                f"{tasks[i].job}: the build process failed ({type(exc).__name__}: {exc})"
-                            ),
-                        )
-                    progress.done += 1
-                    progress.show(f"built {Path(tasks[i].job).name}")
+                register_fonts()  # the bundled fonts, parsed once here rather than in every child
+                _register_fallback()
+
+            def failed(i: int, why: str) -> Outcome:
+                return Outcome(
+                    tasks[i].job, EXIT_INVALID, _one_line(f"{tasks[i].job}: {why}; no report written")
+                )
+
+            def done(i: int) -> None:
+                progress.done += 1
+                progress.show(f"built {Path(tasks[i].job).name}")
+
+            progress.show(f"building {len(tasks)} jobs on {workers} processes…")
+            outcomes.update(run_isolated(tasks, workers, work, failed, timeout, done))  # type: ignore[arg-type]
     finally:
         progress.clear()
     return [outcomes[i] for i in range(len(tasks))]

@@ -62,6 +62,20 @@ def register(sub, common) -> None:
         action="store_true",
         help="also write the results JSON beside each PDF (same name, .json; stable for git)",
     )
+    b.add_argument(
+        "--allow-outside",
+        action="store_true",
+        help="let a job's report template, logo and fonts come from outside the job's folder and "
+        "the shipped templates (refused by default)",
+    )
+    b.add_argument(
+        "--timeout",
+        type=_seconds,
+        metavar="SECONDS",
+        default=None,
+        help="stop a job that takes longer than SECONDS (each job then runs in its own process); "
+        "it fails with one line, the other jobs go on",
+    )
     b.set_defaults(func=cmd_build)
 
 
@@ -75,6 +89,19 @@ def _workers(text: str) -> int:
     if not 1 <= n <= 256:
         raise argparse.ArgumentTypeError(f"expected a number of processes from 1 to 256, got {text!r}")
     return n
+
+
+def _seconds(text: str) -> float:
+    import argparse
+    import math
+
+    try:
+        t = float(text)
+    except ValueError:
+        t = math.nan
+    if not (math.isfinite(t) and 0.1 <= t <= 86_400):
+        raise argparse.ArgumentTypeError(f"expected a time limit in seconds from 0.1 to 86400, got {text!r}")
+    return t
 
 
 def output_paths(jobs: list[str], output: str | None, folder: bool = False) -> list[Path]:
@@ -111,19 +138,26 @@ def output_paths(jobs: list[str], output: str | None, folder: bool = False) -> l
 
 def cmd_build(args) -> int:
     from .batch import Task, default_workers, expand_jobs, run_jobs
+    from ..outputs.report.epoch import EpochError, source_date_epoch
 
     try:
+        source_date_epoch()  # a malformed value is refused once, before any job is built
         jobs = expand_jobs(args.jobs)
         paths = output_paths(jobs, args.output, folder=any(os.path.isdir(j) for j in args.jobs))
-    except ValueError as exc:
+    except (ValueError, EpochError) as exc:
         print(f"calcreport build: {exc}", file=sys.stderr)
         return EXIT_INVALID
-    tasks = [Task(j, p, args.since, args.json) for j, p in zip(jobs, paths)]
+    tasks = [
+        Task(j, p, args.since, args.json, getattr(args, "allow_outside", False)) for j, p in zip(jobs, paths)
+    ]
     workers = 1 if "-" in jobs else (args.workers or default_workers())  # stdin is read here
     if jobs.count("-") > 1:
         print("calcreport build: standard input (-) can be read only once", file=sys.stderr)
         return EXIT_INVALID
-    outcomes = run_jobs(tasks, workers, quiet=args.quiet)
+    from ..safewrite import termination_handled
+
+    with termination_handled():  # SIGTERM/SIGINT: temporary files removed, children stopped
+        outcomes = run_jobs(tasks, workers, quiet=args.quiet, timeout=getattr(args, "timeout", None))
     failed = [o for o in outcomes if o.code == EXIT_INVALID]
     for o in outcomes:
         if o.code != EXIT_INVALID and not args.quiet:

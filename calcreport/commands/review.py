@@ -33,6 +33,13 @@ def _cmd_diff(args) -> int:
 
     if args.jobs.count("-") > 1:
         return _fail("calcreport diff: error: standard input (-) can be read only once (see --help)")
+    if args.pdf:
+        from ..outputs.report.epoch import EpochError, source_date_epoch
+
+        try:
+            source_date_epoch()  # the change report's date; refused before anything is read
+        except EpochError as exc:
+            return _fail(f"calcreport diff: {exc}")
     if args.since is not None and len(args.jobs) != 1:
         return _fail("calcreport diff: error: with --since give exactly one JOB.toml (see --help)")
     if args.since is None and len(args.jobs) != 2:
@@ -51,9 +58,11 @@ def _cmd_diff(args) -> int:
     diff = compute_diff(old, new)
     if args.pdf:
         from ..review.change_report import write_change_report
+        from ..safewrite import termination_handled
 
         try:
-            write_change_report(diff, args.pdf)
+            with termination_handled():  # SIGTERM/SIGINT: the temporary file is removed
+                write_change_report(diff, args.pdf, getattr(args, "allow_outside", False))
         except JobError as exc:  # the new job's report template
             return _fail(str(exc))
         except OSError as exc:
@@ -99,6 +108,12 @@ def register(sub, common) -> None:
     )
     d.add_argument("--json", action="store_true", help="print the diff as JSON (schema in docs/review.md)")
     d.add_argument("--pdf", metavar="OUT.pdf", help="also write a change report PDF for reviewers")
+    d.add_argument(
+        "--allow-outside",
+        action="store_true",
+        help="with --pdf: let the report template, logo and fonts come from outside the job's folder "
+        "and the shipped templates (refused by default)",
+    )
     d.set_defaults(func=_cmd_diff)
     v = sub.add_parser(
         "verify",

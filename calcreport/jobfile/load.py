@@ -7,10 +7,9 @@ where known, and what was expected.
 from __future__ import annotations
 
 import hashlib
-import os
 import tomllib
 
-from ..errors import JobError
+from ..errors import JobError, excerpt
 from ..keys import connectors
 from ..keys import job as decl
 from ..model import ConnectorSpec, Header, Job, Joint, Material, Member, Part, RevisionEntry, Settings
@@ -28,6 +27,7 @@ __all__ = [
     "MAX_PARTS",
     "MAX_JOINTS",
     "MAX_MATERIALS",
+    "MAX_HISTORY",
 ]
 
 MAX_FILE_BYTES = 2_000_000
@@ -35,22 +35,18 @@ MAX_MEMBERS = 500
 MAX_PARTS = 60
 MAX_JOINTS = 60
 MAX_MATERIALS = 200
+MAX_HISTORY = 30
 FAMILIES = decl.FAMILIES
 
 
 def load_job(path: str) -> Job:
-    """Read and validate the job file at ``path``."""
+    """Read and validate the job file at ``path`` (a regular file of at most MAX_FILE_BYTES)."""
+    from ..safeio import FileRefused, read_regular
+
     try:
-        size = os.path.getsize(path)
-    except OSError as exc:
-        raise JobError(path, "", f"cannot read the file ({exc.strerror or exc})") from None
-    if size > MAX_FILE_BYTES:
-        raise JobError(path, "", f"file is {size:,} bytes; a job file may have at most {MAX_FILE_BYTES:,}")
-    try:
-        with open(path, "rb") as fh:
-            data = fh.read()
-    except OSError as exc:
-        raise JobError(path, "", f"cannot read the file ({exc.strerror or exc})") from None
+        data = read_regular(path, MAX_FILE_BYTES, "a job file")
+    except FileRefused as exc:
+        raise JobError(path, "", str(exc)) from None
     return load_text(data, path)
 
 
@@ -97,7 +93,12 @@ def load_text(data: bytes, path: str = "<job>") -> Job:
 def _header(t: Table) -> Header:
     t.expect(decl.names(decl.JOB))
     history = []
-    for r in t.tables("history", id_key="mark"):
+    entries = t.tables("history", id_key="mark")
+    if len(entries) > MAX_HISTORY:  # each entry is a row of the cover's revision table
+        raise t.error(
+            "history", f"expected at most {MAX_HISTORY} revision history entries, got {len(entries):,}"
+        )
+    for r in entries:
         r.expect(decl.names(decl.HISTORY))
         history.append(
             RevisionEntry(r.text("mark", True), r.text("date"), r.text("by"), r.text("description"))
@@ -225,7 +226,7 @@ def _member(t: Table, materials: dict[str, Material], settings: Settings) -> Mem
     ref_id = t.text("reference_material", default=parts[0].material.id)
     if ref_id not in materials:
         raise t.error(
-            "reference_material", f"expected a material id ({', '.join(materials)}), got {ref_id!r}"
+            "reference_material", f"expected a material id ({', '.join(materials)}), got {excerpt(ref_id)}"
         )
     shear = t.quantity("shear", "force", allow_zero=True)
     joints = tuple(_joints(t, placed))
@@ -266,7 +267,7 @@ def _joints(t: Table, parts: dict[str, Part]):
             raise jt.error("holds", 'expected a list of part ids, like ["top_flange"]')
         for h in holds:
             if h not in parts:
-                raise jt.error("holds", f"expected part ids ({', '.join(parts)}), got unknown {h!r}")
+                raise jt.error("holds", f"expected part ids ({', '.join(parts)}), got unknown {excerpt(h)}")
         if len(set(holds)) == len(parts):
             raise jt.error(
                 "holds",

@@ -28,6 +28,7 @@ from dataclasses import replace
 
 from ..keys import job as decl
 from ..keys.loads import STANDARD_CASES
+from ..errors import excerpt
 from ..model import Combination, Load, Member, Settings, Support
 from ..units import Q_
 from .reader import Table
@@ -140,7 +141,7 @@ def _case(t: Table) -> str:
         raise t.error(
             "case",
             f"expected a load case name (D, L, Lr, S, R, W or a short name of "
-            f"letters and digits), got {t.data['case']!r}",
+            f"letters and digits), got {excerpt(t.data['case'])}",
         )
     for std in STANDARD_CASES:
         if case.lower() == std.lower():
@@ -195,7 +196,8 @@ def _combination(t: Table, cases: set[str]) -> Combination:
         f = ft.number(raw, required=True, minimum=-10.0, maximum=10.0)
         if case not in cases:
             raise ft.error(
-                raw, f"no loads of case {case!r} on this member (cases: {', '.join(sorted(cases)) or 'none'})"
+                raw,
+                f"no loads of case {excerpt(case)} on this member (cases: {', '.join(sorted(cases)) or 'none'})",
             )
         factors[case] = f
     ft.done()

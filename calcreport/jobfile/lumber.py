@@ -10,6 +10,8 @@ from __future__ import annotations
 
 import re
 
+from ..errors import excerpt
+
 __all__ = ["dressed_size", "LumberSizeError"]
 
 _NOMINAL = re.compile(r"^\s*(\d{1,2})\s*[xX×]\s*(\d{1,2})\s*$")
@@ -44,12 +46,12 @@ def dressed_size(nominal: str) -> tuple[float, float]:
     """
     m = _NOMINAL.match(nominal)
     if not m:
-        raise LumberSizeError(f'expected a nominal size like "2x10", got {nominal!r}')
+        raise LumberSizeError(f'expected a nominal size like "2x10", got {excerpt(nominal)}')
     t, w = int(m.group(1)), int(m.group(2))
     if t > w:
         t, w = w, t
     if not (1 <= t <= 16 and 2 <= w <= 16):
-        raise LumberSizeError(f"nominal size {nominal!r} is outside 1x2 to 16x16")
+        raise LumberSizeError(f"nominal size {excerpt(nominal)} is outside 1x2 to 16x16")
     if t >= 5:  # timbers: 1/2 in off each dimension
         return t - 0.5, w - 0.5
     if t not in _THICKNESS:

@@ -22,6 +22,7 @@ from dataclasses import replace
 from typing import Literal, overload
 
 from ..keys import job as decl
+from ..errors import excerpt
 from ..model import Material, Part, Shape
 from .lumber import LumberSizeError, dressed_size
 from .reader import Table
@@ -171,7 +172,7 @@ def _place(t: Table, s: Shape, placed: dict[str, Part], first: bool) -> Shape:
     ref_id = t.text(how)
     if ref_id not in placed:
         hint = f" (known so far: {', '.join(placed)})" if placed else ""
-        raise t.error(how, f"expected the id of a part listed above, got {ref_id!r}{hint}")
+        raise t.error(how, f"expected the id of a part listed above, got {excerpt(ref_id)}{hint}")
     rx0, ry0, rx1, ry1 = placed[ref_id].shape.bbox
     off_q = t.quantity("offset", "length", positive=False)
     off = 0.0 if off_q is None else float(off_q.to(_IN).magnitude)
@@ -196,7 +197,8 @@ def read_part(t: Table, materials: dict[str, Material], placed: dict[str, Part])
     mat_id = t.text("material", required=True)
     if mat_id not in materials:
         raise t.error(
-            "material", f"expected a material id ({', '.join(materials) or 'none defined'}), got {mat_id!r}"
+            "material",
+            f"expected a material id ({', '.join(materials) or 'none defined'}), got {excerpt(mat_id)}",
         )
     shape = _place(t, _read_shape(t, kind), placed, first=not placed)
     if not all(math.isfinite(v) and abs(v) < 1e5 for v in shape.bbox):

@@ -8,14 +8,16 @@ from collections.abc import Iterable
 from dataclasses import dataclass
 from typing import Any, Literal, overload
 
-from ..errors import JobError
+from ..errors import JobError, excerpt
 from ..fields import Field
 from ..units import Quantity, UnitParseError, parse
 from .lines import LineIndex
 
-__all__ = ["Source", "Table"]
+__all__ = ["Source", "Table", "MAX_TEXT", "MAX_LINES"]
 
 MAX_TEXT = 2000
+#: Lines in one list of text (notes, assumptions); each is printed in the report (ours, no source).
+MAX_LINES = 50
 
 
 @dataclass
@@ -74,8 +76,9 @@ class Table:
         v = self.raw(name, required, "text")
         if v is None:
             return default
-        if isinstance(v, (int, float)) and not isinstance(v, bool):
-            v = str(v)
+        if isinstance(v, (int, float)) and not isinstance(v, bool):  # not read back as written
+            shown = repr(v) if isinstance(v, int) or math.isfinite(v) else "…"
+            raise self.error(name, f'expected text in quotes (like {name} = "{shown}"), got {_kind(v)}')
         if not isinstance(v, str):
             raise self.error(name, f"expected text, got {_kind(v)}")
         if len(v) > MAX_TEXT:
@@ -94,12 +97,17 @@ class Table:
             )
         return v
 
-    def texts(self, name: str) -> tuple[str, ...]:
+    def texts(self, name: str, limit: int | None = None) -> tuple[str, ...]:
+        """A list of text lines (notes, assumptions): at most ``limit`` (default MAX_LINES) lines,
+        refused by count before any line is looked at — each line becomes report text."""
+        limit = MAX_LINES if limit is None else limit
         v = self.raw(name)
         if v is None:
             return ()
         if isinstance(v, str):
             v = [v]
+        if isinstance(v, list) and len(v) > limit:
+            raise self.error(name, f"expected at most {limit} lines, got {len(v):,}")
         if not isinstance(v, list) or not all(isinstance(s, str) for s in v):
             raise self.error(name, "expected a list of text lines")
         if any(len(s) > MAX_TEXT for s in v):
@@ -234,6 +242,8 @@ class Table:
             return default
         if isinstance(v, bool) or not isinstance(v, (int, float)) or not math.isfinite(v):
             raise self.error(name, f"expected a plain number, got {_kind(v)}")
+        if v != 0 and abs(v) < 2.2250738585072014e-308:  # subnormal: digits already lost
+            raise self.error(name, f"expected a plain number, got {_kind(v)} (too small to hold exactly)")
         if (minimum is not None and v < minimum) or (maximum is not None and v > maximum):
             raise self.error(name, f"expected a number from {minimum} to {maximum}, got {v}")
         return float(v)
@@ -287,7 +297,7 @@ class Table:
             if v == c or (fold_case and v.lower() == c.lower()):
                 return c
         hint = _suggest(v, choices)
-        raise self.error(name, f"expected one of {', '.join(choices)}, got {v!r}{hint}")
+        raise self.error(name, f"expected one of {', '.join(choices)}, got {excerpt(v)}{hint}")
 
     @overload
     def table(self, name: str, required: Literal[True]) -> Table: ...
@@ -372,14 +382,14 @@ class Table:
         for name in self.data:
             if name not in allowed:
                 hint = _suggest(name, sorted(allowed))
-                raise self.error(name, f"unknown key '{name}'{hint}")
+                raise self.error(name, f"unknown key {excerpt(name)}{hint}")
 
     def done(self) -> None:
         """Reject keys that no getter asked for, suggesting the closest known key."""
         for name in self.data:
             if name not in self._known:
                 hint = _suggest(name, sorted(self._known))
-                raise self.error(name, f"unknown key '{name}'{hint}")
+                raise self.error(name, f"unknown key {excerpt(name)}{hint}")
 
 
 def _suggest(word: str, options: Iterable[str]) -> str:

@@ -84,14 +84,15 @@ def fmt_number(x: float, sig: int = 4) -> str:
 _SUPER = str.maketrans("-0123456789", "⁻⁰¹²³⁴⁵⁶⁷⁸⁹")
 
 
-def json_number(x: float) -> float | int:
-    """A stable JSON number: 6 significant figures, integers stay integers."""
+def json_number(x: float) -> float | int | None:
+    """A stable JSON number: 6 significant figures, integers stay integers; a value that is not
+    finite is ``None`` (JSON null: strict JSON has no NaN or Infinity)."""
     if isinstance(x, bool):
         return x
     if isinstance(x, int):
         return x
     if x == 0 or not math.isfinite(x):
-        return 0.0 if x == 0 else x
+        return 0.0 if x == 0 else None
     return float(f"{x:.6g}")
 
 

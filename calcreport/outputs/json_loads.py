@@ -33,7 +33,7 @@ def _check(c, d: Display) -> dict[str, Any]:
 
 
 def along_json(a, d: Display) -> dict[str, Any]:
-    """``a`` is a :class:`calcreport.solve.along.AlongResult`."""
+    """``a`` is a :class:`calcreport.solve.member_loads.AlongResult`."""
     b = a.analysis
     env = b.envelope
     return {

@@ -12,7 +12,7 @@ from pathlib import Path
 from typing import Any
 
 from .. import __version__
-from ..atomic import write_atomic
+from ..safewrite import write_atomic
 from ..solve.results import Check, JobResult, JointResult, MemberResult
 from ..steps import Step
 from ..units import Quantity
@@ -168,8 +168,9 @@ def to_dict(result: JobResult) -> dict[str, Any]:
 
 
 def dumps(data: Any) -> str:
-    """Stable JSON text: sorted keys, two-space indent, UTF-8 kept, trailing newline."""
-    return json.dumps(data, sort_keys=True, indent=2, ensure_ascii=False) + "\n"
+    """Stable, strict JSON text: sorted keys, two-space indent, UTF-8 kept, trailing newline; no
+    NaN or Infinity (``allow_nan=False``; :func:`.fmt.json_number` writes those as null)."""
+    return json.dumps(data, sort_keys=True, indent=2, ensure_ascii=False, allow_nan=False) + "\n"
 
 
 def json_path_for(pdf_path: str | os.PathLike) -> Path:

@@ -17,7 +17,7 @@ from reportlab.pdfgen.canvas import Canvas
 from reportlab.platypus import Spacer
 
 from .. import __version__
-from ..atomic import write_atomic
+from ..safewrite import write_atomic
 from ..outputs.pdfmeta import job_metadata, stamp
 from ..outputs.report.common import grid, heading, para
 from ..outputs.report.pages import MarginMark, PageInfo, ReportDoc
@@ -40,11 +40,17 @@ HIGHLIGHT = colors.HexColor("#fff0a0")
 MAX_PASSES = 4
 
 
-def _canvas_class(entries: dict[str, str]):
+def _canvas_class(entries: dict[str, str], job_date: str = ""):
+    from ..outputs.report.epoch import reportlab_epoch, timestamp
+
+    stamp_time = timestamp(job_date)  # the new revision's date in UTC (see report/epoch.py)
+
     class _ChangeCanvas(Canvas):
         def __init__(self, *a, **kw):
             kw["invariant"] = 1
-            super().__init__(*a, **kw)
+            with reportlab_epoch(int(stamp_time.t)):  # reportlab reads SOURCE_DATE_EPOCH itself
+                super().__init__(*a, **kw)
+            self._doc._timeStamp = stamp_time
             self.setCreator(f"calcreport {__version__}")
             stamp(self, entries)
 
@@ -218,16 +224,16 @@ class _Build:
         ]
 
 
-def render_change_report(diff: JobDiff) -> bytes:
+def render_change_report(diff: JobDiff, allow_outside: bool = False) -> bytes:
     """The change report as PDF bytes, laid out until the sheet count is stable."""
     job = diff.new.job
-    tpl = load_template(job.settings.template, job.path)
+    tpl = load_template(job.settings.template, job.path, allow_outside)
     fonts = register_fonts(tpl.font, tpl.font_bold, tpl.font_mono)
     styles = make_styles(fonts, tpl.accent_color, tpl.font_size)
     info = _page_info(diff, tpl)
     info.sections = {}
     h = job.header
-    maker = _canvas_class(job_metadata(job.sha256, "change report", diff.old.job.sha256))
+    maker = _canvas_class(job_metadata(job.sha256, "change report", diff.old.job.sha256), h.date)
     pdf = b""
     for _ in range(MAX_PASSES):
         buf = io.BytesIO()
@@ -252,6 +258,6 @@ def render_change_report(diff: JobDiff) -> bytes:
     return pdf
 
 
-def write_change_report(diff: JobDiff, out_path: str) -> None:
+def write_change_report(diff: JobDiff, out_path: str, allow_outside: bool = False) -> None:
     """Write the change report to ``out_path`` atomically (nothing half-written on failure)."""
-    write_atomic(render_change_report(diff), out_path)
+    write_atomic(render_change_report(diff, allow_outside), out_path)

@@ -1,4 +1,4 @@
-"""Render a :class:`~calcreport.outputs.diff.JobDiff` as terminal text or as JSON-ready data.
+"""Render a :class:`~calcreport.review.diff.JobDiff` as terminal text or as JSON-ready data.
 
 Every result value is shown in the NEW job's unit system (:class:`~calcreport.outputs.fmt.Display`).
 Inputs are shown as written in the job files; when a quantity was rewritten in other units, the

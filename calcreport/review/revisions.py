@@ -12,7 +12,7 @@ import subprocess
 import tomllib
 from dataclasses import dataclass
 
-from ..errors import JobError
+from ..errors import JobError, excerpt
 from ..jobfile import load_text
 from ..jobfile.load import MAX_FILE_BYTES
 from ..pipeline import STDIN, label_for, read_bytes, solve
@@ -74,24 +74,35 @@ def git_show(path: str, rev: str) -> tuple[bytes, str]:
             label_for(path), "", "--since needs a job file in a git repository, not standard input"
         )
     if not rev or rev.startswith("-"):
-        raise JobError(path, "", f"expected a git revision after --since, got {rev!r}")
+        raise JobError(path, "", f"expected a git revision after --since, got {excerpt(rev)}")
     real = os.path.realpath(path)
     if not os.path.isfile(real):
         raise JobError(path, "", "cannot read the file (No such file or directory)")
     folder = os.path.dirname(real)
     try:
         top = _git(["rev-parse", "--show-toplevel"], folder, path).decode("utf-8").strip()
-    except _GitError:
+    except _GitError as exc:
+        if "dubious ownership" in str(exc):  # git ≥ 2.35.2 refuses repositories of other users
+            said = str(exc)
+            repo = (
+                said.split("repository at '", 1)[1].rsplit("'", 1)[0] if "repository at '" in said else folder
+            )
+            raise JobError(
+                path,
+                "",
+                'git refuses to read the repository here: it belongs to another user ("dubious ownership"); '
+                f"if you trust it, run: git config --global --add safe.directory {excerpt(repo, 200)}",
+            ) from None
         raise JobError(path, "", "not inside a git repository (needed for --since)") from None
     rel = os.path.relpath(real, os.path.realpath(top)).replace(os.sep, "/")
     try:
         _git(["rev-parse", "--verify", "--quiet", f"{rev}^{{commit}}"], top, path)
     except _GitError:
-        raise JobError(path, "", f"git revision {rev!r} not found in {top}") from None
+        raise JobError(path, "", f"git revision {excerpt(rev)} not found in {top}") from None
     try:
         data = _git(["show", f"{rev}:{rel}"], top, path)
     except _GitError:
-        raise JobError(path, "", f"{rel} does not exist at git revision {rev!r}") from None
+        raise JobError(path, "", f"{rel} does not exist at git revision {excerpt(rev)}") from None
     if len(data) > MAX_FILE_BYTES:
         raise JobError(
             f"{rev}:{rel}", "", f"file is {len(data):,} bytes; a job file may have at most {MAX_FILE_BYTES:,}"

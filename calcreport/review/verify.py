@@ -16,6 +16,7 @@ from ..outputs.pdfmeta import KEY_DOCUMENT, KEY_JOB_SHA256, KEY_VERSION
 __all__ = ["PdfStamp", "Verdict", "read_stamp", "verify", "render_verdict"]
 
 _HEX = set("0123456789abcdef")
+MAX_PDF_BYTES = 200_000_000  # far above any calculation report (817 sheets ≈ 3 MB)
 
 
 @dataclass(frozen=True)
@@ -52,15 +53,20 @@ def read_stamp(pdf_path: str) -> PdfStamp:
     import logging
 
     logging.getLogger("pypdf").setLevel(logging.ERROR + 10)  # our one-line message says what is wrong
+    import io
+
+    from ..safeio import FileRefused, read_regular
+
     try:
-        with open(pdf_path, "rb") as fh:
-            reader = pypdf.PdfReader(fh)
-            info: Any = reader.metadata or {}
-            sha = info.get("/" + KEY_JOB_SHA256)
-            version = info.get("/" + KEY_VERSION)
-            document = info.get("/" + KEY_DOCUMENT)
-    except OSError as exc:
-        raise JobError(pdf_path, "", f"cannot read the file ({exc.strerror or exc})") from None
+        data = read_regular(pdf_path, MAX_PDF_BYTES, "a PDF report")
+    except FileRefused as exc:
+        raise JobError(pdf_path, "", str(exc)) from None
+    try:
+        reader = pypdf.PdfReader(io.BytesIO(data))
+        info = reader.metadata or {}
+        sha = info.get("/" + KEY_JOB_SHA256)
+        version = info.get("/" + KEY_VERSION)
+        document = info.get("/" + KEY_DOCUMENT)
     except Exception as exc:  # pypdf raises many kinds on damaged files; the message is ours
         raise JobError(pdf_path, "", f"not a readable PDF ({type(exc).__name__})") from None
     sha = str(sha).strip().lower() if sha is not None else ""

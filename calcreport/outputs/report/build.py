@@ -12,8 +12,6 @@ from __future__ import annotations
 import hashlib
 import io
 import os
-import re
-import time
 from pathlib import Path
 
 from reportlab.lib.utils import TimeStamp
@@ -21,7 +19,7 @@ from reportlab.pdfgen.canvas import Canvas
 from reportlab.platypus import KeepTogether, PageBreak, Paragraph
 
 from ... import __version__
-from ...atomic import write_atomic
+from ...safewrite import write_atomic
 from ...solve.results import JobResult
 from ..fmt import Display
 from ..pdfmeta import job_metadata
@@ -30,6 +28,7 @@ from .common import Ctx, para
 from .cover import cover_story
 from .derivations import derivation_story
 from .drawing import section_drawing
+from .epoch import reportlab_epoch, timestamp
 from .inputs import assumptions_story, description_story, inputs_story
 from .loads_section import member_figures
 from .pages import PageInfo, ReportDoc, SectionStart
@@ -42,34 +41,17 @@ __all__ = ["build_pdf", "render_pdf", "write_atomic", "report_sections"]
 
 
 def _timestamp(job_date: str) -> TimeStamp:
-    """Creation date: the job's date (YYYY-MM-DD), else SOURCE_DATE_EPOCH, else 2000-01-01, in UTC."""
-    ts = TimeStamp(invariant=1)
-    m = re.fullmatch(r"\s*(\d{4})-(\d{2})-(\d{2})\s*", job_date or "")
-    lt = None
-    if m:
-        try:
-            t = time.strptime(m.group(0).strip(), "%Y-%m-%d")
-            lt = tuple(t)
-            ts.t = float(time.mktime(t) - time.timezone)
-        except ValueError:
-            lt = None
-    if lt is None:
-        epoch = os.environ.get("SOURCE_DATE_EPOCH", "").strip()
-        if epoch.isdigit():
-            lt = tuple(time.gmtime(int(epoch)))
-            ts.t = float(epoch)
-    if lt is not None:
-        ts.lt = lt
-        ts.YMDhms = tuple(lt)[:6]
-    ts.dhh = ts.dmm = 0
-    return ts
+    """Creation date: the job's date (YYYY-MM-DD), else SOURCE_DATE_EPOCH, else 2000-01-01, in UTC
+    (:mod:`.epoch`)."""
+    return timestamp(job_date)
 
 
 def _canvasmaker(extra: dict[str, str], stamp: TimeStamp):
     class ReportCanvas(Canvas):
         def __init__(self, *a, **kw):
             kw["invariant"] = 1
-            super().__init__(*a, **kw)
+            with reportlab_epoch(int(stamp.t)):  # reportlab reads SOURCE_DATE_EPOCH itself
+                super().__init__(*a, **kw)
             stamp_info(self, extra)  # our entries, read back by `calcreport verify`
             self._doc.info.invariant = 1
             self._doc._timeStamp = stamp

@@ -128,7 +128,7 @@ def loading_diagram(
                     String(
                         x + 3,
                         base + band - 7,
-                        plain(as_given(ld.magnitude, system)),
+                        plain(as_given(ld.magnitude, system) + _load_label(ld.label)),
                         fontName=fonts.regular,
                         fontSize=6,
                         fillColor=col,
@@ -160,7 +160,7 @@ def loading_diagram(
             n = max(2, int((x1 - x0) / 14))
             for k in range(n + 1):
                 _arrow(dr, x0 + (x1 - x0) * k / n, base + min(h0, h1) * 0.6, base, col, 0.4)
-            label = plain(text + (f"  {ld.label}" if ld.label else ""))
+            label = plain(text + _load_label(ld.label))
             dr.add(
                 String(
                     x1 - 2,
@@ -239,3 +239,10 @@ def zone_elevation(j: JointResult, member: Member, fmt_q, fmt_pos, fonts, width:
             )
         )
     return dr
+
+
+def _load_label(label: str, limit: int = 40) -> str:
+    """A load's label as drawn beside its value: two spaces, then at most ``limit`` characters."""
+    if not label:
+        return ""
+    return "  " + (label if len(label) <= limit else label[: limit - 1] + "…")

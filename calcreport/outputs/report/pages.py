@@ -254,9 +254,9 @@ class ReportDoc(BaseDocTemplate):
         # firm block, with the logo at its left when given
         fx = x0 + 5
         if tpl.logo is not None:
-            from reportlab.lib.utils import ImageReader
+            from .image_guard import checked_image
 
-            img = ImageReader(str(tpl.logo))
+            img = checked_image(tpl.logo)  # dimensions checked before decoding, warnings silenced
             iw, ih = img.getSize()
             box_h = TITLE_H - 16 - 8
             scale = min(box_h / ih, (width * 0.09) / iw)

@@ -16,7 +16,7 @@ from pathlib import Path
 from reportlab.lib import colors
 from reportlab.lib.pagesizes import A4, LETTER
 
-from ...errors import JobError
+from ...errors import JobError, excerpt
 from ...resources import builtin_template, builtin_template_names
 from ...units import UnitParseError, parse
 
@@ -58,8 +58,9 @@ class Template:
 DEFAULT = Template()
 
 
-def resolve_template(value: str, job_path: str) -> Path | None:
-    """The template file named by ``settings.template`` (None for the built-in default)."""
+def resolve_template(value: str, job_path: str, allow_outside: bool = False) -> Path | None:
+    """The template file named by ``settings.template`` (None for the built-in default); a path
+    must resolve inside the job's folder or the shipped templates unless ``allow_outside``."""
     value = value.strip()
     if not value:
         return None
@@ -69,13 +70,21 @@ def resolve_template(value: str, job_path: str) -> Path | None:
             raise JobError(
                 job_path,
                 _KEY,
-                f"expected a template file; {value!r} (relative to the job file) "
+                f"expected a template file; {excerpt(value)} (relative to the job file) "
                 "does not exist or is not a regular file",
             )
+        if not allow_outside:
+            from .paths import outside_message
+
+            why = outside_message(path, job_path)
+            if why:
+                raise JobError(job_path, _KEY, f"{excerpt(value)} {why}")
         return path
     if not re.fullmatch(r"[A-Za-z0-9_.-]{1,60}", value):
         raise JobError(
-            job_path, _KEY, f'expected a template name like "a4" or a path to a .toml file, got {value!r}'
+            job_path,
+            _KEY,
+            f'expected a template name like "a4" or a path to a .toml file, got {excerpt(value)}',
         )
     found = builtin_template(value)
     if found is not None:
@@ -89,27 +98,33 @@ def resolve_template(value: str, job_path: str) -> Path | None:
     )
 
 
-def load_template(value: str, job_path: str) -> Template:
-    """Read and validate the template named in a job; the default when ``value`` is empty."""
-    path = resolve_template(value, job_path)
+def load_template(value: str, job_path: str, allow_outside: bool = False) -> Template:
+    """Read and validate the template named in a job; the default when ``value`` is empty.
+    Template, logo and font files must lie inside the job's folder or the shipped templates
+    (:mod:`.paths`) unless ``allow_outside`` (``build --allow-outside``)."""
+    path = resolve_template(value, job_path, allow_outside)
     if path is None:
         return DEFAULT
-    return read_template_file(path, job_path)
+    return read_template_file(path, job_path, allow_outside)
 
 
-def read_template_file(path: Path, job_path: str) -> Template:
+def read_template_file(path: Path, job_path: str, allow_outside: bool = False) -> Template:
     """Parse one template file; every problem is a one-line JobError at settings.template."""
 
     def fail(key: str, msg: str) -> JobError:
         where = f"{path.name}: {key}: " if key else f"{path.name}: "
         return JobError(job_path, _KEY, where + msg)
 
+    from ...safeio import FileRefused, read_regular
+
     try:
-        if path.stat().st_size > MAX_TEMPLATE_BYTES:
-            raise fail("", f"template file larger than {MAX_TEMPLATE_BYTES:,} bytes")
-        doc = tomllib.loads(path.read_bytes().decode("utf-8"))
-    except (OSError, UnicodeDecodeError) as exc:
-        raise fail("", f"cannot read the template ({exc})") from None
+        doc = tomllib.loads(read_regular(path, MAX_TEMPLATE_BYTES, "a report template").decode("utf-8"))
+    except FileRefused as exc:
+        raise fail("", str(exc)) from None
+    except UnicodeDecodeError as exc:
+        raise fail(
+            "", f"cannot read the template (expected UTF-8 text, bad byte at offset {exc.start})"
+        ) from None
     except tomllib.TOMLDecodeError as exc:
         raise fail("", f"TOML syntax error: {exc}") from None
     known = {"page", "firm", "style"}
@@ -125,7 +140,7 @@ def read_template_file(path: Path, job_path: str) -> Template:
 
     size = page.get("size", "letter")
     if not isinstance(size, str) or size.lower() not in PAGE_SIZES:
-        raise fail("page.size", f'expected "letter" or "a4", got {size!r}')
+        raise fail("page.size", f'expected "letter" or "a4", got {excerpt(size)}')
     margins = []
     for side, default in (("left", 54.0), ("right", 54.0), ("top", 40.0), ("bottom", 40.0)):
         raw = page.get(f"margin_{side}")
@@ -151,11 +166,12 @@ def read_template_file(path: Path, job_path: str) -> Template:
         or len(address) > 6
     ):
         raise fail("firm.address", "expected up to 6 lines of text")
-    logo = _file(path, firm.get("logo"), "firm.logo", fail, (".png", ".jpg", ".jpeg"), MAX_LOGO_BYTES)
+    inside = None if allow_outside else job_path
+    logo = _file(path, firm.get("logo"), "firm.logo", fail, (".png", ".jpg", ".jpeg"), MAX_LOGO_BYTES, inside)
     if logo is not None:
         _check_image(logo, fail)
     fonts = [
-        _file(path, style.get(k), f"style.{k}", fail, (".ttf",), 30_000_000)
+        _file(path, style.get(k), f"style.{k}", fail, (".ttf",), 30_000_000, inside)
         for k in ("font", "font_bold", "font_mono")
     ]
     for f, k in zip(fonts, ("font", "font_bold", "font_mono")):
@@ -163,10 +179,10 @@ def read_template_file(path: Path, job_path: str) -> Template:
             _check_font(f, f"style.{k}", fail)
     fsize = style.get("font_size", DEFAULT.font_size)
     if isinstance(fsize, bool) or not isinstance(fsize, (int, float)) or not 7 <= fsize <= 12:
-        raise fail("style.font_size", f"expected a number of points from 7 to 12, got {fsize!r}")
+        raise fail("style.font_size", f"expected a number of points from 7 to 12, got {excerpt(fsize)}")
     accent = style.get("accent", DEFAULT.accent)
     if not isinstance(accent, str) or not _HEX.match(accent):
-        raise fail("style.accent", f'expected a colour like "#2b5d7d", got {accent!r}')
+        raise fail("style.accent", f'expected a colour like "#2b5d7d", got {excerpt(accent)}')
     return Template(
         name=path.name,
         page=size.lower(),
@@ -202,35 +218,45 @@ def _text(t: dict, key: str, fail, prefix: str, default: str) -> str:
     return v
 
 
-def _file(template: Path, value, key: str, fail, exts: tuple[str, ...], max_bytes: int) -> Path | None:
+def _file(
+    template: Path, value, key: str, fail, exts: tuple[str, ...], max_bytes: int, inside: str | None = None
+) -> Path | None:
+    """The file ``value`` names relative to the template; with ``inside`` (the job file's path)
+    it must resolve inside the job's folder or the shipped templates."""
     if value is None or value == "":
         return None
     if not isinstance(value, str):
         raise fail(key, "expected a file path relative to the template")
     p = template.parent / value
     if p.suffix.lower() not in exts:
-        raise fail(key, f"expected a {' or '.join(e.lstrip('.').upper() for e in exts)} file, got {value!r}")
+        raise fail(
+            key, f"expected a {' or '.join(e.lstrip('.').upper() for e in exts)} file, got {excerpt(value)}"
+        )
     if not p.is_file():
         raise fail(
-            key, f"expected a regular file; {value!r} (relative to the template) is missing or not a file"
+            key,
+            f"expected a regular file; {excerpt(value)} (relative to the template) is missing or not a file",
         )
+    if inside is not None:
+        from .paths import outside_message
+
+        why = outside_message(p, inside)
+        if why:
+            raise fail(key, f"{excerpt(value)} {why}")
     if p.stat().st_size > max_bytes:
         raise fail(key, f"file larger than {max_bytes:,} bytes")
     return p.resolve()
 
 
 def _check_image(p: Path, fail) -> None:
-    head = p.read_bytes()[:8]
-    if not (head.startswith(b"\x89PNG\r\n\x1a\n") or head.startswith(b"\xff\xd8\xff")):
-        raise fail("firm.logo", f"expected a PNG or JPEG image; {p.name} is neither")
-    try:
-        from reportlab.lib.utils import ImageReader
+    """Pixel dimensions from the header first (:mod:`.image_guard`), then a guarded decode."""
+    from ...safeio import FileRefused
+    from .image_guard import ImageRefused, checked_image
 
-        w, h = ImageReader(str(p)).getSize()
-    except Exception as exc:  # reportlab/PIL raise many kinds for broken images
-        raise fail("firm.logo", f"cannot read the image ({type(exc).__name__})") from None
-    if w <= 0 or h <= 0:
-        raise fail("firm.logo", "image has no size")
+    try:
+        checked_image(p)
+    except (ImageRefused, FileRefused) as exc:
+        raise fail("firm.logo", f"{p.name}: {exc}") from None
 
 
 def _check_font(p: Path, key: str, fail) -> None:
@@ -239,4 +265,4 @@ def _check_font(p: Path, key: str, fail) -> None:
 
         TTFontFile(str(p))
     except Exception as exc:  # reportlab raises TTFError and others for bad fonts
-        raise fail(key, f"not a usable TrueType font ({str(exc)[:80]})") from None
+        raise fail(key, f"not a usable TrueType font ({type(exc).__name__})") from None

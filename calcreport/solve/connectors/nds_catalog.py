@@ -94,7 +94,10 @@ for _kind, _rows in (("common", _COMMON), ("box", _BOX), ("sinker", _SINKER), ("
         _n = f"{_p}d {_kind}"
         NAILS[_n] = NailSize(_n, _p, _kind, _d, _l)
 
-_NAIL_RE = re.compile(r"^\s*(\d+)\s*d\s*(common|box|sinker|spike)?\s*(?:nail|wire nail)?s?\s*$", re.I)
+# Matched against the text with its whitespace runs folded to one space (see ``nail``): every
+# optional space is one character, so the match is linear (runs of ``\s*`` side by side would
+# backtrack cubically on a long run of spaces).
+_NAIL_RE = re.compile(r"^(\d+) ?d ?(common|box|sinker|spike)? ?(?:nail|wire nail)?s?$", re.I)
 
 
 def nail_names() -> list[str]:
@@ -104,7 +107,7 @@ def nail_names() -> list[str]:
 
 def nail(size: str) -> NailSize | None:
     """Look up ``"16d common"`` (also ``"16d"`` = common, ``"16D Common nail"``); None if unknown."""
-    m = _NAIL_RE.match(size)
+    m = _NAIL_RE.match(" ".join(size.split())) if len(size) <= 200 else None
     if not m:
         return None
     kind = (m.group(2) or "common").lower()
