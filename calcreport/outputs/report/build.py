@@ -25,7 +25,7 @@ from reportlab.platypus import KeepTogether, PageBreak, Paragraph
 from ... import __version__
 from ...solve.results import JobResult
 from ..fmt import Display
-from ..pdfmeta import job_metadata
+from ..pdfmeta import job_metadata, seal_metadata
 from .along import member_figures
 from .checks import results_story
 from .common import Ctx, para
@@ -178,6 +178,7 @@ def render_pdf(
         **job_metadata(job.sha256, "calculation report"),  # the keys `verify` reads (pdfmeta)
         "CalcreportJobFile": os.path.basename(job.path),
         "CalcreportRevision": h.revision,
+        **{k: v for k, v in seal_metadata(h.engineer, h.licence, h.jurisdiction).items() if v},
     }
     maker = _canvasmaker(extra, _timestamp(h.date))
     keywords = ", ".join(
