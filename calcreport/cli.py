@@ -140,8 +140,12 @@ def build_parser() -> argparse.ArgumentParser:
 
 
 def _add_optional_commands(sub) -> None:
-    """Commands provided by output packages register themselves here (report, diff, verify)."""
-    for module in ("calcreport.outputs.report.cli", "calcreport.outputs.review_cli"):
+    """Commands provided by output packages register themselves here (report, diff, verify, seal)."""
+    for module in (
+        "calcreport.outputs.report.cli",
+        "calcreport.outputs.review_cli",
+        "calcreport.outputs.seal_cli",
+    ):
         try:
             mod = __import__(module, fromlist=["register"])
         except ModuleNotFoundError as exc:

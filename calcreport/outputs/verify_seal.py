@@ -163,8 +163,8 @@ def _check_signing_revision(proof: Proof, reader, r, sigs) -> None:
 
 
 def _check_signature(proof: Proof, i: int, s, roots: list, revs: FileRevisions, by_rev: dict) -> None:
-    from pyhanko.sign.general import SignatureCoverageLevel
     from pyhanko.sign.validation import validate_pdf_signature
+    from pyhanko.sign.validation.status import SignatureCoverageLevel
     from pyhanko_certvalidator import ValidationContext
 
     label = f"seal {i}"
@@ -194,7 +194,7 @@ def _check_signature(proof: Proof, i: int, s, roots: list, revs: FileRevisions, 
         return
     entry.update(intact=bool(st.intact), valid=bool(st.valid), trusted=bool(st.trusted))
     entry["covers_whole_file"] = st.coverage == SignatureCoverageLevel.ENTIRE_FILE
-    who = f"signed by {_cn(cert)} ({_name(cert)}; certificate {entry['serial']} from {_cn_issuer(cert)}) at {when_text}"
+    who = f"signed by {_cn(cert)} (certificate {entry['serial'][:16]}…, issued by {_cn_issuer(cert)}) at {when_text}"
     if st.intact and st.valid:
         proof.add(OK, label, f"field {s.field_name!r}: intact and valid, {who}")
     else:
@@ -213,7 +213,7 @@ def _check_signature(proof: Proof, i: int, s, roots: list, revs: FileRevisions, 
         proof.add(
             FAIL,
             f"{label} chain",
-            f"the certificate ({_name(cert)}, issued by {_cn_issuer(cert)}) does not chain to a trust root "
+            f"the certificate of {_cn(cert)} (issued by {_cn_issuer(cert)}) does not chain to a trust root "
             f"given with --trust{_why(st)}",
         )
     if st.coverage == SignatureCoverageLevel.ENTIRE_FILE:
@@ -245,7 +245,8 @@ def _cn_issuer(cert) -> str:
 
 def _why(st) -> str:
     try:
-        err = st.validation_path_error or getattr(st, "trust_problem_indic", None)
+        err = getattr(st, "trust_problem_indic", None)
+        err = getattr(err, "name", err)
     except Exception:
         err = None
     return f" ({err})" if err else ""

@@ -59,6 +59,7 @@ class SealBox(Flowable):
             }
         )
         form = c.acroForm
+        form.sigFlags = 3  # SignaturesExist (a signature field exists), AppendOnly (ISO 32000-1 Table 219)
         c._addAnnotation(widget)
         form.fields.append(form.getRef(widget))
 
