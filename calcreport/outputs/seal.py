@@ -244,6 +244,16 @@ def seal_pdf(
         new_spec = fields.SigFieldSpec(sig_field_name=field)
     when = datetime.now(UTC)
     lines = stamp_lines(info, cred.subject, when)
+    for line in lines:
+        try:
+            line.encode("cp1252")  # the stamp's font is the standard Courier (WinAnsiEncoding)
+        except UnicodeEncodeError:
+            raise JobError(
+                pdf_path,
+                "",
+                f"the stamp's font shows Western European letters only and cannot show {line!r} exactly; "
+                "give the name in those letters in the job ([job] engineer, jurisdiction) and rebuild",
+            ) from None
     meta = signers.PdfSignatureMetadata(
         field_name=field,
         md_algorithm="sha256",

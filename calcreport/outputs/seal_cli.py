@@ -55,6 +55,7 @@ def register(sub) -> None:
     """Add ``seal`` to the ``calcreport`` sub-command parser."""
     s = sub.add_parser(
         "seal",
+        allow_abbrev=False,  # "--passphrase …" must not pass for --passphrase-env
         help="apply a digital seal (PAdES signature) to a calculation report",
         description="Sign a calculation report into the signature field its cover reserves in the seal "
         "box (a PAdES baseline signature, written as an incremental update: the report as built stays "
