@@ -22,6 +22,7 @@ __all__ = [
     "KEY_ENGINEER",
     "KEY_LICENCE",
     "KEY_JURISDICTION",
+    "KEY_MARKED_SINCE",
     "stamp",
     "job_metadata",
     "seal_metadata",
@@ -35,6 +36,7 @@ KEY_DOCUMENT = "CalcreportDocument"  # "calculation report", "change report"
 KEY_ENGINEER = "CalcreportEngineer"
 KEY_LICENCE = "CalcreportLicence"
 KEY_JURISDICTION = "CalcreportJurisdiction"
+KEY_MARKED_SINCE = "CalcreportMarkedSince"  # build --since REV: the revision the marks compare with
 
 
 def seal_metadata(engineer: str, licence: str, jurisdiction: str) -> dict[str, str]:

@@ -10,7 +10,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 
 from ..errors import JobError
-from .pdfmeta import KEY_DOCUMENT, KEY_JOB_SHA256, KEY_VERSION
+from .pdfmeta import KEY_DOCUMENT, KEY_JOB_SHA256, KEY_MARKED_SINCE, KEY_VERSION
 
 __all__ = ["PdfStamp", "Verdict", "read_stamp", "verify", "render_verdict"]
 
@@ -24,6 +24,7 @@ class PdfStamp:
     sha256: str
     version: str
     document: str
+    marked_since: str = ""  # build --since REV: revision marks against git revision REV
 
 
 @dataclass(frozen=True)
@@ -58,6 +59,7 @@ def read_stamp(pdf_path: str) -> PdfStamp:
             sha = info.get("/" + KEY_JOB_SHA256)
             version = info.get("/" + KEY_VERSION)
             document = info.get("/" + KEY_DOCUMENT)
+            since = info.get("/" + KEY_MARKED_SINCE)
     except OSError as exc:
         raise JobError(pdf_path, "", f"cannot read the file ({exc.strerror or exc})") from None
     except Exception as exc:  # pypdf raises many kinds on damaged files; the message is ours
@@ -69,7 +71,9 @@ def read_stamp(pdf_path: str) -> PdfStamp:
             KEY_JOB_SHA256,
             "the PDF carries no calcreport job-file hash (was it built by calcreport?)",
         )
-    return PdfStamp(sha, str(version) if version is not None else "unknown", str(document or ""))
+    return PdfStamp(
+        sha, str(version) if version is not None else "unknown", str(document or ""), str(since or "")
+    )
 
 
 def verify(pdf_path: str, job_path: str) -> Verdict:

@@ -85,7 +85,14 @@ def prove(pdf_path: str, job_path: str, trust: tuple[str, ...] = ()) -> Proof:
             "(a weaker check)",
         )
         return proof
-    rebuilt = _rebuild(job_path)
+    rebuilt = _rebuild(job_path, stamp.marked_since)
+    if stamp.marked_since:
+        proof.add(
+            NOTE,
+            "marks",
+            f"the report marks what changed since git revision {stamp.marked_since}; the rebuild "
+            "recomputed the marks from the repository as it is now",
+        )
     from .pdf_revisions import read_revisions
 
     revs = read_revisions(data)
@@ -136,16 +143,22 @@ def _read(pdf_path: str) -> bytes:
     return data
 
 
-def _rebuild(job_path: str) -> bytes:
-    """The report of ``job_path`` as ``calcreport build`` writes it (no revision marks)."""
+def _rebuild(job_path: str, since: str = "") -> bytes:
+    """The report of ``job_path`` as ``calcreport build`` (``--since since``) writes it."""
     from ..cli import solve_file
     from .report.build import render_pdf
     from .report.template import load_template
 
     result = solve_file(job_path)
     tpl = load_template(result.job.settings.template, result.job.path)
+    keys, mark = frozenset(), ""
+    if since:
+        from .review_io import revision_marks_since
+
+        marks = revision_marks_since(job_path, since, result)  # git errors: JobError, exit 2
+        keys, mark = marks.changed_keys, marks.mark
     try:
-        return render_pdf(result, tpl)
+        return render_pdf(result, tpl, keys, mark, marked_since=since)
     except JobError:
         raise
     except Exception as exc:  # a defect of ours: one line, exit 2

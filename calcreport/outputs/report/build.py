@@ -25,7 +25,7 @@ from reportlab.platypus import KeepTogether, PageBreak, Paragraph
 from ... import __version__
 from ...solve.results import JobResult
 from ..fmt import Display
-from ..pdfmeta import job_metadata, seal_metadata
+from ..pdfmeta import KEY_MARKED_SINCE, job_metadata, seal_metadata
 from .along import member_figures
 from .checks import results_story
 from .common import Ctx, para
@@ -164,8 +164,13 @@ def render_pdf(
     template: Template | None = None,
     changed_keys: frozenset[str] = frozenset(),
     revision_mark: str = "",
+    marked_since: str = "",
 ) -> bytes:
-    """The report of ``result`` as PDF bytes (see module docstring)."""
+    """The report of ``result`` as PDF bytes (see module docstring).
+
+    ``marked_since``: the git revision the marks compare with (``build --since``), stamped in the
+    metadata so that ``calcreport verify`` can recompute the marks and rebuild the same bytes.
+    """
     job = result.job
     tpl = template if template is not None else load_template(job.settings.template, job.path)
     fonts = register_fonts(tpl.font, tpl.font_bold, tpl.font_mono)
@@ -179,6 +184,7 @@ def render_pdf(
         "CalcreportJobFile": os.path.basename(job.path),
         "CalcreportRevision": h.revision,
         **{k: v for k, v in seal_metadata(h.engineer, h.licence, h.jurisdiction).items() if v},
+        **({KEY_MARKED_SINCE: marked_since} if marked_since else {}),
     }
     maker = _canvasmaker(extra, _timestamp(h.date))
     keywords = ", ".join(
