@@ -254,3 +254,19 @@ def test_bad_credentials_are_one_line_errors(tmp_path, capsys, setup):
     code, _, err = run(["seal", str(pdf), "--cert", str(eng.cert_pem), "--key", str(other.key_pem)], capsys)
     assert code == 2 and "does not belong to the certificate" in err
     assert pdf.read_bytes() == setup["pdf"]
+
+
+def test_template_names_the_seal_field(tmp_path, capsys, setup):
+    write(tmp_path / "ours.toml", '[seal]\nfield = "pe-stamp"\n')
+    job = write(
+        tmp_path / "job.toml", edited(demo_text(), ('units = "US"', 'units = "US"\ntemplate = "ours.toml"'))
+    )
+    pdf = tmp_path / "job.pdf"
+    code, _, err = run(["build", job, "-o", str(pdf)], capsys)
+    assert code in (0, 1), err
+    assert list(pypdf.PdfReader(str(pdf)).get_fields()) == ["pe-stamp"]
+    out, said = _seal(tmp_path, capsys, pdf.read_bytes(), setup["eng"])
+    assert "field 'pe-stamp' in the seal box" in said
+    write(tmp_path / "ours.toml", '[seal]\nfield = "pe.stamp"\n')
+    code, out, err = run(["build", job, "-o", str(tmp_path / "bad.pdf")], capsys)
+    assert code == 2 and "seal.field" in err and "no dots" in err and err.count("\n") == 1
