@@ -47,14 +47,14 @@ def main() -> None:
         quiet(["build", str(ROOT / "jobs" / "boathouse-door-header.toml"), "-o", f"{d}/warm.pdf"])
         for job in sorted((ROOT / "jobs").glob("*.toml")):
             pdf = f"{d}/{job.stem}.pdf"
-            t_build = best(lambda: quiet(["build", str(job), "-o", pdf, "-j", "1"]))
-            t_verify = best(lambda: quiet(["verify", pdf, str(job)]))
+            t_build = best(lambda j=job, p=pdf: quiet(["build", str(j), "-o", p, "-j", "1"]))
+            t_verify = best(lambda j=job, p=pdf: quiet(["verify", p, str(j)]))
             s1, s2 = f"{d}/{job.stem}-1.pdf", f"{d}/{job.stem}-2.pdf"
             quiet(["seal", pdf, "--cert", str(eng.cert_pem), "--key", str(eng.key_pem), "-o", s1])
             quiet(["seal", s1, "--cert", str(chk.cert_pem), "--key", str(chk.key_pem), "-o", s2])
             trust = ["--trust", str(eng.ca_pem), "--trust", str(chk.ca_pem)]
             code = quiet(["verify", s2, str(job), *trust])
-            t_sealed = best(lambda: quiet(["verify", s2, str(job), *trust]))
+            t_sealed = best(lambda j=job, p=s2, t=trust: quiet(["verify", p, str(j), *t]))
             import pypdf
 
             sheets = len(pypdf.PdfReader(pdf).pages)

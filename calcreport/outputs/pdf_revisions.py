@@ -15,6 +15,7 @@ from __future__ import annotations
 
 import io
 from dataclasses import dataclass, field
+from typing import Any
 
 __all__ = ["Revision", "FileRevisions", "read_revisions", "describe"]
 
@@ -36,7 +37,7 @@ class FileRevisions:
     revisions: list[Revision] = field(default_factory=list)
     trailing: int = 0  # bytes after the last %%EOF that are not whitespace
     error: str = ""  # the file's revisions could not be read (damaged cross-references)
-    reader: object | None = None  # pyHanko PdfFileReader, for signature checks
+    reader: Any = None  # pyHanko PdfFileReader, for signature checks
 
 
 def _eof_end(data: bytes, start: int) -> int:
@@ -188,7 +189,8 @@ def _describe_update(reader, rev: int, start: int, end: int, pages0: dict) -> Re
         elif typ == "/Font" or typ == "/FontDescriptor" or typ == "/Encoding":
             kinds.add("fonts")
         elif typ == "/Annot" or (d is not None and "/Subtype" in d and "/Rect" in d):
-            kinds.add(f"an annotation ({str(d.get('/Subtype', '?')).lstrip('/')})")
+            sub = str(d.get("/Subtype", "?")) if d is not None else "?"
+            kinds.add(f"an annotation ({sub.lstrip('/')})")
             sig_only = False
         elif sheet:
             kinds.add(f"content of sheet {sheet}")

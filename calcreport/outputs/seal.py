@@ -23,6 +23,7 @@ import os
 from collections.abc import Callable
 from dataclasses import dataclass
 from datetime import UTC, datetime
+from typing import Any
 
 from ..errors import JobError
 
@@ -33,7 +34,7 @@ MAX_LINE = 34  # characters per stamp line (the stamp text is scaled to the box)
 
 @dataclass(frozen=True)
 class Credentials:
-    signer: object  # pyhanko.sign.signers.SimpleSigner
+    signer: Any  # pyhanko.sign.signers.SimpleSigner
     subject: dict  # the certificate's subject (asn1crypto native names)
     not_after: datetime
 
@@ -191,7 +192,8 @@ def _fit(text: str) -> str:
 def _fields(reader) -> tuple[list[str], list[str]]:
     from pyhanko.sign.fields import enumerate_sig_fields
 
-    empty, filled = [], []
+    empty: list[str] = []
+    filled: list[str] = []
     for name, value, _ref in enumerate_sig_fields(reader):
         (filled if value is not None else empty).append(name)
     return empty, filled

@@ -1,8 +1,9 @@
-"""Check that a PDF report was built from exactly a given job file.
+"""The job-file stamp of a calcreport PDF, and the comparison of that stamp alone with a job file.
 
-The PDF's information dictionary carries ``/CalcreportJobSHA256`` and ``/CalcreportVersion``
-(:mod:`.pdfmeta`); the job file's hash is :attr:`calcreport.model.Job.sha256`. pypdf is imported
-only here, when a PDF is read.
+The stamp is only the first of ``calcreport verify``'s checks: the command proves the whole file
+by rebuilding it (:mod:`.verify_pdf`). The PDF's information dictionary carries
+``/CalcreportJobSHA256`` and ``/CalcreportVersion`` (:mod:`.pdfmeta`); the job file's hash is
+:attr:`calcreport.model.Job.sha256`. pypdf is imported only when a PDF is read.
 """
 
 from __future__ import annotations

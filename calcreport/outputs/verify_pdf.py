@@ -151,7 +151,8 @@ def _rebuild(job_path: str, since: str = "") -> bytes:
 
     result = solve_file(job_path)
     tpl = load_template(result.job.settings.template, result.job.path)
-    keys, mark = frozenset(), ""
+    keys: frozenset[str] = frozenset()
+    mark = ""
     if since:
         from .review_io import revision_marks_since
 

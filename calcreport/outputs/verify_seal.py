@@ -89,7 +89,7 @@ def check_seals(
         sigs = list(reader.embedded_signatures)
     except Exception as exc:
         proof.add(FAIL, "seal", f"the signatures cannot be read ({type(exc).__name__})")
-    by_rev = {}
+    by_rev: dict[int, list] = {}
     for s in sigs:
         by_rev.setdefault(s.signed_revision, []).append(s)
     for name in fields:
