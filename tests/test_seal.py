@@ -270,3 +270,13 @@ def test_template_names_the_seal_field(tmp_path, capsys, setup):
     write(tmp_path / "ours.toml", '[seal]\nfield = "pe.stamp"\n')
     code, out, err = run(["build", job, "-o", str(tmp_path / "bad.pdf")], capsys)
     assert code == 2 and "seal.field" in err and "no dots" in err and err.count("\n") == 1
+
+
+def test_trust_given_for_an_unsealed_report_is_said_and_a_bad_trust_file_is_exit_2(tmp_path, capsys, setup):
+    pdf = tmp_path / "r.pdf"
+    pdf.write_bytes(setup["pdf"])
+    code, doc = _verify_json(capsys, pdf, setup["job"], setup["eng"].ca_pem)
+    assert code == 0 and "no digital seal" in _find(doc, "trust")[0]["text"]
+    junk = write(tmp_path / "junk.pem", "not a certificate")
+    code, out, err = run(["verify", str(pdf), setup["job"], "--trust", junk], capsys)
+    assert code == 2 and out == "" and "junk.pem" in err and "X.509" in err and err.count("\n") == 1

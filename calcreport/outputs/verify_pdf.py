@@ -65,6 +65,10 @@ def prove(pdf_path: str, job_path: str, trust: tuple[str, ...] = ()) -> Proof:
     data = _read(pdf_path)
     stamp = read_stamp(pdf_path)
     job = load_job(job_path)
+    if trust:
+        from .verify_seal import load_trust_roots
+
+        load_trust_roots(trust)  # a bad --trust file stops here, before the rebuild (exit 2)
     proof = Proof(pdf_path, job_path, stamp, job.sha256)
     if stamp.sha256 == job.sha256:
         proof.add(

@@ -99,7 +99,9 @@ def check_seals(
                 "seal field",
                 f"{name!r} is empty: no digital seal in it (it prints blank for a wet seal)",
             )
-    roots = load_trust_roots(trust) if sigs else []
+    roots = load_trust_roots(trust)
+    if trust and not sigs:
+        proof.add(NOTE, "trust", "--trust was given, but the report carries no digital seal to check")
     last_seal_rev = max(by_rev, default=0)
     for r in revs.revisions[1:]:
         if r.number in by_rev:
