@@ -63,9 +63,9 @@ def read_revisions(data: bytes) -> FileRevisions:
 
     logging.getLogger("pyhanko").setLevel(logging.CRITICAL + 10)
     out = FileRevisions()
-    try:
-        from pyhanko.pdf_utils.reader import PdfFileReader
+    from pyhanko.pdf_utils.reader import PdfFileReader  # a missing package is not a damaged file
 
+    try:
         reader = PdfFileReader(io.BytesIO(data), strict=False)
         total = reader.xrefs.total_revisions
     except Exception as exc:  # a damaged or forged file: say so, the rest of verify still runs

@@ -68,7 +68,7 @@ def _cmd_verify(args) -> int:
     except JobError as exc:
         return _fail(str(exc))
     except ModuleNotFoundError as exc:
-        return _fail(f"calcreport verify: needs the {exc.name} package (pip install 'calcreport[seal]')")
+        return _fail(f"calcreport verify: needs the {exc.name} package (pip install pyHanko pypdf)")
     if args.json:
         from .json_out import dumps
 
