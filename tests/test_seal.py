@@ -280,3 +280,20 @@ def test_trust_given_for_an_unsealed_report_is_said_and_a_bad_trust_file_is_exit
     junk = write(tmp_path / "junk.pem", "not a certificate")
     code, out, err = run(["verify", str(pdf), setup["job"], "--trust", junk], capsys)
     assert code == 2 and out == "" and "junk.pem" in err and "X.509" in err and err.count("\n") == 1
+
+
+def test_a_report_changed_after_its_build_is_not_sealed(tmp_path, capsys, setup):
+    src = tmp_path / "src.pdf"
+    src.write_bytes(setup["pdf"])
+    w = pypdf.PdfWriter(str(src), incremental=True)
+    w.add_metadata({"/Subject": "something else"})
+    buf = io.BytesIO()
+    w.write(buf)
+    eng = setup["eng"]
+    for name, data in (("upd.pdf", buf.getvalue()), ("junk.pdf", setup["pdf"] + b"trailing junk\n")):
+        p = tmp_path / name
+        p.write_bytes(data)
+        code, out, err = run(["seal", str(p), "--cert", str(eng.cert_pem), "--key", str(eng.key_pem)], capsys)
+        assert code == 2 and out == "" and err.count("\n") == 1, err
+        assert ("changed after it was built" in err) if name == "upd.pdf" else ("appended" in err)
+        assert p.read_bytes() == data

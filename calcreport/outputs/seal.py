@@ -221,6 +221,7 @@ def seal_pdf(
     logging.getLogger("pyhanko").setLevel(logging.CRITICAL + 10)
     read_stamp(pdf_path)  # a calcreport report, readable (JobError otherwise)
     data = _read(pdf_path, "report")
+    _refuse_changed(pdf_path, data)
     try:
         w = IncrementalPdfFileWriter(io.BytesIO(data), strict=False)
         empty, filled = _fields(w.prev)
@@ -286,6 +287,33 @@ def seal_pdf(
     except OSError as exc:
         raise JobError(out_path, "", f"cannot write the sealed report ({exc.strerror or exc})") from None
     return SealResult(str(out_path), field, new_spec is None, lines)
+
+
+def _refuse_changed(pdf_path: str, data: bytes) -> None:
+    """Refuse a report changed after its build: every later revision must be a seal's own."""
+    from .pdf_revisions import describe, read_revisions
+
+    revs = read_revisions(data)
+    if revs.error or revs.reader is None:
+        raise JobError(pdf_path, "", revs.error or "the file's revisions cannot be read")
+    if revs.trailing:
+        raise JobError(
+            pdf_path, "", f"{revs.trailing:,} bytes were appended after the report's end; not sealed"
+        )
+    try:
+        signed = {s.signed_revision for s in revs.reader.embedded_signatures}
+    except Exception as exc:
+        raise JobError(
+            pdf_path, "", f"the signatures in the file cannot be read ({type(exc).__name__})"
+        ) from None
+    for r in revs.revisions[1:]:
+        if r.number not in signed:
+            raise JobError(
+                pdf_path,
+                "",
+                f"the report was changed after it was built (update {r.number} {describe(r)}); "
+                "seal the report as built (calcreport verify says what changed)",
+            )
 
 
 def _timestamper(url: str | None):
