@@ -140,10 +140,11 @@ def build_parser() -> argparse.ArgumentParser:
     )
     n.add_argument("--force", action="store_true", help="overwrite an existing file")
     n.set_defaults(func=_cmd_new)
-    from .commands import build, review, schema
+    from .commands import build, review, schema, seal
 
     build.register(sub, common)
     review.register(sub, common)
+    seal.register(sub, common)
     schema.register(sub, common)
     return p
 

@@ -53,6 +53,9 @@ class Header:
     prepared_date: str = ""
     checked_date: str = ""
     approved_by: str = ""
+    engineer: str = ""  # engineer of record (the seal's stamp); licence number and its jurisdiction
+    licence: str = ""
+    jurisdiction: str = ""
     history: tuple[RevisionEntry, ...] = ()
     notes: tuple[str, ...] = ()
 

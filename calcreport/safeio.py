@@ -15,7 +15,7 @@ from __future__ import annotations
 import os
 import stat
 
-__all__ = ["FileRefused", "read_regular", "file_kind"]
+__all__ = ["FileRefused", "read_regular", "read_input", "file_kind"]
 
 
 class FileRefused(Exception):
@@ -73,3 +73,14 @@ def read_regular(path: str | os.PathLike, limit: int, what: str = "file") -> byt
         raise FileRefused(f"cannot read the file ({exc.strerror or exc})") from None
     finally:
         os.close(fd)
+
+
+def read_input(path: str | os.PathLike, limit: int, what: str = "file") -> bytes:
+    """:func:`read_regular`, with a refusal raised as the one-line :class:`~calcreport.errors.JobError`
+    that names ``path`` (exit code 2)."""
+    from .errors import JobError
+
+    try:
+        return read_regular(path, limit, what)
+    except FileRefused as exc:
+        raise JobError(str(path), "", str(exc)) from None

@@ -59,6 +59,8 @@ def test_build_since_marks_changed_rows_with_the_revision_letter(tmp_path, capsy
         return sum(p.extract_text().split().count("Q") for p in pypdf.PdfReader(path).pages)
 
     assert q_marks(marked) > q_marks(plain)
+    code, out, _ = run(["verify", marked, job], capsys)  # the marks are recomputed from git
+    assert code == 0 and "since git revision HEAD" in out, out
     code, _, err = run(["build", job, "-o", str(tmp_path / "x.pdf"), "--since", "nope"], capsys)
     assert code == 2 and "git revision 'nope' not found" in err
     assert not (tmp_path / "x.pdf").exists()

@@ -7,7 +7,7 @@ import sys
 from pathlib import Path
 
 ROOT = Path(__file__).resolve().parent.parent
-HEAVY = "sorted(m for m in sys.modules if m.split('.')[0] in ('reportlab', 'pypdf'))"
+HEAVY = "sorted(m for m in sys.modules if m.split('.')[0] in ('reportlab', 'pypdf', 'pyhanko'))"
 
 
 def run_fresh(args: list[str], report: str, quiet: str = "stdout") -> str:

@@ -13,7 +13,8 @@ from review_helpers import ROOT, run
 def test_help_documents_exit_codes(capsys):
     for cmd, words in (
         ("diff", ("0 no result changed", "1 some result changed", "2 invalid input")),
-        ("verify", ("0 match", "1 mismatch", "2 unreadable PDF")),
+        ("verify", ("0 exact match", "1 anything else", "2 unreadable PDF")),
+        ("seal", ("0 sealed", "1 refused", "2 invalid input")),
     ):
         try:
             run([cmd, "--help"], capsys)
@@ -27,7 +28,7 @@ def test_help_documents_exit_codes(capsys):
 def test_parser_does_not_import_pdf_libraries():
     code = (
         "import sys, calcreport.cli as c; c.build_parser(); "
-        "print(','.join(m for m in ('reportlab', 'pypdf', 'calcreport.review.diff') if m in sys.modules))"
+        "print(','.join(m for m in ('reportlab', 'pypdf', 'pyhanko', 'calcreport.review.diff') if m in sys.modules))"
     )
     r = subprocess.run([sys.executable, "-c", code], cwd=ROOT, capture_output=True, text=True, check=True)
     assert r.stdout.strip() == ""

@@ -84,7 +84,7 @@ def build_one(task: Task) -> Outcome:
 
             marks = revision_marks_since(task.job, task.since, r)
             keys, mark = marks.changed_keys, marks.mark
-        pdf = render_pdf(r, tpl, keys, mark)
+        pdf = render_pdf(r, tpl, keys, mark, marked_since=task.since or "")
     except JobError as exc:
         return Outcome(task.job, EXIT_INVALID, _one_line(str(exc)))
     except Exception as exc:  # a defect of ours: still one line, exit 2, nothing written

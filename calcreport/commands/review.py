@@ -74,15 +74,21 @@ def _cmd_diff(args) -> int:
 
 def _cmd_verify(args) -> int:
     from ..errors import JobError
-    from ..review.verify import render_verdict, verify
+    from ..review.verify_pdf import proof_to_dict, prove, render_proof
 
     try:
-        verdict = verify(args.pdf, args.job)
+        proof = prove(args.pdf, args.job, tuple(args.trust or ()))
     except JobError as exc:
         return _fail(str(exc))
-    if not args.quiet:
-        sys.stdout.write(render_verdict(verdict))
-    return EXIT_MATCH if verdict.match else EXIT_MISMATCH
+    except ModuleNotFoundError as exc:
+        return _fail(f"calcreport verify: needs the {exc.name} package (pip install pyHanko pypdf)")
+    if args.json:
+        from ..outputs.json_out import dumps
+
+        sys.stdout.write(dumps(proof_to_dict(proof)))
+    elif not args.quiet:
+        sys.stdout.write(render_proof(proof))
+    return EXIT_MATCH if proof.code == 0 else EXIT_MISMATCH
 
 
 def register(sub, common) -> None:
@@ -117,11 +123,22 @@ def register(sub, common) -> None:
     d.set_defaults(func=_cmd_diff)
     v = sub.add_parser(
         "verify",
-        help="check that a PDF report was built from exactly this job file",
-        description="Compare the job-file SHA-256 stamped in a calcreport PDF with the job file. "
-        "Exit 0 match, 1 mismatch, 2 unreadable PDF or invalid job file.",
+        help="prove that a PDF report is exactly what this job file builds (and check its seals)",
+        description="Rebuild the report of the job file in memory and compare it byte for byte with the "
+        "PDF as built; name the sheets that differ; list every update made after the build and check "
+        "each digital seal (integrity, certificate chain against --trust roots, what it covers). "
+        "A report from another calcreport version is compared by page text only (a weaker check). "
+        "Exit 0 exact match (and every seal intact, trusted and covering the file), 1 anything else, "
+        "2 unreadable PDF or invalid job file. See docs/review.md.",
         parents=[common],
     )
     v.add_argument("pdf", metavar="REPORT.pdf")
     v.add_argument("job", metavar="JOB.toml")
+    v.add_argument(
+        "--trust",
+        action="append",
+        metavar="CERT.pem",
+        help="a certificate authority to trust for seals (PEM or DER; repeat for several)",
+    )
+    v.add_argument("--json", action="store_true", help="print the findings as JSON (see docs/review.md)")
     v.set_defaults(func=_cmd_verify)

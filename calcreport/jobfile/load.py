@@ -116,6 +116,9 @@ def _header(t: Table) -> Header:
         prepared_date=t.text("prepared_date"),
         checked_date=t.text("checked_date"),
         approved_by=t.text("approved_by"),
+        engineer=t.text("engineer"),
+        licence=t.text("licence"),
+        jurisdiction=t.text("jurisdiction"),
         history=tuple(history),
         notes=t.texts("notes"),
     )

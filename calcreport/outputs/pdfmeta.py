@@ -14,12 +14,34 @@ from __future__ import annotations
 
 from collections.abc import Mapping
 
-__all__ = ["KEY_JOB_SHA256", "KEY_VERSION", "KEY_BASE_SHA256", "KEY_DOCUMENT", "stamp", "job_metadata"]
+__all__ = [
+    "KEY_JOB_SHA256",
+    "KEY_VERSION",
+    "KEY_BASE_SHA256",
+    "KEY_DOCUMENT",
+    "KEY_ENGINEER",
+    "KEY_LICENCE",
+    "KEY_JURISDICTION",
+    "KEY_MARKED_SINCE",
+    "stamp",
+    "job_metadata",
+    "seal_metadata",
+]
 
 KEY_JOB_SHA256 = "CalcreportJobSHA256"
 KEY_VERSION = "CalcreportVersion"
 KEY_BASE_SHA256 = "CalcreportBaseJobSHA256"  # change reports: the older revision's job file
 KEY_DOCUMENT = "CalcreportDocument"  # "calculation report", "change report"
+# the job's engineer of record ([job] engineer, licence, jurisdiction), read by `calcreport seal`
+KEY_ENGINEER = "CalcreportEngineer"
+KEY_LICENCE = "CalcreportLicence"
+KEY_JURISDICTION = "CalcreportJurisdiction"
+KEY_MARKED_SINCE = "CalcreportMarkedSince"  # build --since REV: the revision the marks compare with
+
+
+def seal_metadata(engineer: str, licence: str, jurisdiction: str) -> dict[str, str]:
+    """The engineer-of-record entries (empty values are left for the caller to drop)."""
+    return {KEY_ENGINEER: engineer, KEY_LICENCE: licence, KEY_JURISDICTION: jurisdiction}
 
 
 def job_metadata(job_sha256: str, document: str, base_sha256: str = "") -> dict[str, str]:

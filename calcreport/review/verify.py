@@ -1,8 +1,9 @@
-"""Check that a PDF report was built from exactly a given job file.
+"""The job-file stamp of a calcreport PDF, and the comparison of that stamp alone with a job file.
 
-The PDF's information dictionary carries ``/CalcreportJobSHA256`` and ``/CalcreportVersion``
-(:mod:`.pdfmeta`); the job file's hash is :attr:`calcreport.model.Job.sha256`. pypdf is imported
-only here, when a PDF is read.
+The stamp is only the first of ``calcreport verify``'s checks: the command proves the whole file
+by rebuilding it (:mod:`.verify_pdf`). The PDF's information dictionary carries
+``/CalcreportJobSHA256`` and ``/CalcreportVersion`` (:mod:`.pdfmeta`); the job file's hash is
+:attr:`calcreport.model.Job.sha256`. pypdf is imported only when a PDF is read.
 """
 
 from __future__ import annotations
@@ -11,7 +12,7 @@ from dataclasses import dataclass
 from typing import Any
 
 from ..errors import JobError
-from ..outputs.pdfmeta import KEY_DOCUMENT, KEY_JOB_SHA256, KEY_VERSION
+from ..outputs.pdfmeta import KEY_DOCUMENT, KEY_JOB_SHA256, KEY_MARKED_SINCE, KEY_VERSION
 
 __all__ = ["PdfStamp", "Verdict", "read_stamp", "verify", "render_verdict"]
 
@@ -26,6 +27,7 @@ class PdfStamp:
     sha256: str
     version: str
     document: str
+    marked_since: str = ""  # build --since REV: revision marks against git revision REV
 
 
 @dataclass(frozen=True)
@@ -67,6 +69,7 @@ def read_stamp(pdf_path: str) -> PdfStamp:
         sha = info.get("/" + KEY_JOB_SHA256)
         version = info.get("/" + KEY_VERSION)
         document = info.get("/" + KEY_DOCUMENT)
+        since = info.get("/" + KEY_MARKED_SINCE)
     except Exception as exc:  # pypdf raises many kinds on damaged files; the message is ours
         raise JobError(pdf_path, "", f"not a readable PDF ({type(exc).__name__})") from None
     sha = str(sha).strip().lower() if sha is not None else ""
@@ -76,7 +79,9 @@ def read_stamp(pdf_path: str) -> PdfStamp:
             KEY_JOB_SHA256,
             "the PDF carries no calcreport job-file hash (was it built by calcreport?)",
         )
-    return PdfStamp(sha, str(version) if version is not None else "unknown", str(document or ""))
+    return PdfStamp(
+        sha, str(version) if version is not None else "unknown", str(document or ""), str(since or "")
+    )
 
 
 def verify(pdf_path: str, job_path: str) -> Verdict:

@@ -22,7 +22,7 @@ from ... import __version__
 from ...safewrite import write_atomic
 from ...solve.results import JobResult
 from ..fmt import Display
-from ..pdfmeta import job_metadata
+from ..pdfmeta import KEY_MARKED_SINCE, job_metadata, seal_metadata
 from ..pdfmeta import stamp as stamp_info
 from .common import Ctx, para
 from .cover import cover_story
@@ -123,8 +123,13 @@ def render_pdf(
     template: Template | None = None,
     changed_keys: frozenset[str] = frozenset(),
     revision_mark: str = "",
+    marked_since: str = "",
 ) -> bytes:
-    """The report of ``result`` as PDF bytes (see module docstring)."""
+    """The report of ``result`` as PDF bytes (see module docstring).
+
+    ``marked_since``: the git revision the marks compare with (``build --since``), stamped in the
+    metadata so that ``calcreport verify`` can recompute the marks and rebuild the same bytes.
+    """
     job = result.job
     tpl = template if template is not None else load_template(job.settings.template, job.path)
     fonts = register_fonts(tpl.font, tpl.font_bold, tpl.font_mono)
@@ -137,6 +142,8 @@ def render_pdf(
         **job_metadata(job.sha256, "calculation report"),  # the keys `verify` reads (pdfmeta)
         "CalcreportJobFile": os.path.basename(job.path),
         "CalcreportRevision": h.revision,
+        **{k: v for k, v in seal_metadata(h.engineer, h.licence, h.jurisdiction).items() if v},
+        **({KEY_MARKED_SINCE: marked_since} if marked_since else {}),
     }
     maker = _canvasmaker(extra, _timestamp(h.date))
     keywords = ", ".join(

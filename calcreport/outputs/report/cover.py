@@ -15,11 +15,16 @@ __all__ = ["cover_story", "governing_text", "SealBox"]
 
 
 class SealBox(Flowable):
-    """An empty framed box reserved for the engineer's seal and signature."""
+    """An empty framed box reserved for the engineer's seal and signature.
 
-    def __init__(self, width: float, height: float, font: str):
+    With ``field`` it also holds an empty, unsigned signature field of that name (ISO 32000-1
+    §12.7.4.5, a /Sig widget without a value or appearance): it prints blank, so the box serves a
+    wet seal, and ``calcreport seal`` signs into it.
+    """
+
+    def __init__(self, width: float, height: float, font: str, field: str = ""):
         super().__init__()
-        self.width, self.height, self.font = width, height, font
+        self.width, self.height, self.font, self.field = width, height, font, field
 
     def wrap(self, aw, ah):
         return self.width, self.height
@@ -33,6 +38,30 @@ class SealBox(Flowable):
         c.setFillColor(GREY)
         c.drawCentredString(self.width / 2, 6, "ENGINEER'S SEAL AND SIGNATURE")
         c.restoreState()
+        if self.field:
+            self._reserve_field(c)
+
+    def _reserve_field(self, c) -> None:
+        from reportlab.pdfbase.pdfdoc import PDFArray, PDFDictionary, PDFName, PDFString
+
+        x0, y0 = c.absolutePosition(3, 16)  # above the caption
+        x1, y1 = c.absolutePosition(self.width - 3, self.height - 3)
+        widget = PDFDictionary(
+            {
+                "Type": PDFName("Annot"),
+                "Subtype": PDFName("Widget"),
+                "FT": PDFName("Sig"),
+                "T": PDFString(self.field),
+                "TU": PDFString("Engineer's digital seal"),
+                "F": 4,  # print
+                "Rect": PDFArray([round(v, 2) for v in (x0, y0, x1, y1)]),
+                "P": c._doc.thisPageRef(),
+            }
+        )
+        form = c.acroForm
+        form.sigFlags = 3  # SignaturesExist (a signature field exists), AppendOnly (ISO 32000-1 Table 219)
+        c._addAnnotation(widget)
+        form.fields.append(form.getRef(widget))
 
 
 def governing_text(m: MemberResult, ctx: Ctx) -> str:
@@ -89,7 +118,11 @@ def cover_story(ctx: Ctx, info: PageInfo, sections: list[tuple[str, str]]) -> li
         ),
         Spacer(1, 4),
     ]
+    engineer = ", ".join(
+        x for x in (h.engineer, f"licence {h.licence}" if h.licence else "", h.jurisdiction) if x
+    )
     facts = [
+        *([("Engineer", engineer)] if engineer else []),
         ("Client", h.client or "—"),
         ("Job number", h.number or "—"),
         ("Design method", f"{job.settings.method}"),
@@ -114,7 +147,7 @@ def cover_story(ctx: Ctx, info: PageInfo, sections: list[tuple[str, str]]) -> li
         )
     )
     top = Table(
-        [[intro + [ft], SealBox(seal_w, seal_w, st.fonts.regular)]],
+        [[intro + [ft], SealBox(seal_w, seal_w, st.fonts.regular, ctx.template.seal_field)]],
         colWidths=[left_w + 14, seal_w],
         hAlign="LEFT",
     )

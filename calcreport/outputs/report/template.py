@@ -44,6 +44,7 @@ class Template:
     font_mono: Path | None = None
     font_size: float = 9.0
     accent: str = "#2b5d7d"
+    seal_field: str = "engineer-seal"  # the empty signature field reserved in the cover's seal box
     extra: dict = field(default_factory=dict)
 
     @property
@@ -127,16 +128,21 @@ def read_template_file(path: Path, job_path: str, allow_outside: bool = False) -
         ) from None
     except tomllib.TOMLDecodeError as exc:
         raise fail("", f"TOML syntax error: {exc}") from None
-    known = {"page", "firm", "style"}
+    known = {"page", "firm", "style", "seal"}
     for k in doc:
         if k not in known:
             raise fail(k, f"unknown table; expected one of {', '.join(sorted(known))}")
     page = _table(doc, "page", fail)
     firm = _table(doc, "firm", fail)
     style = _table(doc, "style", fail)
+    seal = _table(doc, "seal", fail)
     _only(page, {"size", "margin_left", "margin_right", "margin_top", "margin_bottom"}, "page", fail)
     _only(firm, {"name", "address", "logo"}, "firm", fail)
     _only(style, {"font", "font_bold", "font_mono", "font_size", "accent"}, "style", fail)
+    _only(seal, {"field"}, "seal", fail)
+    seal_field = seal.get("field", DEFAULT.seal_field)
+    if not isinstance(seal_field, str) or not re.fullmatch(r"[A-Za-z][A-Za-z0-9_-]{0,39}", seal_field):
+        raise fail("seal.field", "expected a field name of letters, digits, '-' or '_' (at most 40, no dots)")
 
     size = page.get("size", "letter")
     if not isinstance(size, str) or size.lower() not in PAGE_SIZES:
@@ -195,6 +201,7 @@ def read_template_file(path: Path, job_path: str, allow_outside: bool = False) -
         font_mono=fonts[2],
         font_size=float(fsize),
         accent=accent,
+        seal_field=seal_field,
     )
 
 
