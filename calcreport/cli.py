@@ -42,12 +42,14 @@ def _fail(message: str) -> int:
 
 def solve_file(path: str):
     """Load and solve one job file; raises JobError with file/key/line on bad input."""
-    from .errors import JobError
+    from .errors import JobError, one_line
     from .jobfile import load_job
     from .solve import SolveError, solve_job
     from .solve.connectors import ConnectorError
 
     job = load_job(path)
+    for w in job.warnings:  # keys without effect: one line each, the run goes on
+        print(one_line(w.line_text(path)), file=sys.stderr)
     try:
         return solve_job(job)
     except (ConnectorError, SolveError) as exc:

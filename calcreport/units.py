@@ -2,18 +2,34 @@
 
 Every dimensional value in a job file is a string such as ``"5.5 in"``, ``"140 mm"``,
 ``"1600 ksi"`` or ``"250 plf"``. :func:`parse` turns it into a :class:`pint.Quantity` and
-checks its dimension. Only pint's own expression parser ever sees the text; nothing is
-evaluated as Python.
+checks its dimension. The text is read by our own grammar (:mod:`calcreport.notation`: trade
+feet-inches, mixed numbers, products and quotients of values); only unit names reach pint (its
+``parse_units``, looked up once per unit and cached). Nothing is evaluated as Python.
 """
 
 from __future__ import annotations
 
-import re
-from functools import cache
+import math
+import sys
+from dataclasses import dataclass
+from functools import cache, lru_cache
 
 import pint
 
-__all__ = ["ureg", "Q_", "Quantity", "DIMENSIONS", "UnitParseError", "parse", "dimension_name"]
+from . import notation
+from .notation import NotationError
+
+__all__ = [
+    "ureg",
+    "Q_",
+    "Quantity",
+    "DIMENSIONS",
+    "UnitParseError",
+    "Written",
+    "parse",
+    "parse_value",
+    "dimension_name",
+]
 
 
 def _registry() -> pint.UnitRegistry:
@@ -54,13 +70,6 @@ DIMENSIONS: dict[str, tuple[str, str]] = {
     "mass_density": ("[mass] / [length] ** 3", '"500 kg/m^3"'),
 }
 
-_MIXED_FRACTION = re.compile(r"^\s*(\d+)\s*-\s*(\d+)\s*/\s*(\d+)(?=\s|[a-zA-Z\"']|$)")
-_SAFE = re.compile(r"^[0-9A-Za-z_ .+\-*/^()°µμ²³⁴'\"]*$")
-_POWER = re.compile(r"\*\*|\^")
-#: What may follow a power operator: one small literal exponent (``in^2``, ``ft ** -1``), not a
-#: bracket or another power, so no text can ask pint for a number with millions of digits.
-_EXPONENT = re.compile(r"\s*[+-]?\d{1,2}(\.\d{1,3})?(?!\s*(\*\*|\^|\d|\.))")
-
 
 class UnitParseError(ValueError):
     """A unit string could not be read or has the wrong dimension."""
@@ -81,29 +90,45 @@ def dimension_name(q: Quantity) -> str:
     return str(q.dimensionality)
 
 
-def _normalise(text: str) -> str:
-    """Trade notation to pint's: ``1-1/2 in`` → ``1.5 in``; ``²`` → ``^2``; feet/inch marks."""
-    m = _MIXED_FRACTION.match(text)
-    if m:
-        whole, num, den = (int(g) for g in m.groups())
-        if den == 0:
-            raise UnitParseError("division by zero in a fraction")
-        text = f"{whole + num / den!r}{text[m.end() :]}"
-    text = text.replace("²", "^2").replace("³", "^3").replace("⁴", "^4")
-    text = text.replace("·", "*").replace("×", "*").replace("μ", "u").replace("µ", "u")
-    text = text.replace("'", " ft ").replace('"', " in ")
-    return text.strip()
+def _finite(x: float, text: str, what: str) -> float:
+    """``x`` when it is a finite number that is zero or normal; an infinite, NaN or subnormal
+    magnitude (below about 2.2e-308, where floats lose precision) is refused."""
+    if not math.isfinite(x) or (x != 0.0 and abs(x) < sys.float_info.min):
+        raise UnitParseError(f"expected {what}, got {text!r} (the number is out of range)")
+    return x
+
+
+@lru_cache(maxsize=512)
+def _unit(text: str) -> pint.Unit:
+    """The registry's unit for a unit expression such as ``kN/m**3`` (looked up once, cached)."""
+    return ureg.parse_units(text) if text else ureg.dimensionless
+
+
+@dataclass(frozen=True)
+class Written:
+    """A value read from a job file: the quantity, and whether it was written as a product or
+    quotient of several values (``"15 psf * 14 ft"``), which the report shows as written."""
+
+    quantity: Quantity
+    arithmetic: bool
+
+
+def _what(expected: str | None) -> str:
+    if not expected:
+        return 'a value with its unit, like "5.5 in"'
+    return f"a {expected.replace('_', ' ')} with its unit, like {DIMENSIONS[expected][1]}"
 
 
 def parse(text: object, expected: str | None = None) -> Quantity:
     """Parse a value with its unit and check its dimension.
 
     Args:
-        text: the string from the job file, e.g. ``"5.5 in"``.
+        text: the string from the job file, e.g. ``"5.5 in"``, ``"16'-6 1/2\""``, ``"15 psf * 14 ft"``
+            (the grammar is in :mod:`calcreport.notation` and docs/job-format.md).
         expected: a key of :data:`DIMENSIONS`, or ``None`` to accept any dimension.
 
     Returns:
-        A quantity of the shared registry.
+        A quantity of the shared registry (a float magnitude).
 
     Raises:
         UnitParseError: with a message that says what was expected.
@@ -111,44 +136,49 @@ def parse(text: object, expected: str | None = None) -> Quantity:
     Example:
         >>> round(parse("1-1/2 in", "length").to("mm").magnitude, 6)
         38.1
+        >>> parse("16'-6 1/2\"", "length")
+        <Quantity(198.5, 'inch')>
     """
-    example = DIMENSIONS[expected][1] if expected else '"5.5 in"'
-    what = (
-        f"a {expected.replace('_', ' ')} with its unit, like {example}"
-        if expected
-        else (f"a value with its unit, like {example}")
-    )
+    return parse_value(text, expected).quantity
+
+
+def parse_value(text: object, expected: str | None = None) -> Written:
+    """:func:`parse`, also saying whether the text was a product or quotient of values."""
+    what = _what(expected)
     if isinstance(text, bool) or not isinstance(text, (str, int, float)):
         raise UnitParseError(f"expected {what}, got {type(text).__name__}")
     if isinstance(text, (int, float)):
         if expected:
             raise UnitParseError(f"expected {what}, got the bare number {text!r}")
-        return Q_(float(text), "")
-    if len(text) > 80 or not _SAFE.match(text):
-        raise UnitParseError(f"expected {what}, got {text[:40]!r}")
-    norm = _normalise(text)
-    for m in _POWER.finditer(norm):
-        exp = _EXPONENT.match(norm, m.end())
-        if norm[: m.start()].rstrip().endswith(")") or exp is None or abs(float(exp.group(0))) > 12:
-            raise UnitParseError(
-                f"expected {what}, got {text!r} (a power must be a unit or number "
-                "raised to a plain exponent from -12 to 12, like in^4)"
-            )
+        return Written(Q_(_finite(float(text), str(text), what), ""), False)
+    if len(text) > 80:
+        raise UnitParseError(f"expected {what}, got {text[:40]!r}… (at most 80 characters)")
     try:
-        q = Q_(norm)
-    except Exception as exc:  # pint raises several kinds; the message is ours
+        expr = notation.read(text)
+    except NotationError as exc:
+        raise UnitParseError(f"expected {what}, could not read {text!r}: {exc}") from None
+    try:
+        mag = expr.terms[0].magnitude
+        unit = _unit(expr.terms[0].unit)
+        for op, term in zip(expr.ops, expr.terms[1:]):
+            if op == "*":
+                mag, unit = mag * term.magnitude, unit * _unit(term.unit)
+            else:
+                if term.magnitude == 0:
+                    raise UnitParseError(f"expected {what}, got {text!r} (division by zero)")
+                mag, unit = mag / term.magnitude, unit / _unit(term.unit)
+        value = float(mag)
+    except UnitParseError:
+        raise
+    except OverflowError:
+        raise UnitParseError(f"expected {what}, got {text!r} (the number is out of range)") from None
+    except Exception as exc:  # pint raises several kinds for unknown units; the message is ours
         raise UnitParseError(f"expected {what}, could not read {text!r} ({type(exc).__name__})") from None
-    if not isinstance(q, pint.Quantity):
-        q = Q_(float(q), "")
-    mag = q.magnitude
-    try:
-        finite = float(mag) == float(mag) and abs(float(mag)) != float("inf")
-    except (TypeError, ValueError, ArithmeticError):
-        finite = False
-    if not finite:
-        raise UnitParseError(f"expected {what}, got {text!r}")
+    q = Q_(_finite(value, text, what), unit)
     if expected and q.dimensionality != _dimensionality(expected):
         if q.dimensionless:
             raise UnitParseError(f"expected {what}, got {text!r} without a unit")
-        raise UnitParseError(f"expected {what}, got {text!r} which is a {dimension_name(q)}")
-    return q
+        raise UnitParseError(
+            f"expected {what}, got {text!r} which is a {dimension_name(q).replace('_', ' ')}"
+        )
+    return Written(q, expr.arithmetic)

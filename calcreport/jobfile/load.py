@@ -92,7 +92,14 @@ def load_text(data: bytes, path: str = "<job>") -> Job:
     members = [_member(mt, materials, settings) for mt, _ in member_tables]
     root.done()
     return Job(
-        path, hashlib.sha256(data).hexdigest(), header, settings, tuple(materials.values()), tuple(members)
+        path,
+        hashlib.sha256(data).hexdigest(),
+        header,
+        settings,
+        tuple(materials.values()),
+        tuple(members),
+        written=tuple(src.written),
+        warnings=tuple(src.warnings),
     )
 
 
