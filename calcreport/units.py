@@ -10,9 +10,11 @@ feet-inches, mixed numbers, products and quotients of values); only unit names r
 from __future__ import annotations
 
 import math
+import re
 import sys
 from dataclasses import dataclass
 from functools import cache, lru_cache
+from typing import Any
 
 import pint
 
@@ -153,6 +155,16 @@ def parse_value(text: object, expected: str | None = None) -> Written:
         return Written(Q_(_finite(float(text), str(text), what), ""), False)
     if len(text) > 80:
         raise UnitParseError(f"expected {what}, got {text[:40]!r}… (at most 80 characters)")
+    plain = _PLAIN.fullmatch(text)
+    if plain is not None:  # fast path: "9.25 in", "-2 kip", "5.0 kN/m^3"
+        found = _plain_unit(plain.group(3))
+        if found is not None:
+            unit, dim = found
+            value = _finite(float(plain.group(2)), text, what)
+            q = Q_(-value if plain.group(1) else value, unit)
+            if expected and dim != _dimensionality(expected):
+                _wrong_dimension(q, text, what)
+            return Written(q, False)
     try:
         expr = notation.read(text)
     except NotationError as exc:
@@ -176,9 +188,34 @@ def parse_value(text: object, expected: str | None = None) -> Written:
         raise UnitParseError(f"expected {what}, could not read {text!r} ({type(exc).__name__})") from None
     q = Q_(_finite(value, text, what), unit)
     if expected and q.dimensionality != _dimensionality(expected):
-        if q.dimensionless:
-            raise UnitParseError(f"expected {what}, got {text!r} without a unit")
-        raise UnitParseError(
-            f"expected {what}, got {text!r} which is a {dimension_name(q).replace('_', ' ')}"
-        )
+        _wrong_dimension(q, text, what)
     return Written(q, expr.arithmetic)
+
+
+def _wrong_dimension(q: Quantity, text: str, what: str) -> None:
+    if q.dimensionless:
+        raise UnitParseError(f"expected {what}, got {text!r} without a unit")
+    raise UnitParseError(f"expected {what}, got {text!r} which is a {dimension_name(q).replace('_', ' ')}")
+
+
+#: A plain "number unit" string: optional minus, a decimal number, names joined by * or / with
+#: integer powers. Every string it matches reads the same through :mod:`calcreport.notation`
+#: (the unit part is read by that grammar once and cached); anything else takes the full grammar.
+_PLAIN = re.compile(
+    r"\s*([-−]?)(\d+(?:\.\d*)?(?:[eE][+-]?\d{1,3})?|\.\d+(?:[eE][+-]?\d{1,3})?)"
+    r"\s*([A-Za-z_]+(?:\s*(?:\*\*|\^)\s*-?\d{1,2}|\s*[*/]\s*[A-Za-z_]+)*)\s*"
+)
+
+
+@lru_cache(maxsize=512)
+def _plain_unit(text: str) -> tuple[pint.Unit, Any] | None:
+    """The unit of a plain value's unit part and its dimensionality, read once by the full
+    grammar (``None`` when that part is not a plain unit)."""
+    try:
+        expr = notation.read("1 " + text)
+        if expr.ops or len(expr.terms) != 1 or expr.terms[0].magnitude != 1:
+            return None
+        unit = _unit(expr.terms[0].unit)
+    except Exception:
+        return None
+    return unit, ureg.get_dimensionality(unit)

@@ -273,3 +273,16 @@ def test_plain_values_identical_to_pint(number, unit, gap, negative):
     assert float(ours.magnitude) == float(ref.magnitude)
     assert ours.units == ref.units
     assert isinstance(ours.magnitude, float)
+
+
+@given(NUMBERS, st.sampled_from(UNITS + ["in^12", "ft ** -1", "kip / in / in", "mm^-4"]), st.booleans())
+def test_plain_fast_path_equals_the_full_grammar(number, unit, negative):
+    # the fast path for "number unit" must read exactly as the grammar does
+    from calcreport import notation
+    from calcreport.units import _PLAIN, _unit
+
+    text = ("−" if negative else "") + number + " " + unit
+    assert _PLAIN.fullmatch(text)
+    (term,) = notation.read(text).terms
+    ours = parse(text, None)
+    assert ours.magnitude == float(term.magnitude) and ours.units == _unit(term.unit)
