@@ -118,3 +118,33 @@ def test_products_listed_in_the_report_as_written(write_job, cli, tmp_path):
     assert cli("build", path, "-o", str(pdf))[0] == 0
     text = "".join(p.extract_text() or "" for p in pypdf.PdfReader(str(pdf)).pages)
     assert "10 psf * 10 ft" in text and "products or quotients" in text
+
+
+NAILED = GOOD.replace(
+    'type = "given"\nvalue = "100 lbf"\nsource = "test value"', 'type = "nail"\nsize = "16d common"', 1
+)
+NAIL_WOOD = '[[material]]\nid = "wood"\nfamily = "wood"\nE = "1600 ksi"\nFv = "180 psi"\nG = 0.50\n'
+
+
+@pytest.mark.parametrize(
+    ("method", "extra", "key", "why"),
+    [
+        # NDS 2018 Table 11.3.1: C_D is an ASD factor, λ an LRFD factor (from memory)
+        ("LRFD", "CD = 1.15", "CD", "ASD only"),
+        ("ASD", "time_effect = 0.8", "time_effect", "LRFD only"),
+        ("ASD", "CM = 0.7\nwet_service = true", "wet_service", "CM overrides"),
+        ("ASD", 'row_spacing = "4 in"', "row_spacing", "row_count = 1"),
+    ],
+)
+def test_nds_connector_keys_without_effect_are_errors(write_job, cli, method, extra, key, why):
+    body = NAILED.replace('size = "16d common"', f'size = "16d common"\n{extra}', 1)
+    text = job_text(body, materials=NAIL_WOOD).replace('method = "ASD"', f'method = "{method}"')
+    line = one_line_error(cli, write_job(text))
+    assert f"member[M].joint[j].connector.{key}" in line and why in line
+
+
+def test_nds_connector_keys_with_effect_are_accepted():
+    text = job_text(
+        NAILED.replace('size = "16d common"', 'size = "16d common"\nCD = 1.15', 1), materials=NAIL_WOOD
+    )
+    assert load_text(text.encode()).warnings == ()

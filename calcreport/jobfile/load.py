@@ -22,7 +22,7 @@ from ..units import parse
 from .lines import LineIndex
 from .parts import read_part
 from .reader import Source, Table
-from .unused import is_continuous, unused_settings
+from .unused import connector_keys, is_continuous, unused_settings
 
 __all__ = [
     "load_job",
@@ -234,7 +234,7 @@ def _member(t: Table, materials: dict[str, Material], settings: Settings) -> Mem
             "reference_material", f"expected a material id ({', '.join(materials)}), got {ref_id!r}"
         )
     shear = t.quantity("shear", "force", allow_zero=True)
-    joints = tuple(_joints(t, placed))
+    joints = tuple(_joints(t, placed, settings.method))
     member = Member(
         id=mid,
         title=t.text("title", default=mid),
@@ -268,7 +268,7 @@ def _loads_hook(t: Table, member: Member, settings: Settings) -> Member:
     return loads_reader.read_loads(t, member, settings)
 
 
-def _joints(t: Table, parts: dict[str, Part]):
+def _joints(t: Table, parts: dict[str, Part], method: str):
     for jt, jid in t.id_tables("joint", MAX_JOINTS, "joint"):
         holds = jt.raw("holds", True, "the list of part ids held on one side of the shear plane")
         if isinstance(holds, str):
@@ -295,6 +295,7 @@ def _joints(t: Table, parts: dict[str, Part]):
         params = ct.fields(connectors.model_for(kind).FIELDS)
         given = tuple(k for k in ct.data if k != "type")
         ct.done()
+        connector_keys(ct, kind, params, method)
         if is_continuous(kind, params):
             for key in ("per_row", "spacing_max", "spacing_min"):
                 if jt.has(key):

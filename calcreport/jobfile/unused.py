@@ -14,7 +14,7 @@ from typing import Any
 from ..model import Member, Settings
 from .reader import Table
 
-__all__ = ["is_continuous", "unused_settings", "NDS_KINDS", "CONTINUOUS_KINDS"]
+__all__ = ["is_continuous", "unused_settings", "connector_keys", "NDS_KINDS", "CONTINUOUS_KINDS"]
 
 #: Connector models that are continuous whatever their keys (no spacing, no rows).
 CONTINUOUS_KINDS = ("glue", "given_line")
@@ -26,6 +26,24 @@ def is_continuous(kind: str, params: dict[str, Any]) -> bool:
     """True for a connector with no spacing: a glue line, a given capacity per length, a
     continuous fillet weld (one given without ``segment``)."""
     return kind in CONTINUOUS_KINDS or (kind == "fillet_weld" and params.get("segment") is None)
+
+
+def connector_keys(ct: Table, kind: str, params: dict[str, Any], method: str) -> None:
+    """Errors for NDS connector keys that the job's design method or the other keys make inert
+    (NDS 2018 Table 11.3.1: C_D applies to ASD only, λ to LRFD only; C_M given overrides
+    wet_service; group action §11.3.6 reads row_spacing only for a row of more than one fastener)."""
+    if kind not in NDS_KINDS:
+        return
+    if method != "ASD" and ct.has("CD"):
+        raise ct.error("CD", "CD (load duration) applies to ASD only; this job is LRFD (use time_effect)")
+    if method != "LRFD" and ct.has("time_effect"):
+        raise ct.error("time_effect", "time_effect (λ) applies to LRFD only; this job is ASD (use CD)")
+    if ct.has("CM") and ct.has("wet_service"):
+        raise ct.error(
+            "wet_service", "wet_service has no effect when CM is given (CM overrides it); keep one"
+        )
+    if ct.has("row_spacing") and int(params.get("row_count") or 1) == 1:
+        raise ct.error("row_spacing", "row_spacing has no effect with row_count = 1 (no group action)")
 
 
 def unused_settings(t: Table, settings: Settings, members: list[Member]) -> None:
