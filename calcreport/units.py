@@ -125,7 +125,7 @@ def parse(text: object, expected: str | None = None) -> Quantity:
     """Parse a value with its unit and check its dimension.
 
     Args:
-        text: the string from the job file, e.g. ``"5.5 in"``, ``"16'-6 1/2\""``, ``"15 psf * 14 ft"``
+        text: the string from the job file, e.g. ``"5.5 in"``, ``16'-6 1/2"``, ``"15 psf * 14 ft"``
             (the grammar is in :mod:`calcreport.notation` and docs/job-format.md).
         expected: a key of :data:`DIMENSIONS`, or ``None`` to accept any dimension.
 
@@ -138,7 +138,7 @@ def parse(text: object, expected: str | None = None) -> Quantity:
     Example:
         >>> round(parse("1-1/2 in", "length").to("mm").magnitude, 6)
         38.1
-        >>> parse("16'-6 1/2\"", "length")
+        >>> parse("16 ft 6-1/2 in", "length")
         <Quantity(198.5, 'inch')>
     """
     return parse_value(text, expected).quantity
