@@ -25,6 +25,8 @@ __all__ = [
     "Load",
     "Support",
     "Combination",
+    "WrittenValue",
+    "JobWarning",
 ]
 
 
@@ -205,6 +207,32 @@ class Member:
 
 
 @dataclass(frozen=True)
+class WrittenValue:
+    """A value the job file gives as a product or quotient (``w = "15 psf * 14 ft"``): the
+    report lists it as written beside what it was read as."""
+
+    key: str
+    line: int | None
+    text: str
+    value: Quantity
+
+
+@dataclass(frozen=True)
+class JobWarning:
+    """A key that has no effect where it is written (docs/job-format.md lists which keys warn and
+    which are errors). Printed by check/build on stderr and listed on the report's cover."""
+
+    key: str
+    line: int | None
+    message: str
+
+    def line_text(self, path: str) -> str:
+        """``file:line: key: warning: message`` — the one line printed on stderr."""
+        where = f"{path}:{self.line}" if self.line else path
+        return f"{where}: {self.key}: warning: {self.message}"
+
+
+@dataclass(frozen=True)
 class Job:
     """A whole job file, validated."""
 
@@ -214,3 +242,5 @@ class Job:
     settings: Settings
     materials: tuple[Material, ...]
     members: tuple[Member, ...]
+    written: tuple[WrittenValue, ...] = ()
+    warnings: tuple[JobWarning, ...] = ()

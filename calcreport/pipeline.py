@@ -8,7 +8,7 @@ here, so the error mapping lives in one place. ``-`` as a path reads the job fro
 from __future__ import annotations
 
 import sys
-from typing import TYPE_CHECKING
+from typing import TYPE_CHECKING, TextIO
 
 from .errors import JobError
 
@@ -56,11 +56,18 @@ def read_bytes(path: str) -> bytes:
         raise JobError(path, "", str(exc)) from None
 
 
-def load(path: str) -> Job:
-    """Read and validate job file ``path`` (``-``: standard input)."""
+def load(path: str, warnings: TextIO | None = sys.stderr) -> Job:
+    """Read and validate job file ``path`` (``-``: standard input). Keys without effect that the
+    reader lets pass with a warning are written to ``warnings`` (one line each; None: not shown —
+    they stay on ``Job.warnings`` for the report and JSON)."""
+    from .errors import one_line
     from .jobfile import load_text
 
-    return load_text(read_bytes(path), label_for(path))
+    job = load_text(read_bytes(path), label_for(path))
+    if warnings is not None:
+        for w in job.warnings:
+            print(one_line(w.line_text(label_for(path))), file=warnings)
+    return job
 
 
 def solve(job: Job) -> JobResult:

@@ -2,19 +2,36 @@
 
 Every dimensional value in a job file is a string such as ``"5.5 in"``, ``"140 mm"``,
 ``"1600 ksi"`` or ``"250 plf"``. :func:`parse` turns it into a :class:`pint.Quantity` and
-checks its dimension. Only pint's own expression parser ever sees the text; nothing is
-evaluated as Python.
+checks its dimension. The text is read by our own grammar (:mod:`calcreport.notation`: trade
+feet-inches, mixed numbers, products and quotients of values); only unit names reach pint (its
+``parse_units``, looked up once per unit and cached). Nothing is evaluated as Python.
 """
 
 from __future__ import annotations
 
+import math
 import re
-from functools import cache
+import sys
+from dataclasses import dataclass
+from functools import cache, lru_cache
 from typing import Any
 
 import pint
 
-__all__ = ["ureg", "Q_", "Quantity", "DIMENSIONS", "UnitParseError", "parse", "dimension_name"]
+from . import notation
+from .notation import NotationError
+
+__all__ = [
+    "ureg",
+    "Q_",
+    "Quantity",
+    "DIMENSIONS",
+    "UnitParseError",
+    "Written",
+    "parse",
+    "parse_value",
+    "dimension_name",
+]
 
 
 def _registry() -> pint.UnitRegistry:
@@ -55,13 +72,6 @@ DIMENSIONS: dict[str, tuple[str, str]] = {
     "mass_density": ("[mass] / [length] ** 3", '"500 kg/m^3"'),
 }
 
-_MIXED_FRACTION = re.compile(r"^\s*(\d+)\s*-\s*(\d+)\s*/\s*(\d+)(?=\s|[a-zA-Z\"']|$)")
-_SAFE = re.compile(r"^[0-9A-Za-z_ .+\-*/^()°µμ²³⁴'\"]*$")
-_POWER = re.compile(r"\*\*|\^")
-#: What may follow a power operator: one small literal exponent (``in^2``, ``ft ** -1``), not a
-#: bracket or another power, so no text can ask pint for a number with millions of digits.
-_EXPONENT = re.compile(r"\s*[+-]?\d{1,2}(\.\d{1,3})?(?!\s*(\*\*|\^|\d|\.))")
-
 
 class UnitParseError(ValueError):
     """A unit string could not be read or has the wrong dimension."""
@@ -82,29 +92,45 @@ def dimension_name(q: Quantity) -> str:
     return str(q.dimensionality)
 
 
-def _normalise(text: str) -> str:
-    """Trade notation to pint's: ``1-1/2 in`` → ``1.5 in``; ``²`` → ``^2``; feet/inch marks."""
-    m = _MIXED_FRACTION.match(text)
-    if m:
-        whole, num, den = (int(g) for g in m.groups())
-        if den == 0:
-            raise UnitParseError("division by zero in a fraction")
-        text = f"{whole + num / den!r}{text[m.end() :]}"
-    text = text.replace("²", "^2").replace("³", "^3").replace("⁴", "^4")
-    text = text.replace("·", "*").replace("×", "*").replace("μ", "u").replace("µ", "u")
-    text = text.replace("'", " ft ").replace('"', " in ")
-    return text.strip()
+def _finite(x: float, text: str, what: str) -> float:
+    """``x`` when it is a finite number that is zero or normal; an infinite, NaN or subnormal
+    magnitude (below about 2.2e-308, where floats lose precision) is refused."""
+    if not math.isfinite(x) or (x != 0.0 and abs(x) < sys.float_info.min):
+        raise UnitParseError(f"expected {what}, got {text!r} (the number is out of range)")
+    return x
+
+
+@lru_cache(maxsize=512)
+def _unit(text: str) -> pint.Unit:
+    """The registry's unit for a unit expression such as ``kN/m**3`` (looked up once, cached)."""
+    return ureg.parse_units(text) if text else ureg.dimensionless
+
+
+@dataclass(frozen=True)
+class Written:
+    """A value read from a job file: the quantity, and whether it was written as a product or
+    quotient of several values (``"15 psf * 14 ft"``), which the report shows as written."""
+
+    quantity: Quantity
+    arithmetic: bool
+
+
+def _what(expected: str | None) -> str:
+    if not expected:
+        return 'a value with its unit, like "5.5 in"'
+    return f"a {expected.replace('_', ' ')} with its unit, like {DIMENSIONS[expected][1]}"
 
 
 def parse(text: object, expected: str | None = None) -> Quantity:
     """Parse a value with its unit and check its dimension.
 
     Args:
-        text: the string from the job file, e.g. ``"5.5 in"``.
+        text: the string from the job file, e.g. ``"5.5 in"``, ``16'-6 1/2"``, ``"15 psf * 14 ft"``
+            (the grammar is in :mod:`calcreport.notation` and docs/job-format.md).
         expected: a key of :data:`DIMENSIONS`, or ``None`` to accept any dimension.
 
     Returns:
-        A quantity of the shared registry.
+        A quantity of the shared registry (a float magnitude).
 
     Raises:
         UnitParseError: with a message that says what was expected.
@@ -112,47 +138,87 @@ def parse(text: object, expected: str | None = None) -> Quantity:
     Example:
         >>> round(parse("1-1/2 in", "length").to("mm").magnitude, 6)
         38.1
+        >>> parse("16 ft 6-1/2 in", "length")
+        <Quantity(198.5, 'inch')>
     """
-    example = DIMENSIONS[expected][1] if expected else '"5.5 in"'
-    what = (
-        f"a {expected.replace('_', ' ')} with its unit, like {example}"
-        if expected
-        else (f"a value with its unit, like {example}")
-    )
+    return parse_value(text, expected).quantity
+
+
+def parse_value(text: object, expected: str | None = None) -> Written:
+    """:func:`parse`, also saying whether the text was a product or quotient of values."""
+    what = _what(expected)
     if isinstance(text, bool) or not isinstance(text, (str, int, float)):
         raise UnitParseError(f"expected {what}, got {type(text).__name__}")
     if isinstance(text, (int, float)):
         if expected:
             raise UnitParseError(f"expected {what}, got the bare number {text!r}")
-        return check_magnitude(Q_(float(text), ""), text, what)
-    if len(text) > 80 or not _SAFE.match(text):
-        raise UnitParseError(f"expected {what}, got {text[:40]!r}")
-    norm = _normalise(text)
-    for m in _POWER.finditer(norm):
-        exp = _EXPONENT.match(norm, m.end())
-        if norm[: m.start()].rstrip().endswith(")") or exp is None or abs(float(exp.group(0))) > 12:
-            raise UnitParseError(
-                f"expected {what}, got {text!r} (a power must be a unit or number "
-                "raised to a plain exponent from -12 to 12, like in^4)"
-            )
+        return Written(check_magnitude(Q_(_finite(float(text), str(text), what), ""), text, what), False)
+    if len(text) > 80:
+        raise UnitParseError(f"expected {what}, got {text[:40]!r}… (at most 80 characters)")
+    plain = _PLAIN.fullmatch(text)
+    if plain is not None:  # fast path: "9.25 in", "-2 kip", "5.0 kN/m^3"
+        found = _plain_unit(plain.group(3))
+        if found is not None:
+            unit, dim = found
+            value = _finite(float(plain.group(2)), text, what)
+            q = Q_(-value if plain.group(1) else value, unit)
+            if expected and dim != _dimensionality(expected):
+                _wrong_dimension(q, text, what)
+            return Written(check_magnitude(q, text, what), False)
     try:
-        q: Any = Q_(norm)
-    except Exception as exc:  # pint raises several kinds; the message is ours
+        expr = notation.read(text)
+    except NotationError as exc:
+        raise UnitParseError(f"expected {what}, could not read {text!r}: {exc}") from None
+    try:
+        mag = expr.terms[0].magnitude
+        unit = _unit(expr.terms[0].unit)
+        for op, term in zip(expr.ops, expr.terms[1:]):
+            if op == "*":
+                mag, unit = mag * term.magnitude, unit * _unit(term.unit)
+            else:
+                if term.magnitude == 0:
+                    raise UnitParseError(f"expected {what}, got {text!r} (division by zero)")
+                mag, unit = mag / term.magnitude, unit / _unit(term.unit)
+        value = float(mag)
+    except UnitParseError:
+        raise
+    except OverflowError:
+        raise UnitParseError(f"expected {what}, got {text!r} (the number is out of range)") from None
+    except Exception as exc:  # pint raises several kinds for unknown units; the message is ours
         raise UnitParseError(f"expected {what}, could not read {text!r} ({type(exc).__name__})") from None
-    if not isinstance(q, pint.Quantity):
-        q = Q_(float(q), "")
-    mag = q.magnitude
-    try:
-        finite = float(mag) == float(mag) and abs(float(mag)) != float("inf")
-    except (TypeError, ValueError, ArithmeticError):
-        finite = False
-    if not finite:
-        raise UnitParseError(f"expected {what}, got {text!r}")
+    q = Q_(_finite(value, text, what), unit)
     if expected and q.dimensionality != _dimensionality(expected):
-        if q.dimensionless:
-            raise UnitParseError(f"expected {what}, got {text!r} without a unit")
-        raise UnitParseError(f"expected {what}, got {text!r} which is a {dimension_name(q)}")
-    return check_magnitude(q, text, what)
+        _wrong_dimension(q, text, what)
+    return Written(check_magnitude(q, text, what), expr.arithmetic)
+
+
+def _wrong_dimension(q: Quantity, text: str, what: str) -> None:
+    if q.dimensionless:
+        raise UnitParseError(f"expected {what}, got {text!r} without a unit")
+    raise UnitParseError(f"expected {what}, got {text!r} which is a {dimension_name(q).replace('_', ' ')}")
+
+
+#: A plain "number unit" string: optional minus, a decimal number, names joined by * or / with
+#: integer powers. Every string it matches reads the same through :mod:`calcreport.notation`
+#: (the unit part is read by that grammar once and cached); anything else takes the full grammar.
+_PLAIN = re.compile(
+    r"\s*([-−]?)(\d+(?:\.\d*)?(?:[eE][+-]?\d{1,3})?|\.\d+(?:[eE][+-]?\d{1,3})?)"
+    r"\s*([A-Za-z_]+(?:\s*(?:\*\*|\^)\s*-?\d{1,2}|\s*[*/]\s*[A-Za-z_]+)*)\s*"
+)
+
+
+@lru_cache(maxsize=512)
+def _plain_unit(text: str) -> tuple[pint.Unit, Any] | None:
+    """The unit of a plain value's unit part and its dimensionality, read once by the full
+    grammar (``None`` when that part is not a plain unit)."""
+    try:
+        expr = notation.read("1 " + text)
+        if expr.ops or len(expr.terms) != 1 or expr.terms[0].magnitude != 1:
+            return None
+        unit = _unit(expr.terms[0].unit)
+    except Exception:
+        return None
+    return unit, ureg.get_dimensionality(unit)
 
 
 def check_magnitude(q: Quantity, text: object, what: str) -> Quantity:
@@ -162,9 +228,6 @@ def check_magnitude(q: Quantity, text: object, what: str) -> Quantity:
     A value that cannot be held exactly as written (``"5e-324 in"``, ``"nan in"``, ``"inf psi"``,
     ``"1e308 mi"`` which overflows in metres) is refused rather than silently rounded.
     """
-    import math
-    import sys
-
     shown = repr(text)[:80]
     try:
         mags = [float(q.magnitude), float(q.to_base_units().magnitude)]

@@ -124,7 +124,7 @@ def test_very_long_text_is_refused(write_job, cli):
 
 def test_vanishing_part_dimension_is_refused(write_job, cli):
     # found by fuzzing: a width of 2.3e-91 in made the section's area zero
-    body = GOOD.replace('width = "2 in"', 'width = "23/1e92 in"', 1)
+    body = GOOD.replace('width = "2 in"', 'width = "2.3e-91 in"', 1)
     refused(cli, write_job(job_text(body)), "member[M].part[web].width", "at least 0.001 in")
 
 

@@ -18,6 +18,7 @@ from ..units import parse
 from .lines import LineIndex
 from .parts import read_part
 from .reader import Source, Table
+from .unused import connector_keys, is_continuous, unused_settings
 
 __all__ = [
     "load_job",
@@ -78,15 +79,24 @@ def load_text(data: bytes, path: str = "<job>") -> Job:
     root = Table(doc, src, (), "")
     root.expect(decl.names(decl.ROOT))
     header = _header(root.table("job", required=True))
-    settings = _settings(root.table("settings") or Table({}, src, ("settings",), "settings"))
+    settings_table = root.table("settings") or Table({}, src, ("settings",), "settings")
+    settings = _settings(settings_table)
     materials = _materials(root)
     member_tables = root.id_tables("member", MAX_MEMBERS, "member")
     if not member_tables:
         raise root.error(None, "missing required key 'member' (at least one [[member]])")
     members = [_member(mt, materials, settings) for mt, _ in member_tables]
     root.done()
+    unused_settings(settings_table, settings, members)
     return Job(
-        path, hashlib.sha256(data).hexdigest(), header, settings, tuple(materials.values()), tuple(members)
+        path,
+        hashlib.sha256(data).hexdigest(),
+        header,
+        settings,
+        tuple(materials.values()),
+        tuple(members),
+        written=tuple(src.written),
+        warnings=tuple(src.warnings),
     )
 
 
@@ -232,7 +242,7 @@ def _member(t: Table, materials: dict[str, Material], settings: Settings) -> Mem
             "reference_material", f"expected a material id ({', '.join(materials)}), got {excerpt(ref_id)}"
         )
     shear = t.quantity("shear", "force", allow_zero=True)
-    joints = tuple(_joints(t, placed))
+    joints = tuple(_joints(t, placed, settings.method))
     member = Member(
         id=mid,
         title=t.text("title", default=mid),
@@ -245,6 +255,12 @@ def _member(t: Table, materials: dict[str, Material], settings: Settings) -> Mem
         notes=t.texts("notes"),
     )
     member = _loads_hook(t, member, settings)
+    if member.shear is not None and (member.loads or member.self_weight):
+        raise t.error(
+            "shear",
+            "shear has no effect on a member with loads along it (the design shear comes from the "
+            "shear envelope of its loads); remove shear, or remove the span and loads",
+        )
     if member.shear is None and not member.loads and not member.self_weight:
         raise t.error(None, "missing required key 'shear' (the design shear V, e.g. shear = \"4.2 kip\")")
     t.done()
@@ -260,7 +276,7 @@ def _loads_hook(t: Table, member: Member, settings: Settings) -> Member:
     return loads_reader.read_loads(t, member, settings)
 
 
-def _joints(t: Table, parts: dict[str, Part]):
+def _joints(t: Table, parts: dict[str, Part], method: str):
     for jt, jid in t.id_tables("joint", MAX_JOINTS, "joint"):
         jt.expect(decl.names(decl.JOINT))
         holds = jt.raw("holds", True, "the list of part ids held on one side of the shear plane")
@@ -288,6 +304,16 @@ def _joints(t: Table, parts: dict[str, Part]):
         params = ct.fields(connectors.fields_for(kind))
         given = tuple(k for k in ct.data if k != "type")
         ct.done()
+        connector_keys(ct, kind, params, method)
+        if is_continuous(kind, params):
+            for key in ("per_row", "spacing_max", "spacing_min"):
+                if jt.has(key):
+                    raise jt.error(
+                        key,
+                        f"{key} has no effect on a continuous connector ({kind}"
+                        + (" without segment" if kind == "fillet_weld" else "")
+                        + "): it has no spacing or rows; remove it",
+                    )
         joint = Joint(
             id=jid,
             holds=tuple(dict.fromkeys(holds)),

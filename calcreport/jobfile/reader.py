@@ -5,12 +5,13 @@ from __future__ import annotations
 import difflib
 import math
 from collections.abc import Iterable
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 from typing import Any, Literal, overload
 
 from ..errors import JobError, excerpt
 from ..fields import Field
-from ..units import Quantity, UnitParseError, parse
+from ..model import JobWarning, WrittenValue
+from ..units import Quantity, UnitParseError, parse, parse_value
 from .lines import LineIndex
 
 __all__ = ["Source", "Table", "MAX_TEXT", "MAX_LINES"]
@@ -22,10 +23,13 @@ MAX_LINES = 50
 
 @dataclass
 class Source:
-    """The file being read: its name for messages and its line index."""
+    """The file being read: its name for messages and its line index; the values written as
+    products or quotients and the warnings collected while reading."""
 
     path: str
     lines: LineIndex
+    written: list[WrittenValue] = field(default_factory=list)
+    warnings: list[JobWarning] = field(default_factory=list)
 
 
 class Table:
@@ -56,6 +60,13 @@ class Table:
 
     def key(self, name: str) -> str:
         return f"{self.label}.{name}" if self.label else name
+
+    def warn(self, name: str, message: str) -> None:
+        """Record that key ``name`` has no effect here (see :class:`calcreport.model.JobWarning`)."""
+        self._known.add(name)
+        self.src.warnings.append(
+            JobWarning(self.key(name), self.src.lines.line(self.path + (name,)), message)
+        )
 
     # -- getters ----------------------------------------------------------------------------
     def has(self, name: str) -> bool:
@@ -166,9 +177,14 @@ class Table:
         sub = name if isinstance(name, tuple) else (name,)
         label = self.label + "".join(f"[{s}]" if isinstance(s, int) else f".{s}" for s in sub)
         try:
-            q = parse(v, dim)
+            read = parse_value(v, dim)
         except UnitParseError as exc:
             raise self._error_at(self.path + sub, label.lstrip("."), str(exc)) from None
+        q = read.quantity
+        if read.arithmetic:
+            self.src.written.append(
+                WrittenValue(label.lstrip("."), self.src.lines.line(self.path + sub), str(v), q)
+            )
         mag = float(q.magnitude)
         if positive and (mag < 0 or (mag == 0 and not allow_zero)):
             raise self._error_at(

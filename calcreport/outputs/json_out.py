@@ -164,7 +164,22 @@ def to_dict(result: JobResult) -> dict[str, Any]:
         },
         "status": result.status,
         "members": [_member(m, d) for m in result.members],
+        **_read_notes(job, d),
     }
+
+
+def _read_notes(job, d: Display) -> dict[str, Any]:
+    """Keys without effect and values written as products or quotients, only when there are any
+    (so a job with neither keeps the same JSON)."""
+    out: dict[str, Any] = {}
+    if job.warnings:
+        out["warnings"] = [{"key": w.key, "line": w.line, "message": w.message} for w in job.warnings]
+    if job.written:
+        out["written"] = [
+            {"key": v.key, "line": v.line, "text": v.text, "value": d.json_value(v.value)}
+            for v in job.written
+        ]
+    return out
 
 
 def dumps(data: Any) -> str:

@@ -2,7 +2,8 @@
 
 Sources: q = V·Q/I (mechanics of materials, shear flow in built-up beams); s = n·F/q (equilibrium
 of one connector row over its tributary length); practical spacing rounded DOWN to the detailing
-increment, never up, and capped by the maximum spacing (common practice, no source).
+increment, never up, and capped by the largest multiple of the increment not above the maximum
+spacing — every practical spacing is a multiple of the increment (common practice, no source).
 """
 
 from __future__ import annotations
@@ -83,6 +84,15 @@ def discrete_spacing(
         source="connectors in a row share equally (assumption)",
     )
     q_mag = float(q.to("lbf/in").magnitude)
+    cap = _grid_limit(s_max, step, log)
+    if s_max is not None and float(cap.to("inch").magnitude) <= 0:
+        reasons.append(
+            "the maximum spacing is below the spacing increment: no multiple of the increment satisfies it"
+        )
+    if s_max is not None and s_min is not None and cap < s_min * (1 - 1e-9):
+        reasons.append(
+            "no multiple of the spacing increment lies between the minimum and the maximum spacing"
+        )
     if q_mag <= 0:
         req = None
         if s_max is None:
@@ -95,17 +105,17 @@ def discrete_spacing(
                 "OK",
                 ("no shear flow; spacing set by detailing (no spacing_max given)",),
             )
-        prov = s_max
-        log.add(
+        prov = log.add(
             "s_prov",
             "Practical spacing",
-            "s = s_max (no shear flow)",
+            "s = ⌊s_max / Δ⌋·Δ (no shear flow)",
             "{s_max}",
-            {"s_max": s_max},
-            s_max,
+            {"s_max": cap},
+            cap,
             source="common practice, no source",
         )
-        return SpacingResult(req, prov, s_min, s_max, 0.0, "OK", ())
+        status = "NG" if reasons else "OK"
+        return SpacingResult(req, prov, s_min, s_max, 0.0, status, tuple(reasons))
     req = log.add(
         "s_req",
         "Required spacing",
@@ -125,26 +135,27 @@ def discrete_spacing(
         source="common practice, no source (round down, never up)",
     )
     prov = rounded
-    if s_max is not None and prov > s_max:
+    if s_max is not None and prov > cap:
+        on_grid = abs(float((cap - s_max).to("inch").magnitude)) <= 1e-9 * float(s_max.to("inch").magnitude)
         prov = log.add(
             "s_cap",
             "Spacing capped by the maximum spacing",
-            "s = min(s, s_max)",
-            "min({s}, {s_max})",
-            {"s": rounded, "s_max": s_max},
-            s_max.to("inch"),
-            source=limit_source,
+            "s = min(s, s_max)" if on_grid else "s = min(s, s_max,Δ)",
+            "min({s}, {s_max})" if on_grid else "min({s}, {s_max_grid})",
+            {"s": rounded, "s_max": s_max} if on_grid else {"s": rounded, "s_max_grid": cap},
+            cap,
+            source=limit_source
+            if on_grid
+            else f"{limit_source}, on the increment (s_max,Δ = ⌊s_max / Δ⌋·Δ; common practice, no source)",
         )
     util = float((q * prov / nF).to(""))
-    status = "OK"
-    if s_min is not None and prov < s_min:
-        status = "NG"
+    if not reasons and s_min is not None and prov < s_min * (1 - 1e-9):
         reasons.append(
             "practical spacing is below the minimum spacing; use stronger or more connectors per row"
         )
-    if float(prov.to("inch").magnitude) <= 0:
-        status = "NG"
+    if not reasons and float(prov.to("inch").magnitude) <= 0:
         reasons.append("required spacing is less than one increment")
+    status = "NG" if reasons else "OK"
     log.add(
         "util",
         "Utilisation of the connector row at the practical spacing",
@@ -171,6 +182,26 @@ def continuous_check(q: Quantity, q_cap: Quantity, log: StepLog) -> SpacingResul
     status = "OK" if util <= 1.0 + 1e-9 else "NG"
     reasons = () if status == "OK" else ("shear flow exceeds the capacity of the continuous connection",)
     return SpacingResult(None, None, None, None, util, status, reasons)
+
+
+def _grid_limit(s_max: Quantity | None, step: Quantity, log: StepLog) -> Quantity:
+    """The largest multiple of the increment not above the maximum spacing (common practice, no
+    source: a practical spacing is a multiple of the increment); ``step`` itself when no maximum
+    is given. Logged only when the maximum is off the grid."""
+    if s_max is None:
+        return step.to("inch")
+    cap = round_down(s_max, step).to("inch")
+    if abs(float((cap - s_max).to("inch").magnitude)) > 1e-9 * float(s_max.to("inch").magnitude):
+        log.add(
+            "s_max_grid",
+            "Maximum spacing rounded down to the increment",
+            "s_max,Δ = ⌊s_max / Δ⌋·Δ",
+            "⌊{s_max} / {step}⌋ × {step}",
+            {"s_max": s_max, "step": step},
+            cap,
+            source="common practice, no source (a practical spacing is a multiple of the increment)",
+        )
+    return cap
 
 
 def combine_limits(*limits: Quantity | None, pick=max) -> Quantity | None:

@@ -99,6 +99,26 @@ def governing_text(m: MemberResult, ctx: Ctx) -> str:
     return best[1] if best else "no joints or checks"
 
 
+def _written_and_warnings(ctx: Ctx) -> list:
+    """Values the job file gives as products or quotients, as written and as read; keys that had
+    no effect (the warnings check and build printed)."""
+    st, job, w = ctx.styles, ctx.result.job, ctx.width
+    out: list = []
+    if job.written:
+        out.append(Paragraph("Values written as products or quotients", st.h2))
+        rows = [["Key", "Line", "As written", "Read as"]]
+        for v in job.written:
+            rows.append([v.key, str(v.line or "—"), v.text, ctx.q(v.value)])
+        out.append(grid(rows, [0.40 * w, 0.08 * w, 0.30 * w, 0.22 * w], st))
+    if job.warnings:
+        out.append(Paragraph("Job-file keys without effect (warnings)", st.h2))
+        rows = [["Key", "Line", "Warning"]]
+        for x in job.warnings:
+            rows.append([x.key, str(x.line or "—"), x.message])
+        out.append(grid(rows, [0.36 * w, 0.08 * w, 0.56 * w], st))
+    return out
+
+
 def cover_story(ctx: Ctx, info: PageInfo, sections: list[tuple[str, str]]) -> list:
     st, job = ctx.styles, ctx.result.job
     h = job.header
@@ -180,6 +200,7 @@ def cover_story(ctx: Ctx, info: PageInfo, sections: list[tuple[str, str]]) -> li
         story.append(Paragraph("Notes", st.h2))
         for n in h.notes:
             story.append(para(n, st.body))
+    story.extend(_written_and_warnings(ctx))
 
     story.append(Paragraph("Contents", st.h2))
     toc = [["Section", "Sheet"]]

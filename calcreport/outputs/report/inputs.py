@@ -175,6 +175,20 @@ def _shear_and_settings(m: MemberResult, ctx: Ctx):
     return grid(rows, [0.40 * w, 0.60 * w], ctx.styles, zebra=False)
 
 
+def _written_table(m: MemberResult, ctx: Ctx) -> list:
+    """This member's values that the job file gives as products or quotients, as written."""
+    mine = [v for v in ctx.result.job.written if v.key.startswith(f"member[{m.id}]")]
+    if not mine:
+        return []
+    w = ctx.width
+    rows = [["Key", "As written", "Read as"]]
+    rows += [[marked_cell(ctx, v.key, v.key), v.text, ctx.q(v.value)] for v in mine]
+    return [
+        *heading("Values written as products or quotients", ctx.styles.h3),
+        grid(rows, [0.45 * w, 0.30 * w, 0.25 * w], ctx.styles),
+    ]
+
+
 def inputs_story(m: MemberResult, ctx: Ctx) -> list:
     st = ctx.styles
     return [
@@ -187,4 +201,5 @@ def inputs_story(m: MemberResult, ctx: Ctx) -> list:
         _connectors_table(m, ctx),
         *heading("Design shear and settings", st.h3),
         _shear_and_settings(m, ctx),
+        *_written_table(m, ctx),
     ]
