@@ -18,6 +18,7 @@ from ..errors import JobError
 from ..geometry import contact_segments, isolated_parts, overlapping_pairs
 from ..model import ConnectorSpec, Header, Job, Joint, Material, Member, Part, RevisionEntry, Settings
 from ..solve import connectors
+from ..solve.combinations import LOAD_STANDARDS
 from ..units import parse
 from .lines import LineIndex
 from .parts import read_part
@@ -160,7 +161,10 @@ def _settings(t: Table) -> Settings:
                 display[kind] = unit
         dt.done()
     cd = t.number("load_duration", None, minimum=0.5, maximum=2.0)
-    s = Settings(units, method, step, smax, smin, zones, module, limits, t.text("template"), display, cd)
+    standard = t.choice("load_standard", LOAD_STANDARDS, "ASCE 7-22")
+    s = Settings(
+        units, method, step, smax, smin, zones, module, limits, t.text("template"), display, cd, standard
+    )
     t.done()
     return s
 

@@ -1,0 +1,116 @@
+"""Worst placement of the variable (live-type) load cases, from the influence lines of
+:mod:`calcreport.solve.influence`, in plain floats (inch, lbf).
+
+For every variable case and every station: the largest and smallest V, M, deflection (EI = 1) and
+support reactions when its distributed loads act only where they make the response worse, its fixed
+point loads act or not, and its moving loads (alone, or as a set at fixed offsets) stand where they
+are worst. ASCE 7-22 §4.3.3 (partial loading) and §4.4 (concentrated live loads).
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, field
+
+import numpy as np
+
+from . import beam_fe as fe
+from . import influence as il
+
+__all__ = ["MovingSet", "CaseExtremes", "Placement", "place"]
+
+QUANTITIES = ("V", "M", "v", "R")
+
+
+@dataclass(frozen=True)
+class MovingSet:
+    """Point loads that move together: forces P (lbf), offsets d (inch), travel range [lo, hi]."""
+
+    case: str
+    name: str
+    P: tuple[float, ...]
+    offsets: tuple[float, ...]
+    lo: float
+    hi: float
+
+
+@dataclass
+class CaseExtremes:
+    """Largest (hi) and smallest (lo) value of each response for one case, and its value with
+    every load as written (full; moving loads excluded)."""
+
+    hi: dict[str, np.ndarray] = field(default_factory=dict)
+    lo: dict[str, np.ndarray] = field(default_factory=dict)
+    full: dict[str, np.ndarray] = field(default_factory=dict)
+    partial_hi: dict[str, np.ndarray] = field(default_factory=dict)
+    partial_lo: dict[str, np.ndarray] = field(default_factory=dict)
+    moving: tuple[MovingSet, ...] = ()
+    moving_at: dict[str, list[tuple[np.ndarray, np.ndarray]]] = field(default_factory=dict)
+    wa: np.ndarray | None = None
+    wb: np.ndarray | None = None
+
+
+@dataclass(frozen=True)
+class Placement:
+    influence: dict[str, il.Influence]
+    cases: dict[str, CaseExtremes]
+    reaction_meta: list[tuple[int, bool]]
+
+
+def _point_ordinates(inf: il.Influence, a: float, at_node_left: np.ndarray | None) -> np.ndarray:
+    """η of every response for a load standing at node position a; for a shear station at that node
+    just left of it the load is right of the cut (right-element limit), otherwise the left limit."""
+    j = int(np.argmin(np.abs(inf.x - a)))
+    if j == 0:
+        return inf.C[:, 0, 0].copy()
+    eta_l = inf.C[:, j - 1, :].sum(axis=1)
+    eta_r = inf.C[:, j, 0] if j < len(inf.h) else eta_l
+    if at_node_left is None:
+        return eta_l
+    return np.where(at_node_left, eta_r, eta_l)
+
+
+def place(
+    fine: fe.Mesh,
+    coarse: fe.Mesh,
+    idx: np.ndarray,
+    side: np.ndarray,
+    loads: dict[str, list[fe.FELoad]],
+    moving: dict[str, list[MovingSet]],
+) -> Placement:
+    """Worst placement of each case in ``loads`` / ``moving`` (the variable cases)."""
+    V, M, R, meta = il.statics_rows(fine, coarse, idx, side)
+    v = il.build(fine, il.deflection_rows(fine, idx))
+    infl = {"V": V, "M": M, "v": v, "R": R}
+    n = len(fine.x)
+    out: dict[str, CaseExtremes] = {}
+    for case in list(dict.fromkeys(list(loads) + list(moving))):
+        ex = CaseExtremes(moving=tuple(moving.get(case, ())))
+        mine = loads.get(case, [])
+        dist = [ld for ld in mine if ld.kind != "point"]
+        _, wa, wb = fe.load_vector(fine, dist)
+        ex.wa, ex.wb = wa, wb
+        for q, inf in infl.items():
+            S = inf.C.shape[0]
+            pos, neg = il.integrate_parts(inf, wa, wb) if dist else (np.zeros(S), np.zeros(S))
+            hi, lo, full = pos.copy(), neg.copy(), pos + neg
+            for ld in (p for p in mine if p.kind == "point"):
+                j = int(np.argmin(np.abs(fine.x - ld.a)))
+                at_node_left = None
+                if q == "V":
+                    at_node_left = (np.asarray(idx) == j) & (np.asarray(side) == 0) & (j < n - 1)
+                eta = ld.w1 * _point_ordinates(inf, ld.a, at_node_left)
+                hi += np.maximum(eta, 0.0)
+                lo += np.minimum(eta, 0.0)
+                full += eta
+            scale = max(float(np.abs(hi).max(initial=0.0)), float(np.abs(lo).max(initial=0.0)), 1e-300)
+            ex.partial_hi[q] = np.abs(hi - full) > 1e-9 * scale
+            ex.partial_lo[q] = np.abs(lo - full) > 1e-9 * scale
+            ex.moving_at[q] = []
+            for ms in ex.moving:
+                h, lw, ah, al = il.moving_extremes(inf, np.array(ms.P), np.array(ms.offsets), ms.lo, ms.hi)
+                hi += np.maximum(h, 0.0)
+                lo += np.minimum(lw, 0.0)
+                ex.moving_at[q].append((ah, al))
+            ex.hi[q], ex.lo[q], ex.full[q] = hi, lo, full
+        out[case] = ex
+    return Placement(infl, out, meta)
