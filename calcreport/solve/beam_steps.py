@@ -46,7 +46,7 @@ def log_analysis(
     for c in live:
         _placement_step(log, c, placed, x_q, standard)
     for d in cases:
-        ex = placed.cases.get(d.name)
+        ex = placed.cases.get(d.name) if d.name in live else None
         for k, r in enumerate(d.reactions):
             if ex is None:
                 log.add(
@@ -152,11 +152,15 @@ def _placement_step(log: StepLog, case: str, placed, x_q, standard: str) -> None
     else:
         loaded = ""
     moving_text = []
-    for n, (ms, (ah, al)) in enumerate(zip(ex.moving, ex.moving_at.get("V", [])), 1):
-        values[f"p{n}"] = Q_(float(ah[s] if sign > 0 else al[s]), _IN)
-        positions.append(f"p{n}")
-        kind = "group " + ms.name if len(ms.P) > 1 else "moving load"
-        moving_text.append(f"{kind} with its first load at {{p{n}}}")
+    for n, (ms, (ah, al, oh, ol)) in enumerate(zip(ex.moving, ex.moving_at.get("V", [])), 1):
+        ref, sgn = (ah[s], oh[s]) if sign > 0 else (al[s], ol[s])
+        slots = []
+        for m, d in enumerate(ms.offsets, 1):
+            values[f"p{n}_{m}"] = Q_(float(ref + sgn * d), _IN)
+            positions.append(f"p{n}_{m}")
+            slots.append(f"{{p{n}_{m}}}")
+        kind = f"{ms.name} loads at " if len(ms.P) > 1 else "moving load at "
+        moving_text.append(kind + ", ".join(slots))
     if ex.moving:
         what.append("moving loads at their worst position for every x")
     if ex.full["V"].any() and not ex.moving and not ex.wa.any():

@@ -296,16 +296,18 @@ def _group_values(
 
 def moving_extremes(
     inf: Influence, P: np.ndarray, offsets: np.ndarray, lo: float, hi: float, chunk: int = 64
-) -> tuple[np.ndarray, np.ndarray, np.ndarray, np.ndarray]:
+) -> tuple[np.ndarray, np.ndarray, np.ndarray, np.ndarray, np.ndarray, np.ndarray]:
     """Largest and smallest Σ P_k·η(a + d_k) over every placement of a set of loads that moves as
-    one (both ways round), with every wheel within [lo, hi]; and the reference positions (position
-    of the wheel with offset 0 in the set as written) that give them."""
+    one (both ways round), with every wheel within [lo, hi]; the reference positions a (where the
+    load with offset 0 stands) that give them, and the orientation (+1 as written, −1 turned round:
+    load k then stands at a − d_k)."""
     S = inf.C.shape[0]
     best_hi, best_lo = np.full(S, -np.inf), np.full(S, np.inf)
     at_hi, at_lo = np.zeros(S), np.zeros(S)
+    or_hi, or_lo = np.ones(S), np.ones(S)
     d0 = np.asarray(offsets, dtype=float)
     orients = [d0] if len(d0) == 1 else [d0, -d0]
-    for d in orients:
+    for sgn, d in zip((1.0, -1.0), orients):
         a = _breaks(inf.x, d, lo, hi)
         if len(a) < 2:
             a = np.array([a[0], a[0]])
@@ -326,9 +328,11 @@ def moving_extremes(
             better_h, better_l = vh > best_hi[sl], vl < best_lo[sl]
             best_hi[sl] = np.where(better_h, vh, best_hi[sl])
             at_hi[sl] = np.where(better_h, pflat[r, k_hi], at_hi[sl])
+            or_hi[sl] = np.where(better_h, sgn, or_hi[sl])
+            or_lo[sl] = np.where(better_l, sgn, or_lo[sl])
             best_lo[sl] = np.where(better_l, vl, best_lo[sl])
             at_lo[sl] = np.where(better_l, pflat[r, k_lo], at_lo[sl])
-    return best_hi, best_lo, at_hi, at_lo
+    return best_hi, best_lo, at_hi, at_lo, or_hi, or_lo
 
 
 def loaded_parts(

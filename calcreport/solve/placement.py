@@ -44,7 +44,8 @@ class CaseExtremes:
     partial_hi: dict[str, np.ndarray] = field(default_factory=dict)
     partial_lo: dict[str, np.ndarray] = field(default_factory=dict)
     moving: tuple[MovingSet, ...] = ()
-    moving_at: dict[str, list[tuple[np.ndarray, np.ndarray]]] = field(default_factory=dict)
+    # per response, per moving set: reference position and orientation of the largest / smallest
+    moving_at: dict[str, list[tuple[np.ndarray, ...]]] = field(default_factory=dict)
     wa: np.ndarray | None = None
     wb: np.ndarray | None = None
 
@@ -107,10 +108,12 @@ def place(
             ex.partial_lo[q] = np.abs(lo - full) > 1e-9 * scale
             ex.moving_at[q] = []
             for ms in ex.moving:
-                h, lw, ah, al = il.moving_extremes(inf, np.array(ms.P), np.array(ms.offsets), ms.lo, ms.hi)
+                h, lw, ah, al, oh, ol = il.moving_extremes(
+                    inf, np.array(ms.P), np.array(ms.offsets), ms.lo, ms.hi
+                )
                 hi += np.maximum(h, 0.0)
                 lo += np.minimum(lw, 0.0)
-                ex.moving_at[q].append((ah, al))
+                ex.moving_at[q].append((ah, al, oh, ol))
             ex.hi[q], ex.lo[q], ex.full[q] = hi, lo, full
         out[case] = ex
     return Placement(infl, out, meta)
