@@ -334,6 +334,7 @@ def analyse(
         side_a,
         {c: [f for cc, f in fl if cc == c] for c in cases},
         {c: [m for m in msets if m.case == c] for c in live},
+        set(live),
     )
     # V and M of every case as written, from the same influence lines (statics on the reactions of
     # the coarse model: accurate to rounding); deflection from the fine model
@@ -343,7 +344,7 @@ def analyse(
     placed_live = {c: ex for c, ex in placed.cases.items() if c in live}
     size = {"V": len(idx_a), "M": len(idx_a), "v": len(idx_a), "R": len(supports)}
     basis: dict = {"place": placed_live, "fixed": fixed, "size": size, "EI": EIf}
-    for ex in placed.cases.values():  # reactions: upward forces only, one per support
+    for ex in placed_live.values():  # reactions: upward forces only, one per support
         for d in (ex.hi, ex.lo, ex.full):
             d["R"] = _support_forces(d["R"], placed.reaction_meta, len(supports))
 

@@ -42,6 +42,7 @@ __all__ = [
     "statics_rows",
     "deflection_rows",
     "integrate_parts",
+    "integrate_whole",
     "moving_extremes",
     "loaded_parts",
 ]
@@ -225,22 +226,48 @@ def _cuts(c: np.ndarray, w0: np.ndarray, w1: np.ndarray) -> np.ndarray:
     cc = c[..., None, :]
     flo, fhi = _poly(cc, lo), _poly(cc, hi)
     change = (flo * fhi) < 0
-    a, b = lo.copy(), hi.copy()
-    for _ in range(_BISECT):
-        mid = 0.5 * (a + b)
-        fm = _poly(cc, mid)
-        left = (flo * fm) <= 0
-        b = np.where(left, mid, b)
-        a = np.where(left, a, mid)
-    roots = np.where(change, 0.5 * (a + b), 0.0)
+    roots = np.zeros(lo.shape)
+    if change.any():
+        k = np.nonzero(change)
+        cs, a, b, fa = c[k[:-1]], lo[k], hi[k], flo[k]
+        for _ in range(_BISECT):
+            mid = 0.5 * (a + b)
+            left = (fa * _poly(cs, mid)) <= 0
+            b = np.where(left, mid, b)
+            a = np.where(left, a, mid)
+        roots[k] = 0.5 * (a + b)
     return np.sort(np.concatenate([T, roots, tw[..., None]], axis=-1), axis=-1)
 
 
+def _clean(c: np.ndarray, w0: np.ndarray, w1: np.ndarray) -> np.ndarray:
+    """True where w·η keeps one sign on the whole element (no root of η or w inside)."""
+    d1, d2 = _quad_roots(3 * c[..., 3], 2 * c[..., 2], c[..., 1])
+    T = np.stack([np.zeros_like(d1), d1, d2, np.ones_like(d1)], axis=-1)
+    f = _poly(c[..., None, :], T)
+    one_sign = np.all(f >= 0, axis=-1) | np.all(f <= 0, axis=-1)
+    with np.errstate(divide="ignore", invalid="ignore"):
+        tw = np.where(w1 != 0, -w0 / w1, 0.0)
+    return one_sign & ~((tw > 0) & (tw < 1))
+
+
+def integrate_whole(inf: Influence, wa: np.ndarray, wb: np.ndarray) -> np.ndarray:
+    """∫ w·η dξ for every response: the loads where they are written (closed form per element)."""
+    loaded = np.nonzero((wa != 0) | (wb != 0))[0]
+    if not len(loaded):
+        return np.zeros(inf.C.shape[0])
+    k = np.arange(4)
+    c = inf.C[:, loaded, :]
+    w0, w1 = wa[loaded], wb[loaded] - wa[loaded]
+    whole = np.einsum("sek,k->se", c, 1.0 / (k + 1)) * w0 + np.einsum("sek,k->se", c, 1.0 / (k + 2)) * w1
+    return (whole * inf.h[loaded]).sum(axis=1)
+
+
 def integrate_parts(
-    inf: Influence, wa: np.ndarray, wb: np.ndarray, chunk: int = 96
+    inf: Influence, wa: np.ndarray, wb: np.ndarray, chunk: int = 128
 ) -> tuple[np.ndarray, np.ndarray]:
     """∫ max(w·η, 0) dξ and ∫ min(w·η, 0) dξ for every response, w linear in each element from
-    ``wa`` (left end) to ``wb`` (right end). Exact: see the module docstring."""
+    ``wa`` (left end) to ``wb`` (right end). Exact: see the module docstring. Elements where w·η
+    keeps its sign are integrated whole (closed form); only the few where it changes sign are cut."""
     S = inf.C.shape[0]
     pos, neg = np.zeros(S), np.zeros(S)
     loaded = np.nonzero((wa != 0) | (wb != 0))[0]
@@ -248,18 +275,31 @@ def integrate_parts(
         return pos, neg
     h = inf.h[loaded]
     w0, w1 = wa[loaded], wb[loaded] - wa[loaded]
+    k = np.arange(4)
     for s0 in range(0, S, chunk):
         c = inf.C[s0 : s0 + chunk][:, loaded, :]  # (s, E', 4)
-        T = _cuts(c, w0[None, :], w1[None, :])  # (s, E', P)
-        lo, hi = T[..., :-1], T[..., 1:]
-        half, mid = 0.5 * (hi - lo), 0.5 * (hi + lo)
-        total = np.zeros(lo.shape)
-        for gt, gw in zip(_GAUSS_T, _GAUSS_W):
-            t = mid + half * gt
-            total += gw * half * (w0[None, :, None] + w1[None, :, None] * t) * _poly(c[..., None, :], t)
-        total *= h[None, :, None]
-        pos[s0 : s0 + chunk] = np.where(total > 0, total, 0.0).sum(axis=(1, 2))
-        neg[s0 : s0 + chunk] = np.where(total < 0, total, 0.0).sum(axis=(1, 2))
+        whole = h * (
+            np.einsum("sek,k->se", c, 1.0 / (k + 1)) * w0 + np.einsum("sek,k->se", c, 1.0 / (k + 2)) * w1
+        )
+        ok = _clean(c, w0[None, :], w1[None, :])
+        whole = np.where(ok, whole, 0.0)
+        p = np.where(whole > 0, whole, 0.0).sum(axis=1)
+        n = np.where(whole < 0, whole, 0.0).sum(axis=1)
+        rs, es = np.nonzero(~ok)
+        if len(rs):
+            cd, a0, a1, hd = c[rs, es], w0[es], w1[es], h[es]
+            T = _cuts(cd, a0, a1)  # (N, P)
+            lo, hi = T[:, :-1], T[:, 1:]
+            half, mid = 0.5 * (hi - lo), 0.5 * (hi + lo)
+            total = np.zeros(lo.shape)
+            for gt, gw in zip(_GAUSS_T, _GAUSS_W):
+                t = mid + half * gt
+                total += gw * half * (a0[:, None] + a1[:, None] * t) * _poly(cd[:, None, :], t)
+            total *= hd[:, None]
+            np.add.at(p, rs, np.where(total > 0, total, 0.0).sum(axis=1))
+            np.add.at(n, rs, np.where(total < 0, total, 0.0).sum(axis=1))
+        pos[s0 : s0 + chunk] = p
+        neg[s0 : s0 + chunk] = n
     return pos, neg
 
 
@@ -278,18 +318,26 @@ def _breaks(x: np.ndarray, offsets: np.ndarray, lo: float, hi: float) -> np.ndar
     return a
 
 
-def _group_values(
+def _group_cubic(
     inf: Influence, rows: slice, P: np.ndarray, d: np.ndarray, a0: np.ndarray, a1: np.ndarray
 ) -> np.ndarray:
-    """Σ_k P_k·η(a + d_k) at u = 0, 1/3, 2/3, 1 of every interval [a0, a1] (rows, M, 4)."""
+    """Power coefficients in u ∈ [0, 1] of Σ_k P_k·η(a0 + u(a1 − a0) + d_k) on every interval
+    (rows, M, 4): each wheel's cubic re-expanded about its start, t = t0 + τ·u (Taylor, exact)."""
     mid = 0.5 * (a0 + a1)
     out = None
     C = inf.C[rows]
     for Pk, dk in zip(P, d):
         e = np.clip(np.searchsorted(inf.x, mid + dk, side="right") - 1, 0, len(inf.h) - 1)
-        xi = a0[:, None] + (a1 - a0)[:, None] * _U4[None, :] + dk  # (M, 4)
-        t = (xi - inf.x[e][:, None]) / inf.h[e][:, None]
-        val = Pk * _poly(C[:, e, None, :], t[None, :, :])
+        he = inf.h[e]
+        t0 = (a0 + dk - inf.x[e]) / he
+        tau = (a1 - a0) / he
+        c = C[:, e, :]  # (s, M, 4)
+        c0, c1, c2, c3 = c[..., 0], c[..., 1], c[..., 2], c[..., 3]
+        v0 = c0 + t0 * (c1 + t0 * (c2 + t0 * c3))
+        v1 = (c1 + t0 * (2 * c2 + 3 * t0 * c3)) * tau
+        v2 = (c2 + 3 * t0 * c3) * tau * tau
+        v3 = c3 * tau**3
+        val = Pk * np.stack([v0, v1, v2, v3], axis=-1)
         out = val if out is None else out + val
     return out
 
@@ -314,8 +362,7 @@ def moving_extremes(
         a0, a1 = a[:-1], a[1:]
         for s0 in range(0, S, chunk):
             sl = slice(s0, min(S, s0 + chunk))
-            F = _group_values(inf, sl, P, d, a0, a1)  # (s, M, 4)
-            coef = F @ _VINV.T  # cubic in u
+            coef = _group_cubic(inf, sl, P, d, a0, a1)  # (s, M, 4), cubic in u
             r1, r2 = _quad_roots(3 * coef[..., 3], 2 * coef[..., 2], coef[..., 1])
             U = np.stack([np.zeros_like(r1), np.ones_like(r1), r1, r2], axis=-1)
             vals = _poly(coef[..., None, :], U)  # (s, M, 4)

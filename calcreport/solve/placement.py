@@ -77,8 +77,11 @@ def place(
     side: np.ndarray,
     loads: dict[str, list[fe.FELoad]],
     moving: dict[str, list[MovingSet]],
+    variable: set[str] | None = None,
 ) -> Placement:
-    """Worst placement of each case in ``loads`` / ``moving`` (the variable cases)."""
+    """Worst placement of each case of ``variable`` (default: every case in ``loads`` / ``moving``);
+    the other cases get their values as written (``full``, V and M only)."""
+    variable = set(loads) | set(moving) if variable is None else set(variable)
     V, M, R, meta = il.statics_rows(fine, coarse, idx, side)
     v = il.build(fine, il.deflection_rows(fine, idx))
     infl = {"V": V, "M": M, "v": v, "R": R}
@@ -90,6 +93,19 @@ def place(
         dist = [ld for ld in mine if ld.kind != "point"]
         _, wa, wb = fe.load_vector(fine, dist)
         ex.wa, ex.wb = wa, wb
+        if case not in variable:  # as written only: V and M
+            for q in ("V", "M"):
+                inf = infl[q]
+                full = il.integrate_whole(inf, wa, wb)
+                for ld in (p for p in mine if p.kind == "point"):
+                    j = int(np.argmin(np.abs(fine.x - ld.a)))
+                    at_node_left = None
+                    if q == "V":
+                        at_node_left = (np.asarray(idx) == j) & (np.asarray(side) == 0) & (j < n - 1)
+                    full = full + ld.w1 * _point_ordinates(inf, ld.a, at_node_left)
+                ex.full[q] = full
+            out[case] = ex
+            continue
         for q, inf in infl.items():
             S = inf.C.shape[0]
             pos, neg = il.integrate_parts(inf, wa, wb) if dist else (np.zeros(S), np.zeros(S))
