@@ -78,7 +78,8 @@ def log_analysis(
                 f"comb.{i + 1}.{what}",
                 f"Largest |{what}| for {d.name}",
                 f"{what}_max",
-                "at x = {x}" + (", variable loads in their worst placement" if live else ""),
+                "at x = {x}"
+                + (", variable loads in their worst placement" if any(c in live for c in d.factors) else ""),
                 {"x": d.x[k]},
                 Q_(float(mag[k]), unit),
                 source=d.source,
