@@ -213,3 +213,32 @@ def test_overhang_partial_live_negative_moment():
     assert mmin.min() == pytest.approx(-w * c * c / 2, rel=REL)
     k = int(np.argmin(abs(x - l / 2)))
     assert mmax[k] == pytest.approx(w * l * l / 8, rel=REL)
+
+
+@pytest.mark.parametrize("variable", [(), ("D",)])
+def test_point_loads_at_the_member_ends(variable):
+    """Point loads exactly at the ends, as written (variable=()) and placed (D marked variable): on
+    a simple span a load on a support goes straight into it (V(0+) gets nothing from it); at the free
+    end of an overhang V = +P just inside the tip (statics, V positive when the part left of the cut
+    is pushed up). Placed: each load on or off, V_max(0+) = P·90/180."""
+    l, c = 180.0, 48.0
+    loads = [
+        Load("D", "point", Q_(P, "lbf"), at=Q_(0.0, "in")),
+        Load("D", "point", Q_(P, "lbf"), at=Q_(l + c, "in")),
+        Load("D", "point", Q_(P, "lbf"), at=Q_(90.0, "in")),
+    ]
+    r = analyse(
+        Q_(l + c, "in"),
+        [_pin(0), _pin(l)],
+        loads,
+        [Combination("D", {"D": 1.0})],
+        variable=variable,
+    )
+    V = r.cases[0].V.to("lbf").magnitude
+    env = r.envelope.V_max.to("lbf").magnitude
+    # R1 from statics: P (on the support) + P·90/180 − P·48/180
+    assert V[0] == pytest.approx(P * (90 - 48) / 180, rel=REL)
+    assert V[-1] == pytest.approx(P, rel=REL)
+    if variable:
+        assert env[0] == pytest.approx(P * 90 / 180, rel=REL)
+        assert env[-1] == pytest.approx(P, rel=REL)

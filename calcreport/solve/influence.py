@@ -324,8 +324,8 @@ def _group_cubic(
     """Power coefficients in u ∈ [0, 1] of Σ_k P_k·η(a0 + u(a1 − a0) + d_k) on every interval
     (rows, M, 4): each wheel's cubic re-expanded about its start, t = t0 + τ·u (Taylor, exact)."""
     mid = 0.5 * (a0 + a1)
-    out = None
     C = inf.C[rows]
+    out = np.zeros((C.shape[0], len(a0), 4))
     for Pk, dk in zip(P, d):
         e = np.clip(np.searchsorted(inf.x, mid + dk, side="right") - 1, 0, len(inf.h) - 1)
         he = inf.h[e]
@@ -337,8 +337,7 @@ def _group_cubic(
         v1 = (c1 + t0 * (2 * c2 + 3 * t0 * c3)) * tau
         v2 = (c2 + 3 * t0 * c3) * tau * tau
         v3 = c3 * tau**3
-        val = Pk * np.stack([v0, v1, v2, v3], axis=-1)
-        out = val if out is None else out + val
+        out += Pk * np.stack([v0, v1, v2, v3], axis=-1)
     return out
 
 

@@ -57,14 +57,27 @@ class Placement:
     reaction_meta: list[tuple[int, bool]]
 
 
-def _point_ordinates(inf: il.Influence, a: float, at_node_left: np.ndarray | None) -> np.ndarray:
-    """η of every response for a load standing at node position a; for a shear station at that node
-    just left of it the load is right of the cut (right-element limit), otherwise the left limit."""
+def _point_ordinates(
+    inf: il.Influence, a: float, at_node_left: np.ndarray | None, station_idx: np.ndarray | None = None
+) -> np.ndarray:
+    """η of every response for a load standing at node position a, as the stiffness model applies a
+    nodal load: for a shear station at that node, just left of it the load is right of the cut
+    (right-element limit), just right of it the load is left of the cut (left-element limit). At
+    the member ends, where one limit does not exist, the unit step is applied by hand
+    (``station_idx``: the node of each shear station; ``None`` for other responses)."""
     j = int(np.argmin(np.abs(inf.x - a)))
+    last = len(inf.x) - 1
     if j == 0:
-        return inf.C[:, 0, 0].copy()
+        eta = inf.C[:, 0, 0].copy()
+        if station_idx is not None:
+            eta = eta - (np.asarray(station_idx) == 0)  # V just right of x = 0: the load is left of the cut
+        return eta
     eta_l = inf.C[:, j - 1, :].sum(axis=1)
-    eta_r = inf.C[:, j, 0] if j < len(inf.h) else eta_l
+    if j == last:
+        if station_idx is not None:
+            eta_l = eta_l + (np.asarray(station_idx) == last)  # V just left of x = L: load right of the cut
+        return eta_l
+    eta_r = inf.C[:, j, 0]
     if at_node_left is None:
         return eta_l
     return np.where(at_node_left, eta_r, eta_l)
@@ -102,7 +115,7 @@ def place(
                     at_node_left = None
                     if q == "V":
                         at_node_left = (np.asarray(idx) == j) & (np.asarray(side) == 0) & (j < n - 1)
-                    full = full + ld.w1 * _point_ordinates(inf, ld.a, at_node_left)
+                    full = full + ld.w1 * _point_ordinates(inf, ld.a, at_node_left, idx if q == "V" else None)
                 ex.full[q] = full
             out[case] = ex
             continue
@@ -115,7 +128,7 @@ def place(
                 at_node_left = None
                 if q == "V":
                     at_node_left = (np.asarray(idx) == j) & (np.asarray(side) == 0) & (j < n - 1)
-                eta = ld.w1 * _point_ordinates(inf, ld.a, at_node_left)
+                eta = ld.w1 * _point_ordinates(inf, ld.a, at_node_left, idx if q == "V" else None)
                 hi += np.maximum(eta, 0.0)
                 lo += np.minimum(eta, 0.0)
                 full += eta
