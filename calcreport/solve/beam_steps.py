@@ -164,8 +164,8 @@ def _placement_step(log: StepLog, case: str, placed, x_q, standard: str) -> None
         moving_text.append(kind + ", ".join(slots))
     if ex.moving:
         what.append("moving loads at their worst position for every x")
-    if ex.full["V"].any() and not ex.moving and not ex.wa.any():
-        what.append("point loads on or off")
+    if ex.points:
+        what.append("point loads at their positions, each on or off")
     template = (
         "; ".join(what)
         + "; for the largest |V|, at x = {x}: "

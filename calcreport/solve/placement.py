@@ -48,6 +48,7 @@ class CaseExtremes:
     moving_at: dict[str, list[tuple[np.ndarray, ...]]] = field(default_factory=dict)
     wa: np.ndarray | None = None
     wb: np.ndarray | None = None
+    points: int = 0  # point loads at fixed positions (each on or off)
 
 
 @dataclass(frozen=True)
@@ -106,6 +107,7 @@ def place(
         dist = [ld for ld in mine if ld.kind != "point"]
         _, wa, wb = fe.load_vector(fine, dist)
         ex.wa, ex.wb = wa, wb
+        ex.points = sum(1 for p in mine if p.kind == "point")
         if case not in variable:  # as written only: V and M
             for q in ("V", "M"):
                 inf = infl[q]
