@@ -29,7 +29,7 @@ Units: whatever consistent floats the caller uses (:mod:`calcreport.solve.beam` 
 
 from __future__ import annotations
 
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 
 import numpy as np
 
@@ -79,6 +79,21 @@ class Influence:
     h: np.ndarray  # element lengths (n − 1,)
     C: np.ndarray  # (S, E, 4) power coefficients t⁰..t³
     A: np.ndarray  # (S, 2n) responses to unit nodal forces/moments
+    _cache: dict = field(default_factory=dict, compare=False, repr=False)
+
+    def moments(self) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
+        """∫₀¹ η dt, ∫₀¹ t·η dt and whether η keeps one sign, for every (response, element);
+        computed once and shared by every load (they do not depend on the load)."""
+        if "moments" not in self._cache:
+            k = np.arange(4)
+            m0 = self.C @ (1.0 / (k + 1))
+            m1 = self.C @ (1.0 / (k + 2))
+            d1, d2 = _quad_roots(3 * self.C[..., 3], 2 * self.C[..., 2], self.C[..., 1])
+            T = np.stack([np.zeros_like(d1), d1, d2, np.ones_like(d1)], axis=-1)
+            f = _poly(self.C[..., None, :], T)
+            one_sign = np.all(f >= 0, axis=-1) | np.all(f <= 0, axis=-1)
+            self._cache["moments"] = (m0, m1, one_sign)
+        return self._cache["moments"]
 
     def at(self, xi: float, side: int = 1) -> np.ndarray:
         """Ordinates of all responses at ξ (``side`` 0 takes the element left of a node)."""
@@ -165,15 +180,22 @@ def statics_rows(
 
 
 def deflection_rows(mesh: Mesh, idx: np.ndarray) -> Rows:
-    """Rows giving the deflection (EI = 1) at nodes ``idx`` of the fine model: d = K⁻¹·f."""
+    """Rows giving the deflection (EI = 1) at nodes ``idx`` of the fine model: d = K⁻¹·f. K⁻¹ is
+    symmetric, so the rows are the solutions for unit forces at those nodes (one per node)."""
     K, _, free = stiffness(mesh)
     n = len(mesh.x)
-    Kinv = np.zeros((len(idx), 2 * n))
-    full = np.zeros((2 * n, 2 * n))
-    full[np.ix_(free, free)] = np.linalg.solve(K[np.ix_(free, free)], np.eye(len(free)))
-    Kinv[:] = full[2 * np.asarray(idx)]
+    nodes, where = np.unique(np.asarray(idx), return_inverse=True)
+    pos = {int(d): k for k, d in enumerate(free)}
+    rhs = np.zeros((len(free), len(nodes)))
+    for j, nd in enumerate(nodes):
+        if int(2 * nd) in pos:
+            rhs[pos[int(2 * nd)], j] = 1.0
+    sol = np.linalg.solve(K[np.ix_(free, free)], rhs)
+    A = np.zeros((len(nodes), 2 * n))
+    A[:, free] = sol.T
+    A = A[where]
     m = len(idx)
-    return Rows(Kinv, np.full(m, -1), np.zeros(m, int), np.zeros(m))
+    return Rows(A, np.full(m, -1), np.zeros(m, int), np.zeros(m))
 
 
 def build(mesh: Mesh, rows: Rows) -> Influence:
@@ -239,67 +261,43 @@ def _cuts(c: np.ndarray, w0: np.ndarray, w1: np.ndarray) -> np.ndarray:
     return np.sort(np.concatenate([T, roots, tw[..., None]], axis=-1), axis=-1)
 
 
-def _clean(c: np.ndarray, w0: np.ndarray, w1: np.ndarray) -> np.ndarray:
-    """True where w·η keeps one sign on the whole element (no root of η or w inside)."""
-    d1, d2 = _quad_roots(3 * c[..., 3], 2 * c[..., 2], c[..., 1])
-    T = np.stack([np.zeros_like(d1), d1, d2, np.ones_like(d1)], axis=-1)
-    f = _poly(c[..., None, :], T)
-    one_sign = np.all(f >= 0, axis=-1) | np.all(f <= 0, axis=-1)
-    with np.errstate(divide="ignore", invalid="ignore"):
-        tw = np.where(w1 != 0, -w0 / w1, 0.0)
-    return one_sign & ~((tw > 0) & (tw < 1))
-
-
 def integrate_whole(inf: Influence, wa: np.ndarray, wb: np.ndarray) -> np.ndarray:
     """∫ w·η dξ for every response: the loads where they are written (closed form per element)."""
-    loaded = np.nonzero((wa != 0) | (wb != 0))[0]
-    if not len(loaded):
-        return np.zeros(inf.C.shape[0])
-    k = np.arange(4)
-    c = inf.C[:, loaded, :]
-    w0, w1 = wa[loaded], wb[loaded] - wa[loaded]
-    whole = np.einsum("sek,k->se", c, 1.0 / (k + 1)) * w0 + np.einsum("sek,k->se", c, 1.0 / (k + 2)) * w1
-    return (whole * inf.h[loaded]).sum(axis=1)
+    m0, m1, _ = inf.moments()
+    return (m0 * (wa * inf.h) + m1 * ((wb - wa) * inf.h)).sum(axis=1)
 
 
-def integrate_parts(
-    inf: Influence, wa: np.ndarray, wb: np.ndarray, chunk: int = 128
-) -> tuple[np.ndarray, np.ndarray]:
+def integrate_parts(inf: Influence, wa: np.ndarray, wb: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
     """∫ max(w·η, 0) dξ and ∫ min(w·η, 0) dξ for every response, w linear in each element from
     ``wa`` (left end) to ``wb`` (right end). Exact: see the module docstring. Elements where w·η
     keeps its sign are integrated whole (closed form); only the few where it changes sign are cut."""
     S = inf.C.shape[0]
-    pos, neg = np.zeros(S), np.zeros(S)
     loaded = np.nonzero((wa != 0) | (wb != 0))[0]
     if not len(loaded):
-        return pos, neg
+        return np.zeros(S), np.zeros(S)
+    m0, m1, one_sign = inf.moments()
     h = inf.h[loaded]
     w0, w1 = wa[loaded], wb[loaded] - wa[loaded]
-    k = np.arange(4)
-    for s0 in range(0, S, chunk):
-        c = inf.C[s0 : s0 + chunk][:, loaded, :]  # (s, E', 4)
-        whole = h * (
-            np.einsum("sek,k->se", c, 1.0 / (k + 1)) * w0 + np.einsum("sek,k->se", c, 1.0 / (k + 2)) * w1
-        )
-        ok = _clean(c, w0[None, :], w1[None, :])
-        whole = np.where(ok, whole, 0.0)
-        p = np.where(whole > 0, whole, 0.0).sum(axis=1)
-        n = np.where(whole < 0, whole, 0.0).sum(axis=1)
-        rs, es = np.nonzero(~ok)
-        if len(rs):
-            cd, a0, a1, hd = c[rs, es], w0[es], w1[es], h[es]
-            T = _cuts(cd, a0, a1)  # (N, P)
-            lo, hi = T[:, :-1], T[:, 1:]
-            half, mid = 0.5 * (hi - lo), 0.5 * (hi + lo)
-            total = np.zeros(lo.shape)
-            for gt, gw in zip(_GAUSS_T, _GAUSS_W):
-                t = mid + half * gt
-                total += gw * half * (a0[:, None] + a1[:, None] * t) * _poly(cd[:, None, :], t)
-            total *= hd[:, None]
-            np.add.at(p, rs, np.where(total > 0, total, 0.0).sum(axis=1))
-            np.add.at(n, rs, np.where(total < 0, total, 0.0).sum(axis=1))
-        pos[s0 : s0 + chunk] = p
-        neg[s0 : s0 + chunk] = n
+    with np.errstate(divide="ignore", invalid="ignore"):
+        tw = np.where(w1 != 0, -w0 / w1, 0.0)
+    w_one_sign = ~((tw > 0) & (tw < 1))
+    ok = one_sign[:, loaded] & w_one_sign[None, :]
+    whole = np.where(ok, m0[:, loaded] * (w0 * h) + m1[:, loaded] * (w1 * h), 0.0)
+    pos = np.where(whole > 0, whole, 0.0).sum(axis=1)
+    neg = np.where(whole < 0, whole, 0.0).sum(axis=1)
+    rs, es = np.nonzero(~ok)
+    if len(rs):
+        cd, a0, a1, hd = inf.C[rs, loaded[es]], w0[es], w1[es], h[es]
+        T = _cuts(cd, a0, a1)  # (N, P)
+        lo, hi = T[:, :-1], T[:, 1:]
+        half, mid = 0.5 * (hi - lo), 0.5 * (hi + lo)
+        total = np.zeros(lo.shape)
+        for gt, gw in zip(_GAUSS_T, _GAUSS_W):
+            t = mid + half * gt
+            total += gw * half * (a0[:, None] + a1[:, None] * t) * _poly(cd[:, None, :], t)
+        total *= hd[:, None]
+        np.add.at(pos, rs, np.where(total > 0, total, 0.0).sum(axis=1))
+        np.add.at(neg, rs, np.where(total < 0, total, 0.0).sum(axis=1))
     return pos, neg
 
 

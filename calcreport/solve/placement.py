@@ -96,9 +96,11 @@ def place(
     """Worst placement of each case of ``variable`` (default: every case in ``loads`` / ``moving``);
     the other cases get their values as written (``full``, V and M only)."""
     variable = set(loads) | set(moving) if variable is None else set(variable)
+    variable &= set(loads) | set(moving)
     V, M, R, meta = il.statics_rows(fine, coarse, idx, side)
-    v = il.build(fine, il.deflection_rows(fine, idx))
-    infl = {"V": V, "M": M, "v": v, "R": R}
+    infl = {"V": V, "M": M, "R": R}
+    if variable:  # deflection ordinates only when something is placed
+        infl["v"] = il.build(fine, il.deflection_rows(fine, idx))
     n = len(fine.x)
     out: dict[str, CaseExtremes] = {}
     for case in list(dict.fromkeys(list(loads) + list(moving))):
