@@ -294,7 +294,8 @@ def _check_variable(tables: list[Table], loads: tuple[Load, ...]) -> tuple[Load,
         if between is not None:
             room = float((between[1] - between[0]).to("inch").magnitude)
             if max(offs) - min(offs) > room * (1 + 1e-12):
-                raise t0.error("between", f"group {name!r} is longer than its travel range")
+                tb = next(t for t, ld in items if ld.between)
+                raise tb.error("between", f"group {name!r} is longer than its travel range")
         for _t, ld in items:
             out[where[id(ld)]] = replace(ld, between=between)
     return tuple(out)
