@@ -77,6 +77,7 @@ class Settings:
     template: str = ""
     display: dict[str, str] = field(default_factory=dict)
     load_duration: float | None = None
+    load_standard: str = "ASCE 7-22"  # edition of the load standard for combinations and clauses
 
 
 @dataclass(frozen=True)
@@ -175,6 +176,11 @@ class Load:
     at: Quantity | None = None
     label: str = ""
     key: str = ""  # job-file key path, for messages
+    moving: bool = False  # point load placed where it is worst (ASCE 7 §4.4)
+    group: str = ""  # moving loads with the same group move together at fixed offsets
+    offset: Quantity | None = None  # position within its group
+    between: tuple[Quantity, Quantity] | None = None  # travel range of a moving load or group
+    variable: bool = False  # a case of the job's own marked as variable (placed for worst effect)
 
 
 @dataclass(frozen=True)

@@ -13,6 +13,7 @@ from ..errors import JobError, excerpt
 from ..keys import connectors
 from ..keys import job as decl
 from ..model import ConnectorSpec, Header, Job, Joint, Material, Member, Part, RevisionEntry, Settings
+from ..keys.loads import LOAD_STANDARDS
 from ..outlines import contact_segments, isolated_parts, overlapping_pairs
 from ..units import parse
 from .lines import LineIndex
@@ -176,7 +177,10 @@ def _settings(t: Table) -> Settings:
                 display[kind] = unit
         dt.done()
     cd = t.number("load_duration", None, minimum=0.5, maximum=2.0)
-    s = Settings(units, method, step, smax, smin, zones, module, limits, t.text("template"), display, cd)
+    standard = t.choice("load_standard", LOAD_STANDARDS, "ASCE 7-22")
+    s = Settings(
+        units, method, step, smax, smin, zones, module, limits, t.text("template"), display, cd, standard
+    )
     t.done()
     return s
 

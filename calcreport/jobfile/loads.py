@@ -16,8 +16,12 @@ Keys (all optional; see docs/loads.md)::
     w = "250 plf"               # uniform; optional from / to for a partial load
     # point:  P = "2 kip", at = "6 ft"
     # linear: w_start = "100 plf", w_end = "300 plf", optional from / to
+    # moving point load (variable cases only): moving = true, no `at`, optional
+    #   between = ["0 ft", "16 ft"]; loads with the same group = "cart" move together at their
+    #   offset = "3 ft" from each other
+    # variable = true on a case of the job's own: placed for its worst effect like L
 
-    [[member.combination]]      # none given: ASCE 7-22 basic combinations of settings.method
+    [[member.combination]]      # none given: basic combinations of settings.load_standard and .method
     name = "D + L"
     factors = { D = 1.0, L = 1.0 }
 """
@@ -27,7 +31,7 @@ from __future__ import annotations
 from dataclasses import replace
 
 from ..keys import job as decl
-from ..keys.loads import STANDARD_CASES
+from ..keys.loads import LIVE_TYPE, STANDARD_CASES
 from ..errors import excerpt
 from ..model import Combination, Load, Member, Settings, Support
 from ..units import Q_
@@ -93,6 +97,7 @@ def read_loads(t: Table, member: Member, settings: Settings) -> Member:
         target = support_tables[-1] if support_tables else t
         raise target.error(None, "the member needs one fixed support or supports at two different places")
     loads = tuple(_load(lt, span) for lt in load_tables)
+    loads = _check_variable(load_tables, loads)
     if self_weight:
         for p in member.parts:
             if p.material.density is None:
@@ -157,7 +162,50 @@ def _load(t: Table, span) -> Load:
     case = _case(t)
     kind = t.choice("kind", LOAD_KINDS, required=True)
     label = t.text("label")
-    if kind == "point":
+    variable = t.boolean("variable", False)
+    if variable and case in STANDARD_CASES:
+        raise t.error(
+            "variable",
+            f"case {case!r} is a standard case: L, Lr, S and R are always placed for their worst "
+            "effect, D and W never; 'variable' is only for a case of the job's own",
+        )
+    moving = t.boolean("moving", False)
+    if kind != "point":
+        for name in ("moving", "group", "offset", "between"):
+            if t.has(name):
+                raise t.error(
+                    name,
+                    f"'{name}' is for point loads (kind = \"point\"); a variable uniform or linear "
+                    "load is already placed only where it is worst",
+                )
+    if kind == "point" and (moving or t.has("group")):
+        if t.has("at"):
+            raise t.error(
+                "at",
+                "a moving load has no fixed position: drop 'at' (limit its travel with between = [from, to])",
+            )
+        group = t.ident("group", required=False)
+        offset = t.quantity("offset", "length", allow_zero=True)
+        if offset is not None and not group:
+            raise t.error("offset", 'offset is a position within a group: add group = "cart"')
+        if offset is not None and offset > span * (1 + 1e-12):
+            raise t.error("offset", f"expected an offset within the span (0 to {span:~P})")
+        ld = Load(
+            case,
+            kind,
+            t.quantity("P", "force", required=True, positive=False),
+            label=label,
+            key=t.label,
+            moving=True,
+            group=group,
+            offset=offset,
+            between=_between(t, span),
+            variable=variable,
+        )
+    elif kind == "point":
+        for name in ("offset", "between"):
+            if t.has(name):
+                raise t.error(name, f"'{name}' is for moving loads: add moving = true (and drop 'at')")
         ld = Load(
             case,
             kind,
@@ -165,6 +213,7 @@ def _load(t: Table, span) -> Load:
             at=_position(t, "at", span, required=True),
             label=label,
             key=t.label,
+            variable=variable,
         )
     else:
         start = _position(t, "from", span)
@@ -177,13 +226,83 @@ def _load(t: Table, span) -> Load:
         else:
             w1 = t.quantity("w_start", "line_load", required=True, positive=False)
             w2 = t.quantity("w_end", "line_load", required=True, positive=False)
-        ld = Load(case, kind, w1, start=start, end=end, magnitude_end=w2, label=label, key=t.label)
+        ld = Load(
+            case,
+            kind,
+            w1,
+            start=start,
+            end=end,
+            magnitude_end=w2,
+            label=label,
+            key=t.label,
+            variable=variable,
+        )
         if (end is not None and end.to("inch").magnitude <= 0) or (
             start is not None and start >= span * (1 - 1e-12)
         ):
             raise t.error("from" if start is not None else "to", "the load has no length on the member")
     t.done()
     return ld
+
+
+def _between(t: Table, span):
+    """``between = [from, to]``: the travel range of a moving load or group, within the span."""
+    raw = t.raw("between")
+    if raw is None:
+        return None
+    if not isinstance(raw, list) or len(raw) != 2:
+        raise t.error("between", 'expected two positions, like between = ["0 ft", "16 ft"]')
+    a, b = (t.parse_quantity(("between", i), v, "length", allow_zero=True) for i, v in enumerate(raw))
+    if not a < b or b > span * (1 + 1e-12):
+        raise t.error("between", f"expected from < to, both within the span (0 to {span:~P})")
+    return (a, b)
+
+
+def _check_variable(tables: list[Table], loads: tuple[Load, ...]) -> tuple[Load, ...]:
+    """Cross-load rules: a case of the job's own is variable on all its loads or none; moving
+    loads belong to variable cases; a group is one case, with one travel range that holds it."""
+    own_var = {ld.case for ld in loads if ld.variable}
+    variable = set(LIVE_TYPE) | own_var
+    for t, ld in zip(tables, loads):
+        if ld.case in own_var and not ld.variable:
+            raise t.error(
+                "case",
+                f"other loads of case {ld.case!r} say variable = true: say it on every load of the case",
+            )
+        if ld.moving and ld.case not in variable:
+            raise t.error(
+                "moving",
+                f"a moving load must be of a variable case (L, Lr, S, R or a case of the job's own "
+                f"with variable = true), got case {ld.case!r}",
+            )
+    groups: dict[str, list[tuple[Table, Load]]] = {}
+    where: dict[int, int] = {}
+    for i, (t, ld) in enumerate(zip(tables, loads)):
+        if ld.group:
+            groups.setdefault(ld.group, []).append((t, ld))
+            where[id(ld)] = i
+    out = list(loads)
+    for name, items in groups.items():
+        t0, ld0 = items[0]
+        ranges = {tuple(float(q.to("inch").magnitude) for q in ld.between) for _, ld in items if ld.between}
+        for t, ld in items:
+            if ld.case != ld0.case:
+                raise t.error("case", f"the loads of group {name!r} must be of one case ({ld0.case!r})")
+        if len(ranges) > 1:
+            t = next(t for t, ld in items if ld.between)
+            raise t.error(
+                "between", f"the loads of group {name!r} give different travel ranges: give it once"
+            )
+        between = next((ld.between for _, ld in items if ld.between), None)
+        offs = [float((ld.offset.to("inch").magnitude) if ld.offset is not None else 0.0) for _, ld in items]
+        if between is not None:
+            room = float((between[1] - between[0]).to("inch").magnitude)
+            if max(offs) - min(offs) > room * (1 + 1e-12):
+                tb = next(t for t, ld in items if ld.between)
+                raise tb.error("between", f"group {name!r} is longer than its travel range")
+        for _t, ld in items:
+            out[where[id(ld)]] = replace(ld, between=between)
+    return tuple(out)
 
 
 def _combination(t: Table, cases: set[str]) -> Combination:

@@ -12,6 +12,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 
 from ..fields import Field
+from .loads import LOAD_STANDARDS
 
 __all__ = ["TableSpec", "JOB", "SETTINGS", "MATERIAL", "MEMBER", "PART", "JOINT", "ROOT", "names"]
 
@@ -75,6 +76,9 @@ JOB = TableSpec(
         Field("checked_date", "text", help="date checked"),
         Field("approved_by", "text", help="who approved it"),
         Field("notes", "texts", help="notes printed on the cover"),
+        Field("engineer", "text", help="engineer of record, shown on the cover and in a digital seal's stamp"),
+        Field("licence", "text", help="the engineer's licence number (shown with a digital seal)"),
+        Field("jurisdiction", "text", help="state or province of the licence (shown with a digital seal)"),
     ),
     (HISTORY,),
     required=True,
@@ -110,6 +114,20 @@ SETTINGS = TableSpec(
         Field("spacing_max", "length", help="largest connector spacing allowed in every joint"),
         Field("spacing_min", "length", help="smallest connector spacing allowed in every joint"),
         Field("zones_per_half", "int", default=3, minimum=1, maximum=12, help="most zones per half span"),
+        Field(
+            "zones_per_span",
+            "int",
+            minimum=1,
+            maximum=12,
+            help="most zones per half of each span or overhang of a continuous member (default: zones_per_half)",
+        ),
+        Field(
+            "load_standard",
+            "choice",
+            default="ASCE 7-22",
+            choices=LOAD_STANDARDS,
+            help="edition of ASCE 7 whose basic combinations (§2.3.1, §2.4.1) are used",
+        ),
         Field("zone_module", "length", help="zone boundaries fall on multiples of this length"),
         Field("template", "text", help='report template: "letter", "a4" or a path to a .toml file'),
         Field(
@@ -225,6 +243,11 @@ LOAD = TableSpec(
         Field("w_end", "line_load", positive=False, help="linear load at its end"),
         Field("from", "length", positive=False, help="start of a partial load (default: the left end)"),
         Field("to", "length", positive=False, help="end of a partial load (default: the right end)"),
+        Field("variable", "bool", default=False, help="a case of the job's own placed for its worst effect, as live load"),
+        Field("moving", "bool", default=False, help="a point load placed where it does the most harm"),
+        Field("group", "text", help="moving point loads with the same group move together at fixed offsets"),
+        Field("offset", "length", positive=False, help="position of a moving load within its group"),
+        Field("between", "point", help='travel range of a moving load or group, e.g. ["0 ft", "16 ft"]'),
     ),
     array=True,
 )

@@ -52,7 +52,7 @@ def along_json(a, d: Display) -> dict[str, Any]:
             }
             for c in a.combinations
         ],
-        "patterns": list(b.patterns),
+        "live_cases": list(b.live_cases),
         "cases": [
             {
                 "name": c.name,

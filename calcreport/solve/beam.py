@@ -5,10 +5,12 @@ the stiffness method (:mod:`calcreport.solve.beam_fe`). Quantities come in and g
 everything is inch and lbf. Results are sampled on one x grid that holds both sides of every
 support and point load, so the jumps in shear are exact.
 
-Live-type cases (L, Lr, S, R) are applied segment by segment in the patterns of
-:func:`calcreport.solve.combinations.span_patterns` (the same pattern for all live-type cases of a
-combination); the envelope covers every combination in every pattern and records which one governs
-at each x.
+Variable cases (L, Lr, S, R and cases of the job's own marked variable) are placed for their worst
+effect at every station (:mod:`calcreport.solve.placement`, from influence lines): distributed loads
+only where they make V, M, deflection or a reaction worse, point loads on or off, moving loads where
+they are worst. Each combination's largest and smallest V, M and deflection come from the dead
+(fixed) cases as written plus each variable case's extreme; the envelope covers every combination
+and records which one governs at each x, and whether a variable case was partial or moving there.
 """
 
 from __future__ import annotations
@@ -21,7 +23,8 @@ from ..model import Combination, Load, Support
 from ..steps import StepLog
 from ..units import Q_, Quantity
 from . import beam_fe as fe
-from .combinations import LIVE_TYPE, SOURCE_PATTERN, Pattern, span_patterns
+from . import placement as pl
+from .combinations import LIVE_TYPE
 
 __all__ = [
     "Segment",
@@ -35,9 +38,8 @@ __all__ = [
     "SOURCE_FE",
 ]
 
-SOURCE_FE = (
-    "matrix structural analysis, stiffness method (Euler-Bernoulli beam elements, consistent load vectors)"
-)
+from .beam_steps import SOURCE_FE  # noqa: E402  (re-exported)
+
 _IN, _LBF = "inch", "lbf"
 
 
@@ -85,11 +87,16 @@ class Diagram:
     deflection: Quantity | None  # array, inch, positive downward (None without EI)
     reactions: tuple[Reaction, ...]
     source: str = ""
+    V_hi: Quantity | None = None  # combinations: largest / smallest V and M with variable cases
+    V_lo: Quantity | None = None  # in their worst placement
+    M_hi: Quantity | None = None
+    M_lo: Quantity | None = None
 
 
 @dataclass(frozen=True)
 class Envelope:
-    """Extremes over all combinations and patterns, with the governing one at each x."""
+    """Extremes over all combinations (variable loads in their worst placement), with the governing
+    one at each x."""
 
     x: Quantity
     V_max: Quantity
@@ -110,42 +117,40 @@ class BeamResult:
     supports: tuple[Support, ...]
     segments: tuple[Segment, ...]
     cases: tuple[Diagram, ...]
-    combinations: tuple[Diagram, ...]  # all live-type segments loaded
+    combinations: tuple[Diagram, ...]  # V, M as written; V_hi … M_lo with worst placement
     envelope: Envelope
-    patterns: tuple[str, ...]
+    live_cases: tuple[str, ...]  # variable cases placed for their worst effect
     steps: tuple
     EI: Quantity | None = None
     _basis: dict = field(default_factory=dict, repr=False, compare=False)
 
     def shear_abs_weighted(self, weight: dict[str, float]) -> tuple[Quantity, tuple[str, ...]]:
-        """max over combinations c and span patterns of |V_c(x)|·weight[c] at each x, and the
-        combination (with pattern) that governs there. Used for load-duration-normalised demand."""
+        """max over combinations c of |V_c(x)|·weight[c] at each x (variable cases in their worst
+        placement), and the combination that governs there. Used for load-duration-normalised
+        demand."""
         b = self._basis
-        cols, names, w = [], [], []
-        for cb in b["combinations"]:
-            live = any(c in LIVE_TYPE for c in cb.factors)
-            for pat in b["patterns"] if live else b["patterns"][:1]:
-                cols.append(_coefficients(b["keys"], cb.factors, pat))
-                names.append(cb.name if pat.name == "all" else f"{cb.name} [{pat.name}]")
-                w.append(weight.get(cb.name, 1.0))
-        if not cols:
+        if not b or not b["names"]:
             return self.envelope.V_abs, self.envelope.V_abs_by
-        vals = np.abs(b["V"] @ np.stack(cols, axis=1)) * np.array(w)[None, :]
-        return Q_(vals.max(1), _LBF), tuple(names[k] for k in vals.argmax(1))
+        HV, LV = b["HV"], b["LV"]
+        w = np.array([weight.get(nm, 1.0) for nm in b["names"]])
+        vals = np.maximum(np.abs(HV), np.abs(LV)) * w[None, :]
+        k = vals.argmax(1)
+        r = np.arange(len(k))
+        use_hi = np.abs(HV[r, k]) >= np.abs(LV[r, k])
+        return Q_(vals.max(1), _LBF), tuple(
+            b["label"]("V", int(j), int(s), bool(u)) for s, (j, u) in enumerate(zip(k, use_hi))
+        )
 
     def deflection_max(self, factors: dict[str, float], segment: int) -> Quantity | None:
-        """Largest |deflection| within ``segment`` for ``factors`` (service loads), over all
-        span patterns of the live-type cases; ``None`` without EI."""
+        """Largest |deflection| within ``segment`` for ``factors`` (service loads), with the
+        variable cases in their worst placement; ``None`` without EI."""
         b = self._basis
         if self.EI is None or not b:
             return None
         mask = b["seg_mask"][segment]
-        worst = 0.0
-        for pat in b["patterns"]:
-            coef = _coefficients(b["keys"], factors, pat)
-            d = np.abs(b["v"][mask] @ coef) / b["EI"]
-            worst = max(worst, float(d.max()) if d.size else 0.0)
-        return Q_(worst, _IN)
+        hi, lo = _combine(b, factors, "v")
+        d = np.maximum(np.abs(hi[mask]), np.abs(lo[mask])) / b["EI"]
+        return Q_(float(d.max()) if d.size else 0.0, _IN)
 
 
 def self_weight(parts: list[tuple[Quantity, Quantity]], log: StepLog | None = None) -> Quantity:
@@ -190,10 +195,16 @@ def _segments(length: float, supports: list[fe.FESupport]) -> list[tuple[float, 
     return out
 
 
-def _fe_loads(loads: list[Load], length: float, keyfmt: str) -> list[tuple[str, fe.FELoad]]:
+def _fe_loads(
+    loads: list[Load], length: float, keyfmt: str
+) -> tuple[list[tuple[str, fe.FELoad]], list[pl.MovingSet]]:
     out = []
+    groups: dict[tuple[str, str], list[tuple[Load, str]]] = {}
     for i, ld in enumerate(loads):
         key = ld.key or keyfmt.format(i=i + 1)
+        if ld.moving:
+            groups.setdefault((ld.case, ld.group or key), []).append((ld, key))
+            continue
         if ld.kind == "point":
             if ld.at is None:
                 raise BeamInputError(key, "a point load needs its position 'at'")
@@ -213,23 +224,38 @@ def _fe_loads(loads: list[Load], length: float, keyfmt: str) -> list[tuple[str, 
             else (ld.magnitude_end if ld.magnitude_end is not None else ld.magnitude).to("lbf/inch").magnitude
         )
         out.append((ld.case, fe.FELoad("dist", a, w1, min(b, length), w2)))
-    return out
+    sets = []
+    for (case, name), members in groups.items():
+        ld0, key = members[0]
+        lo, hi = (0.0, length) if ld0.between is None else tuple(q.to(_IN).magnitude for q in ld0.between)
+        offs = [0.0 if m.offset is None else m.offset.to(_IN).magnitude for m, _ in members]
+        if max(offs) - min(offs) > hi - lo + 1e-9 * length:
+            raise BeamInputError(key, "the moving loads of the group do not fit within their travel range")
+        sets.append(
+            pl.MovingSet(
+                case, name, tuple(m.magnitude.to(_LBF).magnitude for m, _ in members), tuple(offs), lo, hi
+            )
+        )
+    return out, sets
 
 
-def _clip(ld: fe.FELoad, a: float, b: float, last: bool) -> fe.FELoad | None:
-    """The part of ``ld`` on segment [a, b] (a point load on a boundary goes to the left one)."""
-    if ld.kind == "point":
-        inside = a <= ld.a < b or (last and ld.a == b) or (a == 0 and ld.a == 0)
-        return ld if inside else None
-    lo, hi = max(a, ld.a), min(b, ld.b)
-    if hi <= lo:
-        return None
-    slope = (ld.w2 - ld.w1) / (ld.b - ld.a)
-    return fe.FELoad("dist", lo, ld.w1 + slope * (lo - ld.a), hi, ld.w1 + slope * (hi - ld.a))
-
-
-def _coefficients(keys: list[tuple[str, int]], factors: dict[str, float], pat: Pattern) -> np.ndarray:
-    return np.array([factors.get(c, 0.0) if (s < 0 or s in pat.loaded) else 0.0 for c, s in keys])
+def _combine(b: dict, factors: dict[str, float], q: str) -> tuple[np.ndarray, np.ndarray]:
+    """Largest and smallest value of response ``q`` for ``factors``: fixed cases as written, each
+    variable case at its extreme (the largest where its factor is positive, else the smallest)."""
+    hi = np.zeros(b["size"][q])
+    lo = np.zeros(b["size"][q])
+    for c, f in factors.items():
+        if f == 0:
+            continue
+        if c in b["place"]:
+            ex = b["place"][c]
+            up, dn = (ex.hi[q], ex.lo[q]) if f > 0 else (ex.lo[q], ex.hi[q])
+            hi = hi + f * up
+            lo = lo + f * dn
+        elif c in b["fixed"]:
+            hi = hi + f * b["fixed"][c][q]
+            lo = lo + f * b["fixed"][c][q]
+    return hi, lo
 
 
 def analyse(
@@ -242,6 +268,8 @@ def analyse(
     extra_x: Quantity | None = None,
     divisions: int = 240,
     load_key: str = "load[{i}]",
+    variable: set[str] | frozenset[str] | tuple[str, ...] = LIVE_TYPE,
+    standard: str = "ASCE 7-22",
 ) -> BeamResult:
     """Analyse the member for every load case and combination.
 
@@ -254,34 +282,30 @@ def analyse(
         log: derivation steps are appended here.
         extra_x: positions that must be grid points (e.g. a connector zone module grid).
         divisions: the mesh is at least this fine (elements ≤ length/divisions).
+        variable: cases placed for their worst effect (default L, Lr, S, R).
+        standard: edition of the load standard cited for the placement.
 
-    Source: matrix structural analysis (stiffness method); exact at the nodes for these loads.
+    Source: matrix structural analysis (stiffness method), exact at the nodes for these loads;
+    influence lines for the worst placement of variable loads (ASCE 7 §4.3.3, §4.4).
     """
+    from .beam_steps import log_analysis
+
     log = log or StepLog("beam")
     first_step = len(log.steps)
     L = length.to(_IN).magnitude
     fsup = [fe.FESupport(s.x.to(_IN).magnitude, s.kind == "fixed") for s in supports]
-    fl = _fe_loads(list(loads), L, load_key)
+    fl, msets = _fe_loads(list(loads), L, load_key)
     extra = [] if extra_x is None else list(np.atleast_1d(extra_x.to(_IN).magnitude))
+    for ms in msets:
+        extra += [ms.lo, ms.hi]
     try:
         mesh = fe.build_mesh(L, fsup, [f for _, f in fl], extra, divisions)
+        coarse = fe.build_mesh(L, fsup, [f for _, f in fl], extra, 1)
     except fe.StructureError as exc:
         raise BeamInputError("support", str(exc)) from None
     segs = _segments(L, fsup)
-    nseg = len(segs)
-    cases = list(dict.fromkeys(c for c, _ in fl))
-    # basis load sets: (case, segment) for patterned cases, (case, -1) otherwise
-    keys: list[tuple[str, int]] = []
-    sets: list[list[fe.FELoad]] = []
-    for c in cases:
-        mine = [f for cc, f in fl if cc == c]
-        if c in LIVE_TYPE and nseg > 1:
-            for j, (a, b, _) in enumerate(segs):
-                keys.append((c, j))
-                sets.append([p for p in (_clip(f, a, b, j == nseg - 1) for f in mine) if p])
-        else:
-            keys.append((c, -1))
-            sets.append(mine)
+    cases = list(dict.fromkeys([ld.case for ld in loads]))
+    sets = [[f for cc, f in fl if cc == c] for c in cases]
     try:
         sol = fe.solve(mesh, sets)
     except fe.StructureError as exc:
@@ -302,43 +326,65 @@ def analyse(
     v = sol.v[idx_a]
     EIf = None if EI is None else EI.to("lbf*inch**2").magnitude
     x_q = Q_(mesh.x[idx_a], _IN)
-    full = Pattern(tuple(range(nseg)), "all")
-    patterns = span_patterns(nseg)
+    live = [c for c in cases if c in set(variable)]
+    placed = pl.place(
+        mesh,
+        coarse,
+        idx_a,
+        side_a,
+        {c: [f for cc, f in fl if cc == c] for c in cases},
+        {c: [m for m in msets if m.case == c] for c in live},
+        set(live),
+    )
+    # V and M of every case as written, from the same influence lines (statics on the reactions of
+    # the coarse model: accurate to rounding); deflection from the fine model
+    V = np.stack([placed.cases[c].full["V"] for c in cases], axis=1)
+    M = np.stack([placed.cases[c].full["M"] for c in cases], axis=1)
+    fixed = {c: {"V": V[:, j], "M": M[:, j], "v": v[:, j]} for j, c in enumerate(cases) if c not in live}
+    placed_live = {c: ex for c, ex in placed.cases.items() if c in live}
+    size = {"V": len(idx_a), "M": len(idx_a), "v": len(idx_a), "R": len(supports)}
+    basis: dict = {"place": placed_live, "fixed": fixed, "size": size, "EI": EIf}
+    for ex in placed_live.values():  # reactions: upward forces only, one per support
+        for d in (ex.hi, ex.lo, ex.full):
+            d["R"] = _support_forces(d["R"], placed.reaction_meta, len(supports))
 
-    def diagram(name, factors, pat, source=""):
-        coef = _coefficients(keys, factors, pat)
+    def diagram(name, factors, source="", combination=False):
+        coef = np.array([factors.get(c, 0.0) for c in cases])
         r = sol.reactions @ coef
         reacts = tuple(
             Reaction(s.x, s.kind, Q_(r[k, 0], _LBF), Q_(r[k, 1], "lbf*inch") if s.kind == "fixed" else None)
             for k, s in enumerate(supports)
         )
+        extra_fields = {}
+        if combination:
+            hv, lv = _combine(basis, factors, "V")
+            hm, lm = _combine(basis, factors, "M")
+            extra_fields = {
+                "V_hi": Q_(hv, _LBF),
+                "V_lo": Q_(lv, _LBF),
+                "M_hi": Q_(hm, "lbf*inch"),
+                "M_lo": Q_(lm, "lbf*inch"),
+            }
         return Diagram(
             name,
             dict(factors),
-            pat.name,
+            "as written",
             x_q,
             Q_(V @ coef, _LBF),
             Q_(M @ coef, "lbf*inch"),
             None if EIf is None else Q_((v @ coef) / EIf, _IN),
             reacts,
             source,
+            **extra_fields,
         )
 
-    case_d = tuple(diagram(c, {c: 1.0}, full) for c in cases)
-    comb_d = tuple(diagram(cb.name, cb.factors, full, cb.source) for cb in combinations)
-    env = _envelope(x_q, V, M, keys, combinations, patterns)
+    case_d = tuple(diagram(c, {c: 1.0}) for c in cases)
+    comb_d = tuple(diagram(cb.name, cb.factors, cb.source, True) for cb in combinations)
+    env, label, HV, LV = _envelope(x_q, basis, combinations)
+    basis.update({"HV": HV, "LV": LV, "names": [cb.name for cb in combinations], "label": label})
     seg_q = tuple(Segment(j, Q_(a, _IN), Q_(b, _IN), k) for j, (a, b, k) in enumerate(segs))
-    seg_mask = [(mesh.x[idx_a] >= a - 1e-9) & (mesh.x[idx_a] <= b + 1e-9) for a, b, _ in segs]
-    basis = {
-        "keys": keys,
-        "v": v,
-        "V": V,
-        "EI": EIf,
-        "patterns": patterns,
-        "seg_mask": seg_mask,
-        "combinations": list(combinations),
-    }
-    _log(log, length, supports, seg_q, case_d, comb_d, env, patterns, EI)
+    basis["seg_mask"] = [(mesh.x[idx_a] >= a - 1e-9) & (mesh.x[idx_a] <= b + 1e-9) for a, b, _ in segs]
+    log_analysis(log, length, supports, seg_q, case_d, comb_d, env, EI, placed, x_q, live, standard)
     return BeamResult(
         length,
         tuple(supports),
@@ -346,141 +392,76 @@ def analyse(
         case_d,
         comb_d,
         env,
-        tuple(p.name for p in patterns),
+        tuple(live),
         tuple(log.steps[first_step:]),
         EI,
         basis,
     )
 
 
-def _envelope(x_q, V, M, keys, combinations, patterns) -> Envelope:
-    cols, names = [], []
-    for cb in combinations:
-        live = any(c in LIVE_TYPE for c in cb.factors)
-        for pat in patterns if live else patterns[:1]:
-            cols.append(_coefficients(keys, cb.factors, pat))
-            names.append(cb.name if pat.name == "all" else f"{cb.name} [{pat.name}]")
-    if not cols:
-        z = np.zeros(len(V))
+def _support_forces(r: np.ndarray, meta: list[tuple[int, bool]], n: int) -> np.ndarray:
+    out = np.zeros(n)
+    for val, (k, is_moment) in zip(r, meta):
+        if not is_moment:
+            out[k] = val
+    return out
+
+
+def _envelope(x_q, basis, combinations):
+    """Envelope over the combinations, each with its variable cases in their worst placement, and a
+    labeller naming the governing combination (with the variable cases partial or moving there)."""
+    S = basis["size"]["V"]
+    if not combinations:
+        z = np.zeros(S)
         e = Q_(z, _LBF)
-        return Envelope(x_q, e, e, Q_(z, "lbf*inch"), Q_(z, "lbf*inch"), e, (), (), (), (), ())
-    C = np.stack(cols, axis=1)
-    Vc, Mc = V @ C, M @ C
-    absV = np.abs(Vc)
+        return (
+            Envelope(x_q, e, e, Q_(z, "lbf*inch"), Q_(z, "lbf*inch"), e, (), (), (), (), ()),
+            None,
+            np.zeros((S, 0)),
+            np.zeros((S, 0)),
+        )
+    cols = {q: [_combine(basis, cb.factors, q) for cb in combinations] for q in ("V", "M")}
+    HV = np.stack([h for h, _ in cols["V"]], axis=1)
+    LV = np.stack([lo for _, lo in cols["V"]], axis=1)
+    HM = np.stack([h for h, _ in cols["M"]], axis=1)
+    LM = np.stack([lo for _, lo in cols["M"]], axis=1)
+    place = basis["place"]
 
-    def by(a):
-        return tuple(names[k] for k in a)
+    def label(q: str, j: int, s: int, high: bool) -> str:
+        cb = combinations[j]
+        tags = []
+        for c, f in cb.factors.items():
+            if c not in place or f == 0:
+                continue
+            ex = place[c]
+            up = high == (f > 0)
+            flag = ex.partial_hi[q][s] if up else ex.partial_lo[q][s]
+            words = (["partial"] if flag else []) + (["moving"] if ex.moving else [])
+            if words:
+                tags.append(f"{c} {' and '.join(words)}")
+        return cb.name + (f" [{', '.join(tags)}]" if tags else "")
 
-    return Envelope(
+    absV = np.maximum(np.abs(HV), np.abs(LV))
+    ka = absV.argmax(1)
+    r = np.arange(S)
+    hi_abs = np.abs(HV[r, ka]) >= np.abs(LV[r, ka])
+
+    def by(q, ks, high):
+        return tuple(
+            label(q, int(j), s, bool(h)) for s, (j, h) in enumerate(zip(ks, np.broadcast_to(high, ks.shape)))
+        )
+
+    env = Envelope(
         x_q,
-        Q_(Vc.max(1), _LBF),
-        Q_(Vc.min(1), _LBF),
-        Q_(Mc.max(1), "lbf*inch"),
-        Q_(Mc.min(1), "lbf*inch"),
+        Q_(HV.max(1), _LBF),
+        Q_(LV.min(1), _LBF),
+        Q_(HM.max(1), "lbf*inch"),
+        Q_(LM.min(1), "lbf*inch"),
         Q_(absV.max(1), _LBF),
-        by(Vc.argmax(1)),
-        by(Vc.argmin(1)),
-        by(Mc.argmax(1)),
-        by(Mc.argmin(1)),
-        by(absV.argmax(1)),
+        by("V", HV.argmax(1), True),
+        by("V", LV.argmin(1), False),
+        by("M", HM.argmax(1), True),
+        by("M", LM.argmin(1), False),
+        by("V", ka, hi_abs),
     )
-
-
-def _log(log, length, supports, segs, cases, combs, env, patterns, EI) -> None:
-    log.add(
-        "length",
-        "Member length",
-        "L",
-        "{L}",
-        {"L": length},
-        length,
-        source="job file",
-        positions=("L", "result"),
-    )
-    for k, s in enumerate(supports):
-        log.add(
-            f"support.{k + 1}",
-            f"Support {k + 1} ({s.kind})",
-            "x",
-            "{x}",
-            {"x": s.x},
-            s.x,
-            source="job file",
-            positions=("x", "result"),
-        )
-    if len(segs) > 1:
-        log.add(
-            "patterns",
-            "Span patterns for live-type loads (L, Lr, S, R)",
-            "n_p",
-            "{n} segments → {count} patterns",
-            {"n": len(segs), "count": len(patterns)},
-            len(patterns),
-            source=SOURCE_PATTERN,
-        )
-    for d in cases:
-        for k, r in enumerate(d.reactions):
-            log.add(
-                f"case.{d.name}.R{k + 1}",
-                f"Reaction at support {k + 1}, load case {d.name}",
-                f"R_{k + 1}",
-                "stiffness analysis of case {case}, support at x = {x}",
-                {"case": d.name, "x": r.x},
-                r.force,
-                source=SOURCE_FE,
-                positions=("x",),
-            )
-    for i, d in enumerate(combs):
-        for what, arr, unit in (("V", d.V, _LBF), ("M", d.M, "lbf*inch")):
-            mag = arr.to(unit).magnitude
-            k = int(np.argmax(np.abs(mag)))
-            log.add(
-                f"comb.{i + 1}.{what}",
-                f"Largest |{what}| for {d.name}",
-                f"{what}_max",
-                "at x = {x}",
-                {"x": d.x[k]},
-                Q_(abs(mag[k]), unit),
-                source=d.source,
-                positions=("x",),
-            )
-    if not len(env.V_abs_by):
-        return
-    mags = env.V_abs.magnitude
-    k = int(np.argmax(mags))
-    log.add(
-        "envelope.V",
-        "Largest shear over all combinations and patterns",
-        "V_max",
-        "at x = {x}, governed by {by}",
-        {"x": env.x[k], "by": env.V_abs_by[k]},
-        env.V_abs[k],
-        source=SOURCE_FE,
-        governs=True,
-        positions=("x",),
-    )
-    k = int(np.argmax(env.M_max.magnitude))
-    log.add(
-        "envelope.M_pos",
-        "Largest positive moment",
-        "M_max+",
-        "at x = {x}, governed by {by}",
-        {"x": env.x[k], "by": env.M_max_by[k]},
-        env.M_max[k],
-        source=SOURCE_FE,
-        governs=True,
-        positions=("x",),
-    )
-    k = int(np.argmin(env.M_min.magnitude))
-    if env.M_min.magnitude[k] < 0:
-        log.add(
-            "envelope.M_neg",
-            "Largest negative moment",
-            "M_max−",
-            "at x = {x}, governed by {by}",
-            {"x": env.x[k], "by": env.M_min_by[k]},
-            env.M_min[k],
-            source=SOURCE_FE,
-            governs=True,
-            positions=("x",),
-        )
+    return env, label, HV, LV

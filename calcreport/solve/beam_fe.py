@@ -34,6 +34,8 @@ __all__ = [
     "build_mesh",
     "load_vector",
     "solve",
+    "stiffness",
+    "hermite",
     "StructureError",
 ]
 
@@ -138,6 +140,23 @@ def _element_k(h: float) -> np.ndarray:
     )
 
 
+def hermite(h: np.ndarray) -> np.ndarray:
+    """Hermite cubic shape functions of every element in its local coordinate t = (ξ − x_e)/h,
+    as power-series coefficients: array (elements, 4 functions N1..N4, 4 powers t⁰..t³).
+
+    N1 = 1 − 3t² + 2t³, N2 = h(t − 2t² + t³), N3 = 3t² − 2t³, N4 = h(t³ − t²) (matrix structural
+    analysis, beam element). The consistent load vector of a unit point load at t is
+    [N1, N2, N3, N4](t) — the fixed-end forces of the element, in the DOF directions.
+    """
+    h = np.asarray(h, dtype=float)
+    out = np.zeros((len(h), 4, 4))
+    out[:, 0] = [1.0, 0.0, -3.0, 2.0]
+    out[:, 1] = np.stack([0 * h, h, -2 * h, h], axis=1)
+    out[:, 2] = [0.0, 0.0, 3.0, -2.0]
+    out[:, 3] = np.stack([0 * h, 0 * h, -h, h], axis=1)
+    return out
+
+
 def _dist_on_elements(mesh: Mesh, ld: FELoad) -> tuple[np.ndarray, np.ndarray]:
     """Intensity at the left (wa) and right (wb) end of every element for one distributed load."""
     x = mesh.x
@@ -195,11 +214,12 @@ class FESolution:
     reactions: np.ndarray  # (supports, 2, m): upward force, and moment (clockwise on the beam)
 
 
-def solve(mesh: Mesh, loadsets: list[list[FELoad]]) -> FESolution:
-    """Solve the beam for several load sets at once (one factorisation, many right-hand sides).
+def stiffness(mesh: Mesh) -> tuple[np.ndarray, list[np.ndarray], np.ndarray]:
+    """Global stiffness K (EI = 1), the element matrices and the free degrees of freedom.
 
-    Deflections are for EI = 1; divide by the actual EI. Forces do not depend on EI for a beam of
-    constant EI.
+    Raises:
+        StructureError: if the supports do not hold the beam (K of the free DOFs not positive
+            definite).
     """
     n = len(mesh.x)
     ndof = 2 * n
@@ -213,8 +233,24 @@ def solve(mesh: Mesh, loadsets: list[list[FELoad]]) -> FESolution:
         fixed_dofs.append(2 * nd)
         if s.fixed:
             fixed_dofs.append(2 * nd + 1)
-    fixed_dofs = sorted(set(fixed_dofs))
-    free = np.setdiff1d(np.arange(ndof), fixed_dofs)
+    free = np.setdiff1d(np.arange(ndof), sorted(set(fixed_dofs)))
+    try:  # a held beam's stiffness is positive definite; Cholesky fails otherwise (≈20× cheaper than an SVD rank)
+        np.linalg.cholesky(K[np.ix_(free, free)])
+    except np.linalg.LinAlgError:
+        raise StructureError("the supports do not hold the beam (it is a mechanism)") from None
+    return K, ks, free
+
+
+def solve(mesh: Mesh, loadsets: list[list[FELoad]]) -> FESolution:
+    """Solve the beam for several load sets at once (one factorisation, many right-hand sides).
+
+    Deflections are for EI = 1; divide by the actual EI. Forces do not depend on EI for a beam of
+    constant EI.
+    """
+    n = len(mesh.x)
+    ndof = 2 * n
+    h = np.diff(mesh.x)
+    K, ks, free = stiffness(mesh)
     m = len(loadsets)
     F = np.zeros((ndof, m))
     WA = np.zeros((n - 1, m))
@@ -222,12 +258,7 @@ def solve(mesh: Mesh, loadsets: list[list[FELoad]]) -> FESolution:
     for j, ls in enumerate(loadsets):
         F[:, j], WA[:, j], WB[:, j] = load_vector(mesh, ls)
     D = np.zeros((ndof, m))
-    Kff = K[np.ix_(free, free)]
-    try:  # a held beam's stiffness is positive definite; Cholesky fails otherwise (≈20× cheaper than an SVD rank)
-        np.linalg.cholesky(Kff)
-    except np.linalg.LinAlgError:
-        raise StructureError("the supports do not hold the beam (it is a mechanism)") from None
-    D[free] = np.linalg.solve(Kff, F[free])
+    D[free] = np.linalg.solve(K[np.ix_(free, free)], F[free])
     R = K @ D - F  # nodal forces the supports must supply, in the DOF directions (down, clockwise)
     # element end forces: k d - f_eq
     Vl = np.zeros((n, m))

@@ -1,91 +1,139 @@
-"""Load combinations (ASCE 7-22 basic combinations) and span patterns for live-type loads.
+"""Load combinations of ASCE 7 (editions 7-22 and 7-16): basic combinations for strength design
+(§2.3.1) and allowable stress design (§2.4.1).
 
 The "or" alternatives of the standard are expanded into separate combinations. A combination is
 kept only when the case that leads it (its principal load) is present in the job; companion cases
 that are absent are dropped from it; combinations that end up with the same factors are kept once.
 Cases the job names itself (not D, L, Lr, S, R, W) appear in no standard combination: a job that
 uses them lists its own combinations.
+
+The editions differ in the snow load factors: ASCE 7-22 maps strength-level snow loads and uses 1.0S
+(companion 0.3S) in strength design and 0.7S in allowable stress design; ASCE 7-16 uses 1.6S
+(companion 0.5S) and S. Tests hold each edition's full list (tests/test_combinations.py).
 """
 
 from __future__ import annotations
 
-from dataclasses import dataclass
-from itertools import combinations as _subsets
-
-from ..keys.loads import LIVE_TYPE, STANDARD_CASES
+from ..keys.loads import DEFAULT_STANDARD, LIVE_TYPE, LOAD_STANDARDS, STANDARD_CASES
 from ..model import Combination
 
 __all__ = [
     "STANDARD_CASES",
     "LIVE_TYPE",
+    "LOAD_STANDARDS",
     "standard_combinations",
-    "span_patterns",
-    "PATTERN_FULL_LIMIT",
+    "source_lrfd",
+    "source_asd",
+    "source_placement",
     "SOURCE_LRFD",
     "SOURCE_ASD",
-    "SOURCE_PATTERN",
-    "Pattern",
 ]
 
-SOURCE_LRFD = "ASCE 7-22 §2.3.1 (basic combinations, strength design)"
-SOURCE_ASD = "ASCE 7-22 §2.4.1 (basic combinations, allowable stress design)"
-SOURCE_PATTERN = "ASCE 7-22 §4.3.3 (partial loading)"
-#: Full enumeration of span patterns up to this many segments (2^n − 1 patterns); beyond it the
-#: reduced set of :func:`span_patterns` is used.
-PATTERN_FULL_LIMIT = 6
 
-_ROOF = ("Lr", "S", "R")
 
-# (number, principal case, terms). A term is (factor, case-or-alternatives). Alternatives tuple
-# entries are expanded; ``"ROOF"`` stands for (Lr or S or R). Factors from ASCE 7-22 §2.3.1
-# equations 1-5 and §2.4.1 equations 1-7 (combinations with earthquake load E are not included;
-# E is not a load case of this tool).
-_Row = tuple[str, str, list[tuple[float | None, str]]]
-_LRFD: list[_Row] = [
+def source_lrfd(standard: str = DEFAULT_STANDARD) -> str:
+    return f"{standard} §2.3.1 (basic combinations, strength design)"
+
+
+def source_asd(standard: str = DEFAULT_STANDARD) -> str:
+    return f"{standard} §2.4.1 (basic combinations, allowable stress design)"
+
+
+def source_placement(standard: str = DEFAULT_STANDARD) -> str:
+    """Clauses that ask for the worst placement of live load (same numbers in 7-16 and 7-22)."""
+    return f"{standard} §4.3.3 (partial loading), §4.4 (concentrated live loads)"
+
+
+SOURCE_LRFD = source_lrfd()
+SOURCE_ASD = source_asd()
+
+# (number, principal case, terms). A term is (factor, case-or-alternatives). ``"ROOF"`` stands for
+# the alternatives (Lr or S or R), each with its own factor from the dict of the term; ``"L|0.5W"``
+# for the companion (L or 0.5W). Combinations with earthquake load E are not included (E is not a
+# load case of this tool).
+_Roof = dict[str, float]
+_TABLES: dict[tuple[str, str], list[tuple[str, str, list[tuple[object, str]]]]] = {}
+
+
+def _roof(lr: float, s: float, r: float) -> _Roof:
+    return {"Lr": lr, "S": s, "R": r}
+
+
+# ASCE 7-16 §2.3.1 eqs 1-5 and §2.4.1 eqs 1-7.
+_TABLES[("ASCE 7-16", "LRFD")] = [
     ("1", "D", [(1.4, "D")]),
-    ("2", "L", [(1.2, "D"), (1.6, "L"), (0.5, "ROOF")]),
-    ("3", "ROOF", [(1.2, "D"), (1.6, "ROOF"), (None, "L|0.5W")]),
-    ("4", "W", [(1.2, "D"), (1.0, "W"), (1.0, "L"), (0.5, "ROOF")]),
+    ("2", "L", [(1.2, "D"), (1.6, "L"), (_roof(0.5, 0.5, 0.5), "ROOF")]),
+    ("3", "ROOF", [(1.2, "D"), (_roof(1.6, 1.6, 1.6), "ROOF"), (None, "L|0.5W")]),
+    ("4", "W", [(1.2, "D"), (1.0, "W"), (1.0, "L"), (_roof(0.5, 0.5, 0.5), "ROOF")]),
     ("5", "W", [(0.9, "D"), (1.0, "W")]),
 ]
-_ASD: list[_Row] = [
-    ("1", "D", [(1.0, "D")]),
-    ("2", "L", [(1.0, "D"), (1.0, "L")]),
-    ("3", "ROOF", [(1.0, "D"), (1.0, "ROOF")]),
-    ("4", "L+ROOF", [(1.0, "D"), (0.75, "L"), (0.75, "ROOF")]),
-    ("5", "W", [(1.0, "D"), (0.6, "W")]),
-    ("6", "W", [(1.0, "D"), (0.75, "L"), (0.45, "W"), (0.75, "ROOF")]),  # 0.75(0.6W) = 0.45W
-    ("7", "W", [(0.6, "D"), (0.6, "W")]),
+# ASCE 7-22 §2.3.1 eqs 1-5: snow at strength level, 1.0S where 7-16 has 1.6S, 0.3S where 0.5S.
+_TABLES[("ASCE 7-22", "LRFD")] = [
+    ("1", "D", [(1.4, "D")]),
+    ("2", "L", [(1.2, "D"), (1.6, "L"), (_roof(0.5, 0.3, 0.5), "ROOF")]),
+    ("3", "ROOF", [(1.2, "D"), (_roof(1.6, 1.0, 1.6), "ROOF"), (None, "L|0.5W")]),
+    ("4", "W", [(1.2, "D"), (1.0, "W"), (1.0, "L"), (_roof(0.5, 0.3, 0.5), "ROOF")]),
+    ("5", "W", [(0.9, "D"), (1.0, "W")]),
 ]
+
+
+def _asd(snow: float) -> list:
+    return [
+        ("1", "D", [(1.0, "D")]),
+        ("2", "L", [(1.0, "D"), (1.0, "L")]),
+        ("3", "ROOF", [(1.0, "D"), (_roof(1.0, snow, 1.0), "ROOF")]),
+        ("4", "L+ROOF", [(1.0, "D"), (0.75, "L"), (_roof(0.75, 0.75 * snow, 0.75), "ROOF")]),
+        ("5", "W", [(1.0, "D"), (0.6, "W")]),
+        # 0.75(0.6W) = 0.45W
+        ("6", "W", [(1.0, "D"), (0.75, "L"), (0.45, "W"), (_roof(0.75, 0.75 * snow, 0.75), "ROOF")]),
+        ("7", "W", [(0.6, "D"), (0.6, "W")]),
+    ]
+
+
+_TABLES[("ASCE 7-16", "ASD")] = _asd(1.0)
+_TABLES[("ASCE 7-22", "ASD")] = _asd(0.7)  # D + (Lr or 0.7S or R); D + 0.75L + 0.75(Lr or 0.7S or R); …
+
+_ROOF = ("Lr", "S", "R")
 
 
 def _expand(terms, roof: str, companion: str) -> dict[str, float]:
     out: dict[str, float] = {}
     for factor, case in terms:
         if case == "ROOF":
-            case = roof
+            if not roof:
+                continue
+            factor, case = factor[roof], roof
         if case == "L|0.5W":
             factor, case = (1.0, "L") if companion == "L" else (0.5, "W")
-        out[case] = out.get(case, 0.0) + factor
+        out[case] = round(out.get(case, 0.0) + factor, 12)
     return out
 
 
-def standard_combinations(method: str, cases: set[str] | list[str]) -> list[Combination]:
-    """The basic combinations of ASCE 7-22 for ``method`` ("ASD" or "LRFD") and the cases present.
+def standard_combinations(
+    method: str, cases: set[str] | list[str], standard: str = DEFAULT_STANDARD
+) -> list[Combination]:
+    """The basic combinations of ``standard`` ("ASCE 7-22" or "ASCE 7-16") for ``method`` ("ASD"
+    or "LRFD") and the cases present.
 
-    Strength design, §2.3.1: 1.4D; 1.2D + 1.6L + 0.5(Lr or S or R);
-    1.2D + 1.6(Lr or S or R) + (L or 0.5W); 1.2D + 1.0W + L + 0.5(Lr or S or R); 0.9D + 1.0W.
-    Allowable stress design, §2.4.1: D; D + L; D + (Lr or S or R); D + 0.75L + 0.75(Lr or S or R);
-    D + 0.6W; D + 0.75L + 0.75(0.6W) + 0.75(Lr or S or R); 0.6D + 0.6W.
+    ASCE 7-16 — §2.3.1: 1.4D; 1.2D + 1.6L + 0.5(Lr or S or R); 1.2D + 1.6(Lr or S or R) + (L or 0.5W);
+    1.2D + 1.0W + L + 0.5(Lr or S or R); 0.9D + 1.0W. §2.4.1: D; D + L; D + (Lr or S or R);
+    D + 0.75L + 0.75(Lr or S or R); D + 0.6W; D + 0.75L + 0.75(0.6W) + 0.75(Lr or S or R); 0.6D + 0.6W.
+    ASCE 7-22 — the same with strength-level snow: §2.3.1 1.2D + 1.6L + 0.5(Lr or R) or + 0.3S;
+    1.2D + 1.6(Lr or R) or + 1.0S, + (L or 0.5W); 1.2D + 1.0W + L + 0.5(Lr or R) or + 0.3S;
+    §2.4.1 0.7S in place of S.
     The factor 1.0 on L in §2.3.1 combinations 3 and 4 is kept (the standard's exception allowing
     0.5 for some occupancies is not applied: conservative). Names read like the standard's
-    equation, e.g. ``"LRFD 3: 1.2D + 1.6S + L"``; each combination cites its equation.
+    equation, e.g. ``"LRFD 3: 1.2D + 1.0S + L"``; each combination cites its edition and equation.
 
     Example:
         >>> [c.name for c in standard_combinations("ASD", {"D", "L"})]
         ['ASD 1: D', 'ASD 2: D + L']
     """
-    table, src, tag = (_LRFD, SOURCE_LRFD, "LRFD") if method.upper() == "LRFD" else (_ASD, SOURCE_ASD, "ASD")
+    if standard not in LOAD_STANDARDS:
+        raise ValueError(f"unknown load standard {standard!r}")
+    tag = "LRFD" if method.upper() == "LRFD" else "ASD"
+    table = _TABLES[(standard, tag)]
+    src = source_lrfd(standard) if tag == "LRFD" else source_asd(standard)
     present = set(cases)
     roofs = [r for r in _ROOF if r in present] or [""]
     out: list[Combination] = []
@@ -109,56 +157,9 @@ def standard_combinations(method: str, cases: set[str] | list[str]) -> list[Comb
 
 
 def _term(case: str, factor: float) -> str:
-    """A factor written as in the standard (``1.2D``, ``L``, ``0.45W``); factors are the fixed
-    decimals of the tables above, so their shortest repr is exact."""
+    """A factor written as in the standard (``1.2D``, ``L``, ``0.45W``); factors are rounded to 12
+    places above, so their shortest repr is the decimal of the standard."""
     return case if factor == 1.0 else f"{factor!r}{case}"
-
-
-@dataclass(frozen=True)
-class Pattern:
-    """A set of loaded segments (indices into the member's segments) for live-type cases."""
-
-    loaded: tuple[int, ...]
-    name: str
-
-
-def _pattern_name(loaded: tuple[int, ...]) -> str:
-    """Words for a pattern: "live load on span 2 only", "live load on spans 1, 3 only"."""
-    spans = ", ".join(str(i + 1) for i in loaded)
-    return f"live load on span{'s' if len(loaded) > 1 else ''} {spans} only"
-
-
-def span_patterns(n_segments: int) -> list[Pattern]:
-    """Patterns of loaded segments for live-type loads (ASCE 7-22 §4.3.3 partial loading).
-
-    Up to :data:`PATTERN_FULL_LIMIT` segments every non-empty subset is used (2^n − 1 patterns,
-    the first being all segments loaded). Beyond that a reduced set that contains the patterns
-    giving the extreme moments and shears on continuous beams (common practice, no source): all
-    loaded, each segment alone, alternate segments (odd, even), and each adjacent pair together
-    with the alternate segments beyond it.
-    """
-    full = tuple(range(n_segments))
-    if n_segments <= 1:
-        return [Pattern(full, "all")]
-    subsets: list[tuple[int, ...]] = [full]
-    if n_segments <= PATTERN_FULL_LIMIT:
-        for k in range(n_segments - 1, 0, -1):
-            subsets.extend(_subsets(full, k))
-    else:
-        subsets.extend((i,) for i in full)
-        subsets.append(full[0::2])
-        subsets.append(full[1::2])
-        for i in range(n_segments - 1):
-            left = list(range(i - 2, -1, -2))
-            right = list(range(i + 3, n_segments, 2))
-            subsets.append(tuple(sorted(left + [i, i + 1] + right)))
-    out: list[Pattern] = []
-    seen: set[tuple[int, ...]] = set()
-    for s in subsets:
-        if s and s not in seen:
-            seen.add(s)
-            out.append(Pattern(s, "all" if s == full else _pattern_name(s)))
-    return out
 
 
 #: Load duration factor C_D by load case, NDS 2018 Table 2.3.2 (from memory): permanent (dead) 0.9,

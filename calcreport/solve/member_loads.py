@@ -2,7 +2,8 @@
 zoned connector schedule of each joint.
 
 :func:`analyse_member` runs the stiffness analysis for the member's loads (plus self-weight) under
-its combinations (the job's own, or ASCE 7-22 basic combinations for the method in the settings);
+its combinations (the job's own, or the ASCE 7 basic combinations of the edition and method in the
+settings), with the variable cases placed for their worst effect;
 :func:`joint_schedule` turns the shear envelope into q(x) = |V(x)|·Q/I at a joint and optimises
 its zoned schedule.
 """
@@ -17,11 +18,12 @@ from ..steps import StepLog
 from ..units import Q_, Quantity
 from .beam import BeamInputError, BeamResult, analyse, self_weight
 from .combinations import (
-    SOURCE_ASD,
+    LIVE_TYPE,
     SOURCE_DURATION,
-    SOURCE_LRFD,
     SOURCE_TIME_EFFECT,
     duration_factor,
+    source_asd,
+    source_lrfd,
     standard_combinations,
     time_effect,
 )
@@ -41,7 +43,7 @@ class AlongResult:
     """The member's analysis along its length and what the joints and report read from it."""
 
     analysis: BeamResult
-    V_design: Quantity  # largest |V| over all combinations and patterns
+    V_design: Quantity  # largest |V| over all combinations, variable loads in their worst placement
     V_governing: str
     M_design: Quantity  # largest |M|
     M_governing: str
@@ -60,8 +62,9 @@ def _error(exc: BeamInputError):
 def analyse_member(member: Member, section: SectionResult, settings: Settings, log: StepLog) -> AlongResult:
     """Analyse the member for its loads; design shear and moment; member checks.
 
-    Sources: matrix structural analysis (stiffness method); ASCE 7-22 §2.3.1 / §2.4.1 basic
-    combinations (unless the job lists its own); mechanics of materials for stresses.
+    Sources: matrix structural analysis (stiffness method) and its influence lines; ASCE 7 §2.3.1 /
+    §2.4.1 basic combinations of ``settings.load_standard`` (unless the job lists its own), §4.3.3 /
+    §4.4 worst placement of variable loads; mechanics of materials for stresses.
     """
     loads = list(member.loads)
     sw = None
@@ -72,8 +75,9 @@ def analyse_member(member: Member, section: SectionResult, settings: Settings, l
     if member.combinations:
         combos, source = tuple(member.combinations), "stated in the job file"
     else:
-        combos = tuple(standard_combinations(settings.method, cases))
-        source = SOURCE_LRFD if settings.method == "LRFD" else SOURCE_ASD
+        std = settings.load_standard
+        combos = tuple(standard_combinations(settings.method, cases, std))
+        source = source_lrfd(std) if settings.method == "LRFD" else source_asd(std)
     log.add(
         "combinations",
         "Load combinations",
@@ -106,7 +110,17 @@ def analyse_member(member: Member, section: SectionResult, settings: Settings, l
     span: Any = member.span  # the reader requires a span with loads along the member
     supports = list(member.supports) or [Support(Q_(0.0, "inch")), Support(span)]
     try:
-        beam = analyse(span, supports, loads, list(combos), EI=EI, log=log)
+        variable = set(LIVE_TYPE) | {ld.case for ld in loads if ld.variable}
+        beam = analyse(
+            span,
+            supports,
+            loads,
+            list(combos),
+            EI=EI,
+            log=log,
+            variable=variable,
+            standard=settings.load_standard,
+        )
     except BeamInputError as exc:
         raise _error(exc) from None
     env = beam.envelope

@@ -120,7 +120,44 @@ def loading_diagram(
         base = y_beam + 6 + band * i
         col = colors.HexColor(PALETTE[i % len(PALETTE)])
         dr.add(String(2, base + 6, plain(case), fontName=fonts.bold, fontSize=7, fillColor=col))
+        ranges_drawn: set[str] = set()
         for ld in (x for x in member.loads if x.case == case):
+            if ld.moving:
+                lo, hi = (0.0, L) if ld.between is None else (_inches(ld.between[0]), _inches(ld.between[1]))
+                x = left + (lo + (_inches(ld.offset) if ld.offset is not None else 0.0)) * sx
+                _arrow(dr, x, base + band - 6, base, col, 1.0)
+                dr.add(
+                    String(
+                        x + 3,
+                        base + band - 7,
+                        plain(as_given(ld.magnitude, system)),
+                        fontName=fonts.regular,
+                        fontSize=6,
+                        fillColor=col,
+                    )
+                )
+                tag = ld.group or ld.key
+                if tag in ranges_drawn:
+                    continue
+                ranges_drawn.add(tag)
+                y = base + band - 2
+                x0, x1 = left + lo * sx, left + hi * sx
+                dr.add(Line(x0, y, x1, y, strokeColor=col, strokeWidth=0.5, strokeDashArray=[2, 2]))
+                for xe in (x0, x1):
+                    dr.add(Line(xe, y - 2, xe, y + 2, strokeColor=col, strokeWidth=0.5))
+                words = f"moving ({ld.group})" if ld.group else "moving"
+                dr.add(
+                    String(
+                        x1 - 2,
+                        y + 1.5,
+                        plain(words),
+                        fontName=fonts.regular,
+                        fontSize=6,
+                        textAnchor="end",
+                        fillColor=col,
+                    )
+                )
+                continue
             if ld.kind == "point":
                 x = left + _inches(ld.at) * sx
                 _arrow(dr, x, base + band - 6, base, col, 1.0)

@@ -142,10 +142,17 @@ def combinations_table(m: MemberResult, ctx: Ctx) -> list[Flowable]:
     for c in combos:
         factors = " + ".join(f"{ctx.q(f, 3)}·{case}" for case, f in c.factors.items())
         rows.append([para(c.name, st.cell), para(factors, st.cell), para(c.source or "job file", st.cell)])
-    title = para("Load combinations", st.h3)
-    note = para(
-        "Each zone of a schedule names the combination that governs its largest shear flow.", st.small
-    )
+    source = getattr(m.beam, "combinations_source", "") or ""
+    title = para("Load combinations" + (f" — {source}" if source else ""), st.h3)
+    live = getattr(getattr(m.beam, "analysis", None), "live_cases", ()) or ()
+    words = "Each zone of a schedule names the combination that governs its largest shear flow."
+    if live:
+        words += (
+            f" Variable cases ({', '.join(live)}) are placed for their worst effect at every x; "
+            "“partial” after a case marks it loaded on part of the member only there, “moving” its moving "
+            "loads at their worst position."
+        )
+    note = para(words, st.small)
     return [KeepTogether([title, grid(rows, [0.30 * w, 0.30 * w, 0.40 * w], st)]), note]
 
 

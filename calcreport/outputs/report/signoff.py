@@ -35,6 +35,8 @@ NOT_CHECKED = (
     "panel (through-thickness) shear of plywood webs, unless a check above states it",
     "long-term creep and shrinkage, and load-duration effects beyond the factors stated",
     "vibration and dynamic or impact loads",
+    "live load reduction; a moving set of loads with only some of its loads on the member (each set "
+    "stays within its travel range, or is off the member altogether)",
     "fire resistance",
     "durability, decay, corrosion and protection of connectors (waterfront exposure in particular)",
     "connector withdrawal, head pull-through, edge and end distances and splitting of wood, "
