@@ -72,6 +72,7 @@ class Settings:
     template: str = ""
     display: dict[str, str] = field(default_factory=dict)
     load_duration: float | None = None
+    zones_per_span: int | None = None  # Z per half of each span/overhang (None: zones_per_half)
 
 
 @dataclass(frozen=True)

@@ -84,16 +84,36 @@ def load_text(data: bytes, path: str = "<job>") -> Job:
     src = Source(path, LineIndex(text))
     root = Table(doc, src, (), "")
     header = _header(root.table("job", required=True))
-    settings = _settings(root.table("settings") or Table({}, src, ("settings",), "settings"))
+    st = root.table("settings") or Table({}, src, ("settings",), "settings")
+    settings = _settings(st)
     materials = _materials(root)
     member_tables = root.id_tables("member", MAX_MEMBERS, "member")
     if not member_tables:
         raise root.error(None, "missing required key 'member' (at least one [[member]])")
     members = [_member(mt, materials, settings) for mt, _ in member_tables]
+    if settings.zones_per_span is not None and not any(_several_segments(m) for m in members):
+        raise st.error(
+            "zones_per_span",
+            "has no effect: no member has loads along it with more than one span or overhang "
+            "(zones_per_half sets the zones of a simple span)",
+        )
     root.done()
     return Job(
         path, hashlib.sha256(data).hexdigest(), header, settings, tuple(materials.values()), tuple(members)
     )
+
+
+def _several_segments(m: Member) -> bool:
+    """True when the member's loads along it run over more than one span or overhang (the
+    schedule is then zoned span by span, under zones_per_span)."""
+    if not m.loads or m.span is None:
+        return False
+    span = m.span.to("inch").magnitude
+    xs = sorted({round(s.x.to("inch").magnitude, 9) for s in m.supports}) or [0.0, span]
+    if len(xs) == 1 and any(s.kind == "fixed" for s in m.supports):
+        return False  # a cantilever: one segment
+    tol = 1e-9 * max(span, 1.0)
+    return (xs[0] > tol) + (len(xs) - 1) + (xs[-1] < span - tol) > 1
 
 
 def _header(t: Table) -> Header:
@@ -137,6 +157,7 @@ def _settings(t: Table) -> Settings:
     if smax is not None and step > smax:
         raise t.error("spacing_step", "expected a spacing step no larger than spacing_max")
     zones = t.integer("zones_per_half", 3, 1, 12)
+    zones_span = t.integer("zones_per_span", None, 1, 12)
     module = t.quantity("zone_module", "length")
     limits = {}
     lt = t.table("deflection_limits")
@@ -160,7 +181,9 @@ def _settings(t: Table) -> Settings:
                 display[kind] = unit
         dt.done()
     cd = t.number("load_duration", None, minimum=0.5, maximum=2.0)
-    s = Settings(units, method, step, smax, smin, zones, module, limits, t.text("template"), display, cd)
+    s = Settings(
+        units, method, step, smax, smin, zones, module, limits, t.text("template"), display, cd, zones_span
+    )
     t.done()
     return s
 

@@ -213,7 +213,9 @@ def solve(mesh: Mesh, loadsets: list[list[FELoad]]) -> FESolution:
         if s.fixed:
             fixed_dofs.append(2 * nd + 1)
     fixed_dofs = sorted(set(fixed_dofs))
-    free = np.setdiff1d(np.arange(ndof), fixed_dofs)
+    keep = np.ones(ndof, bool)
+    keep[fixed_dofs] = False
+    free = np.flatnonzero(keep)  # np.setdiff1d would import numpy.ma (start-up cost)
     m = len(loadsets)
     F = np.zeros((ndof, m))
     WA = np.zeros((n - 1, m))

@@ -8,6 +8,10 @@ connectors the rules of :mod:`calcreport.solve.schedule_dp` allow (exact dynamic
 * zone lengths in multiples of the module (default: the zone's own spacing), built from the
   member ends; one central zone takes the remainder;
 * at most Z distinct zones per half span; symmetric demand gives a mirrored schedule;
+* a member with interior supports or overhangs is zoned span by span: each span or overhang
+  follows these rules on its own with at most Z_s (``zones_per_span``) zones per half of it; a
+  member symmetric about its middle gets mirrored spans;
+* among schedules with the fewest connectors: the fewest zones, then the larger end spacing;
 * N = 1 + Σ ceil(ℓᵢ/sᵢ): one connector at x = 0, then each zone's connectors at its spacing.
 
 Economy figures: N_min = ∫ max(q/(n·F), 1/s_max) dx (no schedule can use fewer connectors, since
@@ -23,7 +27,8 @@ import numpy as np
 
 from ..steps import StepLog
 from ..units import Q_, Quantity
-from .schedule_dp import Demand, optimise
+from .schedule_demand import Demand
+from .schedule_dp import optimise
 
 __all__ = ["Zone", "Schedule", "zoned_schedule", "SOURCE_SPACING", "SOURCE_RULES"]
 
@@ -71,6 +76,8 @@ class Schedule:
     reason: str = ""
     steps: tuple = ()
     status: str = "OK"  # "NG" when no schedule satisfies the rules
+    zones_per_span: int | None = None  # Z_s on a member with several spans/overhangs, else None
+    segment_ends: tuple[Quantity, ...] = ()  # interior supports the zoning works between
 
 
 def zoned_schedule(
@@ -85,6 +92,8 @@ def zoned_schedule(
     module: Quantity | None = None,
     governing: tuple[str, ...] = (),
     log: StepLog | None = None,
+    segment_ends: tuple[Quantity, ...] = (),
+    zones_per_span: int | None = None,
 ) -> Schedule:
     """Fewest-connector zoned schedule for a joint (see the module docstring for the rules).
 
@@ -97,6 +106,9 @@ def zoned_schedule(
         zones_per_half: Z, most distinct zones per half span.
         module: zone lengths in multiples of this (``None``: each zone's own spacing).
         governing: combination name per x (from the shear envelope), for the zone records.
+        segment_ends: interior supports of a member with more than one span or overhang; the
+            schedule is then zoned span by span with at most ``zones_per_span`` (default Z)
+            zones per half of each.
 
     Source: mechanics of materials (s = n·F/q); rules: common practice, no source.
     """
@@ -110,7 +122,21 @@ def zoned_schedule(
     smin = inc if spacing_min is None else max(spacing_min.to(_IN).magnitude, inc)
     smax = spacing_max.to(_IN).magnitude
     mod = None if module is None else module.to(_IN).magnitude
-    if (mod or inc) * MAX_GRID < L:
+    whole = mod is None or abs(mod / inc - round(mod / inc)) <= 1e-6 * max(1.0, mod / inc)
+    if not whole and max(1, int(np.ceil(mod / inc - 1e-6))) * inc * MAX_GRID >= L:
+        up = max(1, int(np.ceil(mod / inc - 1e-6))) * inc
+        log.add(
+            "module",
+            "Zone module made a whole number of increments",
+            "m = ⌈m_given / Δ⌉·Δ",
+            "⌈{m} / {inc}⌉ × {inc}",
+            {"m": module, "inc": increment},
+            Q_(up, _IN),
+            source=SOURCE_RULES,
+        )
+        mod, whole = up, True
+        module = Q_(up, _IN)
+    if (mod or inc) * MAX_GRID < L or not whole:  # (coarsened modules are whole increments)
         coarse = float(np.ceil(L / MAX_GRID / inc)) * inc
         log.add(
             "module",
@@ -173,7 +199,12 @@ def zoned_schedule(
         x=x,
         demand=q,
     )
-    lay = optimise(d, nF, inc, smin, smax, zones_per_half, mod)
+    ends = tuple(float(e.to(_IN).magnitude) for e in segment_ends)
+    ends = tuple(e for e in ends if 1e-9 * max(L, 1) < e < L - 1e-9 * max(L, 1))
+    z_span = (zones_per_span if zones_per_span is not None else zones_per_half) if ends else None
+    common["zones_per_span"] = z_span
+    common["segment_ends"] = tuple(Q_(e, _IN) for e in ends)
+    lay = optimise(d, nF, inc, smin, smax, zones_per_half, mod, bounds=ends, zones_per_span=z_span)
     if lay is None or n_single is None:
         why = (
             "the shear flow needs a spacing below the minimum"
@@ -246,7 +277,11 @@ def zoned_schedule(
         "Connectors in the zoned schedule",
         "N = 1 + Σ ceil(ℓᵢ / sᵢ)",
         "{zones} zones, {sym}",
-        {"zones": len(zones), "sym": "symmetric" if lay.symmetric else "not symmetric"},
+        {
+            "zones": len(zones),
+            "sym": ("symmetric" if lay.symmetric else "not symmetric")
+            + (f", zoned span by span (at most {z_span} per half span)" if ends else ""),
+        },
         lay.count,
         source=SOURCE_RULES,
         governs=True,
