@@ -321,3 +321,38 @@ def test_linear_work_on_a_long_fine_grid():
     assert lay is not None and not lay.symmetric
     assert peak < 40e6  # a 2,401² float table alone is 46 MB
     _check_layout(d, lay, 236.0, 0.25, 1.0, 12.0, None)
+
+
+# --- the job-file key ----------------------------------------------------------------------------------
+
+
+def test_zones_per_span_without_a_continuous_member_is_refused(write_job, cli):
+    """A key that would have no effect is an error (one line, exit 2)."""
+    from tests.conftest import job_text
+    from tests.test_limits import LOADED, refused
+
+    line = refused(cli, write_job(job_text(LOADED, settings="zones_per_span = 2\n")), "zones_per_span")
+    assert "no effect" in line
+
+
+def test_zones_per_span_on_a_continuous_member(write_job, cli):
+    import json
+
+    from tests.conftest import job_text
+    from tests.test_limits import LOADED
+
+    two = LOADED.replace(
+        'span = "16 ft"',
+        'span = "16 ft"\n\n[[member.support]]\nat = "0 ft"\n\n[[member.support]]\nat = "8 ft"\n\n[[member.support]]\nat = "16 ft"\n',
+    )
+    results = {}
+    for z in (1, 3):
+        code, out, err = cli(
+            "check", "--json", write_job(job_text(two, settings=f"zones_per_span = {z}\n"), f"j{z}.toml")
+        )
+        assert code in (0, 1), err
+        joint = json.loads(out)["members"][0]["joints"][0]
+        n_step = [s for s in joint["steps"] if s["key"].endswith("schedule.N")][0]
+        assert f"at most {z} per half span" in json.dumps(n_step)
+        results[z] = n_step["result"]
+    assert results[3] <= results[1]
