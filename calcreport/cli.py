@@ -67,8 +67,6 @@ def solve_file(path: str):
 
 def _cmd_check(args) -> int:
     from .errors import JobError
-    from .outputs.json_out import dumps, to_dict
-    from .outputs.table import render_job
 
     results, worst = [], EXIT_OK
     for path in args.jobs:
@@ -79,9 +77,13 @@ def _cmd_check(args) -> int:
     for r in results:
         worst = max(worst, EXIT_NG if r.status == "NG" else EXIT_OK)
     if args.json:
+        from .outputs.json_out import dumps, to_dict
+
         data = [to_dict(r) for r in results]
         sys.stdout.write(dumps(data[0] if len(data) == 1 else {"jobs": data}))
     else:
+        from .outputs.table import render_job
+
         sys.stdout.write("\n".join(render_job(r) for r in results))
     return worst
 

@@ -356,3 +356,14 @@ def test_zones_per_span_on_a_continuous_member(write_job, cli):
         assert f"at most {z} per half span" in json.dumps(n_step)
         results[z] = n_step["result"]
     assert results[3] <= results[1]
+
+
+def test_check_with_loads_along_the_member_does_not_import_numpy_ma():
+    """np.unique / np.setdiff1d import numpy.ma (about 24 ms of a cold start); the solve path
+    avoids them (start-up, common practice, no source)."""
+    from tests.test_lazy_imports import run_fresh
+
+    out = run_fresh(
+        ["check", "jobs/pavilion-ridge-box-beam.toml"], "'numpy.ma' in sys.modules, 'difflib' in sys.modules"
+    )
+    assert out == "0 False False", out
