@@ -26,7 +26,7 @@ from dataclasses import dataclass
 import numpy as np
 
 from ..steps import StepLog
-from ..units import Q_, Quantity
+from ..units import Q_, Quantity, ureg
 from .schedule_demand import Demand
 from .schedule_dp import optimise
 
@@ -234,21 +234,26 @@ def zoned_schedule(
             **common,
         )
     zones = []
+    qmax = d.elementary(np.array([lay.zones[0][0]] + [z[1] for z in lay.zones]))
+    order = np.argsort(xs, kind="stable")
+    x_sorted, q_sorted = xs[order], qs[order]
+    inch, flow = ureg.Unit(_IN), ureg.Unit("lbf/inch")
     for k, (a, b, s, n) in enumerate(lay.zones):
-        qm = d.max_over(a, b)
-        inside = np.where((xs >= a - 1e-9) & (xs <= b + 1e-9))[0]
-        j = int(inside[np.argmax(qs[inside])]) if inside.size else kpeak
+        qm = float(qmax[k])
+        lo = int(np.searchsorted(x_sorted, a - 1e-9, "left"))
+        hi = int(np.searchsorted(x_sorted, b + 1e-9, "right"))
+        j = int(order[lo + int(np.argmax(q_sorted[lo:hi]))]) if hi > lo else kpeak
         gov = governing[j] if j < len(governing) else ""
         cnt = n + (1 if k == 0 else 0)
         z = Zone(
-            Q_(a, _IN),
-            Q_(b, _IN),
-            Q_(s, _IN),
+            Q_(a, inch),
+            Q_(b, inch),
+            Q_(s, inch),
             cnt,
-            Q_(qm, "lbf/inch"),
-            Q_(nF / qm, _IN) if qm > 0 else None,
+            Q_(qm, flow),
+            Q_(nF / qm, inch) if qm > 0 else None,
             gov,
-            Q_(nF / s, "lbf/inch"),
+            Q_(nF / s, flow),
         )
         zones.append(z)
         log.add(
