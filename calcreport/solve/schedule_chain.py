@@ -246,47 +246,67 @@ def central_pairs(FL, FR, K, a, b, G, kbG, g: Grid, lam: float, tol: float, W: i
                 q = int(np.argmin(key))
                 if key[q] < INF:
                     candidates.append((int(key[q]), (int(N[q]), zl, zr, int(i0[q]), int(j0[q]), 0, 0)))
-    # a pair's best central spacing is the largest its interval allows, one of the values of kbG
+    # Per left chain row and right end point j: the fewest connectors of left chain + central
+    # zone [a_i, b_j] over i and the central spacing k (a pair's best k is the largest its
+    # interval allows, one of the values of kbG): running minima of k·N_i − i·r over i.
     finFL, NLr, tLr = FL < INF, FL // W, FL % W
     finFR, NRr, tRr = FR < INF, FR // W, FR % W
-    pl = np.array([p[0] for p in pairs])
-    pr = np.array([p[1] for p in pairs])
-    budget = (pl + pr + 1)[:, None]
+    Cb = np.full((K + 1, P + 1), INF, np.int64)  # (left count + central count)·W2 + t_left
+    Kb = np.zeros((K + 1, P + 1), np.int64)
+    NLW, iir = NLr * W2, ii * (r * W2)
+    seg = np.zeros(len(G), np.int64)
     for k in distinct(kbG, kmin):
-        segG = np.r_[0, np.cumsum(kbG < k)].astype(np.int64)
-        sA, sB = segG[idxA], segG[idxB]
+        np.cumsum(kbG < k, out=seg[1:])
+        sA, sB = seg[idxA], seg[idxB]
         J = np.flatnonzero(has & (sA[ist] == sB))
         if not J.size:
             continue
-        tl = tLr.copy()
-        tl[:, 0] = kmax - k  # no left chain: the central zone's spacing is the end spacing
-        HL = np.where(finFL, (k * NLr - ii * r) * W2 + tl, INF)
-        S = seg_cummin(HL, np.broadcast_to(sA, HL.shape), axis=1)
+        HL = _left_values(k, NLW, iir, tLr, finFL, kmax)
+        off = sA * _BIG
+        S = np.minimum.accumulate(HL - off, axis=1)
+        S += off
         Sm = S[:, ist[J]]
-        finS = Sm < INF // 2
-        hl, tlm = Sm // W2, Sm % W2
-        tr = tRr[:, J].copy()
-        tr[:, J == 0] = kmax - k
-        hr = k * NRr[:, J] - J * r
-        ok = finS[pl] & finFR[:, J][pr]
-        if not ok.any():
-            continue
-        hsum = hl[pl] + hr[pr]
-        N = 1 + np.ceil((hsum + lam) / k - _EPS).astype(np.int64)
-        key = np.where(ok, (N * (2 * K + 4) + budget) * W2 + tlm[pl] + tr[pr], INF)
-        flat = int(np.argmin(key))
-        p, col = divmod(flat, len(J))
-        jj = int(J[col])
-        target = Sm[pl[p], col]
-        i = int(np.flatnonzero((HL[pl[p]] == target) & (sA == sB[jj]) & (a < b[jj] - tol))[0])
+        hl = Sm // W2
+        C = np.ceil((hl - J * r + lam) / k - _EPS).astype(np.int64)
+        enc = C * W2 + (Sm - hl * W2)
+        enc[Sm >= INF // 2] = INF
+        cur = Cb[:, J]
+        better = enc < cur
+        Cb[:, J] = np.where(better, enc, cur)
+        Kb[:, J] = np.where(better, k, Kb[:, J])
+    pl = np.array([p[0] for p in pairs])
+    pr = np.array([p[1] for p in pairs])
+    C_rows, K_rows = Cb[pl], Kb[pl]
+    ok = (C_rows < INF) & finFR[pr]
+    if ok.any():
+        jidx = np.arange(P + 1)
+        N = 1 + C_rows // W2 + NRr[pr]
+        t_right = np.where(jidx[None, :] == 0, kmax - K_rows, tRr[pr])
+        key = np.where(ok, (N * (2 * K + 4) + (pl + pr + 1)[:, None]) * W2 + C_rows % W2 + t_right, INF)
+        p, jj = divmod(int(np.argmin(key)), P + 1)
         zl, zr = pairs[p]
+        k = int(Kb[zl, jj])
+        np.cumsum(kbG < k, out=seg[1:])
+        sA, sB = seg[idxA], seg[idxB]
+        HL = _left_values(k, NLW[zl : zl + 1], iir, tLr[zl : zl + 1], finFL[zl : zl + 1], kmax)[0]
+        S = seg_cummin(HL, sA)
+        i = int(np.flatnonzero((HL == S[ist[jj]]) & (sA == sB[jj]) & (a < b[jj] - tol))[0])
         n_c = int(np.ceil((b[jj] - a[i]) / (k * g.inc) - _EPS))
         zc = int(zex_l[zl, i] + zex_r[zr, jj]) + 1  # zones the chosen chains really use
-        kk = (int(N[p, col]) * (2 * K + 4) + zc) * W2 + int(tlm[pl[p], col] + tr[pr[p], col])
-        candidates.append((kk, (int(N[p, col]), zl, zr, i, jj, k, n_c)))
+        kk = (int(N[p, jj]) * (2 * K + 4) + zc) * W2 + int(C_rows[p, jj] % W2 + t_right[p, jj])
+        candidates.append((kk, (int(N[p, jj]), zl, zr, i, jj, k, n_c)))
     if not candidates:
         return None
     return min(candidates, key=lambda c: c[0])[1]
+
+
+def _left_values(k, NLW, iir, tL, fin, kmax):
+    """(k·N_i − i·r)·W2 + t_i of left chain rows; a missing left chain (i = 0) takes the central
+    zone's spacing as its end spacing."""
+    HL = k * NLW - iir + tL
+    HL[~fin] = INF
+    HL[:, 0] = np.where(fin[:, 0], kmax - k, INF)
+    return HL
 
 
 def _exact_zones(F: np.ndarray) -> np.ndarray:

@@ -119,18 +119,17 @@ class Demand:
         return float(np.sum(floor * h + excess))
 
     def window(self, a: float, b: float) -> Demand:
-        """The demand on [a, b], shifted to start at 0 (both sides of a jump at a or b kept)."""
-        keep = (self.x >= a - _EPS) & (self.x <= b + _EPS)
-        x = np.clip(self.x[keep], a, b) - a
-        q = self.q[keep]
-        extra_x, extra_q = [], []
-        if not keep.any() or self.x[keep][0] > a + _EPS:
-            extra_x.append(0.0)
-            extra_q.append(self.at(a))
-        if not keep.any() or self.x[keep][-1] < b - _EPS:
-            extra_x.append(b - a)
-            extra_q.append(self.at(b))
-        return Demand(np.r_[x, extra_x], np.r_[q, extra_q], b - a)
+        """The demand on [a, b], shifted to start at 0. At each end the value at the point itself
+        stays the larger of the two sides (as on the whole member) and the side inside the window
+        follows it, so the window is symmetric exactly when its own stretch is."""
+        tol = _EPS
+        keep = (self.x > a + tol) & (self.x < b - tol)
+        x, q = self.x[keep] - a, self.q[keep]
+        la, ra = self.sides(np.array([a]))
+        lb, rb = self.sides(np.array([b]))
+        xs = np.r_[0.0, 0.0, x, b - a, b - a]
+        qs = np.r_[max(la[0], ra[0]), ra[0], q, lb[0], max(lb[0], rb[0])]
+        return Demand(xs, qs, b - a)
 
     def reversed(self) -> Demand:
         return Demand(self.length - self.x[::-1], self.q[::-1], self.length)
