@@ -22,8 +22,6 @@ schedule); the optimisation itself is exact enumeration by dynamic programming.
 
 from __future__ import annotations
 
-from dataclasses import dataclass
-
 import numpy as np
 
 __all__ = ["INF", "Grid", "chain_table", "unwind", "central_pairs"]
@@ -33,20 +31,16 @@ _BIG = 1 << 46
 _EPS = 1e-9
 
 
-@dataclass
 class Grid:
     """Zone grid of one chain: P + 1 points at spacing u; kb[t] the largest spacing index allowed
-    on elementary interval t (0: none)."""
+    on elementary interval t (0: none). A plain class: a dataclass costs start-up time."""
 
-    P: int
-    u: float
-    inc: float
-    r: int  # module in increments (1 with the own module)
-    own: bool
-    kmin: int
-    kmax: int
-    kb: np.ndarray
-    _seg: np.ndarray | None = None
+    __slots__ = ("P", "u", "inc", "r", "own", "kmin", "kmax", "kb", "_seg")
+
+    def __init__(self, P: int, u: float, inc: float, r: int, own: bool, kmin: int, kmax: int, kb: np.ndarray):
+        self.P, self.u, self.inc, self.r, self.own = P, u, inc, r, own  # r: module in increments
+        self.kmin, self.kmax, self.kb = kmin, kmax, kb
+        self._seg: np.ndarray | None = None
 
     @property
     def ktop(self) -> int:
@@ -89,6 +83,9 @@ def chain_table(g: Grid, zones: int) -> np.ndarray:
     Wj = W * j
     for z in range(2, zones + 1):
         prev = F[z - 1]
+        if z > 2 and np.array_equal(prev, F[z - 2]):  # one more zone helped nowhere: nor will the next
+            F[z:] = prev
+            break
         best = prev.copy()
         fin = prev < INF
         fin[0] = False  # a zone from the end itself is a first zone (layer 1, its end spacing counts)
