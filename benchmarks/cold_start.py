@@ -27,9 +27,17 @@ FLOOR = "import numpy, pint, reportlab; pint.UnitRegistry(cache_folder=':auto:')
 
 
 def wall(cmd: list[str], env: dict) -> float:
+    """Wall time of one fresh process; its CPU time (user + system) is kept in CPU."""
     t = time.perf_counter()
-    subprocess.run(cmd, check=True, stdout=subprocess.DEVNULL, env=env)
+    p = subprocess.Popen(cmd, stdout=subprocess.DEVNULL, env=env)
+    _, status, ru = os.wait4(p.pid, 0)
+    if os.waitstatus_to_exitcode(status) not in (0, 1):
+        raise SystemExit(f"failed: {' '.join(cmd)}")
+    CPU.append(ru.ru_utime + ru.ru_stime)
     return time.perf_counter() - t
+
+
+CPU: list[float] = []
 
 
 def main(rounds: int = 7) -> None:
@@ -41,15 +49,18 @@ def main(rounds: int = 7) -> None:
         floor = [sys.executable, "-c", FLOOR]
         for cmd in (build, check, floor):  # compile bytecode, warm the file cache and pint's cache
             wall(cmd, env)
-        fl, ch, bu, rc, rb = [], [], [], [], []
+        fl, ch, bu, rc, rb, cc, cb = [], [], [], [], [], [], []
         for _ in range(rounds):
             f1, c = wall(floor, env), wall(check, env)
             f2, b = wall(floor, env), wall(build, env)
+            cf1, cch, cf2, cbu = CPU[-4:]
             fl += [f1, f2]
             ch.append(c)
             bu.append(b)
             rc.append(c / f1)
             rb.append(b / f2)
+            cc.append(cch / cf1)
+            cb.append(cbu / cf2)
     med = statistics.median
     print(f"shared machine: min / median of {rounds} rounds, ratios pair by pair; compare the min")
     print(f"import floor ({FLOOR}, 1 BLAS thread): {min(fl):.3f} / {med(fl):.3f} s")

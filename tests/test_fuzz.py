@@ -82,6 +82,7 @@ KEYS = [
     "w_end",
     "factors",
     "zones_per_half",
+    "zones_per_span",
     "zone_module",
     "size",
     "segment",

@@ -118,16 +118,20 @@ def chain_table(g: Grid, zones: int) -> np.ndarray:
 
 
 def _first_layer(g: Grid, segs: np.ndarray, ks: np.ndarray, j: np.ndarray, W: int) -> np.ndarray:
-    """Best single zone from the end to each point, all spacings at once."""
+    """Best single zone from the end to each point, over all spacings."""
+    if g.own:  # zone lengths are multiples of the spacing: only every k-th point, per k
+        best = np.full(len(j), INF, np.int64)
+        for k in ks.tolist():
+            seg = segs[k - g.kmin, k::k]
+            pts = j[k::k]
+            cand = np.where(seg == 0, W * (pts // k) + (g.kmax - k), INF)
+            np.minimum(best[k::k], cand, out=best[k::k])
+        return best
     seg = segs[ks - g.kmin]
     ok = seg == 0
     ok[:, 0] = False
     kk = ks[:, None]
-    if g.own:
-        ok &= j[None, :] % kk == 0
-        n = j[None, :] // kk
-    else:
-        n = -((-j[None, :] * g.r) // kk)
+    n = -((-j[None, :] * g.r) // kk)
     return np.where(ok, W * n + (g.kmax - kk), INF).min(axis=0)
 
 
