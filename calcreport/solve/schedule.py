@@ -22,6 +22,7 @@ shear flow (rounded down to the increment, capped by s_max) over the whole lengt
 from __future__ import annotations
 
 from dataclasses import dataclass
+from typing import Any
 
 import numpy as np
 
@@ -130,7 +131,7 @@ def zoned_schedule(
             "Zone module made a whole number of increments",
             "m = ⌈m_given / Δ⌉·Δ",
             "⌈{m} / {inc}⌉ × {inc}",
-            {"m": module, "inc": increment},
+            {"m": Q_(mod, _IN), "inc": increment},
             Q_(up, _IN),
             source=SOURCE_RULES,
         )
@@ -186,7 +187,7 @@ def zoned_schedule(
     )
     s1 = np.floor(min(nF / peak if peak > 0 else np.inf, smax) / inc * (1 + 1e-9) + 1e-9) * inc
     n_single = int(1 + np.ceil(L / s1 - 1e-9)) if s1 >= smin - 1e-9 and s1 > 0 else None
-    common = dict(
+    common: dict[str, Any] = dict(
         count_min=n_min,
         symmetric=False,
         zones_per_half=zones_per_half,

@@ -93,7 +93,18 @@ def optimise(
     return _MEMO[key]
 
 
-def _optimise(d, cap_row, inc, s_min, s_max, zones_per_half, module, symmetric, bounds, zones_per_span):
+def _optimise(
+    d: Demand,
+    cap_row: float,
+    inc: float,
+    s_min: float,
+    s_max: float,
+    zones_per_half: int,
+    module: float | None,
+    symmetric: bool | None,
+    bounds: tuple[float, ...],
+    zones_per_span: int | None,
+) -> Layout | None:
     L = d.length
     kmin = max(1, int(np.ceil(s_min / inc - _EPS)))
     kmax = int(np.floor(s_max / inc + _EPS))
@@ -237,7 +248,7 @@ def _symmetric(d: Demand, g: Grid, F: np.ndarray, Z: int, rules, tol: float) -> 
     return Layout(_merge(left + mid + right), count, True)
 
 
-def _merge(zones):
+def _merge(zones: list[tuple[float, float, float, int]]) -> tuple[tuple[float, float, float, int], ...]:
     """Join neighbouring zones of equal spacing (one zone in the schedule)."""
     out: list[tuple[float, float, float, int]] = []
     for z in zones:
