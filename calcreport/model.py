@@ -78,6 +78,7 @@ class Settings:
     display: dict[str, str] = field(default_factory=dict)
     load_duration: float | None = None
     load_standard: str = "ASCE 7-22"  # edition of the load standard for combinations and clauses
+    zones_per_span: int | None = None  # Z per half of each span/overhang (None: zones_per_half)
 
 
 @dataclass(frozen=True)

@@ -83,6 +83,7 @@ KEYS = [
     "w_end",
     "factors",
     "zones_per_half",
+    "zones_per_span",
     "zone_module",
     "size",
     "segment",

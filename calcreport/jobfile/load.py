@@ -87,6 +87,12 @@ def load_text(data: bytes, path: str = "<job>") -> Job:
     if not member_tables:
         raise root.error(None, "missing required key 'member' (at least one [[member]])")
     members = [_member(mt, materials, settings) for mt, _ in member_tables]
+    if settings.zones_per_span is not None and not any(_several_segments(m) for m in members):
+        raise settings_table.error(
+            "zones_per_span",
+            "has no effect: no member has loads along it with more than one span or overhang "
+            "(zones_per_half sets the zones of a simple span)",
+        )
     root.done()
     unused_settings(settings_table, settings, members)
     return Job(
@@ -99,6 +105,19 @@ def load_text(data: bytes, path: str = "<job>") -> Job:
         written=tuple(src.written),
         warnings=tuple(src.warnings),
     )
+
+
+def _several_segments(m: Member) -> bool:
+    """True when the member's loads along it run over more than one span or overhang (the
+    schedule is then zoned span by span, under zones_per_span)."""
+    if not m.loads or m.span is None:
+        return False
+    span = m.span.to("inch").magnitude
+    xs = sorted({round(s.x.to("inch").magnitude, 9) for s in m.supports}) or [0.0, span]
+    if len(xs) == 1 and any(s.kind == "fixed" for s in m.supports):
+        return False  # a cantilever: one segment
+    tol = 1e-9 * max(span, 1.0)
+    return (xs[0] > tol) + (len(xs) - 1) + (xs[-1] < span - tol) > 1
 
 
 def _header(t: Table) -> Header:
@@ -153,6 +172,7 @@ def _settings(t: Table) -> Settings:
     if smax is not None and step > smax:
         raise t.error("spacing_step", "expected a spacing step no larger than spacing_max")
     zones = t.integer("zones_per_half", 3, 1, 12)
+    zones_span = t.integer("zones_per_span", None, 1, 12)
     module = t.quantity("zone_module", "length")
     limits = {}
     lt = t.table("deflection_limits")
@@ -179,7 +199,19 @@ def _settings(t: Table) -> Settings:
     cd = t.number("load_duration", None, minimum=0.5, maximum=2.0)
     standard = t.choice("load_standard", LOAD_STANDARDS, "ASCE 7-22")
     s = Settings(
-        units, method, step, smax, smin, zones, module, limits, t.text("template"), display, cd, standard
+        units,
+        method,
+        step,
+        smax,
+        smin,
+        zones,
+        module,
+        limits,
+        t.text("template"),
+        display,
+        cd,
+        standard,
+        zones_span,
     )
     t.done()
     return s

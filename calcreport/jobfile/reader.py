@@ -2,7 +2,6 @@
 
 from __future__ import annotations
 
-import difflib
 import math
 from collections.abc import Iterable
 from dataclasses import dataclass, field
@@ -76,6 +75,8 @@ class Table:
         self._known.add(name)
         if name not in self.data:
             if required:
+                import difflib  # only for an error message (start-up stays light)
+
                 typo = difflib.get_close_matches(name, [str(k) for k in self.data], n=1, cutoff=0.75)
                 if typo:
                     raise self.error(typo[0], f"unknown key '{typo[0]}' (did you mean '{name}'?)")
@@ -409,6 +410,8 @@ class Table:
 
 
 def _suggest(word: str, options: Iterable[str]) -> str:
+    import difflib  # only for an error message (start-up stays light)
+
     close = difflib.get_close_matches(str(word), list(options), n=1, cutoff=0.6)
     return f" (did you mean '{close[0]}'?)" if close else ""
 

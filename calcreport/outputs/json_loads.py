@@ -110,6 +110,8 @@ def schedule_json(s, d: Display) -> dict[str, Any]:
         "spacing_single": _opt(s.spacing_single, d),
         "saving": _opt(s.saving, d),
         "zones_per_half": s.zones_per_half,
+        "zones_per_span": s.zones_per_span,  # null on a simple span (zoned by zones_per_half)
+        "segment_ends": [d.json_value(e) for e in s.segment_ends],
         "module": _opt(s.module, d),
         "increment": d.json_value(s.increment),
         "spacing_min": d.json_value(s.spacing_min),

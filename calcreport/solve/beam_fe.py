@@ -233,7 +233,9 @@ def stiffness(mesh: Mesh) -> tuple[np.ndarray, list[np.ndarray], np.ndarray]:
         fixed_dofs.append(2 * nd)
         if s.fixed:
             fixed_dofs.append(2 * nd + 1)
-    free = np.setdiff1d(np.arange(ndof), sorted(set(fixed_dofs)))
+    keep = np.ones(ndof, bool)
+    keep[sorted(set(fixed_dofs))] = False
+    free = np.flatnonzero(keep)  # np.setdiff1d would import numpy.ma (start-up cost)
     try:  # a held beam's stiffness is positive definite; Cholesky fails otherwise (≈20× cheaper than an SVD rank)
         np.linalg.cholesky(K[np.ix_(free, free)])
     except np.linalg.LinAlgError:

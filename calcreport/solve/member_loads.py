@@ -282,6 +282,7 @@ def joint_schedule(
     q = (V_abs * Q / section.inertia).to("lbf/inch")
     nF = (joint.per_row * F).to("lbf")
     s_max = res.s_max if res.s_max is not None else along.analysis.length
+    ends = tuple(sg.start for sg in along.analysis.segments[1:])
     return zoned_schedule(
         env.x,
         q,
@@ -294,4 +295,6 @@ def joint_schedule(
         settings.zone_module,
         governing=by,
         log=log,
+        segment_ends=ends,
+        zones_per_span=settings.zones_per_span,
     )

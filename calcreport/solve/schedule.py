@@ -8,6 +8,10 @@ connectors the rules of :mod:`calcreport.solve.schedule_dp` allow (exact dynamic
 * zone lengths in multiples of the module (default: the zone's own spacing), built from the
   member ends; one central zone takes the remainder;
 * at most Z distinct zones per half span; symmetric demand gives a mirrored schedule;
+* a member with interior supports or overhangs is zoned span by span: each span or overhang
+  follows these rules on its own with at most Z_s (``zones_per_span``) zones per half of it; a
+  member symmetric about its middle gets mirrored spans;
+* among schedules with the fewest connectors: the fewest zones, then the larger end spacing;
 * N = 1 + Σ ceil(ℓᵢ/sᵢ): one connector at x = 0, then each zone's connectors at its spacing.
 
 Economy figures: N_min = ∫ max(q/(n·F), 1/s_max) dx (no schedule can use fewer connectors, since
@@ -23,8 +27,9 @@ from typing import Any
 import numpy as np
 
 from ..steps import StepLog
-from ..units import Q_, Quantity
-from .schedule_dp import Demand, optimise
+from ..units import Q_, Quantity, ureg
+from .schedule_demand import Demand
+from .schedule_dp import optimise
 
 __all__ = ["Zone", "Schedule", "zoned_schedule", "SOURCE_SPACING", "SOURCE_RULES"]
 
@@ -72,6 +77,8 @@ class Schedule:
     reason: str = ""
     steps: tuple = ()
     status: str = "OK"  # "NG" when no schedule satisfies the rules
+    zones_per_span: int | None = None  # Z_s on a member with several spans/overhangs, else None
+    segment_ends: tuple[Quantity, ...] = ()  # interior supports the zoning works between
 
 
 def zoned_schedule(
@@ -86,6 +93,8 @@ def zoned_schedule(
     module: Quantity | None = None,
     governing: tuple[str, ...] = (),
     log: StepLog | None = None,
+    segment_ends: tuple[Quantity, ...] = (),
+    zones_per_span: int | None = None,
 ) -> Schedule:
     """Fewest-connector zoned schedule for a joint (see the module docstring for the rules).
 
@@ -98,6 +107,9 @@ def zoned_schedule(
         zones_per_half: Z, most distinct zones per half span.
         module: zone lengths in multiples of this (``None``: each zone's own spacing).
         governing: combination name per x (from the shear envelope), for the zone records.
+        segment_ends: interior supports of a member with more than one span or overhang; the
+            schedule is then zoned span by span with at most ``zones_per_span`` (default Z)
+            zones per half of each.
 
     Source: mechanics of materials (s = n·F/q); rules: common practice, no source.
     """
@@ -111,7 +123,21 @@ def zoned_schedule(
     smin = inc if spacing_min is None else max(spacing_min.to(_IN).magnitude, inc)
     smax = spacing_max.to(_IN).magnitude
     mod = None if module is None else module.to(_IN).magnitude
-    if (mod or inc) * MAX_GRID < L:
+    whole = mod is None or abs(mod / inc - round(mod / inc)) <= 1e-6 * max(1.0, mod / inc)
+    if not whole and max(1, int(np.ceil(mod / inc - 1e-6))) * inc * MAX_GRID >= L:
+        up = max(1, int(np.ceil(mod / inc - 1e-6))) * inc
+        log.add(
+            "module",
+            "Zone module made a whole number of increments",
+            "m = ⌈m_given / Δ⌉·Δ",
+            "⌈{m} / {inc}⌉ × {inc}",
+            {"m": Q_(mod, _IN), "inc": increment},
+            Q_(up, _IN),
+            source=SOURCE_RULES,
+        )
+        mod, whole = up, True
+        module = Q_(up, _IN)
+    if (mod or inc) * MAX_GRID < L or not whole:  # (coarsened modules are whole increments)
         coarse = float(np.ceil(L / MAX_GRID / inc)) * inc
         log.add(
             "module",
@@ -174,7 +200,12 @@ def zoned_schedule(
         x=x,
         demand=q,
     )
-    lay = optimise(d, nF, inc, smin, smax, zones_per_half, mod)
+    ends = tuple(float(e.to(_IN).magnitude) for e in segment_ends)
+    ends = tuple(e for e in ends if 1e-9 * max(L, 1) < e < L - 1e-9 * max(L, 1))
+    z_span = (zones_per_span if zones_per_span is not None else zones_per_half) if ends else None
+    common["zones_per_span"] = z_span
+    common["segment_ends"] = tuple(Q_(e, _IN) for e in ends)
+    lay = optimise(d, nF, inc, smin, smax, zones_per_half, mod, bounds=ends, zones_per_span=z_span)
     if lay is None or n_single is None:
         why = (
             "the shear flow needs a spacing below the minimum"
@@ -204,21 +235,26 @@ def zoned_schedule(
             **common,
         )
     zones = []
+    qmax = d.elementary(np.array([lay.zones[0][0]] + [z[1] for z in lay.zones]))
+    order = np.argsort(xs, kind="stable")
+    x_sorted, q_sorted = xs[order], qs[order]
+    inch, flow = ureg.Unit(_IN), ureg.Unit("lbf/inch")
     for k, (a, b, s, n) in enumerate(lay.zones):
-        qm = d.max_over(a, b)
-        inside = np.where((xs >= a - 1e-9) & (xs <= b + 1e-9))[0]
-        j = int(inside[np.argmax(qs[inside])]) if inside.size else kpeak
+        qm = float(qmax[k])
+        lo = int(np.searchsorted(x_sorted, a - 1e-9, "left"))
+        hi = int(np.searchsorted(x_sorted, b + 1e-9, "right"))
+        j = int(order[lo + int(np.argmax(q_sorted[lo:hi]))]) if hi > lo else kpeak
         gov = governing[j] if j < len(governing) else ""
         cnt = n + (1 if k == 0 else 0)
         z = Zone(
-            Q_(a, _IN),
-            Q_(b, _IN),
-            Q_(s, _IN),
+            Q_(a, inch),
+            Q_(b, inch),
+            Q_(s, inch),
             cnt,
-            Q_(qm, "lbf/inch"),
-            Q_(nF / qm, _IN) if qm > 0 else None,
+            Q_(qm, flow),
+            Q_(nF / qm, inch) if qm > 0 else None,
             gov,
-            Q_(nF / s, "lbf/inch"),
+            Q_(nF / s, flow),
         )
         zones.append(z)
         log.add(
@@ -247,7 +283,11 @@ def zoned_schedule(
         "Connectors in the zoned schedule",
         "N = 1 + Σ ceil(ℓᵢ / sᵢ)",
         "{zones} zones, {sym}",
-        {"zones": len(zones), "sym": "symmetric" if lay.symmetric else "not symmetric"},
+        {
+            "zones": len(zones),
+            "sym": ("symmetric" if lay.symmetric else "not symmetric")
+            + (f", zoned span by span (at most {z_span} per half span)" if ends else ""),
+        },
         lay.count,
         source=SOURCE_RULES,
         governs=True,
