@@ -184,12 +184,8 @@ def write_results_json(result: JobResult, pdf_path: str | os.PathLike) -> Path:
     figures, no timestamps, only the job file's base name. A temporary file in the same folder is
     renamed over the target, so a reader never sees a half-written file.
     """
+    from ..safewrite import write_set
+
     out = json_path_for(pdf_path)
-    tmp = out.with_name(f".{out.name}.{os.getpid()}.tmp")
-    try:
-        tmp.write_text(dumps(to_dict(result)), encoding="utf-8", newline="\n")
-        os.replace(tmp, out)
-    finally:
-        if tmp.exists():
-            tmp.unlink()
+    write_set([(out, dumps(to_dict(result)).encode("utf-8"))])
     return out
