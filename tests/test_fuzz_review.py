@@ -64,7 +64,7 @@ def fuzz(examples: int):
 CASE = dict(rng_key=st.integers(0, 2**32 - 1), which=st.integers(0, 100), n=st.integers(1, 4))
 
 
-@fuzz(60)
+@fuzz(40)
 @given(**CASE)
 def test_check_on_hostile_values(tmp_path, rng_key, which, n):
     p = tmp_path / "fuzz.toml"
@@ -72,7 +72,7 @@ def test_check_on_hostile_values(tmp_path, rng_key, which, n):
     _answer(*run_cli("check", "--json", str(p)), str(p), json_out=True)
 
 
-@fuzz(15)
+@fuzz(10)
 @given(**CASE)
 def test_diff_of_a_demo_and_its_hostile_revision(tmp_path, rng_key, which, n):
     demo = DEMOS[which % len(DEMOS)]

@@ -121,7 +121,9 @@ def run_isolated(
 
     try:
         while pending or any(c.job is not None for c in children):
-            children = [c for c in children if c.proc.is_alive() or c.job is not None]
+            children = [
+                c for c in children if c.job is not None or c.proc.is_alive()
+            ]  # never drop a held job
             while len(children) < min(
                 max(1, workers), len(pending) + sum(c.job is not None for c in children)
             ):
@@ -162,7 +164,6 @@ def run_isolated(
                     if not c.proc.is_alive():
                         c.conn.close()
                     finish(i, outcome)
-            children = [c for c in children if c.proc.is_alive()]
     finally:
         for c in children:  # normal end: each idle child is told to stop; interrupted: stopped
             if c.job is None:

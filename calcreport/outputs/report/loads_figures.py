@@ -278,7 +278,7 @@ def zone_elevation(j: JointResult, member: Member, fmt_q, fmt_pos, fonts, width:
     return dr
 
 
-def _load_label(label: str, limit: int = 40) -> str:
+def _load_label(label: str, limit: int = 80) -> str:
     """A load's label as drawn beside its value: two spaces, then at most ``limit`` characters."""
     if not label:
         return ""
