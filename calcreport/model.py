@@ -72,6 +72,7 @@ class Settings:
     template: str = ""
     display: dict[str, str] = field(default_factory=dict)
     load_duration: float | None = None
+    given: tuple[str, ...] = ()  # keys the job's [settings] table states (the rest are defaults)
 
 
 @dataclass(frozen=True)

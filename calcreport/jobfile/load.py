@@ -160,7 +160,9 @@ def _settings(t: Table) -> Settings:
                 display[kind] = unit
         dt.done()
     cd = t.number("load_duration", None, minimum=0.5, maximum=2.0)
-    s = Settings(units, method, step, smax, smin, zones, module, limits, t.text("template"), display, cd)
+    s = Settings(
+        units, method, step, smax, smin, zones, module, limits, t.text("template"), display, cd, tuple(t.data)
+    )
     t.done()
     return s
 

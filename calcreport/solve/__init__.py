@@ -12,7 +12,9 @@ from ..model import Job, Joint, Member, Settings
 from ..steps import StepLog
 from ..units import Q_, Quantity
 from . import connectors
+from .assumed import job_assumed, member_assumed
 from .results import JobResult, JointResult, MemberResult, SectionResult, SolveError, worst
+from .scope import checked_words, missing_stress_rows, not_checked
 from .section import first_moment, section_properties
 from .spacing import combine_limits, continuous_check, discrete_spacing, shear_flow
 
@@ -22,7 +24,9 @@ __all__ = ["solve_job", "solve_member", "SolveError"]
 def solve_job(job: Job) -> JobResult:
     """Solve every member of ``job`` in order."""
     members = tuple(solve_member(m, job.settings) for m in job.members)
-    return JobResult(job=job, members=members, status=worst(m.status for m in members))
+    return JobResult(
+        job=job, members=members, status=worst(m.status for m in members), assumed=job_assumed(job)
+    )
 
 
 def _design_shear(member: Member, log: StepLog) -> Quantity:
@@ -46,7 +50,10 @@ def solve_member(member: Member, settings: Settings) -> MemberResult:
         V = _design_shear(member, log.child("shear"))
     joints = tuple(solve_joint(member, section, j, V, settings, log, beam) for j in member.joints)
     checks = _keyed(beam.checks, f"member[{member.id}]") if beam is not None else ()
+    checks = checks + _shear_only_checks(member, section, V, beam, log.child("checks"))
+    checks = checks + tuple(missing_stress_rows(member, beam is not None))
     status = worst([j.status for j in joints] + [c.status for c in checks])
+    words, connectors_only = checked_words(member.id, checks, joints)
     return MemberResult(
         id=member.id,
         member=member,
@@ -57,7 +64,23 @@ def solve_member(member: Member, settings: Settings) -> MemberResult:
         steps=tuple(log.steps),
         status=status,
         beam=beam,
+        not_checked=not_checked(member, checks, beam is not None),
+        checked=words,
+        connectors_only=connectors_only,
+        assumed=member_assumed(member, settings, joints, beam),
     )
+
+
+def _shear_only_checks(member: Member, section: SectionResult, V: Quantity, beam, log: StepLog) -> tuple:
+    """With a design shear alone (no loads), the horizontal shear stress at the neutral axis can
+    still be found (τ = V·Q/(I·b), mechanics of materials) for members with wood or plywood parts;
+    with loads, :mod:`.along` does it with the member checks."""
+    if beam is not None or not any(p.material.family in ("wood", "plywood") for p in member.parts):
+        return ()
+    from .along import _neutral_axis_shear
+
+    c = _neutral_axis_shear(member, section, V, log)
+    return () if c is None else _keyed((c,), f"member[{member.id}]")
 
 
 def _keyed(checks, prefix: str) -> tuple:

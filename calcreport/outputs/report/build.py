@@ -27,6 +27,7 @@ from ...solve.results import JobResult
 from ..fmt import Display
 from ..pdfmeta import job_metadata
 from .along import member_figures
+from .assumed import assumed_story
 from .checks import results_story
 from .common import Ctx, para
 from .cover import cover_story
@@ -110,7 +111,11 @@ def report_sections(result: JobResult) -> list[tuple[str, str]]:
     out = [("cover", "Cover: summary, revision history and contents")]
     for i, m in enumerate(result.members, 1):
         out.append((f"member:{m.id}", f"{i}  Member {m.id} — {m.member.title}"))
-    out += [("signoff", "Review and sign-off"), ("limits", "Limitations and cautions")]
+    out += [
+        ("assumed", "Assumed values"),
+        ("signoff", "Review and sign-off"),
+        ("limits", "Limitations and cautions"),
+    ]
     return out
 
 
@@ -132,6 +137,9 @@ def _story(ctx: Ctx, info: PageInfo, sections: list[tuple[str, str]]) -> list:
         story += derivation_story(m, ctx, str(i))
         story += results_story(m, ctx)
         story += member_figures(m, ctx)
+    story.append(PageBreak())
+    story.append(SectionStart("assumed", "Assumed values", "Assumed values"))
+    story += assumed_story(ctx)
     story.append(PageBreak())
     story.append(SectionStart("signoff", "Review and sign-off", "Review and sign-off"))
     story += signoff_story(ctx)
