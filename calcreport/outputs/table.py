@@ -49,7 +49,7 @@ def render_member(m: MemberResult, d: Display) -> list[str]:
             lines.append(f"  {j.id}: {reason}")
         for c in j.checks:
             if c.status == "NG":
-                lines.append(f"  {j.id}: {c.label} — NG")
+                lines.append(f"  {j.id}: {c.label} — NG" + (f": {c.note}" if c.note else ""))
         if j.schedule is not None:
             lines += _schedule_lines(j.id, j.schedule, d)
     if m.checks:

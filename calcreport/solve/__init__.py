@@ -7,13 +7,15 @@ then per joint: Q, shear flow, connector design value (:mod:`.connectors`) and s
 
 from __future__ import annotations
 
+from dataclasses import replace
+
 from ..geometry import contact_segments
 from ..model import Job, Joint, Member, Settings
 from ..steps import StepLog
 from ..units import Q_, Quantity
 from . import connectors
 from .assumed import job_assumed, member_assumed
-from .results import JobResult, JointResult, MemberResult, SectionResult, SolveError, worst
+from .results import Check, JobResult, JointResult, MemberResult, SectionResult, SolveError, worst
 from .scope import checked_words, missing_stress_rows, not_checked
 from .section import first_moment, section_properties
 from .spacing import combine_limits, continuous_check, discrete_spacing, shear_flow
@@ -81,6 +83,21 @@ def _shear_only_checks(member: Member, section: SectionResult, V: Quantity, beam
 
     c = _neutral_axis_shear(member, section, V, log)
     return () if c is None else _keyed((c,), f"member[{member.id}]")
+
+
+def _no_minimum_spacing(joint: Joint) -> Check:
+    """INFO row: no minimum spacing applies, so none was checked (never silence)."""
+    return Check(
+        "connector.spacing_min",
+        "Minimum spacing of the connectors",
+        None,
+        None,
+        None,
+        "INFO",
+        "stated in the job file",
+        note=f"not checked: the {joint.connector.kind} connector gives no minimum spacing and the job "
+        "sets none (spacing_min on the joint or in [settings])",
+    )
 
 
 def _keyed(checks, prefix: str) -> tuple:
@@ -161,7 +178,14 @@ def solve_joint(
         )
     Q = first_moment(section, joint.holds, log)
     ctx = connectors.JointContext(
-        settings.method, tuple(held), tuple(other), b, settings, f"member[{member.id}].joint[{joint.id}]"
+        settings.method,
+        tuple(held),
+        tuple(other),
+        b,
+        settings,
+        f"member[{member.id}].joint[{joint.id}]",
+        tuple(member.parts),
+        joint.per_row,
     )
     cap = connectors.design(joint.connector, ctx, log.child("connector"))
     demand = None
@@ -190,6 +214,8 @@ def solve_joint(
         s_max = combine_limits(settings.spacing_max, joint.spacing_max, cap.spacing_max, pick=min)
         res = discrete_spacing(q, joint.per_row, cap.value, settings.spacing_step, s_min, s_max, log)
         cap_row = (joint.per_row * cap.value).to("lbf")
+        if s_min is None:
+            cap = replace(cap, checks=tuple(cap.checks) + (_no_minimum_spacing(joint),))
     schedule = None
     if beam is not None and not cap.continuous:
         from .along import joint_schedule

@@ -133,7 +133,6 @@ def discrete_spacing(
             s_max.to("inch"),
             source="detailing limit",
         )
-    util = float((q * prov / nF).to(""))
     status = "OK"
     if s_min is not None and prov < s_min:
         status = "NG"
@@ -143,6 +142,21 @@ def discrete_spacing(
     if float(prov.to("inch").magnitude) <= 0:
         status = "NG"
         reasons.append("required spacing is less than one increment")
+    if status == "NG":
+        # The closest the connectors can be placed: the minimum spacing (or one increment). The
+        # utilisation there is the real one, above 1 (never the 0 of a zero spacing).
+        closest = s_min if s_min is not None and s_min > step else step
+        prov = log.add(
+            "s_closest",
+            "Closest spacing the connectors can be placed at",
+            "s = max(s_min, Δ)",
+            "max({s_min}, {step})",
+            {"s_min": s_min if s_min is not None else step * 0, "step": step},
+            closest.to("inch"),
+            source="detailing limit",
+            note="the required spacing is smaller: the joint is NG at this spacing",
+        )
+    util = float((q * prov / nF).to(""))
     log.add(
         "util",
         "Utilisation of the connector row at the practical spacing",

@@ -14,6 +14,7 @@ from ..results import Capacity
 from .nds_catalog import LAG_SCREWS, fyb_lag_screw
 from .nds_dowel import Fastener, design_dowel, screw_diameters
 from .nds_factors import COMMON_FIELDS
+from .nds_fit import STAGGERED
 
 KIND = "lag_screw"
 FIELDS = (
@@ -25,6 +26,7 @@ FIELDS = (
     Field("threads_in_plane", "bool", default=False, help="threaded part in the shear plane (use Dr)"),
     Field("Fyb", "stress", help="bending yield strength (default by diameter)"),
     Field("name", "text", help="how the report names the lag screw"),
+    STAGGERED,
 ) + COMMON_FIELDS
 
 

@@ -15,6 +15,7 @@ from . import ConnectorError
 from .nds_catalog import CATALOG_SOURCE, fyb_nail, nail, nail_names
 from .nds_dowel import Fastener, design_dowel
 from .nds_factors import COMMON_FIELDS
+from .nds_fit import CLINCHED, STAGGERED
 
 KIND = "nail"
 FIELDS = (
@@ -27,6 +28,8 @@ FIELDS = (
     Field("toe_nail", "bool", default=False, help="toe-nailed (Ctn = 0.83)"),
     Field("diaphragm", "bool", default=False, help="diaphragm construction (Cdi = 1.1)"),
     Field("name", "text", help="how the report names the nail"),
+    STAGGERED,
+    CLINCHED,
 ) + COMMON_FIELDS
 
 

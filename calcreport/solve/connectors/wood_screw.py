@@ -14,6 +14,7 @@ from ..results import Capacity
 from .nds_catalog import WOOD_SCREWS, fyb_wood_screw
 from .nds_dowel import Fastener, design_dowel, screw_diameters
 from .nds_factors import COMMON_FIELDS
+from .nds_fit import STAGGERED
 
 KIND = "wood_screw"
 FIELDS = (
@@ -24,6 +25,7 @@ FIELDS = (
     Field("threads_in_plane", "bool", default=True, help="threaded part in the shear plane (use Dr)"),
     Field("Fyb", "stress", help="bending yield strength (default by diameter)"),
     Field("name", "text", help="how the report names the screw"),
+    STAGGERED,
 ) + COMMON_FIELDS
 
 
