@@ -57,8 +57,8 @@ def _settings_assumed(s: Settings, any_loads: bool) -> list[Assumed]:
     )
     add(
         "zone_module",
-        "module of zone boundaries",
-        "the spacing step",
+        "module of zone lengths in a zoned schedule",
+        "each zone's own spacing",
         "[settings] zone_module",
         when=any_loads,
     )

@@ -141,9 +141,14 @@ def fastener_fit(
             note=note,
         )
     )
-    if planes != 1 or main not in ctx.held:
-        return 1
-    opposite = opposite_faces(main, c, tuple(ctx.other))
+    opposite = opposite_faces(main, c, tuple(ctx.other)) if planes == 1 and main in ctx.held else []
+    if staggered and not opposite:
+        raise ConnectorError(
+            f"{key}.staggered",
+            "staggered = true has no effect here: the fasteners of this joint are driven from one "
+            "face only (no other part of the joint lies against the far face of the main member); "
+            "remove it",
+        )
     for o, oc in opposite:
         ts2 = thickness_normal(o, oc)
         p1, p2 = min(L - ts, tm), min(L - ts2, tm)
