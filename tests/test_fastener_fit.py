@@ -155,7 +155,9 @@ def test_intermittent_weld_pitch_limit_for_a_cover_plate():
     # joint's maximum spacing.
     cover = rect("cover", 1.0, 10, 7.0, 10.5, steel(50, 65))
     flange = rect("flange", 0, 9.0, 8.0, 10, steel(50, 65))
-    cap, log = run("fillet_weld", {"size": Q_(0.25, "in"), "segment": Q_(2, "in")}, context([cover], [flange]))
+    cap, log = run(
+        "fillet_weld", {"size": Q_(0.25, "in"), "segment": Q_(2, "in")}, context([cover], [flange])
+    )
     assert step(log, "pitch_D4").result.magnitude == pytest.approx(12.0)
     assert step(log, "pitch_E6").result.magnitude == pytest.approx(0.375 * (29000 / 50) ** 0.5, rel=1e-6)
     assert cap.spacing_max.to("in").magnitude == pytest.approx(9.031, abs=1e-3)

@@ -163,3 +163,16 @@ def test_report_shows_scope_and_the_assumed_values_page(tmp_path):
     assert any("Not checked (7)" in p for p in pages)
     assert any("Assumed values" in p and "values assumed" in p and "FEXX" in p for p in pages)
     assert not any("from memory" in p for p in pages)  # reports cite clauses only
+
+
+def test_unchecked_items_of_a_check_module_merge_by_key():
+    from calcreport.solve.results import Unchecked
+
+    m = _member()
+    mine = Unchecked("member[G].stiffeners", "bearing stiffeners", "AISC 360-16 J10.8", "no bearing length")
+    new = Unchecked("member[G].splices", "flange splices", "common practice, no source", "not designed")
+    left = {u.key: u for u in not_checked(m, (), True, extra=(mine, new))}
+    assert left["member[G].stiffeners"].reason == "no bearing length"  # replaces the expectation
+    assert "member[G].splices" in left
+    ran = Check("member[G].splices.weld", "Splice", None, None, 0.5, "OK")
+    assert "member[G].splices" not in {u.key for u in not_checked(m, (ran,), True, extra=(new,))}

@@ -45,6 +45,13 @@ def _step(s: Step, d: Display) -> dict[str, Any]:
 
 
 def _check(c: Check, d: Display) -> dict[str, Any]:
+    out = _check_fields(c, d)
+    if c.scope:
+        out["scope"] = c.scope
+    return out
+
+
+def _check_fields(c: Check, d: Display) -> dict[str, Any]:
     return {
         "key": c.key,
         "label": c.label,

@@ -310,12 +310,18 @@ def _info_reason(tags: tuple[str, ...], infos: list[tuple[frozenset[str], Check]
 
 
 def not_checked(
-    member: Member, checks: tuple[Check, ...] | list[Check], has_moment: bool
+    member: Member,
+    checks: tuple[Check, ...] | list[Check],
+    has_moment: bool,
+    extra: tuple[Unchecked, ...] = (),
 ) -> tuple[Unchecked, ...]:
     """Every expectation of ``member`` that no check that ran covers, with clause and reason.
 
     The reason of an INFO row that carries the expectation's tags (e.g. "no Fv given for
-    material ply") replaces the default reason.
+    material ply") replaces the default reason. ``extra`` are Unchecked items a member-check module
+    reports itself (e.g. "flange splices not designed"); one with the same key as an expectation
+    replaces it, and an extra item whose key's last part is a tag covered by a check that ran is
+    dropped too.
     """
     covered: set[str] = set()
     infos: list[tuple[frozenset[str], Check]] = []
@@ -331,7 +337,9 @@ def not_checked(
             continue
         reason = _info_reason(e.tags, infos) or e.reason
         out.append(Unchecked(f"member[{member.id}].{e.name}", e.label, e.clause, reason))
-    return tuple(out)
+    own = {u.key: u for u in extra if u.key.rsplit(".", 1)[-1] not in covered}
+    merged = [own.pop(u.key, u) for u in out]
+    return tuple(merged + list(own.values()))
 
 
 #: Words for the first key segment of a member check that ran.

@@ -63,7 +63,8 @@ def governing_text(m: MemberResult, ctx: Ctx) -> str:
             if c.ratio is not None or c.status == "NG":
                 ck = (c.status == "NG", c.ratio or 0.0)
                 if ck > best[0]:
-                    best = (ck, f"joint {j.id}: {c.label}, ratio {ctx.q(c.ratio, 3)}")
+                    note = f" — {c.note}" if c.status == "NG" and c.note else ""
+                    best = (ck, f"joint {j.id}: {c.label}, ratio {ctx.q(c.ratio, 3)}{note}")
     for c in m.checks:
         if c.ratio is not None or c.status == "NG":
             ck = (c.status == "NG", c.ratio or 0.0)

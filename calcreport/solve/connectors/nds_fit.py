@@ -20,6 +20,8 @@ axis, and fasteners driven from opposite faces into one main member.
 
 from __future__ import annotations
 
+from typing import Any
+
 from ...fields import Field
 from ...model import Part
 from ...steps import StepLog
@@ -88,7 +90,7 @@ def fastener_fit(
         return 1
     parts = tuple(ctx.parts) or (*ctx.held, *ctx.other)
     layers = stack_beyond(parts, c, _direction(c, main))
-    values: dict[str, object] = {"ts": Q_(ts, "in")}
+    values: dict[str, Any] = {"ts": Q_(ts, "in")}
     terms = ["{ts}"]
     for i, layer in enumerate(layers):
         values[f"t{i}"] = Q_(layer.end - layer.start, "in")
@@ -153,7 +155,7 @@ def fastener_fit(
         ts2 = thickness_normal(o, oc)
         p1, p2 = min(L - ts, tm), min(L - ts2, tm)
         overlap = p1 + p2 - tm
-        pen_sum = log.add(
+        log.add(
             f"p_both.{o.id}",
             f"Penetrations into {main.id} from both faces ({side.id} and {o.id})",
             "p₁ + p₂ = min(L − ts₁, tm) + min(L − ts₂, tm)",
@@ -180,7 +182,7 @@ def fastener_fit(
             Check(
                 f"{key}.opposite_faces.{o.id}",
                 f"Fasteners from opposite faces ({side.id}, {o.id}) do not meet in {main.id}",
-                pen_sum,
+                Q_(p1 + p2, "in"),
                 Q_(tm, "in"),
                 None if status == "INFO" else (p1 + p2) / tm,
                 status,
