@@ -28,7 +28,10 @@ HEADER = ROOT / "jobs" / "boathouse-door-header.toml"
 RIDGE = ROOT / "jobs" / "pavilion-ridge-box-beam.toml"
 
 
-def _member(family="steel", Fy=Q_(50, "ksi"), Fb=None) -> Member:
+FY50 = Q_(50, "ksi")
+
+
+def _member(family="steel", Fy=FY50, Fb=None) -> Member:
     mat = Material("m", "m", Q_(29000, "ksi"), family=family, Fy=Fy, Fb=Fb)
     p = Part("web", Shape("polygon", (0, 0, 0.5, 30)), mat)
     return Member("G", "G", "", (p,), (), mat)
