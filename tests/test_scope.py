@@ -179,3 +179,52 @@ def test_unchecked_items_of_a_check_module_merge_by_key():
     assert "member[G].splices" in left
     ran = Check("member[G].splices.weld", "Splice", None, None, 0.5, "OK")
     assert "member[G].splices" not in {u.key for u in not_checked(m, (ran,), True, extra=(new,))}
+
+
+STACK = """
+[job]
+project = "Boathouse test"
+[settings]
+units = "US"
+method = "ASD"
+[[material]]
+id = "df"
+family = "wood"
+E = "1600 ksi"
+G = 0.5
+[[member]]
+id = "B1"
+shear = "1 kip"
+[[member.part]]
+id = "bot"
+shape = "lumber"
+size = "2x8"
+flat = true
+material = "df"
+[[member.part]]
+id = "top"
+shape = "lumber"
+size = "2x8"
+flat = true
+material = "df"
+on = "bot"
+[[member.joint]]
+id = "j"
+holds = ["top"]
+[member.joint.connector]
+type = "nail"
+size = "10d common"
+"""
+
+
+def test_plane_shear_without_fv_is_an_info_row_and_a_10d_fits_two_flat_2x(tmp_path):
+    # Two flat 2x8 (1-1/2 in each): 10d common (3 in) ends exactly at the far face, 3.0 − 3.0 = 0 →
+    # fits. No Fv on the wood: the horizontal shear at the plane is an INFO row, never silence.
+    job = tmp_path / "stack.toml"
+    job.write_text(STACK, encoding="utf-8")
+    r = solve_file(str(job)).members[0]
+    checks = {c.key.split(".", 2)[-1]: c for c in r.joints[0].checks}
+    assert checks["shear.joint.j"].status == "INFO" and "no Fv" in checks["shear.joint.j"].note
+    assert checks["connector.fit"].status == "OK" and checks["connector.fit"].ratio == pytest.approx(1.0)
+    bending = next(u for u in r.not_checked if u.key == "member[B1].bending.df")
+    assert "only a design shear" in bending.reason

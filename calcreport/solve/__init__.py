@@ -121,7 +121,20 @@ def _plane_shear(
         return ()
     fvs = [p.material.Fv for p in (*held, *other) if p.material.Fv is not None]
     if not fvs:
-        return ()
+        if not any(p.material.family in ("wood", "plywood") for p in (*held, *other)):
+            return ()  # steel and concrete planes: their shear is a connector or member check
+        return (
+            Check(
+                f"shear.joint.{joint.id}",
+                f"Horizontal shear stress at the level of joint {joint.id}",
+                None,
+                None,
+                None,
+                "INFO",
+                "mechanics of materials (τ = V·Q/(I·b))",
+                note="not checked: no Fv given for the parts that meet at the plane",
+            ),
+        )
     from .checks import shear_stress_check
 
     Fv = min(fvs, key=lambda q: float(q.to("psi").magnitude))
