@@ -228,3 +228,11 @@ def test_plane_shear_without_fv_is_an_info_row_and_a_10d_fits_two_flat_2x(tmp_pa
     assert checks["connector.fit"].status == "OK" and checks["connector.fit"].ratio == pytest.approx(1.0)
     bending = next(u for u in r.not_checked if u.key == "member[B1].bending.df")
     assert "only a design shear" in bending.reason
+
+
+def test_a_pennyweight_without_a_type_is_listed_as_assumed_common(tmp_path):
+    job = tmp_path / "stack.toml"
+    job.write_text(STACK.replace('"10d common"', '"10d"'), encoding="utf-8")
+    m = solve_file(str(job)).members[0]
+    a = next(a for a in m.assumed if a.key == "member[B1].joint[j].connector.size")
+    assert a.value == "common"

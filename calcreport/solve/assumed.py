@@ -205,6 +205,17 @@ def _connector_assumed(member: Member, settings: Settings, joints: tuple[JointRe
                             step.source,
                         )
                     )
+        size = str(spec.params.get("size") or "").lower()
+        if spec.kind == "nail" and size and not any(w in size for w in ("common", "box", "sinker", "spike")):
+            out.append(
+                Assumed(
+                    f"{pre}.size",
+                    "type of nail (the size gives a pennyweight only)",
+                    "common",
+                    '[member.joint.connector] size = "16d common", "16d box", "16d sinker"',
+                    "NDS 2018 Appendix L (common wire nail dimensions)",
+                )
+            )
         if "CD" in names and "CD" not in given and settings.method == "ASD":
             value = settings.load_duration if settings.load_duration is not None else 1.0
             out.append(
