@@ -17,7 +17,7 @@ from __future__ import annotations
 from ...fields import Field
 from ...model import ConnectorSpec
 from ...steps import StepLog
-from ...units import Q_, parse
+from ...units import Q_, Quantity, parse
 from ..results import Capacity, Check
 from . import ConnectorError
 from .geometry import extent_along, find_contact, plate_thickness, thickness_normal
@@ -380,7 +380,7 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
     )
 
 
-def _stitch_pitch(log: StepLog, t: float, parts) -> Q_:
+def _stitch_pitch(log: StepLog, t: float, parts) -> Quantity:
     """Largest pitch of intermittent welds joining plates in contact: the lesser of
     24·t ≤ 12 in (AISC 360-16 §D4, built-up tension members, painted or not subject to corrosion)
     and 0.75·t·√(E/Fy) ≤ 12 in (§E6.2(a), built-up compression members, outside plate), t the

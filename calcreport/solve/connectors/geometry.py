@@ -197,8 +197,8 @@ def _crossing(part: Part, c: Contact, t: float, direction: int) -> list[tuple[fl
         half = (part.shape.radius**2 - off**2) ** 0.5
         mid = ((cy if horizontal else cx) - c.at) * direction
         return [(mid - half, mid + half)]
-    a, b = (y0, y1) if horizontal else (x0, x1)
-    da, db = (a - c.at) * direction, (b - c.at) * direction
+    near, far = (y0, y1) if horizontal else (x0, x1)
+    da, db = (near - c.at) * direction, (far - c.at) * direction
     return [(min(da, db), max(da, db))]
 
 

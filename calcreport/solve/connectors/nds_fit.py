@@ -16,6 +16,10 @@ axis, and fasteners driven from opposite faces into one main member.
   row their points overlap by p₁ + p₂ − tm when that is positive, so the two cannot share a line —
   NG unless the job states ``staggered = true`` (rows from the two faces offset along the member).
   Common practice, no source.
+
+The axis is taken normal to the plane at the middle of the contact, and the head at the side
+member's outer face (parts outside the side member, such as sheathing the fastener is driven
+through first, are not counted: give ``side_thickness`` for them).
 """
 
 from __future__ import annotations
