@@ -79,6 +79,7 @@ class Settings:
     load_duration: float | None = None
     load_standard: str = "ASCE 7-22"  # edition of the load standard for combinations and clauses
     zones_per_span: int | None = None  # Z per half of each span/overhang (None: zones_per_half)
+    given: tuple[str, ...] = ()  # keys the job's [settings] table states (the rest are defaults)
 
 
 @dataclass(frozen=True)

@@ -59,7 +59,9 @@ def test_more_shear_changes_results_exit_1(tmp_path, capsys):
     assert code == 1
     assert out.index("RESULTS CHANGED") < out.index("INPUTS CHANGED")
     assert "design shear V  3,600 lbf → 4,200 lbf" in out
-    assert "practical spacing  1.50 in → 1.25 in" in out
+    # s_req = 1.353 in is below spacing_min = 1.5 in: the joint is NG at the closest spacing it can
+    # be placed at (1.5 in), so the practical spacing stays and the utilisation shows the overstress.
+    assert "utilisation       0.95 → 1.1" in out
     assert 'member[H1].shear: "3.6 kip" → "4.2 kip"' in out
     assert out.rstrip().endswith("Results changed.")
 
@@ -72,8 +74,9 @@ def test_more_shear_changes_results_exit_1(tmp_path, capsys):
     assert math.isclose(q["new"]["value"] / q["old"]["value"], 4.2 / 3.6, rel_tol=1e-5)  # q = V·Q/I
     s_req = by[("member.H1.joint.top-webs", "spacing_required")]["new"]["value"]
     assert math.isclose(s_req, 2 * 118.0 / q["new"]["value"], rel_tol=1e-5)  # s = n·F/q
-    s = by[("member.H1.joint.top-webs", "spacing_provided")]["new"]["value"]
-    assert s == math.floor(s_req / 0.25) * 0.25 == 1.25  # rounded down to 1/4 in
+    assert math.floor(s_req / 0.25) * 0.25 == 1.25 < 1.5  # rounded down to 1/4 in: below s_min
+    util = by[("member.H1.joint.top-webs", "utilisation")]["new"]
+    assert math.isclose(util, q["new"]["value"] * 1.5 / (2 * 118.0), rel_tol=1e-3)  # q·s_min/(n·F)
     steps = {st["key"]: st for st in data["steps"]}
     assert steps["member.H1.shear.V"]["new"]["result"] == {"unit": "lbf", "value": 4200.0}
     assert steps["member.H1.joint.top-webs.q"]["result_changed"] is True
@@ -164,7 +167,9 @@ def test_since_head_in_a_git_repository(repo, capsys, monkeypatch):
     code, out, _ = run(["diff", str(job), "--since", "HEAD"], capsys)
     assert code == 1
     assert "HEAD:jobs/header.toml → " in out
-    assert "practical spacing  1.50 in → 1.25 in" in out
+    # s_req = 1.353 in is below spacing_min = 1.5 in: the joint is NG at the closest spacing it can
+    # be placed at (1.5 in), so the practical spacing stays and the utilisation shows the overstress.
+    assert "utilisation       0.95 → 1.1" in out
     monkeypatch.chdir(root / "jobs")  # a relative path from a sub-folder works too
     code, out, _ = run(["diff", "header.toml", "--since", "HEAD", "--json"], capsys)
     assert code == 1 and json.loads(out)["old"]["label"] == "HEAD:jobs/header.toml"

@@ -30,9 +30,9 @@ def test_change_pdf_contains_changed_values_and_marks(tmp_path, capsys):
         "Results changed.",
         "3,600 lbf",
         "4,200 lbf",
-        "1.50 in",
-        "1.25 in",
-        "practical spacing",
+        "1.578 in",  # required spacing, old → new (the practical one stays at s_min: NG)
+        "1.353 in",
+        "utilisation",
         "member[H1].shear",
         '"3.6 kip"',
         '"4.2 kip"',

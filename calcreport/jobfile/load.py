@@ -212,6 +212,7 @@ def _settings(t: Table) -> Settings:
         cd,
         standard,
         zones_span,
+        tuple(t.data),
     )
     t.done()
     return s

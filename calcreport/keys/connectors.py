@@ -158,6 +158,20 @@ GLUE = (
     ),
 )
 
+#: Fastener fit (NDS 2018 §12.1, §12.3.5; calcreport/solve/connectors/nds_fit.py).
+STAGGERED = Field(
+    "staggered",
+    "bool",
+    default=False,
+    help="fasteners driven from opposite faces are staggered along the member (their points do not meet)",
+)
+CLINCHED = Field(
+    "clinched",
+    "bool",
+    default=False,
+    help="nails driven through the whole assembly and clinched on the far face (needs planes = 2)",
+)
+
 #: ``type = "nail"``
 NAIL = (
     Field(
@@ -169,6 +183,8 @@ NAIL = (
     Field("toe_nail", "bool", default=False, help="toe-nailed (Ctn = 0.83)"),
     Field("diaphragm", "bool", default=False, help="diaphragm construction (Cdi = 1.1)"),
     Field("name", "text", help="how the report names the nail"),
+    STAGGERED,
+    CLINCHED,
 ) + NDS_COMMON
 
 #: ``type = "wood_screw"``
@@ -180,6 +196,7 @@ WOOD_SCREW = (
     Field("threads_in_plane", "bool", default=True, help="threaded part in the shear plane (use Dr)"),
     Field("Fyb", "stress", help="bending yield strength (default by diameter)"),
     Field("name", "text", help="how the report names the screw"),
+    STAGGERED,
 ) + NDS_COMMON
 
 #: ``type = "lag_screw"``
@@ -192,6 +209,7 @@ LAG_SCREW = (
     Field("threads_in_plane", "bool", default=False, help="threaded part in the shear plane (use Dr)"),
     Field("Fyb", "stress", help="bending yield strength (default by diameter)"),
     Field("name", "text", help="how the report names the lag screw"),
+    STAGGERED,
 ) + NDS_COMMON
 
 #: ``type = "wood_bolt"``

@@ -13,7 +13,7 @@ from typing import Any
 
 from .. import __version__
 from ..safewrite import write_atomic
-from ..solve.results import Check, JobResult, JointResult, MemberResult
+from ..solve.results import Assumed, Check, JobResult, JointResult, MemberResult, Unchecked
 from ..steps import Step
 from ..units import Quantity
 from .fmt import Display
@@ -46,6 +46,13 @@ def _step(s: Step, d: Display) -> dict[str, Any]:
 
 
 def _check(c: Check, d: Display) -> dict[str, Any]:
+    out = _check_fields(c, d)
+    if c.scope:
+        out["scope"] = c.scope
+    return out
+
+
+def _check_fields(c: Check, d: Display) -> dict[str, Any]:
     return {
         "key": c.key,
         "label": c.label,
@@ -55,6 +62,20 @@ def _check(c: Check, d: Display) -> dict[str, Any]:
         "status": c.status,
         "source": c.source,
         "note": c.note,
+    }
+
+
+def _unchecked(u: Unchecked) -> dict[str, Any]:
+    return {"key": u.key, "label": u.label, "clause": u.clause, "reason": u.reason}
+
+
+def _assumed(a: Assumed, d: Display) -> dict[str, Any]:
+    return {
+        "key": a.key,
+        "label": a.label,
+        "value": _scalar(a.value, d),
+        "where": a.where,
+        "source": a.source,
     }
 
 
@@ -139,6 +160,10 @@ def _member(m: MemberResult, d: Display) -> dict[str, Any]:
         "joints": [_joint(j, d) for j in m.joints],
         "checks": [_check(c, d) for c in m.checks],
         "steps": [_step(st, d) for st in m.steps],
+        "checked": list(m.checked),
+        "connectors_only": m.connectors_only,
+        "not_checked": [_unchecked(u) for u in m.not_checked],
+        "assumed": [_assumed(a, d) for a in m.assumed],
     }
     if m.beam is not None:
         out["along"] = along_json(m.beam, d)
@@ -163,6 +188,7 @@ def to_dict(result: JobResult) -> dict[str, Any]:
             "method": job.settings.method,
         },
         "status": result.status,
+        "assumed": [_assumed(a, d) for a in result.assumed],
         "members": [_member(m, d) for m in result.members],
         **_read_notes(job, d),
     }

@@ -4,6 +4,7 @@ from __future__ import annotations
 
 from ..solve.results import JobResult, MemberResult
 from .fmt import Display
+from .scope_text import checked_line, not_checked_line, status_words
 
 __all__ = ["render_job"]
 
@@ -20,7 +21,9 @@ def _cols(rows: list[list[str]], right: set[int]) -> list[str]:
 def render_member(m: MemberResult, d: Display) -> list[str]:
     s = m.section
     lines = [
-        f"{m.id} — {m.member.title}   [{m.status}]",
+        f"{m.id} — {m.member.title}   [{status_words(m)}]",
+        f"  {checked_line(m)}",
+        f"  {not_checked_line(m)}",
         f"  section: A = {d.quantity(s.area)}, ȳ = {d.quantity(s.centroid)} above bottom, "
         f"I = {d.quantity(s.inertia)} (ref. {s.reference_material}); V = {d.quantity(m.shear)}",
     ]
@@ -46,7 +49,7 @@ def render_member(m: MemberResult, d: Display) -> list[str]:
             lines.append(f"  {j.id}: {reason}")
         for c in j.checks:
             if c.status == "NG":
-                lines.append(f"  {j.id}: {c.label} — NG")
+                lines.append(f"  {j.id}: {c.label} — NG" + (f": {c.note}" if c.note else ""))
         if j.schedule is not None:
             lines += _schedule_lines(j.id, j.schedule, d)
     if m.checks:
@@ -86,7 +89,12 @@ def render_job(result: JobResult) -> str:
     """The text printed by ``calcreport check`` for one job."""
     job = result.job
     d = Display(job.settings.units, job.settings.display)
-    head = f"{job.path}: {job.header.project} — {job.settings.method}, {job.settings.units} units   [{result.status}]"
+    n_out = sum(len(m.not_checked) for m in result.members)
+    scope = f"; {n_out} item{'s' if n_out != 1 else ''} not checked" if n_out else ""
+    head = (
+        f"{job.path}: {job.header.project} — {job.settings.method}, {job.settings.units} units   "
+        f"[{result.status}{scope}]"
+    )
     lines = [head]
     for m in result.members:
         lines.append("")

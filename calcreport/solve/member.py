@@ -7,6 +7,7 @@ then per joint: Q, shear flow, connector design value (:mod:`.connectors`) and s
 
 from __future__ import annotations
 
+from dataclasses import replace
 from typing import Any
 
 from ..model import Job, Joint, Member, Settings
@@ -14,7 +15,9 @@ from ..outlines import contact_segments
 from ..steps import StepLog
 from ..units import Q_, Quantity
 from . import connectors
-from .results import JobResult, JointResult, MemberResult, SectionResult, SolveError, worst
+from .assumed import job_assumed, member_assumed
+from .results import Check, JobResult, JointResult, MemberResult, SectionResult, SolveError, worst
+from .scope import checked_words, missing_stress_rows, not_checked
 from .section import first_moment, section_properties
 from .spacing import combine_limits, continuous_check, discrete_spacing, shear_flow
 
@@ -24,7 +27,9 @@ __all__ = ["solve_job", "solve_member", "SolveError"]
 def solve_job(job: Job) -> JobResult:
     """Solve every member of ``job`` in order."""
     members = tuple(solve_member(m, job.settings) for m in job.members)
-    return JobResult(job=job, members=members, status=worst(m.status for m in members))
+    return JobResult(
+        job=job, members=members, status=worst(m.status for m in members), assumed=job_assumed(job)
+    )
 
 
 def _design_shear(member: Member, log: StepLog) -> Quantity:
@@ -48,7 +53,10 @@ def solve_member(member: Member, settings: Settings) -> MemberResult:
         V = _design_shear(member, log.child("shear"))
     joints = tuple(solve_joint(member, section, j, V, settings, log, beam) for j in member.joints)
     checks = _keyed(beam.checks, f"member[{member.id}]") if beam is not None else ()
+    checks = checks + _shear_only_checks(member, section, V, beam, log.child("checks"))
+    checks = checks + tuple(missing_stress_rows(member, beam is not None))
     status = worst([j.status for j in joints] + [c.status for c in checks])
+    words, connectors_only = checked_words(member.id, checks, joints)
     return MemberResult(
         id=member.id,
         member=member,
@@ -59,6 +67,37 @@ def solve_member(member: Member, settings: Settings) -> MemberResult:
         steps=tuple(log.steps),
         status=status,
         beam=beam,
+        not_checked=not_checked(member, checks, beam is not None),
+        checked=words,
+        connectors_only=connectors_only,
+        assumed=member_assumed(member, settings, joints, beam),
+    )
+
+
+def _shear_only_checks(member: Member, section: SectionResult, V: Quantity, beam, log: StepLog) -> tuple:
+    """With a design shear alone (no loads), the horizontal shear stress at the neutral axis can
+    still be found (τ = V·Q/(I·b), mechanics of materials) for members with wood or plywood parts;
+    with loads, :mod:`.along` does it with the member checks."""
+    if beam is not None or not any(p.material.family in ("wood", "plywood") for p in member.parts):
+        return ()
+    from .member_loads import _neutral_axis_shear
+
+    c = _neutral_axis_shear(member, section, V, log)
+    return () if c is None else _keyed((c,), f"member[{member.id}]")
+
+
+def _no_minimum_spacing(joint: Joint) -> Check:
+    """INFO row: no minimum spacing applies, so none was checked (never silence)."""
+    return Check(
+        "connector.spacing_min",
+        "Minimum spacing of the connectors",
+        None,
+        None,
+        None,
+        "INFO",
+        "stated in the job file",
+        note=f"not checked: the {joint.connector.kind} connector gives no minimum spacing and the job "
+        "sets none (spacing_min on the joint or in [settings])",
     )
 
 
@@ -83,7 +122,20 @@ def _plane_shear(
         return ()
     fvs = [p.material.Fv for p in (*held, *other) if p.material.Fv is not None]
     if not fvs:
-        return ()
+        if not any(p.material.family in ("wood", "plywood") for p in (*held, *other)):
+            return ()  # steel and concrete planes: their shear is a connector or member check
+        return (
+            Check(
+                f"shear.joint.{joint.id}",
+                f"Horizontal shear stress at the level of joint {joint.id}",
+                None,
+                None,
+                None,
+                "INFO",
+                "mechanics of materials (τ = V·Q/(I·b))",
+                note="not checked: no Fv given for the parts that meet at the plane",
+            ),
+        )
     from .member_checks import shear_stress_check
 
     Fv = min(fvs, key=lambda q: float(q.to("psi").magnitude))
@@ -140,7 +192,14 @@ def solve_joint(
         )
     Q = first_moment(section, joint.holds, log)
     ctx = connectors.JointContext(
-        settings.method, tuple(held), tuple(other), b, settings, f"member[{member.id}].joint[{joint.id}]"
+        settings.method,
+        tuple(held),
+        tuple(other),
+        b,
+        settings,
+        f"member[{member.id}].joint[{joint.id}]",
+        tuple(member.parts),
+        joint.per_row,
     )
     cap = connectors.design(joint.connector, ctx, log.child("connector"))
     demand = None
@@ -175,6 +234,8 @@ def solve_joint(
         )
         res = discrete_spacing(q, joint.per_row, cap.value, settings.spacing_step, s_min, s_max, log, src)
         cap_row = (joint.per_row * cap.value).to("lbf")
+        if s_min is None:
+            cap = replace(cap, checks=tuple(cap.checks) + (_no_minimum_spacing(joint),))
     schedule = None
     if beam is not None and not cap.continuous:
         from .member_loads import joint_schedule

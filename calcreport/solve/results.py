@@ -13,6 +13,7 @@ __all__ = [
     "SolveError",
     "Check",
     "Unchecked",
+    "Assumed",
     "PartProps",
     "SectionResult",
     "Capacity",
@@ -48,6 +49,7 @@ class Check:
     status: str  # "OK", "NG" or "INFO"
     source: str = ""
     note: str = ""
+    scope: str = ""  # space-separated scope tags this check covers (see solve/scope.py); optional
 
 
 @dataclass(frozen=True)
@@ -64,6 +66,23 @@ class Unchecked:
     label: str
     clause: str
     reason: str
+
+
+@dataclass(frozen=True)
+class Assumed:
+    """A value the tool chose because the job did not state it.
+
+    ``key`` is the job-file key the value stands for (``member[H1].joint[top].connector.CD``);
+    ``label`` says what it is in words; ``value`` is the value used (a quantity, number, text or
+    flag — outputs format it); ``where`` says how to state it instead (the key to write, and in
+    which table); ``source`` names the rule or standard behind the default, if any.
+    """
+
+    key: str
+    label: str
+    value: Any
+    where: str
+    source: str = ""
 
 
 @dataclass(frozen=True)
@@ -152,6 +171,9 @@ class MemberResult:
     status: str
     beam: Any = None  # analysis along the member, when loads are given
     not_checked: tuple[Unchecked, ...] = ()  # what a checker would expect that did not run
+    checked: tuple[str, ...] = ()  # what did run, in words ("connectors (2 joints)", "deflection")
+    connectors_only: bool = False  # the only checks that ran are the joints' connectors
+    assumed: tuple[Assumed, ...] = ()  # values the tool chose for this member (see Assumed)
 
 
 @dataclass(frozen=True)
@@ -159,3 +181,4 @@ class JobResult:
     job: Job
     members: tuple[MemberResult, ...]
     status: str
+    assumed: tuple[Assumed, ...] = ()  # job-wide values the tool chose (settings)

@@ -148,7 +148,6 @@ def discrete_spacing(
             if on_grid
             else f"{limit_source}, on the increment (s_max,Δ = ⌊s_max / Δ⌋·Δ; common practice, no source)",
         )
-    util = float((q * prov / nF).to(""))
     if not reasons and s_min is not None and prov < s_min * (1 - 1e-9):
         reasons.append(
             "practical spacing is below the minimum spacing; use stronger or more connectors per row"
@@ -156,6 +155,21 @@ def discrete_spacing(
     if not reasons and float(prov.to("inch").magnitude) <= 0:
         reasons.append("required spacing is less than one increment")
     status = "NG" if reasons else "OK"
+    if status == "NG":
+        # The closest the connectors can be placed: the minimum spacing (or one increment). The
+        # utilisation there is the real one, above 1 (never the 0 of a zero spacing).
+        closest = s_min if s_min is not None and s_min > step else step
+        prov = log.add(
+            "s_closest",
+            "Closest spacing the connectors can be placed at",
+            "s = max(s_min, Δ)",
+            "max({s_min}, {step})",
+            {"s_min": s_min if s_min is not None else step * 0, "step": step},
+            closest.to("inch"),
+            source="detailing limit",
+            note="the required spacing is smaller: the joint is NG at this spacing",
+        )
+    util = float((q * prov / nF).to(""))
     log.add(
         "util",
         "Utilisation of the connector row at the practical spacing",

@@ -24,6 +24,7 @@ from ...solve.results import JobResult
 from ..fmt import Display
 from ..pdfmeta import KEY_MARKED_SINCE, job_metadata, seal_metadata
 from ..pdfmeta import stamp as stamp_info
+from .assumed import assumed_story
 from .common import Ctx, para
 from .cover import cover_story
 from .derivations import derivation_story
@@ -69,7 +70,11 @@ def report_sections(result: JobResult) -> list[tuple[str, str]]:
     out = [("cover", "Cover: summary, revision history and contents")]
     for i, m in enumerate(result.members, 1):
         out.append((f"member:{m.id}", f"{i}  Member {m.id} — {m.member.title}"))
-    out += [("signoff", "Review and sign-off"), ("limits", "Limitations and cautions")]
+    out += [
+        ("assumed", "Assumed values"),
+        ("signoff", "Review and sign-off"),
+        ("limits", "Limitations and cautions"),
+    ]
     return out
 
 
@@ -91,6 +96,9 @@ def _story(ctx: Ctx, info: PageInfo, sections: list[tuple[str, str]]) -> list:
         story += derivation_story(m, ctx, str(i))
         story += results_story(m, ctx)
         story += member_figures(m, ctx)
+    story.append(PageBreak())
+    story.append(SectionStart("assumed", "Assumed values", "Assumed values"))
+    story += assumed_story(ctx)
     story.append(PageBreak())
     story.append(SectionStart("signoff", "Review and sign-off", "Review and sign-off"))
     story += signoff_story(ctx)

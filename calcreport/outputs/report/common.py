@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+import re
 from collections.abc import Sequence
 from dataclasses import dataclass
 from typing import Any
@@ -22,6 +23,7 @@ __all__ = [
     "grid",
     "status_cell",
     "marked_cell",
+    "cited",
     "OK_COLOUR",
     "NG_COLOUR",
     "GOVERNS_TINT",
@@ -63,6 +65,23 @@ class Ctx:
     def q(self, v: Any, sig: int = 4) -> str:
         """Display text for a value, "—" for None."""
         return "—" if v is None else self.display.value(v, sig)
+
+
+_MEMORY = (
+    (re.compile(r"\(\s*from memory\s*[;,]\s*", re.I), "("),
+    (re.compile(r"\s*\(\s*from memory\s*\)", re.I), ""),
+    (re.compile(r"\s*[,;]\s*from memory\b", re.I), ""),
+    (re.compile(r"\s*\bfrom memory\b", re.I), ""),
+)
+
+
+def cited(text: str) -> str:
+    """A source as a report prints it: the clause only. How a value was checked ("from memory")
+    belongs in docs/sources.md, never in a report (project rule)."""
+    out = text or ""
+    for pattern, repl in _MEMORY:
+        out = pattern.sub(repl, out)
+    return out.strip()
 
 
 def para(text: object, style, markup: str = "") -> Paragraph:

@@ -7,6 +7,7 @@ import os
 from reportlab.platypus import Flowable, Paragraph, Spacer, Table, TableStyle
 
 from ...solve.results import MemberResult
+from ..scope_text import checked_line, not_checked_line, status_words
 from .common import Ctx, grid, para
 from .pages import GREY, PageInfo
 from .styles import esc
@@ -64,6 +65,10 @@ class SealBox(Flowable):
         form.fields.append(form.getRef(widget))
 
 
+def _cap(text: str) -> str:
+    return text[:1].upper() + text[1:]
+
+
 def governing_text(m: MemberResult, ctx: Ctx) -> str:
     """The member's highest utilisation (joint or check), described in words and numbers."""
     best = None  # (ratio, text)
@@ -87,7 +92,8 @@ def governing_text(m: MemberResult, ctx: Ctx) -> str:
             if c.ratio is not None or c.status == "NG":
                 ck = (c.status == "NG", c.ratio or 0.0)
                 if ck > best[0]:
-                    best = (ck, f"joint {j.id}: {c.label}, ratio {ctx.q(c.ratio, 3)}")
+                    note = f" — {c.note}" if c.status == "NG" and c.note else ""
+                    best = (ck, f"joint {j.id}: {c.label}, ratio {ctx.q(c.ratio, 3)}{note}")
     for c in m.checks:
         if c.ratio is not None or c.status == "NG":
             ck = (c.status == "NG", c.ratio or 0.0)
@@ -119,6 +125,18 @@ def _written_and_warnings(ctx: Ctx) -> list:
     return out
 
 
+def _scope_words(ctx: Ctx) -> str:
+    """ " — from the checks that ran; connectors only; 9 items not checked" (words, no computing)."""
+    members = ctx.result.members
+    n_out = sum(len(m.not_checked) for m in members)
+    parts = []
+    if members and all(m.connectors_only for m in members):
+        parts.append("connectors only")
+    if n_out:
+        parts.append(f"{n_out} item{'s' if n_out != 1 else ''} not checked (listed per member)")
+    return (" — " + "; ".join(parts)) if parts else ""
+
+
 def cover_story(ctx: Ctx, info: PageInfo, sections: list[tuple[str, str]]) -> list:
     st, job = ctx.styles, ctx.result.job
     h = job.header
@@ -133,7 +151,8 @@ def cover_story(ctx: Ctx, info: PageInfo, sections: list[tuple[str, str]]) -> li
         para(h.project, st.body),
         Paragraph(
             f'Overall result: <font color="{colour}"><b>{esc(status)}</b></font>'
-            + ("" if status == "OK" else " — see the members marked NG below"),
+            + ("" if status == "OK" else " — see the members marked NG below")
+            + esc(_scope_words(ctx)),
             st.body,
         ),
         Spacer(1, 4),
@@ -184,10 +203,21 @@ def cover_story(ctx: Ctx, info: PageInfo, sections: list[tuple[str, str]]) -> li
 
     story.append(Paragraph("Summary of members", st.h2))
     w = ctx.width
-    rows = [["Member", "Title", "Governing result", "Status"]]
+    rows = [["Member", "Title", "Governing result and scope", "Status"]]
     for m in ctx.result.members:
-        rows.append([m.id, m.member.title, governing_text(m, ctx), m.status])
-    story.append(grid(rows, [0.11 * w, 0.24 * w, 0.55 * w, 0.10 * w], st))
+        scope = f"{governing_text(m, ctx)}. {_cap(checked_line(m))}. {_cap(not_checked_line(m))}."
+        rows.append([m.id, m.member.title, scope, status_words(m)])
+    story.append(grid(rows, [0.10 * w, 0.18 * w, 0.56 * w, 0.16 * w], st))
+    n_out = sum(len(m.not_checked) for m in ctx.result.members)
+    if n_out:
+        story.append(
+            para(
+                f"A status rests only on the checks that ran. {n_out} item{'s' if n_out != 1 else ''} "
+                "a reviewer would expect were not checked; each member's results list them with the "
+                "reason, and the values the tool assumed are tabulated under 'Assumed values'.",
+                st.small,
+            )
+        )
 
     story.append(Paragraph("Revision history", st.h2))
     hist = [["Rev.", "Date", "By", "Description"]]

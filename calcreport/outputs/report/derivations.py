@@ -10,7 +10,7 @@ from reportlab.platypus import Paragraph
 
 from ...solve.results import MemberResult
 from ...steps import Step
-from .common import GOVERNS_TINT, Ctx, grid, heading, para
+from .common import GOVERNS_TINT, Ctx, cited, grid, heading, para
 from .styles import esc
 
 __all__ = ["derivation_story", "group_steps", "step_rows"]
@@ -67,9 +67,9 @@ def step_rows(steps: list[Step], ctx: Ctx, number_prefix: str) -> tuple[list[lis
             Paragraph(line, st.formula),
         ]
         if s.note:
-            body.append(para(s.note, st.caption))
+            body.append(para(cited(s.note), st.caption))
         num = ctx.mark(s.key) + [para(f"{number_prefix}{i}", st.cell)]
-        rows.append([num, body, para(s.source or "—", st.caption)])
+        rows.append([num, body, para(cited(s.source) or "—", st.caption)])
         if s.governs:
             extra.append(("BACKGROUND", (0, r), (-1, r), GOVERNS_TINT))
             extra.append(("LINEBEFORE", (0, r), (0, r), 2.0, ctx.styles.accent))

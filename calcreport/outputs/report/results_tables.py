@@ -5,10 +5,31 @@ from __future__ import annotations
 from reportlab.platypus import Paragraph
 
 from ...solve.results import Check, MemberResult
-from .common import Ctx, grid, heading, para
+from ..scope_text import checked_line, status_words
+from .common import Ctx, cited, grid, heading, para
 from .styles import esc
 
-__all__ = ["results_story", "checks_rows"]
+__all__ = ["results_story", "checks_rows", "scope_story"]
+
+
+def scope_story(m: MemberResult, ctx: Ctx) -> list:
+    """What was not checked for this member, with clause and reason (never silent)."""
+    st, w = ctx.styles, ctx.width
+    out: list = [*heading(f"Not checked ({len(m.not_checked)})", st.h3)]
+    if not m.not_checked:
+        out.append(para("Every check listed for this kind of member ran.", st.body))
+        return out
+    rows = [["Not checked", "Governing clause", "Why"]]
+    for u in m.not_checked:
+        rows.append([u.label[0].upper() + u.label[1:], cited(u.clause), cited(u.reason)])
+    out.append(grid(rows, [0.36 * w, 0.26 * w, 0.38 * w], st))
+    out.append(
+        para(
+            "These are not part of the status above; check them by hand or give the job what they need.",
+            st.small,
+        )
+    )
+    return out
 
 
 def _joint_rows(m: MemberResult, ctx: Ctx) -> list[list]:
@@ -39,9 +60,17 @@ def _joint_rows(m: MemberResult, ctx: Ctx) -> list[list]:
 def checks_rows(checks: list[tuple[str, Check]], ctx: Ctx) -> list[list]:
     rows = [["Where", "Check", "Demand", "Capacity", "Ratio", "Status", "Source"]]
     for where, c in checks:
-        label = c.label + (f" ({c.note})" if c.note else "")
+        label = c.label + (f" ({cited(c.note)})" if c.note else "")
         rows.append(
-            [where, label, ctx.q(c.demand), ctx.q(c.capacity), ctx.q(c.ratio, 3), c.status, c.source or "—"]
+            [
+                where,
+                label,
+                ctx.q(c.demand),
+                ctx.q(c.capacity),
+                ctx.q(c.ratio, 3),
+                c.status,
+                cited(c.source) or "—",
+            ]
         )
     return rows
 
@@ -80,8 +109,9 @@ def results_story(m: MemberResult, ctx: Ctx) -> list:
                 st,
             )
         )
+    out.extend(scope_story(m, ctx))
     out.append(
-        Paragraph(f"Member {esc(m.id)}: <b>{m.status}</b>", st.body)
+        Paragraph(f"Member {esc(m.id)}: <b>{esc(status_words(m))}</b> ({esc(checked_line(m))})", st.body)
         if m.status == "OK"
         else Paragraph(
             f'<font color="#b3261e"><b>Member {esc(m.id)}: NG — the member or its connection does not '

@@ -58,6 +58,8 @@ class JointContext:
     plane_width: Quantity  # total contact width b of the shear plane
     settings: Settings
     key: str  # job-file key path of the joint, for messages
+    parts: tuple[Part, ...] = ()  # every part of the member (what a fastener may pass beyond)
+    per_row: int = 1  # connectors side by side in one row across the plane
 
 
 def kinds() -> list[str]:

@@ -17,7 +17,7 @@ from ...steps import StepLog
 from ...units import Q_
 from ..results import Capacity, Check
 from . import ConnectorError
-from .shear_plane import find_contact, thickness_normal
+from .shear_plane import across_check, find_contact, thickness_normal
 
 KIND = "steel_bolt"
 SRC = "ANSI/AISC 360-16"
@@ -353,18 +353,17 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
         ),
     ]
     if c is not None:
-        half = (c.hi - c.lo) / 2
-        e = edge_min(d)
         checks.insert(
             0,
-            Check(
-                f"{key}.edge",
-                "Edge distance with one row centred in the contact",
-                Q_(e, "in"),
-                Q_(half, "in"),
-                e / half,
-                "OK" if half >= e - 1e-9 else "NG",
-                source=f"{SRC} Table J3.4 (from memory)",
+            across_check(
+                key,
+                c,
+                max(getattr(ctx, "per_row", 1), 1),
+                edge_min(d),
+                8 / 3 * d,
+                f"{SRC} Table J3.4 (from memory); §J3.3",
+                "Table J3.4 minimum edge distance",
+                "§J3.3 minimum spacing 2-2/3 d between bolts across the force",
             ),
         )
     return Capacity(

@@ -17,7 +17,7 @@ from __future__ import annotations
 from ...keys.connectors import CONNECTOR_FIELDS
 from ...model import ConnectorSpec
 from ...steps import StepLog
-from ...units import Q_, parse
+from ...units import Q_, Quantity, parse
 from ..results import Capacity, Check
 from . import ConnectorError
 from .shear_plane import extent_along, find_contact, plate_thickness, thickness_normal
@@ -306,18 +306,36 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
             source=f"{SRC} §J2.2b(c), (e)",
         )
     )
-    checks.append(
-        Check(
-            f"{key}.pitch_max",
-            "Maximum pitch of intermittent welds: no general limit for flexural "
-            "members; D4 / E6 limits for built-up tension / compression members not checked",
-            None,
-            None,
-            None,
-            "INFO",
-            source=f"{SRC} §J2.2b, D4, E6",
+    pitch_max = None
+    if form == "lap":
+        pitch_max = _stitch_pitch(log, t_thin, (held, other))
+        checks.append(
+            Check(
+                f"{key}.pitch_max",
+                "Maximum pitch of intermittent welds between plates in contact",
+                None,
+                pitch_max,
+                None,
+                "INFO",
+                source=f"{SRC} §D4, §E6.2(a)",
+                note="applied as the joint's maximum spacing; the lesser of the tension (D4) and "
+                "compression (E6.2) limits, as either face may be in compression",
+            )
         )
-    )
+    else:
+        checks.append(
+            Check(
+                f"{key}.pitch_max",
+                "Maximum pitch of intermittent welds",
+                None,
+                None,
+                None,
+                "INFO",
+                source=f"{SRC} §D4, §E6.2",
+                note="not checked: AISC 360-16 sets no maximum pitch for a stem welded to a plate in a "
+                "flexural member (D4 and E6.2 apply to plates in contact); the job's spacing_max governs",
+            )
+        )
     F = log.add(
         "F_segment",
         "Available strength of one segment group (one segment on each weld line)",
@@ -335,5 +353,42 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
         source=f"{SRC} §J2.4",
         checks=tuple(checks),
         spacing_min=seg.to("in"),
-        limits_source="pitch not less than the segment length (geometry)",
+        spacing_max=pitch_max,
+        limits_source="pitch not less than the segment length (geometry)"
+        + ("; maximum pitch AISC 360-16 §D4, §E6.2(a)" if pitch_max is not None else ""),
     )
+
+
+def _stitch_pitch(log: StepLog, t: float, parts) -> Quantity:
+    """Largest pitch of intermittent welds joining plates in contact: the lesser of
+    24·t ≤ 12 in (AISC 360-16 §D4, built-up tension members, painted or not subject to corrosion)
+    and 0.75·t·√(E/Fy) ≤ 12 in (§E6.2(a), built-up compression members, outside plate), t the
+    thinner plate. Weathering steel (14·t ≤ 7 in) is not modelled."""
+    tq = Q_(t, "in")
+    d4 = log.add(
+        "pitch_D4",
+        "Maximum pitch, plates in contact in tension",
+        "s_max = min(24·t, 12 in)",
+        "min(24 × {t}, 12 in)",
+        {"t": tq},
+        Q_(min(24 * t, 12.0), "in"),
+        source=f"{SRC} §D4 (from memory)",
+    )
+    fys = [p.material.Fy for p in parts if p.material.Fy is not None]
+    if not fys:
+        return d4
+    mat = max(
+        (p.material for p in parts if p.material.Fy is not None), key=lambda m: m.Fy.to("ksi").magnitude
+    )
+    ratio = float((mat.E / mat.Fy).to("").magnitude) ** 0.5
+    e6 = log.add(
+        "pitch_E6",
+        "Maximum pitch, outside plate in compression",
+        "s_max = min(0.75·t·√(E/Fy), 12 in)",
+        "min(0.75 × {t} × √({E} / {Fy}), 12 in)",
+        {"t": tq, "E": mat.E, "Fy": mat.Fy},
+        Q_(min(0.75 * t * ratio, 12.0), "in"),
+        source=f"{SRC} §E6.2(a) (from memory)",
+        note=f"Fy of {mat.id}, the higher-strength plate (the smaller limit)",
+    )
+    return min(d4, e6)

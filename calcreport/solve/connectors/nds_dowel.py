@@ -27,8 +27,10 @@ from ...steps import StepLog
 from ...units import Q_
 from ..results import Capacity, Check
 from . import ConnectorError
+from .shear_plane import across_check, find_contact, thickness_normal
 from .nds_catalog import species_g
 from .nds_factors import adjust
+from .nds_fit import fastener_fit
 from .nds_yield import (
     NDS,
     fe_parallel,
@@ -39,7 +41,6 @@ from .nds_yield import (
     log_yield_modes,
     yield_modes,
 )
-from .shear_plane import find_contact, thickness_normal
 
 __all__ = ["Fastener", "design_dowel", "screw_diameters"]
 
@@ -287,6 +288,7 @@ def design_dowel(
         )
     checks: list[Check] = []
     D = f.D
+    faces = 1
     if f.L is None:
         ls, lm = ts, tm
         log.add(
@@ -309,9 +311,11 @@ def design_dowel(
             source=f"{NDS} §12.3.5",
         )
     else:
+        faces = fastener_fit(log, p, ctx, c, side, main, ts, tm, f.L, planes, key, checks, f.kind == "nail")
         if planes == 1:
-            pen = f.L - ts
-            tmpl, vals = "{L} − {ts}", {"L": Q_(f.L, "in"), "ts": Q_(ts, "in")}
+            pen = min(f.L - ts, tm) if f.L - ts > 0 else f.L - ts
+            tmpl = "min({L} − {ts}, {tm})"
+            vals = {"L": Q_(f.L, "in"), "ts": Q_(ts, "in"), "tm": Q_(tm, "in")}
         else:
             pen = f.L - ts - tm
             tmpl, vals = "{L} − {ts} − {tm}", {"L": Q_(f.L, "in"), "ts": Q_(ts, "in"), "tm": Q_(tm, "in")}
@@ -324,11 +328,14 @@ def design_dowel(
         log.add(
             "p",
             "Penetration into the " + ("main" if planes == 1 else "far side") + " member",
-            "p = L − ts" if planes == 1 else "p = L − ts − tm",
+            "p = min(L − ts, tm)" if planes == 1 else "p = L − ts − tm",
             tmpl,
             vals,
             Q_(pen, "in"),
-            source="geometry",
+            source="geometry" if planes != 1 else f"{NDS} §12.3.5 (penetration within the main member)",
+            note="the point continues beyond the main member; only tm bears in it"
+            if planes == 1 and f.L - ts > tm + 1e-9
+            else "",
         )
         pmin = f.min_pen * D
         checks.append(
@@ -345,14 +352,14 @@ def design_dowel(
             )
         )
         if planes == 1:
-            lm = min(pen - f.tip, tm)
+            lm = min(f.L - ts - f.tip, tm)
             ls = ts
             log.add(
                 "lm",
                 "Dowel bearing length in the main member",
-                "lm = min(p − E, tm)",
-                "min({p} − {E}, {tm})",
-                {"p": Q_(pen, "in"), "E": Q_(f.tip, "in"), "tm": Q_(tm, "in")},
+                "lm = min(L − ts − E, tm)",
+                "min({L} − {ts} − {E}, {tm})",
+                {"L": Q_(f.L, "in"), "ts": Q_(ts, "in"), "E": Q_(f.tip, "in"), "tm": Q_(tm, "in")},
                 Q_(lm, "in"),
                 source=f"{NDS} §12.3.5",
                 note="E = tapered tip length" if f.tip else "no tip deduction for this fastener",
@@ -442,7 +449,8 @@ def design_dowel(
         toe_nail=toe_nail,
         diaphragm=diaphragm,
     )
-    smin, smax, lsrc = _detailing(checks, key, f, c, ls, lm, theta)
+    lines = -(-max(getattr(ctx, "per_row", 1), 1) // faces)  # per face, rounded up
+    smin, smax, lsrc = _detailing(checks, key, f, c, ls, lm, theta, lines)
     return Capacity(
         value=Q_(Zp, "lbf"),
         continuous=False,
@@ -456,8 +464,11 @@ def design_dowel(
     )
 
 
-def _detailing(checks: list[Check], key: str, f: Fastener, c, ls: float, lm: float, theta: float):
-    """Spacing, end and edge distance (NDS-2018 §12.5.1 for D ≥ 1/4 in; nails: common practice)."""
+def _detailing(
+    checks: list[Check], key: str, f: Fastener, c, ls: float, lm: float, theta: float, lines: int = 1
+):
+    """Spacing, end and edge distance (NDS-2018 §12.5.1 for D ≥ 1/4 in; nails: common practice).
+    ``lines``: fasteners of one row side by side across the contact (from one face)."""
     D = f.D
     half = (c.hi - c.lo) / 2.0 if c else None
     if D >= 0.25 and f.kind != "nail":
@@ -473,15 +484,8 @@ def _detailing(checks: list[Check], key: str, f: Fastener, c, ls: float, lm: flo
             edge, note = 4.0 * D, "loaded edge with load perpendicular to grain: 4D"
         if half is not None:
             checks.append(
-                Check(
-                    f"{key}.edge",
-                    "Edge distance with one row centred in the contact",
-                    Q_(edge, "in"),
-                    Q_(half, "in"),
-                    edge / half,
-                    "OK" if half >= edge - 1e-9 else "NG",
-                    source=src,
-                    note=note,
+                across_check(
+                    key, c, lines, edge, 1.5 * D, src, note, "Table 12.5.1D: 1.5D between rows, load parallel"
                 )
             )
         checks.append(
@@ -514,15 +518,15 @@ def _detailing(checks: list[Check], key: str, f: Fastener, c, ls: float, lm: flo
     edge = 5.0 * D
     if half is not None:
         checks.append(
-            Check(
-                f"{key}.edge",
-                "Edge distance with one row centred in the contact",
-                Q_(edge, "in"),
-                Q_(half, "in"),
-                edge / half,
-                "OK" if half >= edge - 1e-9 else "NG",
-                source=src,
-                note="5D (2.5D with pre-bored holes) to avoid splitting",
+            across_check(
+                key,
+                c,
+                lines,
+                edge,
+                5.0 * D,
+                src,
+                "5D (2.5D with pre-bored holes) to avoid splitting",
+                "5D across the grain, as for the edge distance; common practice, no source",
             )
         )
     checks.append(

@@ -25,7 +25,18 @@ from dataclasses import dataclass
 from ...model import Part
 from ...outlines import is_rectangle
 
-__all__ = ["Contact", "find_contact", "thickness_normal", "extent_along", "plate_thickness"]
+__all__ = [
+    "Contact",
+    "Layer",
+    "find_contact",
+    "thickness_normal",
+    "extent_along",
+    "plate_thickness",
+    "stack_beyond",
+    "opposite_faces",
+    "width_for_lines",
+    "across_check",
+]
 
 TOL = 1e-6
 
@@ -144,3 +155,137 @@ def plate_thickness(part: Part, c: Contact) -> float:
     its extent along the plane (a web standing on edge against a flange has thickness t_w along
     the plane). Source: geometry."""
     return min(thickness_normal(part, c), extent_along(part, c))
+
+
+@dataclass(frozen=True)
+class Layer:
+    """A part crossed by a fastener axis: from ``start`` to ``end``, distances from the shear plane
+    along the axis (in)."""
+
+    part: Part
+    start: float
+    end: float
+
+
+def _crossing(part: Part, c: Contact, t: float, direction: int) -> list[tuple[float, float]]:
+    """Where the line normal to the plane at position ``t`` along it crosses ``part``: intervals of
+    distance from the plane, measured in ``direction`` (+1 up or right, −1 down or left)."""
+    x0, y0, x1, y1 = part.shape.bbox
+    horizontal = c.orientation == "horizontal"
+    lo, hi = (x0, x1) if horizontal else (y0, y1)
+    if not lo - TOL < t < hi + TOL:
+        return []
+    if part.shape.kind == "polygon" and len(part.shape.vertices) >= 3 and not is_rectangle(part.shape):
+        from shapely.geometry import LineString, Polygon
+
+        reach = 4.0 * max(x1 - x0, y1 - y0) + abs(c.at) + 10.0
+        a, b = (t, c.at - reach), (t, c.at + reach)
+        line = LineString([a, b] if horizontal else [(a[1], a[0]), (b[1], b[0])])
+        inter = line.intersection(Polygon(part.shape.vertices))
+        out = []
+        for piece in getattr(inter, "geoms", [inter]):
+            coords = list(getattr(piece, "coords", []))
+            if len(coords) >= 2:
+                ds = [((p[1] if horizontal else p[0]) - c.at) * direction for p in coords]
+                out.append((min(ds), max(ds)))
+        return out
+    if part.shape.kind == "circle":
+        cx, cy = part.shape.centre
+        off = (t - cx) if horizontal else (t - cy)
+        if abs(off) >= part.shape.radius:
+            return []
+        half = (part.shape.radius**2 - off**2) ** 0.5
+        mid = ((cy if horizontal else cx) - c.at) * direction
+        return [(mid - half, mid + half)]
+    near, far = (y0, y1) if horizontal else (x0, x1)
+    da, db = (near - c.at) * direction, (far - c.at) * direction
+    return [(min(da, db), max(da, db))]
+
+
+def stack_beyond(parts: tuple[Part, ...], c: Contact, direction: int, t: float | None = None) -> list[Layer]:
+    """The parts a fastener driven across the plane of ``c`` in ``direction`` passes through, in
+    order: the material continuous with the plane along the axis at ``t`` (default: middle of the
+    contact), stopping at the first gap or the far face. Source: geometry of the placed parts.
+
+    Example:
+        >>> from calcreport.model import Part, Shape, Material
+        >>> from calcreport.units import Q_
+        >>> m = Material("w", "wood", Q_(1.6e6, "psi"))
+        >>> def r(i, x0, x1): return Part(i, Shape("polygon", (x0, 0, x1, 5.5)), m)
+        >>> web, fl, web2 = r("w", 0, 0.72), r("f", 0.72, 2.22), r("e", 2.22, 2.94)
+        >>> c = find_contact((fl,), (web,))
+        >>> [(L.part.id, round(L.end, 2)) for L in stack_beyond((web, fl, web2), c, +1)]
+        [('f', 1.5), ('e', 2.22)]
+    """
+    t = (c.lo + c.hi) / 2.0 if t is None else t
+    pieces: list[tuple[float, float, Part]] = []
+    for p in parts:
+        for d0, d1 in _crossing(p, c, t, direction):
+            if d1 > TOL:
+                pieces.append((max(d0, 0.0), d1, p))
+    pieces.sort(key=lambda x: (x[0], x[1]))
+    out: list[Layer] = []
+    reach = 0.0
+    for d0, d1, p in pieces:
+        if d0 > reach + 1e-6:
+            break
+        if d1 > reach + 1e-9:
+            out.append(Layer(p, max(d0, reach), d1))
+            reach = d1
+    return out
+
+
+def opposite_faces(main: Part, c: Contact, others: tuple[Part, ...]) -> list[tuple[Part, Contact]]:
+    """Parts among ``others`` that touch ``main`` on the face opposite the plane of ``c`` (same
+    orientation, overlapping ``c`` along the plane): fasteners may be driven from both faces.
+    Source: geometry."""
+    out = []
+    for o in others:
+        if o is c.held or o is c.other:
+            continue
+        oc = find_contact((main,), (o,))
+        if oc is None or oc.orientation != c.orientation or abs(oc.at - c.at) <= TOL:
+            continue
+        if min(oc.hi, c.hi) - max(oc.lo, c.lo) > TOL:
+            out.append((o, oc))
+    return out
+
+
+def width_for_lines(n: int, edge: float, spacing: float) -> float:
+    """Width a row of ``n`` fasteners across the contact needs: two edge distances and n − 1
+    spacings between lines, W = 2·e + (n − 1)·s (in). Source: geometry of the layout; the limits
+    e and s come from the connector's standard."""
+    return 2.0 * edge + max(n - 1, 0) * spacing
+
+
+def across_check(key: str, c, n: int, edge: float, spacing: float, source: str, note: str, across_note: str):
+    """The edge-distance check of a row of ``n`` fasteners across the contact of ``c``: with one,
+    the fastener centred (half the contact ≥ e); with several, the contact width against
+    W = 2·e + (n − 1)·s. Returns a :class:`calcreport.solve.results.Check`."""
+    from ...units import Q_
+    from ..results import Check
+
+    width = c.hi - c.lo
+    if n <= 1:
+        half = width / 2.0
+        return Check(
+            f"{key}.edge",
+            "Edge distance with one row centred in the contact",
+            Q_(edge, "in"),
+            Q_(half, "in"),
+            edge / half,
+            "OK" if half >= edge - 1e-9 else "NG",
+            source=source,
+            note=note,
+        )
+    need = width_for_lines(n, edge, spacing)
+    return Check(
+        f"{key}.edge",
+        f"Width for {n} fasteners across: 2·e + {n - 1}·s ≤ contact width",
+        Q_(need, "in"),
+        Q_(width, "in"),
+        need / width,
+        "OK" if width >= need - 1e-9 else "NG",
+        source=source,
+        note=f"e = {edge:.3g} in ({note}); s = {spacing:.3g} in between lines ({across_note})",
+    )
