@@ -56,17 +56,18 @@ def read_bytes(path: str) -> bytes:
         raise JobError(path, "", str(exc)) from None
 
 
-def load(path: str, warnings: TextIO | None = sys.stderr) -> Job:
+def load(path: str, warnings: TextIO | None | bool = True) -> Job:
     """Read and validate job file ``path`` (``-``: standard input). Keys without effect that the
-    reader lets pass with a warning are written to ``warnings`` (one line each; None: not shown —
-    they stay on ``Job.warnings`` for the report and JSON)."""
+    reader lets pass with a warning are written to ``warnings`` (one line each; True: standard
+    error; None or False: not shown — they stay on ``Job.warnings`` for the report and JSON)."""
     from .errors import one_line
     from .jobfile import load_text
 
     job = load_text(read_bytes(path), label_for(path))
-    if warnings is not None:
+    stream = sys.stderr if warnings is True else warnings
+    if stream:
         for w in job.warnings:
-            print(one_line(w.line_text(label_for(path))), file=warnings)
+            print(one_line(w.line_text(label_for(path))), file=stream)
     return job
 
 

@@ -15,7 +15,7 @@ from calcreport.errors import JobError
 from calcreport.pipeline import solve_bytes, solve_file
 
 ROOT = Path(__file__).resolve().parents[1]
-BAD_NAIL = ('size = "16d common"', 'size = "99d common"')  # not a nail size: refused while solving
+BAD_NAIL = ('size = "8d common"', 'size = "99d common"')  # not a nail size: refused while solving
 
 
 def demo_text() -> str:

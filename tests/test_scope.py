@@ -14,7 +14,7 @@ from pathlib import Path
 
 import pytest
 
-from calcreport.cli import solve_file
+from calcreport.pipeline import solve_file
 from calcreport.model import Material, Member, Part, Shape
 from calcreport.outputs.json_out import to_dict
 from calcreport.outputs.table import render_job
