@@ -19,6 +19,7 @@ from ..geometry import contact_segments, isolated_parts, overlapping_pairs
 from ..model import ConnectorSpec, Header, Job, Joint, Material, Member, Part, RevisionEntry, Settings
 from ..solve import connectors
 from ..units import parse
+from .design import read_design, read_panel, read_wood_keys
 from .lines import LineIndex
 from .parts import read_part
 from .reader import Source, Table
@@ -188,7 +189,12 @@ def _materials(root: Table) -> dict[str, Material]:
             fc=t.quantity("fc", "stress"),
             G=t.number("G", None, minimum=0.2, maximum=1.2),
             density=density,
-            extra={"Fs": t.quantity("Fs", "stress"), "grade": t.text("grade")},
+            extra={
+                "Fs": t.quantity("Fs", "stress"),
+                "grade": t.text("grade"),
+                **read_wood_keys(t),
+                "panel": read_panel(t, t.choice("family", FAMILIES, "other")),
+            },
         )
         t.done()
     if not out:
@@ -235,6 +241,7 @@ def _member(t: Table, materials: dict[str, Material], settings: Settings) -> Mem
         shear=shear,
         assumptions=t.texts("assumptions"),
         notes=t.texts("notes"),
+        design=read_design(t),
     )
     member = _loads_hook(t, member, settings)
     if member.shear is None and not member.loads and not member.self_weight:

@@ -46,6 +46,10 @@ def solve_member(member: Member, settings: Settings) -> MemberResult:
         V = _design_shear(member, log.child("shear"))
     joints = tuple(solve_joint(member, section, j, V, settings, log, beam) for j in member.joints)
     checks = _keyed(beam.checks, f"member[{member.id}]") if beam is not None else ()
+    from .member_checks import member_checks
+
+    more, not_checked = member_checks(member, section, beam, V, settings, log.child("member"))
+    checks = tuple(checks) + _keyed(more, f"member[{member.id}]")
     status = worst([j.status for j in joints] + [c.status for c in checks])
     return MemberResult(
         id=member.id,
@@ -57,6 +61,7 @@ def solve_member(member: Member, settings: Settings) -> MemberResult:
         steps=tuple(log.steps),
         status=status,
         beam=beam,
+        not_checked=not_checked,
     )
 
 

@@ -1,0 +1,123 @@
+"""Member-check inputs: the optional ``[member.design]`` table, and the wood and panel keys of a
+material.
+
+``[member.design]`` keys (all optional; a check that needs one that is missing is listed as not
+checked, or runs with a stated conservative default)::
+
+    [member.design]
+    unbraced_length = "6 ft 4 in"   # compression flange: Lb (steel, AISC 360-16 F) or ℓe (wood
+                                    # flanges, NDS 2018 §3.7); default the span (stated)
+    continuous_bracing = true       # the compression flange is braced along its length (Lb = 0)
+    Cb = 1.0                        # lateral-torsional buckling modification factor (default 1.0)
+    stiffener_spacing = "60 in"     # transverse web stiffeners, clear spacing a (AISC 360-16 G2)
+    bearing_length = "6 in"         # length of bearing lb at each support (AISC 360-16 J10.2/J10.3)
+    bearing_stiffeners = true       # bearing stiffeners at the supports (J10 checks then do not apply)
+
+Material keys read here: ``Ft``, ``Fc`` (wood tension and compression parallel to grain),
+``Emin`` (wood, for column stability), and for plywood the table ``[material.panel]`` with its
+published properties parallel to the span (see :func:`read_panel`).
+"""
+
+from __future__ import annotations
+
+from typing import Any
+
+from .reader import Table
+
+__all__ = ["read_design", "read_wood_keys", "read_panel", "DESIGN_KEYS", "PANEL_KEYS"]
+
+DESIGN_KEYS = (
+    "unbraced_length",
+    "continuous_bracing",
+    "Cb",
+    "stiffener_spacing",
+    "bearing_length",
+    "bearing_stiffeners",
+)
+PANEL_KEYS = ("table", "thickness", "thickness_effective", "A", "I", "Ib_Q", "Fv_tv", "Ft_A", "Fc_A")
+
+
+def read_design(t: Table) -> dict[str, Any]:
+    """The member's ``design`` table as typed values (empty when absent)."""
+    dt = t.table("design")
+    if dt is None:
+        return {}
+    dt.expect(DESIGN_KEYS)
+    out: dict[str, Any] = {}
+    q = dt.quantity("unbraced_length", "length")
+    if q is not None:
+        out["unbraced_length"] = q
+    if dt.has("continuous_bracing"):
+        out["continuous_bracing"] = dt.boolean("continuous_bracing")
+    if out.get("continuous_bracing") and "unbraced_length" in out:
+        raise dt.error(
+            "unbraced_length", "give either unbraced_length or continuous_bracing = true, not both"
+        )
+    cb = dt.number("Cb", None, minimum=1.0, maximum=3.0)
+    if cb is not None:
+        out["Cb"] = cb
+    for key in ("stiffener_spacing", "bearing_length"):
+        q = dt.quantity(key, "length")
+        if q is not None:
+            out[key] = q
+    if dt.has("bearing_stiffeners"):
+        out["bearing_stiffeners"] = dt.boolean("bearing_stiffeners")
+    dt.done()
+    return out
+
+
+def read_wood_keys(t: Table) -> dict[str, Any]:
+    """Ft, Fc and Emin of a material, when given (stresses)."""
+    return {k: t.quantity(k, "stress") for k in ("Ft", "Fc", "Emin")}
+
+
+def read_panel(t: Table, family: str) -> dict[str, Any] | None:
+    """``[material.panel]``: a layered panel's published properties parallel to the span, per foot
+    of panel width, and the table they come from.
+
+    * ``table`` (required) — where the values come from, e.g. "APA Panel Design Specification (2012),
+      Table 4" — printed beside every step that uses them;
+    * ``thickness`` (required) — the panel's nominal thickness as placed in the section;
+    * either ``thickness_effective`` — the thickness that gives the effective area and I, or
+      ``A`` (in²/ft), and optionally ``I`` (in⁴/ft, flatwise) and ``Ib_Q`` (in²/ft, rolling shear);
+    * ``Fv_tv`` — panel shear through the thickness (force per length of panel, e.g. "190 lbf/in");
+    * ``Ft_A``, ``Fc_A`` — axial tension and compression capacity (force per foot of width).
+    """
+    pt = t.table("panel")
+    if pt is None:
+        return None
+    if family != "plywood":
+        raise pt.error(None, f'a [material.panel] table needs family = "plywood", got {family!r}')
+    pt.expect(PANEL_KEYS)
+    out: dict[str, Any] = {
+        "table": pt.text("table", required=True),
+        "thickness": pt.quantity("thickness", "length", required=True),
+    }
+    teff = pt.quantity("thickness_effective", "length")
+    A = pt.quantity("A", "length")  # in²/ft has the dimension of a length
+    if (teff is None) == (A is None):
+        raise pt.error(
+            "A" if A is not None else None,
+            "give one of thickness_effective or A (effective area per foot of width)",
+        )
+    if teff is not None:
+        out["fraction"] = float((teff / out["thickness"]).to("").magnitude)
+        out["thickness_effective"] = teff
+    else:
+        out["A"] = A
+        out["fraction"] = float((A / out["thickness"]).to("").magnitude)
+    if not 0.0 < out["fraction"] <= 1.0 + 1e-9:
+        raise pt.error(
+            "thickness_effective" if teff is not None else "A",
+            "expected effective properties no larger than the gross panel's (fraction 0 to 1)",
+        )
+    for key, dim in (("I", "volume"), ("Ib_Q", "length")):  # in⁴/ft, in²/ft
+        q = pt.quantity(key, dim)
+        if q is not None:
+            out[key] = q
+    for key in ("Fv_tv", "Ft_A", "Fc_A"):
+        q = pt.quantity(key, "line_load")
+        if q is not None:
+            out[key] = q
+    pt.done()
+    return out
