@@ -5,9 +5,11 @@ material.
 checked, or runs with a stated conservative default)::
 
     [member.design]
-    unbraced_length = "6 ft 4 in"   # compression flange: Lb (steel, AISC 360-16 F) or ℓe (wood
-                                    # flanges, NDS 2018 §3.7); default the span (stated)
-    continuous_bracing = true       # the compression flange is braced along its length (Lb = 0)
+    unbraced_length = "76 in"       # top flange, when in compression: Lb (steel, AISC 360-16 F) or
+                                    # ℓe (wood flanges, NDS 2018 §3.7); default the span (stated)
+    continuous_bracing = true       # the top flange is braced along its length (Lb = 0)
+    bottom_unbraced_length = "48 in"   # the same for the bottom flange (negative moment)
+    bottom_continuous_bracing = true
     Cb = 1.0                        # lateral-torsional buckling modification factor (default 1.0)
     stiffener_spacing = "60 in"     # transverse web stiffeners, clear spacing a (AISC 360-16 G2)
     bearing_length = "6 in"         # length of bearing lb at each support (AISC 360-16 J10.2/J10.3)
@@ -29,12 +31,14 @@ __all__ = ["read_design", "read_wood_keys", "read_panel", "DESIGN_KEYS", "PANEL_
 DESIGN_KEYS = (
     "unbraced_length",
     "continuous_bracing",
+    "bottom_unbraced_length",
+    "bottom_continuous_bracing",
     "Cb",
     "stiffener_spacing",
     "bearing_length",
     "bearing_stiffeners",
 )
-PANEL_KEYS = ("table", "thickness", "thickness_effective", "A", "I", "Ib_Q", "Fv_tv", "Ft_A", "Fc_A")
+PANEL_KEYS = ("table", "thickness", "thickness_effective", "A", "I", "Ib_Q", "Fv_tv", "Gv_tv", "Ft_A", "Fc_A")
 
 
 def read_design(t: Table) -> dict[str, Any]:
@@ -44,15 +48,17 @@ def read_design(t: Table) -> dict[str, Any]:
         return {}
     dt.expect(DESIGN_KEYS)
     out: dict[str, Any] = {}
-    q = dt.quantity("unbraced_length", "length")
-    if q is not None:
-        out["unbraced_length"] = q
-    if dt.has("continuous_bracing"):
-        out["continuous_bracing"] = dt.boolean("continuous_bracing")
-    if out.get("continuous_bracing") and "unbraced_length" in out:
-        raise dt.error(
-            "unbraced_length", "give either unbraced_length or continuous_bracing = true, not both"
-        )
+    for pre in ("", "bottom_"):
+        q = dt.quantity(f"{pre}unbraced_length", "length")
+        if q is not None:
+            out[f"{pre}unbraced_length"] = q
+        if dt.has(f"{pre}continuous_bracing"):
+            out[f"{pre}continuous_bracing"] = dt.boolean(f"{pre}continuous_bracing")
+        if out.get(f"{pre}continuous_bracing") and f"{pre}unbraced_length" in out:
+            raise dt.error(
+                f"{pre}unbraced_length",
+                f"give either {pre}unbraced_length or {pre}continuous_bracing = true, not both",
+            )
     cb = dt.number("Cb", None, minimum=1.0, maximum=3.0)
     if cb is not None:
         out["Cb"] = cb
@@ -81,6 +87,7 @@ def read_panel(t: Table, family: str) -> dict[str, Any] | None:
     * either ``thickness_effective`` — the thickness that gives the effective area and I, or
       ``A`` (in²/ft), and optionally ``I`` (in⁴/ft, flatwise) and ``Ib_Q`` (in²/ft, rolling shear);
     * ``Fv_tv`` — panel shear through the thickness (force per length of panel, e.g. "190 lbf/in");
+    * ``Gv_tv`` — panel shear rigidity through the thickness (force per length, for shear deflection);
     * ``Ft_A``, ``Fc_A`` — axial tension and compression capacity (force per foot of width).
     """
     pt = t.table("panel")
@@ -115,7 +122,7 @@ def read_panel(t: Table, family: str) -> dict[str, Any] | None:
         q = pt.quantity(key, dim)
         if q is not None:
             out[key] = q
-    for key in ("Fv_tv", "Ft_A", "Fc_A"):
+    for key in ("Fv_tv", "Gv_tv", "Ft_A", "Fc_A"):
         q = pt.quantity(key, "line_load")
         if q is not None:
             out[key] = q

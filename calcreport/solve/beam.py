@@ -333,6 +333,7 @@ def analyse(
         "keys": keys,
         "v": v,
         "V": V,
+        "M": M,
         "EI": EIf,
         "patterns": patterns,
         "seg_mask": seg_mask,

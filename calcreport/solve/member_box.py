@@ -1,3 +1,288 @@
-"""placeholder"""
-def box_checks(member, section, beam, V, settings, log):
-    return [], []
+"""Member checks of wood box and I-beams with panel (plywood) webs.
+
+* Flanges are axial members: the stress from M·y/I at the flange centroid (and at its extreme
+  fibre) against Ft′ (tension) and Fc′ (compression, with CP for the flange's unbraced length, or
+  CP = 1 where the job states continuous bracing) — NDS 2018 §3.6–3.8 and Table 4.3.1, with C_D
+  (or λ) of each load combination.
+* Webs: panel shear through the thickness at the neutral axis, v = V·Q/(I·n_webs) against the
+  panel's Fv·tv (APA Panel Design Specification; load duration per NDS 2018 §2.3.2).
+* Deflection with the shear deformation of the webs added (G·Av = Σ Gv·tv·h of the webs).
+* Flange and web splices are not designed (listed as not checked).
+
+Factors the tool assumes (CM = Ct = 1.0, CF = 1.0 where the lumber is 12 in wide or less) are
+stated in the steps; what the job does not give is returned as :class:`Unchecked`.
+"""
+
+from __future__ import annotations
+
+import numpy as np
+
+from ..model import Member, Part, Settings
+from ..steps import StepLog
+from ..units import Q_, Quantity
+from .bracing import unbraced_length
+from .checks_wood import Adjust, adjusted, axial_check, column_stability, combined_check, panel_shear_check
+from .combinations import duration_factor, time_effect
+from .results import Check, SectionResult, Unchecked
+from .section import first_moment_above
+
+__all__ = ["box_checks", "combination_extremes"]
+
+NDS = "NDS 2018"
+ASSUMED = "assumed: CM = 1.0 (dry service), Ct = 1.0 (T ≤ 100 °F) — not stated in the job"
+
+
+def combination_extremes(beam, method: str) -> list[tuple[str, float, np.ndarray, np.ndarray]]:
+    """For every combination and span pattern: its name, C_D (ASD, NDS 2018 Table 2.3.2) or λ
+    (LRFD, Table N3) and its V(x), M(x) arrays (lbf, lbf·in)."""
+    from .beam import _coefficients
+    from .combinations import LIVE_TYPE
+
+    b = beam.analysis._basis
+    out = []
+    for cb in b["combinations"]:
+        f = time_effect(cb)[0] if method == "LRFD" else duration_factor(cb)[0]
+        live = any(c in LIVE_TYPE for c in cb.factors)
+        for pat in b["patterns"] if live else b["patterns"][:1]:
+            coef = _coefficients(b["keys"], cb.factors, pat)
+            name = cb.name if pat.name == "all" else f"{cb.name} [{pat.name}]"
+            out.append((name, f, b["V"] @ coef, b["M"] @ coef))
+    return out
+
+
+def _parts(member: Member) -> tuple[list[Part], list[Part]]:
+    flanges = [p for p in member.parts if p.material.family in ("wood", "glulam")]
+    webs = [p for p in member.parts if p.material.family == "plywood"]
+    return flanges, webs
+
+
+def _lateral_width(member: Member, y: float) -> float:
+    """Width of the section along the horizontal line at height y (in): the flange and the webs
+    fastened to it, which buckle laterally together."""
+    return sum(
+        p.shape.bbox[2] - p.shape.bbox[0] for p in member.parts if p.shape.bbox[1] < y < p.shape.bbox[3]
+    )
+
+
+def box_checks(
+    member: Member, section: SectionResult, beam, V: Quantity, settings: Settings, log: StepLog
+) -> tuple[list[Check], list[Unchecked]]:
+    """Checks and not-checked items of a wood member with plywood webs (see module docstring)."""
+    key = f"member[{member.id}]"
+    flanges, webs = _parts(member)
+    checks: list[Check] = []
+    out: list[Unchecked] = []
+    extremes = combination_extremes(beam, settings.method) if beam is not None else []
+    if beam is None:
+        out.append(Unchecked(f"{key}.flange_axial", "axial stress in the flanges (M·y/I against Ft and Fc)",
+                             f"{NDS} §3.6–3.8", "no moment: the job gives a shear only (give span and loads)"))  # fmt: skip
+    else:
+        for fl in flanges:
+            c, u = _flange(member, section, fl, extremes, settings, log.child(f"flange.{fl.id}"))
+            checks += c
+            out += u
+    c, u = _panel_shear(member, section, webs, V, extremes, settings, log.child("web_shear"))
+    checks += c
+    out += u
+    if beam is not None:
+        c, u = _shear_deflection(member, webs, beam, log.child("shear_deflection"))
+        checks += c
+        out += u
+    else:
+        out.append(Unchecked(f"{key}.shear_deflection", "deflection with the shear deformation of the webs",
+                             "mechanics of materials (G·Av of the webs)", "no loads along the member"))  # fmt: skip
+    out.append(Unchecked(f"{key}.splices", "flange and web splices", f"{NDS}; APA Panel Design Specification",
+                         "not designed by the tool (none are given)"))  # fmt: skip
+    out.append(Unchecked(f"{key}.web_axial", "bending stress in the plywood webs (in-plane)",
+                         "APA Panel Design Specification", "not implemented"))  # fmt: skip
+    return checks, out
+
+
+def _flange(member, section, fl: Part, extremes, settings, log) -> tuple[list[Check], list[Unchecked]]:
+    key = f"member[{member.id}].flange[{fl.id}]"
+    mat = fl.material
+    props = next(p for p in section.parts if p.id == fl.id)
+    bottom = float(section.bottom.to("in").magnitude)
+    ybar = float(section.centroid.to("in").magnitude)
+    yc = float(props.centroid_y.to("in").magnitude) - ybar
+    y0, y1 = fl.shape.bbox[1] - bottom - ybar, fl.shape.bbox[3] - bottom - ybar
+    cext = y1 if yc > 0 else -y0
+    above = yc > 0
+    I = section.inertia
+    n = props.n
+    Ft, Fc, Emin = mat.extra.get("Ft"), mat.extra.get("Fc"), mat.extra.get("Emin")
+    depth_lumber = max(fl.shape.bbox[2] - fl.shape.bbox[0], fl.shape.bbox[3] - fl.shape.bbox[1])
+    CF = 1.0
+    cf_note = "CF = 1.0 taken (not stated; the tabulated CF of lumber 12 in wide or less is ≥ 1.0)"
+    checks: list[Check] = []
+    out: list[Unchecked] = []
+    # moments putting this flange in tension / compression, per combination
+    senses = []
+    for name, cd, _V, M in extremes:
+        mpos, mneg = float(M.max()), float(-M.min())
+        senses.append((name, cd, mpos if not above else mneg, mneg if not above else mpos))
+    # (name, C_D, M giving tension, M giving compression)
+    if depth_lumber > 12.0 + 1e-6:
+        out.append(Unchecked(f"{key}.axial", f"axial stress in flange {fl.id}", f"{NDS} Supplement Table 4A (CF)",
+                             "lumber wider than 12 in: give the size factor (not implemented)"))  # fmt: skip
+        return checks, out
+    log.add("factors", f"Adjustment factors assumed for flange {fl.id}", "CM, Ct, CF", "{CM}, {Ct}, {CF}",
+            {"CM": 1.0, "Ct": 1.0, "CF": CF}, "1.0, 1.0, 1.0", source=f"{NDS} Table 4.3.1",
+            note=ASSUMED + "; " + cf_note)  # fmt: skip
+    for which, F, idx in (("tension", Ft, 2), ("compression", Fc, 3)):
+        worst = max(senses, key=lambda s: s[idx] / s[1], default=None)
+        if worst is None or worst[idx] <= 0:
+            continue
+        if F is None:
+            out.append(Unchecked(f"{key}.{which}", f"{which} stress in flange {fl.id}",
+                                 f"{NDS} §3.{8 if which == 'tension' else 6}",
+                                 f"no {'Ft' if which == 'tension' else 'Fc'} given for material {mat.id}"))  # fmt: skip
+            continue
+        name, cd, M = worst[0], worst[1], Q_(worst[idx], "lbf*inch")
+        slog = log.child(which)
+        a = Adjust(CD=cd, CF=CF, method=settings.method)
+        CP = None
+        if which == "compression":
+            Lu = unbraced_length(member, "top" if above else "bottom", slog, "le", f"{NDS} §3.7.1")
+            if Lu is None:
+                continue
+            if Lu > 0:
+                if Emin is None:
+                    out.append(Unchecked(f"{key}.compression", f"compression stress in flange {fl.id}",
+                                         f"{NDS} §3.7", f"no Emin given for material {mat.id} (for CP)"))  # fmt: skip
+                    continue
+                yline = (fl.shape.bbox[1] + fl.shape.bbox[3]) / 2
+                d = Q_(_lateral_width(member, yline), "in")
+                le = Q_(Lu, "in")
+                slog.add("d", f"Lateral dimension of the compression chord at flange {fl.id}", "d",
+                         "{d}", {"d": d}, d, source="geometry of the placed parts",
+                         note="flange and the webs fastened to it buckle laterally together")  # fmt: skip
+                slend = float((le / d).to("").magnitude)
+                checks.append(Check(f"{key}.slenderness", f"Slenderness ℓe/d of flange {fl.id} (≤ 50)",
+                                    round(slend, 2), 50.0, slend / 50.0, "OK" if slend <= 50 else "NG",
+                                    f"{NDS} §3.7.1.4"))  # fmt: skip
+                Fc_star = adjusted("Fc", f"Fc* of flange {fl.id} (before CP), {name}", F, a, slog)
+                Emin_adj = adjusted(
+                    "Emin", f"Emin′ of flange {fl.id}", Emin, Adjust(1.0, method=settings.method), slog
+                )
+                CP = column_stability(Fc_star, Emin_adj, le, d, slog)
+            else:
+                CP = 1.0
+        Fadj = adjusted("Fc" if which == "compression" else "Ft",
+                        f"Adjusted {which} design value of flange {fl.id}, {name}", F, a, slog, CP)  # fmt: skip
+        stress = {}
+        for where, y in (("centroid", abs(yc)), ("extreme", abs(cext))):
+            stress[where] = slog.add(
+                f"f_{where}", f"Stress in flange {fl.id} at its {'centroid' if where == 'centroid' else 'extreme fibre'}, {name}",
+                "f = n·M·y / I", "{n} × {M} × {y} / {I}", {"n": n, "M": M, "y": Q_(y, "in"), "I": I},
+                (n * M * Q_(y, "in") / I).to("psi"), source="mechanics of materials (flexure formula)")  # fmt: skip
+        clause = f"{NDS} §3.8.1" if which == "tension" else f"{NDS} §3.6.3, §3.7.1"
+        checks.append(axial_check(f"{key}.{which}", f"Flange {fl.id} axial {which} at its centroid ({name})",
+                                  stress["centroid"], Fadj, clause,
+                                  note="C_P applied" if CP not in (None, 1.0) else ""))  # fmt: skip
+        if mat.Fb is None:
+            out.append(Unchecked(f"{key}.{which}_combined", f"combined axial {which} and bending in flange {fl.id}",
+                                 f"{NDS} §3.9", f"no Fb given for material {mat.id}"))  # fmt: skip
+            continue
+        fb = slog.add("fb", f"Bending part of the stress across flange {fl.id}", "fb = f_extreme − f_centroid",
+                      "{e} − {c}", {"e": stress["extreme"], "c": stress["centroid"]},
+                      (stress["extreme"] - stress["centroid"]).to("psi"), source="mechanics of materials")  # fmt: skip
+        Fb_adj = adjusted("Fb", f"Adjusted bending design value of flange {fl.id} (CL = 1.0), {name}",
+                          mat.Fb, a, slog)  # fmt: skip
+        checks.append(combined_check(f"{key}.{which}_combined", fl.id, which, stress["centroid"], Fadj, fb,
+                                     Fb_adj, name, slog))  # fmt: skip
+    return checks, out
+
+
+def _panel_shear(member, section, webs, V, extremes, settings, log) -> tuple[list[Check], list[Unchecked]]:
+    key = f"member[{member.id}].web_panel_shear"
+    y = float(section.centroid.to("in").magnitude) + float(section.bottom.to("in").magnitude)
+    cut = [p for p in webs if p.shape.bbox[1] < y < p.shape.bbox[3]]
+    panels = [p.material.extra.get("panel") for p in cut]
+    if not cut or any(pn is None or "Fv_tv" not in pn for pn in panels):
+        return [], [Unchecked(key, "panel shear through the thickness of the webs", "APA Panel Design Specification",
+                              "no [material.panel] Fv_tv given for the web panels")]  # fmt: skip
+    Fvtv = min((pn["Fv_tv"] for pn in panels), key=lambda q: float(q.to("lbf/in").magnitude))
+    src = f"{panels[0]['table']} (stated in the job file); {NDS} §2.3.2"
+    Q = Q_(abs(first_moment_above(member, section, float(section.centroid.to("in").magnitude))), "inch**3")
+    if extremes:
+        name, cd, Vc, _ = max(extremes, key=lambda e: float(np.abs(e[2]).max()) / e[1])
+        Vd = Q_(float(np.abs(Vc).max()), "lbf")
+        note = f"governed by {name}"
+    else:
+        cd = settings.load_duration or 1.0
+        Vd, note = (
+            V,
+            (
+                "C_D from settings.load_duration"
+                if settings.load_duration
+                else "assumed: C_D = 1.0 (normal load duration; settings.load_duration not given)"
+            ),
+        )
+    log.add("V", "Design shear for the web panels", "V", "{V}", {"V": Vd}, Vd.to("lbf"), source="beam analysis"
+            if extremes else "stated in the job file", note=note)  # fmt: skip
+    return [panel_shear_check(key, Vd, Q, section.inertia, len(cut), Fvtv, cd, settings.method, src, log)], []
+
+
+def _shear_deflection(member, webs, beam, log) -> tuple[list[Check], list[Unchecked]]:
+    """Δ = Δ_bending + Δ_shear, Δ_shear(x) = [M(x) − M_chord(x)]/(G·Av) within each span between
+    supports (M_chord: the straight line between the moments at the span's supports) — the shear
+    deformation of the webs, from dΔs/dx = V/(G·Av) (mechanics of materials, Timoshenko beam;
+    moments from the bending analysis). Largest Δb and largest Δs are added (conservative)."""
+    from .beam import _coefficients
+    from .checks import SOURCE_DEFLECTION
+
+    key = f"member[{member.id}].shear_deflection"
+    panels = [p.material.extra.get("panel") for p in webs]
+    if not webs or any(pn is None or "Gv_tv" not in pn for pn in panels):
+        return [], [Unchecked(key, "deflection with the shear deformation of the webs",
+                              "mechanics of materials (G·Av of the webs)",
+                              "no [material.panel] Gv_tv given for the web panels")]  # fmt: skip
+    GA = sum(
+        (pn["Gv_tv"] * Q_(p.shape.bbox[3] - p.shape.bbox[1], "in")).to("lbf") for p, pn in zip(webs, panels)
+    )
+    GA = log.add("GAv", "Shear rigidity of the webs", "G·Av = Σ Gv·tv·h", "{GA}", {"GA": GA}, GA,
+                 source=f"{panels[0]['table']} (stated in the job file)")  # fmt: skip
+    an = beam.analysis
+    b = an._basis
+    x = an.envelope.x.to("in").magnitude
+    out: list[Check] = []
+    names = [d.name for d in an.cases]
+    for lim_key, ratio in beam.deflection_limits.items():
+        if lim_key == "total":
+            variable = [c for c in names if c not in ("D", "W")]
+            sets = [{"D": 1.0, c: 1.0} for c in variable] or [{"D": 1.0}]
+        elif lim_key in names:
+            sets = [{lim_key: 1.0}]
+        else:
+            continue
+        for seg in an.segments:
+            if seg.kind != "span":
+                continue
+            a_, z_ = float(seg.start.to("in").magnitude), float(seg.end.to("in").magnitude)
+            mask = (x >= a_ - 1e-9) & (x <= z_ + 1e-9)
+            worst_b, worst_s, label = 0.0, 0.0, ""
+            for factors in sets:
+                db = float(an.deflection_max(factors, seg.index).to("in").magnitude)
+                ds = 0.0
+                for pat in b["patterns"]:
+                    M = b["M"][mask] @ _coefficients(b["keys"], factors, pat)
+                    xs = x[mask]
+                    chord = M[0] + (M[-1] - M[0]) * (xs - xs[0]) / max(xs[-1] - xs[0], 1e-9)
+                    ds = max(ds, float(np.abs(M - chord).max()) / float(GA.to("lbf").magnitude))
+                if db + ds > worst_b + worst_s:
+                    worst_b, worst_s, label = db, ds, " + ".join(factors)
+            slog = log.child(f"{lim_key}.segment{seg.index + 1}")
+            ds_q = slog.add("ds", f"Shear deflection of the webs, {label} (span {seg.index + 1})",
+                            "Δs = max |M − M_chord| / (G·Av)", "{GA}", {"GA": GA}, Q_(worst_s, "in"),
+                            source="mechanics of materials (shear deformation, dΔs/dx = V/(G·Av))")  # fmt: skip
+            total = slog.add("dt", f"Deflection with shear deformation, {label} (span {seg.index + 1})",
+                             "Δ = Δb + Δs", "{b} + {s}", {"b": Q_(worst_b, "in"), "s": ds_q},
+                             Q_(worst_b + worst_s, "in"), source="mechanics of materials")  # fmt: skip
+            allow = (seg.length / ratio).to("in")
+            r = float((total / allow).to("").magnitude)
+            what = "total load" if lim_key == "total" else f"load case {lim_key}"
+            out.append(Check(f"{key}.{lim_key}.segment{seg.index + 1}",
+                             f"Deflection with web shear deformation, {what} (span {seg.index + 1})",
+                             total, allow, r, "OK" if r <= 1 + 1e-9 else "NG", SOURCE_DEFLECTION))  # fmt: skip
+    return out, []

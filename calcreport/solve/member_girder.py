@@ -11,6 +11,7 @@ from __future__ import annotations
 from ..model import Member, Settings
 from ..steps import StepLog
 from ..units import Q_, Quantity
+from .bracing import unbraced_length
 from .checks_steel import flexure_check, flexure_strength
 from .checks_steel_web import web_crippling, web_proportions, web_shear, web_yielding
 from .results import Check, Unchecked
@@ -19,29 +20,6 @@ from .steel_section import IGirder, find_girder, girder_properties
 __all__ = ["girder_checks"]
 
 SRC = "AISC 360-16"
-
-
-def _lb(member: Member, log: StepLog) -> float | None:
-    """Unbraced length of the compression flange Lb (in): the job's, 0 with continuous bracing,
-    else the span (conservative, stated)."""
-    d = member.design
-    if d.get("continuous_bracing"):
-        val, note, src = (
-            0.0,
-            "compression flange braced continuously (stated in the job)",
-            "stated in the job file",
-        )
-    elif "unbraced_length" in d:
-        val, note, src = float(d["unbraced_length"].to("in").magnitude), "", "stated in the job file"
-    elif member.span is not None:
-        val = float(member.span.to("in").magnitude)
-        note = "assumed: no unbraced_length in [member.design]; the whole span taken as unbraced"
-        src = "assumed by the tool (conservative)"
-    else:
-        return None
-    log.add("Lb", "Unbraced length of the compression flange", "Lb", "{Lb}", {"Lb": Q_(val, "in").to("ft")},
-            Q_(val, "in").to("ft"), source=src, note=note, positions=("Lb", "result"))  # fmt: skip
-    return val
 
 
 def _cb(member: Member, log: StepLog) -> float:
@@ -105,12 +83,14 @@ def girder_checks(
         Mpos = float(env.M_max.to("kip*inch").magnitude.max())
         Mneg = float(-env.M_min.to("kip*inch").magnitude.min())
         flog = log.child("flexure")
-        Lb = _lb(member, flog)
         Cb = _cb(member, flog)
         for sense, Mu, comp in (("positive", Mpos, "top"), ("negative", Mneg, "bottom")):
-            if Mu <= 1e-9 or Lb is None:
+            if Mu <= 1e-9:
                 continue
             slog = flog.child(sense)
+            Lb = unbraced_length(member, comp, slog, "Lb", f"{SRC} §F1")
+            if Lb is None:
+                continue
             p = girder_properties(g, comp)
             slog.add("Mu", f"Required flexural strength, {sense} moment ({comp} flange in compression)",
                      "M_r = max over combinations", "{M}", {"M": Q_(Mu, "kip*inch").to("kip*ft")},

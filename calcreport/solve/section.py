@@ -119,6 +119,13 @@ def section_properties(member: Member, log: StepLog) -> SectionResult:
         A = plog.add(
             "A", f"Area of part {part.id}", sym, tpl, vals, Q_(sp.area, "inch**2"), source="geometry"
         )
+        A_gross = None
+        panel = part.material.extra.get("panel") if part.material.extra else None
+        if panel:
+            from .panel import effective_panel
+
+            A_gross = A
+            A, I_eff = effective_panel(part, panel, A, Q_(sp.inertia, "inch**4"), plog)
         n = plog.add(
             "n",
             f"Modular ratio of part {part.id}",
@@ -138,17 +145,20 @@ def section_properties(member: Member, log: StepLog) -> SectionResult:
             source="geometry",
         )
         sym, tpl, vals = _inertia_formula(part)
-        I0 = plog.add(
-            "I0",
-            f"Own moment of inertia of part {part.id}",
-            sym,
-            tpl,
-            vals,
-            Q_(sp.inertia, "inch**4"),
-            source="geometry",
-        )
+        if A_gross is None:
+            I0 = plog.add(
+                "I0",
+                f"Own moment of inertia of part {part.id}",
+                sym,
+                tpl,
+                vals,
+                Q_(sp.inertia, "inch**4"),
+                source="geometry",
+            )
+        else:
+            I0 = I_eff
         w, h = part.shape.bbox[2] - part.shape.bbox[0], part.shape.bbox[3] - part.shape.bbox[1]
-        props.append(PartProps(part.id, A, n, A * n, y, I0, Q_(h, "inch"), Q_(w, "inch")))
+        props.append(PartProps(part.id, A, n, A * n, y, I0, Q_(h, "inch"), Q_(w, "inch"), A_gross))
         sums_A.append(A * n)
         sums_Ay.append(A * n * y)
     slots_A = {f"nA{i + 1}": p.area_transformed for i, p in enumerate(props)}
@@ -239,6 +249,13 @@ def first_moment(section: SectionResult, held: tuple[str, ...], log: StepLog):
     )
 
 
+def _fraction(p: PartProps) -> float:
+    """Effective area over gross area (1 except for layered panels)."""
+    if p.area_gross is None:
+        return 1.0
+    return float((p.area / p.area_gross).to("").magnitude)
+
+
 def first_moment_above(member: Member, section: SectionResult, y_cut: float) -> float:
     """Q (in³, transformed) of everything above the horizontal line at height ``y_cut`` (inches above
     the section's bottom), about the neutral axis. Rolled parts given by properties cannot be cut
@@ -252,7 +269,7 @@ def first_moment_above(member: Member, section: SectionResult, y_cut: float) -> 
     ybar = float(section.centroid.to("inch").magnitude) + bottom
     y_abs = y_cut + bottom
     total = 0.0
-    n_by_id = {p.id: p.n for p in section.parts}
+    n_by_id = {p.id: p.n * _fraction(p) for p in section.parts}
     for part in member.parts:
         x0, y0, x1, y1 = part.shape.bbox
         if y0 >= y_abs:
