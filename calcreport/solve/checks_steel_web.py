@@ -59,7 +59,7 @@ def web_shear(
         "kv = 5.34" if kv == 5.34 else "kv = 5 + 5/(a/h)²",
         "{why}" if kv == 5.34 else "5 + 5 / ({a} / {h})²",
         {"why": why} if kv == 5.34 else {"a": Q_(a, "in"), "h": Q_(p.h, "in")},
-        round(kv, 4),
+        kv,
         source=f"{SRC} §G2.1(b)(2), Eq. G2-5",
     )
     Cv1 = log.add(
@@ -68,7 +68,7 @@ def web_shear(
         "Cv1 = 1.0 if h/tw ≤ 1.10√(kv·E/Fy), else 1.10√(kv·E/Fy)/(h/tw)",
         "h/tw = {r}, 1.10√(kv·E/Fy) = {lim}",
         {"r": round(h_tw, 2), "lim": round(1.10 * math.sqrt(kv * E / Fy), 2)},
-        round(shear_coefficient(h_tw, kv, E, Fy), 4),
+        shear_coefficient(h_tw, kv, E, Fy),
         source=f"{SRC} Eqs. G2-3, G2-4",
     )
     Aw = p.d * p.tw

@@ -65,13 +65,13 @@ def adjusted(
             "CM": a.CM,
             "Ct": a.Ct,
             "CF": a.CF,
-            "CP": round(cp, 4),
+            "CP": cp,
         }
     else:
         val = F * a.CD * a.CM * a.Ct * a.CF * cp
         sym = f"{name}′ = {name}·CD·CM·Ct·CF" + ("·CP" if CP is not None else "")
         tpl = "{F} × {CD} × {CM} × {Ct} × {CF}" + (" × {CP}" if CP is not None else "")
-        vals = {"F": F, "CD": a.CD, "CM": a.CM, "Ct": a.Ct, "CF": a.CF, "CP": round(cp, 4)}
+        vals = {"F": F, "CD": a.CD, "CM": a.CM, "Ct": a.Ct, "CF": a.CF, "CP": cp}
     return log.add(
         f"{name}_adj",
         label,
@@ -114,7 +114,7 @@ def column_stability(
         "CP = (1 + FcE/Fc*)/(2c) − √([(1 + FcE/Fc*)/(2c)]² − (FcE/Fc*)/c)",
         "FcE/Fc* = {a}, c = {c}",
         {"a": round(a, 4), "c": c},
-        round(cp, 4),
+        cp,
         source=f"{NDS} Eq. 3.7-1",
     )
 

@@ -59,7 +59,7 @@ def effective_panel(
         f_sym,
         f_tpl,
         f_vals,
-        round(f, 4),
+        f,
         source=src,
         note="only the plies with grain along the span carry bending stress",
     )
@@ -69,7 +69,7 @@ def effective_panel(
             f"Effective area of panel part {part.id} (on edge)",
             "A_eff = f·A",
             "{f} × {A}",
-            {"f": round(f, 4), "A": A},
+            {"f": f, "A": A},
             (f * A).to("inch**2"),
             source=src,
         )
@@ -78,7 +78,7 @@ def effective_panel(
             f"Effective own moment of inertia of panel part {part.id} (bent in its plane)",
             "I₀,eff = f·t·h³/12",
             "{f} × {I}",
-            {"f": round(f, 4), "I": I0},
+            {"f": f, "I": I0},
             (f * I0).to("inch**4"),
             source=src,
         )
@@ -90,7 +90,7 @@ def effective_panel(
         f"Effective area of panel part {part.id} (flat)",
         "A_eff = f·A",
         "{f} × {A}",
-        {"f": round(f, 4), "A": A},
+        {"f": f, "A": A},
         (f * A).to("inch**2"),
         source=src,
     )
@@ -110,7 +110,7 @@ def effective_panel(
             f"Effective own moment of inertia of panel part {part.id} (flatwise)",
             "I₀,eff = f·I₀",
             "{f} × {I}",
-            {"f": round(f, 4), "I": I0},
+            {"f": f, "I": I0},
             (f * I0).to("inch**4"),
             source=src,
             note="no flatwise I in [material.panel]: the area fraction is used (approximate)",
