@@ -50,7 +50,8 @@ def effective_panel(
     how = panel_orientation(part, panel)
     t = panel["thickness"]
     if "A" in panel:
-        f_sym, f_tpl, f_vals = "f = A_panel / t", "{A} / {t}", {"A": panel["A"], "t": t}
+        A_ft = float(panel["A"].to("inch**2/ft").magnitude)
+        f_sym, f_tpl, f_vals = "f = A_panel / (12 in/ft · t)", "{A} in²/ft / (12 in/ft × {t})", {"A": A_ft, "t": t}
     else:
         f_sym, f_tpl, f_vals = "f = t_eff / t", "{te} / {t}", {"te": panel["thickness_effective"], "t": t}
     log.add(
