@@ -121,3 +121,80 @@ def test_designation_with_typed_properties_refused():
 
     with pytest.raises(JobError, match="takes its properties from the AISC Shapes Database"):
         load_text(job('designation = "W21X50"\ninertia = "984 in^4"').encode())
+
+
+COVER = """
+[job]
+project = "test"
+[settings]
+method = "LRFD"
+[[material]]
+id = "s"
+family = "steel"
+E = "29000 ksi"
+Fy = "50 ksi"
+Fu = "65 ksi"
+[[member]]
+id = "C"
+span = "30 ft"
+[member.design]
+continuous_bracing = true
+{end}
+[[member.load]]
+case = "D"
+kind = "uniform"
+w = "1.2 klf"
+[[member.load]]
+case = "L"
+kind = "uniform"
+w = "1.6 klf"
+[[member.part]]
+id = "cp"
+shape = "plate"
+width = "8 in"
+thickness = "3/4 in"
+material = "s"
+[[member.part]]
+id = "w"
+shape = "rolled"
+designation = "W21X50"
+material = "s"
+on = "cp"
+[[member.joint]]
+id = "j"
+holds = ["cp"]
+[member.joint.connector]
+type = "fillet_weld"
+size = "5/16 in"
+welds = 2
+"""
+
+
+def test_cover_plate_cutoff_and_termination_f13_3():
+    m = solve_job(load_text(COVER.format(end="cover_plate_end_weld = true").encode())).members[0]
+    st = {s.key.rsplit("cover.", 1)[-1]: s for s in m.steps if ".cover." in s.key}
+    # W21X50 braced: φb·Mp = 0.9 × 50 ksi × 110 in³ = 4,950 kip·in = 412.5 kip·ft (AISC Manual
+    # Table 3-2 lists φbMpx = 413 kip·ft for W21X50, from memory)
+    assert st["bare.Mc"].result.to("kip*ft").magnitude == pytest.approx(412.5)
+    # wu = 1.2 × 1.2 + 1.6 × 1.6 = 4.0 klf; M(x) = 2·x·(30 − x) kip·ft = 412.5 at
+    # x = 15 ∓ √(225 − 206.25) = 10.67 ft and 19.33 ft: the plate is needed over 8.66 ft
+    need = 2 * (225 - 206.25) ** 0.5 * 12
+    assert st["plate.cp.cutoff"].result.to("in").magnitude == pytest.approx(need, rel=2e-3)
+    # end weld 5/16 in < 3/4 × 3/4 in: a′ = 1.5·w = 12 in (Eq. F13-6)
+    assert st["plate.cp.a"].result.to("in").magnitude == pytest.approx(12.0)
+    # plate force at the cut-off F = Mc·Q/I; welds within a′: q·a′ + q/2·w (two edge lines + end)
+    I = m.section.inertia.to("in**4").magnitude
+    ybar = m.section.centroid.to("in").magnitude
+    Q = 8 * 0.75 * (ybar - 0.375)
+    assert st["plate.cp.F"].result.to("kip").magnitude == pytest.approx(4950 * Q / I, rel=1e-6)
+    q = m.joints[0].capacity.to("kip/in").magnitude
+    assert st["plate.cp.R"].result.to("kip").magnitude == pytest.approx(q * 12 + q / 2 * 8)
+    chk = next(c for c in m.checks if c.key.endswith("cover_plate[cp].termination"))
+    assert chk.source.endswith("F13.3")
+    assert {"member[C].flexure", "member[C].web_shear"} <= {u.key for u in m.not_checked}
+
+
+def test_cover_plate_end_weld_must_be_stated():
+    m = solve_job(load_text(COVER.format(end="").encode())).members[0]
+    nc = {u.key: u for u in m.not_checked}
+    assert "cover_plate_end_weld" in nc["member[C].cover_plate[cp].termination"].reason

@@ -14,6 +14,7 @@ checked, or runs with a stated conservative default)::
     stiffener_spacing = "60 in"     # transverse web stiffeners, clear spacing a (AISC 360-16 G2)
     bearing_length = "6 in"         # length of bearing lb at each support (AISC 360-16 J10.2/J10.3)
     bearing_stiffeners = true       # bearing stiffeners at the supports (J10 checks then do not apply)
+    cover_plate_end_weld = true     # cover plates welded across their ends (AISC 360-16 F13.3)
 
 Material keys read here: ``Ft``, ``Fc`` (wood tension and compression parallel to grain),
 ``Emin`` (wood, for column stability), and for plywood the table ``[material.panel]`` with its
@@ -37,6 +38,7 @@ DESIGN_KEYS = (
     "stiffener_spacing",
     "bearing_length",
     "bearing_stiffeners",
+    "cover_plate_end_weld",
 )
 PANEL_KEYS = ("table", "thickness", "thickness_effective", "A", "I", "Ib_Q", "Fv_tv", "Gv_tv", "Ft_A", "Fc_A")
 
@@ -66,8 +68,9 @@ def read_design(t: Table) -> dict[str, Any]:
         q = dt.quantity(key, "length")
         if q is not None:
             out[key] = q
-    if dt.has("bearing_stiffeners"):
-        out["bearing_stiffeners"] = dt.boolean("bearing_stiffeners")
+    for flag in ("bearing_stiffeners", "cover_plate_end_weld"):
+        if dt.has(flag):
+            out[flag] = dt.boolean(flag)
     dt.done()
     return out
 

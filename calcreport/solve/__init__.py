@@ -48,7 +48,7 @@ def solve_member(member: Member, settings: Settings) -> MemberResult:
     checks = _keyed(beam.checks, f"member[{member.id}]") if beam is not None else ()
     from .member_checks import member_checks
 
-    more, not_checked = member_checks(member, section, beam, V, settings, log.child("member"))
+    more, not_checked = member_checks(member, section, beam, V, settings, log.child("member"), joints)
     checks = tuple(checks) + _keyed(more, f"member[{member.id}]")
     status = worst([j.status for j in joints] + [c.status for c in checks])
     return MemberResult(

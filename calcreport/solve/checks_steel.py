@@ -25,7 +25,7 @@ def _kin(v: float) -> Q_:
     return Q_(v, "kip*inch")
 
 
-def classify(p: GirderProps, Fy: float, E: float, log: StepLog) -> dict:
+def classify(p: GirderProps, Fy: float, E: float, log: StepLog, rolled: bool = False) -> dict:
     """Flange and web slenderness of a built-up I-section in flexure, AISC 360-16 Table B4.1b:
     case 11 (flanges of built-up I: λp = 0.38√(E/Fy), λr = 0.95√(kc·E/FL), kc = 4/√(h/tw) within
     0.35–0.76), case 15 (webs of doubly symmetric I: λp = 3.76√(E/Fy), λr = 5.70√(E/Fy)) and
@@ -36,7 +36,7 @@ def classify(p: GirderProps, Fy: float, E: float, log: StepLog) -> dict:
     ratio = p.Sxt / p.Sxc
     FL = 0.7 * Fy if ratio >= 0.7 else max(Fy * ratio, 0.5 * Fy)
     lam_f = p.bfc / (2 * p.tfc)
-    lpf, lrf = 0.38 * root, 0.95 * math.sqrt(kc * E / FL)
+    lpf, lrf = 0.38 * root, (1.0 * root if rolled else 0.95 * math.sqrt(kc * E / FL))
     if p.symmetric:
         lam_w, lpw, lrw = p.h / p.tw, 3.76 * root, 5.70 * root
         wcase = "case 15"
@@ -69,11 +69,11 @@ def classify(p: GirderProps, Fy: float, E: float, log: StepLog) -> dict:
     log.add(
         "flange_class",
         "Compression flange slenderness (flexure)",
-        "λ = bf/(2·tf) against λp = 0.38√(E/Fy), λr = 0.95√(kc·E/FL)",
+        "λ = bf/(2·tf) against λp = 0.38√(E/Fy), " + ("λr = 1.0√(E/Fy)" if rolled else "λr = 0.95√(kc·E/FL)"),
         "λ = {lam}, λp = {lp}, λr = {lr}",
         {"lam": round(lam_f, 2), "lp": round(lpf, 2), "lr": round(lrf, 2)},
         fl,
-        source=f"{SRC} Table B4.1b case 11",
+        source=f"{SRC} Table B4.1b case {10 if rolled else 11}",
     )
     log.add(
         "web_class",
@@ -96,13 +96,15 @@ def _cls(lam: float, lp: float, lr: float) -> str:
     return "compact" if lam <= lp else ("noncompact" if lam <= lr else "slender")
 
 
-def flexure_strength(p: GirderProps, Fy: float, E: float, Lb: float, Cb: float, log: StepLog):
+def flexure_strength(
+    p: GirderProps, Fy: float, E: float, Lb: float, Cb: float, log: StepLog, rolled: bool = False
+):
     """Nominal flexural strength Mn (kip·in) and the section of Chapter F that applies.
 
     F2: doubly symmetric, compact web and flanges. F3: doubly symmetric, compact web, noncompact
     or slender flanges. F4: other I-shapes with compact or noncompact webs. F5: slender webs.
     (AISC 360-16 Table User Note F1.1.)"""
-    c = classify(p, Fy, E, log)
+    c = classify(p, Fy, E, log, rolled)
     if c["web"] == "slender":
         which = "F5"
     elif p.symmetric and c["web"] == "compact":

@@ -28,14 +28,14 @@ def member_type(member: Member) -> str:
 
 
 def member_checks(
-    member: Member, section: SectionResult, beam, V: Quantity, settings: Settings, log: StepLog
+    member: Member, section: SectionResult, beam, V: Quantity, settings: Settings, log: StepLog, joints=()
 ) -> tuple[tuple[Check, ...], tuple[Unchecked, ...]]:
     """The member-type checks of ``member`` and what of them did not run."""
     kind = member_type(member)
     if kind == "steel":
         from .member_girder import girder_checks
 
-        checks, unchecked = girder_checks(member, beam, V, settings, log.child("girder"))
+        checks, unchecked = girder_checks(member, beam, V, settings, log.child("girder"), section, joints)
     elif kind == "panel-web":
         from .member_box import box_checks
 

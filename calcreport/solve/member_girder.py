@@ -60,20 +60,16 @@ def _k_bottom(member: Member, g: IGirder, log: StepLog) -> float:
 
 
 def girder_checks(
-    member: Member, beam, V: Quantity, settings: Settings, log: StepLog
+    member: Member, beam, V: Quantity, settings: Settings, log: StepLog, section=None, joints=()
 ) -> tuple[list[Check], list[Unchecked]]:
     """Checks and not-checked items of a member made of steel plates (see module docstring)."""
     mid = member.id
     key = f"member[{mid}]"
     g, why = find_girder(member)
     if g is None and any(p.shape.kind == "properties" for p in member.parts):
-        return [], [
-            Unchecked(f"{key}.flexure", "flexure of the rolled beam (with its cover plates)", f"{SRC} Chapter F",
-                      "not implemented for rolled shapes"),
-            Unchecked(f"{key}.web_shear", "shear of the rolled beam's web", f"{SRC} §G2.1", "not implemented"),
-            Unchecked(f"{key}.cover_plate_termination", "cover-plate termination (extension a′ and end welds)",
-                      f"{SRC} §F13.3", "not implemented"),
-        ]  # fmt: skip
+        from .member_cover import cover_plate_checks
+
+        return cover_plate_checks(member, section, beam, joints, settings, log.child("cover"))
     if g is None:
         return [], [
             Unchecked(f"{key}.flexure", "flexure of the steel member", f"{SRC} Chapter F", why),

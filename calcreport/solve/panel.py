@@ -51,7 +51,11 @@ def effective_panel(
     t = panel["thickness"]
     if "A" in panel:
         A_ft = float(panel["A"].to("inch**2/ft").magnitude)
-        f_sym, f_tpl, f_vals = "f = A_panel / (12 in/ft · t)", "{A} in²/ft / (12 in/ft × {t})", {"A": A_ft, "t": t}
+        f_sym, f_tpl, f_vals = (
+            "f = A_panel / (12 in/ft · t)",
+            "{A} in²/ft / (12 in/ft × {t})",
+            {"A": A_ft, "t": t},
+        )
     else:
         f_sym, f_tpl, f_vals = "f = t_eff / t", "{te} / {t}", {"te": panel["thickness_effective"], "t": t}
     log.add(

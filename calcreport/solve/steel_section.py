@@ -18,7 +18,7 @@ from dataclasses import dataclass
 from ..geometry import is_rectangle
 from ..model import Member, Part
 
-__all__ = ["Plate", "IGirder", "find_girder", "girder_properties", "GirderProps"]
+__all__ = ["Plate", "IGirder", "find_girder", "girder_properties", "GirderProps", "rolled_properties"]
 
 
 @dataclass(frozen=True)
@@ -177,3 +177,16 @@ def _first_moment_abs(rows_geom, y_base: float, y: float) -> float:
         else:
             z += b * (y - lo) ** 2 / 2 + b * (hi - y) ** 2 / 2
     return z
+
+
+def rolled_properties(row) -> GirderProps:
+    """Properties of a doubly symmetric rolled I-shape from its database row (AISC Shapes Database
+    v16.0): h = d − 2·k (the clear web depth less the fillets, AISC 360-16 §B4.1b(b)),
+    ho = d − tf, rts = √(√(Iy·Cw)/Sx) (Eq. F2-7), rt by Eq. F4-11."""
+    h = row.d - 2 * row.k
+    aw = h * row.tw / (row.bf * row.tf)
+    return GirderProps(
+        "top", row.d, h, row.tw, row.bf, row.tf, row.bf, row.tf, row.area, row.d / 2, row.Ix, row.Sx, row.Sx,
+        row.Zx, row.d / 2, h, h, row.d - row.tf, row.Iy, row.Iy / 2, row.J, row.Cw,
+        row.bf / math.sqrt(12 * (1 + aw / 6)), math.sqrt(math.sqrt(row.Iy * row.Cw) / row.Sx), aw, True,
+    )  # fmt: skip
