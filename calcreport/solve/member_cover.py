@@ -113,7 +113,7 @@ def cover_plate_checks(
                                 float(m.max()) / Mc, "INFO", f"{SRC} §F13.3"))  # fmt: skip
             continue
         x1, x2 = cut
-        plog.add("cutoff", f"Theoretical cut-off points of cover plate {plate.id}", "M_envelope(x) = Mc of the beam alone",
+        plog.add("cutoff", f"Theoretical cut-off points of cover plate {plate.id} ({face} flange)", "M_envelope(x) = Mc of the beam alone",
                  "from {x1} to {x2}", {"x1": Q_(x1, "in"), "x2": Q_(x2, "in")}, Q_(x2 - x1, "in"),
                  source="beam analysis (moment envelope)", positions=("x1", "x2", "result"))  # fmt: skip
         w = plate.shape.bbox[2] - plate.shape.bbox[0]
