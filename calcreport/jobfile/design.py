@@ -15,6 +15,7 @@ checked, or runs with a stated conservative default)::
     bearing_length = "6 in"         # length of bearing lb at each support (AISC 360-16 J10.2/J10.3)
     bearing_stiffeners = true       # bearing stiffeners at the supports (J10 checks then do not apply)
     cover_plate_end_weld = true     # cover plates welded across their ends (AISC 360-16 F13.3)
+    Cr = 1.15                       # repetitive member factor of wood bending (NDS 2018 §4.3.9)
 
 Material keys read here: ``Ft``, ``Fc`` (wood tension and compression parallel to grain),
 ``Emin`` (wood, for column stability), and for plywood the table ``[material.panel]`` with its
@@ -39,6 +40,7 @@ DESIGN_KEYS = (
     "bearing_length",
     "bearing_stiffeners",
     "cover_plate_end_weld",
+    "Cr",
 )
 PANEL_KEYS = ("table", "thickness", "thickness_effective", "A", "I", "Ib_Q", "Fv_tv", "Gv_tv", "Ft_A", "Fc_A")
 
@@ -61,6 +63,9 @@ def read_design(t: Table) -> dict[str, Any]:
                 f"{pre}unbraced_length",
                 f"give either {pre}unbraced_length or {pre}continuous_bracing = true, not both",
             )
+    cr = dt.number("Cr", None, minimum=1.0, maximum=1.15)
+    if cr is not None:
+        out["Cr"] = cr
     cb = dt.number("Cb", None, minimum=1.0, maximum=3.0)
     if cb is not None:
         out["Cb"] = cb
@@ -76,8 +81,10 @@ def read_design(t: Table) -> dict[str, Any]:
 
 
 def read_wood_keys(t: Table) -> dict[str, Any]:
-    """Ft, Fc and Emin of a material, when given (stresses)."""
-    return {k: t.quantity(k, "stress") for k in ("Ft", "Fc", "Emin")}
+    """Ft, Fc and Emin of a material, when given (stresses), and its bending size factor CF."""
+    out: dict[str, Any] = {k: t.quantity(k, "stress") for k in ("Ft", "Fc", "Emin")}
+    out["CF"] = t.number("CF", None, minimum=0.5, maximum=1.5)
+    return out
 
 
 def read_panel(t: Table, family: str) -> dict[str, Any] | None:

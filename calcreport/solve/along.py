@@ -132,7 +132,9 @@ def _member_checks(member, section, M, V, limits, beam, log) -> list[Check]:
     fibres: dict[str, Fibre] = {}
     from .member_checks import member_type
 
-    box = member_type(member) == "panel-web"  # its flanges are axial members (member_box)
+    # box-beam flanges are axial members (member_box); wood members get bending with the NDS
+    # adjustment factors (member_wood): neither takes the bare-Fb check here
+    box = member_type(member) in ("panel-web", "wood")
     for part, props in zip(member.parts, section.parts):
         mat = part.material
         if mat.Fb is None or (box and mat.family in ("wood", "glulam")):

@@ -24,6 +24,8 @@ def member_type(member: Member) -> str:
         return "steel"
     if "plywood" in fams and fams <= {"plywood", "wood", "glulam"} and len(fams) > 1:
         return "panel-web"
+    if fams <= {"wood", "glulam"}:
+        return "wood"
     return "other"
 
 
@@ -40,6 +42,10 @@ def member_checks(
         from .member_box import box_checks
 
         checks, unchecked = box_checks(member, section, beam, V, settings, log.child("box"))
+    elif kind == "wood":
+        from .member_wood import wood_bending_checks
+
+        checks, unchecked = wood_bending_checks(member, section, beam, settings, log.child("wood"))
     else:
         return (), ()
     return tuple(checks), tuple(unchecked)
