@@ -16,6 +16,7 @@ checked, or runs with a stated conservative default)::
     bearing_stiffeners = true       # bearing stiffeners at the supports (J10 checks then do not apply)
     cover_plate_end_weld = true     # cover plates welded across their ends (AISC 360-16 F13.3)
     Cr = 1.15                       # repetitive member factor of wood bending (NDS 2018 §4.3.9)
+    construction = "unshored"       # composite: dead load on the steel alone ("shored": on the composite)
 
 Material keys read here: ``Ft``, ``Fc`` (wood tension and compression parallel to grain),
 ``Emin`` (wood, for column stability), and for plywood the table ``[material.panel]`` with its
@@ -41,6 +42,7 @@ DESIGN_KEYS = (
     "bearing_stiffeners",
     "cover_plate_end_weld",
     "Cr",
+    "construction",
 )
 PANEL_KEYS = ("table", "thickness", "thickness_effective", "A", "I", "Ib_Q", "Fv_tv", "Gv_tv", "Ft_A", "Fc_A")
 
@@ -63,6 +65,9 @@ def read_design(t: Table) -> dict[str, Any]:
                 f"{pre}unbraced_length",
                 f"give either {pre}unbraced_length or {pre}continuous_bracing = true, not both",
             )
+    how = dt.choice("construction", ("shored", "unshored"))
+    if how is not None:
+        out["construction"] = how
     cr = dt.number("Cr", None, minimum=1.0, maximum=1.15)
     if cr is not None:
         out["Cr"] = cr

@@ -36,6 +36,10 @@ def solve_member(member: Member, settings: Settings) -> MemberResult:
     """Section, shear and every joint of one member."""
     log = StepLog(f"member.{member.id}")
     section = section_properties(member, log.child("section"))
+    from .composite import cracked_section, has_slab
+
+    if has_slab(member):
+        section = cracked_section(member, section, log.child("section"))
     beam = None
     if member.loads or member.self_weight:
         from .along import analyse_member  # loads along the member

@@ -26,6 +26,8 @@ def member_type(member: Member) -> str:
         return "panel-web"
     if fams <= {"wood", "glulam"}:
         return "wood"
+    if "concrete" in fams and "steel" in fams:
+        return "composite"
     return "other"
 
 
@@ -46,6 +48,10 @@ def member_checks(
         from .member_wood import wood_bending_checks
 
         checks, unchecked = wood_bending_checks(member, section, beam, settings, log.child("wood"))
+    elif kind == "composite":
+        from .composite import construction_checks
+
+        checks, unchecked = construction_checks(member, section, beam, log.child("composite"))
     else:
         return (), ()
     return tuple(checks), tuple(unchecked)

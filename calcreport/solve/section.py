@@ -250,7 +250,7 @@ def first_moment(section: SectionResult, held: tuple[str, ...], log: StepLog):
 
 
 def _fraction(p: PartProps) -> float:
-    """Effective area over gross area (1 except for layered panels)."""
+    """Effective area over gross area of a layered panel part."""
     if p.area_gross is None:
         return 1.0
     return float((p.area / p.area_gross).to("").magnitude)
@@ -269,7 +269,8 @@ def first_moment_above(member: Member, section: SectionResult, y_cut: float) -> 
     ybar = float(section.centroid.to("inch").magnitude) + bottom
     y_abs = y_cut + bottom
     total = 0.0
-    n_by_id = {p.id: p.n * _fraction(p) for p in section.parts}
+    panels = {p.id for p in member.parts if p.material.extra and p.material.extra.get("panel")}
+    n_by_id = {p.id: p.n * (_fraction(p) if p.id in panels else 1.0) for p in section.parts}
     for part in member.parts:
         x0, y0, x1, y1 = part.shape.bbox
         if y0 >= y_abs:
