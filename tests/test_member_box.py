@@ -200,3 +200,18 @@ def test_panel_needs_one_of_a_or_effective_thickness():
 
     with pytest.raises(JobError, match="thickness_effective or A"):
         solve(text=JOB.replace('A = "4.219 in^2/ft"\n', ""))
+
+
+def test_web_in_plane_stress_against_panel_axial_capacity():
+    text = JOB.replace(
+        'Gv_tv = "30000 lbf/in"\n', 'Gv_tv = "30000 lbf/in"\nFt_A = "3500 lbf/ft"\nFc_A = "4000 lbf/ft"\n'
+    )
+    m = solve(text=text)
+    c = {x.key.split("].", 1)[1]: x for x in m.checks}
+    # f = n·M·c/I at the web edge (c = 10 in), n = 1800/1600; F′ = Ft·A / A × C_D (APA PDS)
+    M = 300 * 16**2 / 8 * 12
+    f = 1800 / 1600 * M * 10 / hand_I()
+    t = c["web_axial.ply.tension"]
+    assert t.demand.to("psi").magnitude == pytest.approx(f, rel=1e-3)
+    assert t.capacity.to("psi").magnitude == pytest.approx(3500 / 4.219 * 1.15, rel=1e-6)
+    assert c["web_axial.ply.compression"].capacity.to("psi").magnitude == pytest.approx(4000 / 4.219 * 1.15)

@@ -44,7 +44,7 @@ DESIGN_KEYS = (
     "Cr",
     "construction",
 )
-PANEL_KEYS = ("table", "thickness", "thickness_effective", "A", "I", "Ib_Q", "Fv_tv", "Gv_tv", "Ft_A", "Fc_A")
+PANEL_KEYS = ("table", "thickness", "thickness_effective", "A", "I", "Fv_tv", "Gv_tv", "Ft_A", "Fc_A")
 
 
 def read_design(t: Table) -> dict[str, Any]:
@@ -100,7 +100,7 @@ def read_panel(t: Table, family: str) -> dict[str, Any] | None:
       Table 4" — printed beside every step that uses them;
     * ``thickness`` (required) — the panel's nominal thickness as placed in the section;
     * either ``thickness_effective`` — the thickness that gives the effective area and I, or
-      ``A`` (in²/ft), and optionally ``I`` (in⁴/ft, flatwise) and ``Ib_Q`` (in²/ft, rolling shear);
+      ``A`` (in²/ft), and optionally ``I`` (in⁴/ft, flatwise);
     * ``Fv_tv`` — panel shear through the thickness (force per length of panel, e.g. "190 lbf/in");
     * ``Gv_tv`` — panel shear rigidity through the thickness (force per length, for shear deflection);
     * ``Ft_A``, ``Fc_A`` — axial tension and compression capacity (force per foot of width).
@@ -133,7 +133,7 @@ def read_panel(t: Table, family: str) -> dict[str, Any] | None:
             "thickness_effective" if teff is not None else "A",
             "expected effective properties no larger than the gross panel's (fraction 0 to 1)",
         )
-    for key, dim in (("I", "volume"), ("Ib_Q", "length")):  # in⁴/ft, in²/ft
+    for key, dim in (("I", "volume"),):  # in⁴/ft
         q = pt.quantity(key, dim)
         if q is not None:
             out[key] = q

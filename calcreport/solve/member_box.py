@@ -93,9 +93,64 @@ def box_checks(
                              "mechanics of materials (G·Av of the webs)", "no loads along the member"))  # fmt: skip
     out.append(Unchecked(f"{key}.splices", "flange and web splices", f"{NDS}; APA Panel Design Specification",
                          "not designed by the tool (none are given)"))  # fmt: skip
-    out.append(Unchecked(f"{key}.web_axial", "bending stress in the plywood webs (in-plane)",
-                         "APA Panel Design Specification", "not implemented"))  # fmt: skip
+    if beam is None:
+        out.append(Unchecked(f"{key}.web_axial", "bending stress in the plywood webs (in-plane)",
+                             "APA Panel Design Specification", "no moment: the job gives a shear only"))  # fmt: skip
+    else:
+        c, u = _web_axial(member, section, webs, extremes, settings, log.child("web_axial"))
+        checks += c
+        out += u
     return checks, out
+
+
+def _web_axial(member, section, webs, extremes, settings, log) -> tuple[list[Check], list[Unchecked]]:
+    """Stress in the plies parallel to the span at the web's top and bottom edge, f = n·M·c/I,
+    against the panel's axial capacity per foot over its effective area per foot (Ft·A / A,
+    Fc·A / A, APA Panel Design Specification), times C_D (ASD) — the webs bent in their plane."""
+    key = f"member[{member.id}].web_axial"
+    panels = [p.material.extra.get("panel") for p in webs]
+    if not webs or any(pn is None or "Ft_A" not in pn or "Fc_A" not in pn for pn in panels):
+        return [], [Unchecked(key, "bending stress in the plywood webs (in-plane)", "APA Panel Design Specification",
+                              "no [material.panel] Ft_A and Fc_A given for the web panels")]  # fmt: skip
+    if settings.method != "ASD":
+        return [], [Unchecked(key, "bending stress in the plywood webs (in-plane)", "APA Panel Design Specification",
+                              "LRFD conversion of panel capacities not implemented")]  # fmt: skip
+    bottom = float(section.bottom.to("in").magnitude)
+    ybar = float(section.centroid.to("in").magnitude)
+    checks: list[Check] = []
+    done: set[str] = set()
+    for part, pn in zip(webs, panels):
+        if part.material.id in done:
+            continue
+        done.add(part.material.id)
+        props = next(p for p in section.parts if p.id == part.id)
+        A_ft = pn["A"] if "A" in pn else (pn["thickness_effective"] * Q_(12, "in") / Q_(1, "ft"))
+        c_top = part.shape.bbox[3] - bottom - ybar
+        c_bot = ybar - (part.shape.bbox[1] - bottom)
+        for which, cap_key in (("tension", "Ft_A"), ("compression", "Fc_A")):
+            # positive moment: bottom edge in tension, top in compression
+            cand = []
+            for name, cd, _V, M in extremes:
+                mpos, mneg = float(M.max()), float(-M.min())
+                m_c = (mpos * c_bot, mneg * c_top) if which == "tension" else (mpos * c_top, mneg * c_bot)
+                cand.append((name, cd, max(m_c)))
+            name, cd, mc = max(cand, key=lambda t: t[2] / t[1])
+            if mc <= 0:
+                continue
+            slog = log.child(f"{part.material.id}.{which}")
+            f = slog.add("f", f"{which.capitalize()} stress in the parallel plies of web {part.id}, {name}",
+                         "f = n·M·c / I", "{n} × M·c = {Mc} / {I}",
+                         {"n": props.n, "Mc": Q_(mc, "lbf*inch**2"), "I": section.inertia},
+                         (props.n * Q_(mc, "lbf*inch**2") / section.inertia).to("psi"),
+                         source="mechanics of materials (flexure formula, effective section)")  # fmt: skip
+            F = slog.add("F", f"Allowable {which} stress of the panel, {name}", f"F′ = ({cap_key} / A)·C_D",
+                         "{cap} / {A} × {cd}", {"cap": pn[cap_key], "A": A_ft, "cd": cd},
+                         (pn[cap_key] / A_ft * cd).to("psi"),
+                         source=f"{pn['table']} (stated in the job file); {NDS} §2.3.2")  # fmt: skip
+            r = float((f / F).to("").magnitude)
+            checks.append(Check(f"{key}.{part.material.id}.{which}", f"Web {part.id} in-plane {which} ({name})",
+                                f, F, r, "OK" if r <= 1 + 1e-9 else "NG", "APA Panel Design Specification"))  # fmt: skip
+    return checks, []
 
 
 def _flange(member, section, fl: Part, extremes, settings, log) -> tuple[list[Check], list[Unchecked]]:
