@@ -11,7 +11,7 @@ from __future__ import annotations
 import math
 
 from ..steps import StepLog
-from ..units import Q_
+from ..units import Q_, Quantity
 from .results import Check
 from .steel_section import GirderProps
 
@@ -21,7 +21,7 @@ SRC = "AISC 360-16"
 PHI_B, OMEGA_B = 0.90, 1.67
 
 
-def _kin(v: float) -> Q_:
+def _kin(v: float) -> Quantity:
     return Q_(v, "kip*inch")
 
 
