@@ -265,15 +265,15 @@ def _panel_shear(member, section, webs, V, extremes, settings, log) -> tuple[lis
         Vd = Q_(float(np.abs(Vc).max()), "lbf")
         note = f"governed by {name}"
     else:
-        cd = settings.load_duration or 1.0
-        Vd, note = (
-            V,
-            (
-                "C_D from settings.load_duration"
-                if settings.load_duration
-                else "assumed: C_D = 1.0 (normal load duration; settings.load_duration not given)"
-            ),
-        )
+        lrfd = settings.method == "LRFD"
+        cd = settings.load_duration or (0.8 if lrfd else 1.0)
+        Vd = V
+        if settings.load_duration:
+            note = "duration factor from settings.load_duration"
+        elif lrfd:
+            note = "assumed: λ = 0.8 (occupancy or snow load; settings.load_duration not given)"
+        else:
+            note = "assumed: C_D = 1.0 (normal load duration; settings.load_duration not given)"
     log.add("V", "Design shear for the web panels", "V", "{V}", {"V": Vd}, Vd.to("lbf"), source="beam analysis"
             if extremes else "stated in the job file", note=note)  # fmt: skip
     return [panel_shear_check(key, Vd, Q, section.inertia, len(cut), Fvtv, cd, settings.method, src, log)], []
