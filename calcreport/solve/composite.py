@@ -47,8 +47,9 @@ def cracked_section(member: Member, section: SectionResult, log: StepLog) -> Sec
         for i, p in enumerate(member.parts)
         if p.material.family == "concrete" and p.shape.bbox[1] - bottom < ybar < p.shape.bbox[3] - bottom
     ]
-    if not conc or not all(_is_rect(p) for _, p in conc):
-        return section
+    steel_top = max((p.shape.bbox[3] for p in member.parts if p.material.family == "steel"), default=0.0)
+    if not conc or not all(_is_rect(p) and p.shape.bbox[1] >= steel_top - 1e-6 for _, p in conc):
+        return section  # only a slab on top of the steel is cracked (sagging moment)
     props = list(section.parts)
     cut_ids = {i for i, _ in conc}
     for _ in range(200):
