@@ -12,7 +12,7 @@ import math
 from dataclasses import dataclass
 
 from ..steps import StepLog
-from ..units import Quantity
+from ..units import Q_, Quantity  # noqa: F401 (Q_ is used in the examples)
 from .results import Check
 
 __all__ = [

@@ -261,9 +261,7 @@ def first_moment_above(member: Member, section: SectionResult, y_cut: float) -> 
     the section's bottom), about the neutral axis. Rolled parts given by properties cannot be cut
     and raise ValueError when the line passes through them.
     """
-    from shapely.geometry import box
-
-    from ..geometry import outline
+    from ..geometry import is_rectangle, outline
 
     bottom = float(section.bottom.to("inch").magnitude)
     ybar = float(section.centroid.to("inch").magnitude) + bottom
@@ -279,6 +277,11 @@ def first_moment_above(member: Member, section: SectionResult, y_cut: float) -> 
         elif y1 > y_abs:
             if part.shape.kind == "properties":
                 raise ValueError(f"part {part.id} is given by properties and cannot be cut")
+            if is_rectangle(part.shape):  # axis-aligned: no shapely needed
+                total += n_by_id[part.id] * (x1 - x0) * (y1 - y_abs) * ((y_abs + y1) / 2 - ybar)
+                continue
+            from shapely.geometry import box
+
             piece = outline(part.shape).intersection(box(x0 - 1, y_abs, x1 + 1, y1 + 1))
             if piece.area > 0:
                 total += n_by_id[part.id] * piece.area * (piece.centroid.y - ybar)
