@@ -38,6 +38,10 @@ def solve_member(member: Member, settings: Settings) -> MemberResult:
     """Section, shear and every joint of one member."""
     log = StepLog(f"member.{member.id}")
     section = section_properties(member, log.child("section"))
+    from .composite import cracked_section, has_slab
+
+    if has_slab(member):
+        section = cracked_section(member, section, log.child("section"))
     beam = None
     if member.loads or member.self_weight:
         from .member_loads import analyse_member  # loads along the member
@@ -48,6 +52,10 @@ def solve_member(member: Member, settings: Settings) -> MemberResult:
         V = _design_shear(member, log.child("shear"))
     joints = tuple(solve_joint(member, section, j, V, settings, log, beam) for j in member.joints)
     checks = _keyed(beam.checks, f"member[{member.id}]") if beam is not None else ()
+    from .member_kinds import member_checks
+
+    more, not_checked = member_checks(member, section, beam, V, settings, log.child("member"), joints)
+    checks = tuple(checks) + _keyed(more, f"member[{member.id}]")
     status = worst([j.status for j in joints] + [c.status for c in checks])
     return MemberResult(
         id=member.id,
@@ -59,6 +67,7 @@ def solve_member(member: Member, settings: Settings) -> MemberResult:
         steps=tuple(log.steps),
         status=status,
         beam=beam,
+        not_checked=not_checked,
     )
 
 
