@@ -7,6 +7,7 @@ Sources, per check:
   memory — a test value; the job names its table);
 * NDS 2018 §3.7.1, Eq. 3.7-1 (column stability factor CP, c = 0.8), §3.8.1 (ft ≤ Ft′), §3.9.1
   Eq. 3.9-1 (combined tension and bending), Table 2.3.2 (C_D = 1.15 for snow) — from memory;
+* ASCE 7-16 §2.4.1 combination D + S (the job pins that edition; ASCE 7-22 has D + 0.7S) — from memory;
 * mechanics of materials: transformed section, parallel-axis theorem, σ = M·y/I, v = V·Q/(I·n),
   shear deformation of a simple beam under uniform load Δs = w·L²/(8·G·Av).
 """
@@ -25,6 +26,7 @@ JOB = """
 project = "test"
 [settings]
 method = "ASD"
+load_standard = "ASCE 7-16"
 spacing_min = "1 in"
 [[material]]
 id = "df"

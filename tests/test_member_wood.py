@@ -2,7 +2,7 @@
 
 Sources: NDS 2018 §3.3.3 (beam stability: Table 3.3.3 effective length for any loading, RB, FbE =
 1.20·Emin′/RB², Eq. 3.3-6 for CL), Table 2.3.2 (C_D: 0.9 dead load, 1.15 snow), Table 4.3.1 —
-from memory; flexure formula σ = M·c/I (mechanics of materials).
+from memory; combinations of ASCE 7-16 §2.4.1 (D + S; ASCE 7-22 has D + 0.7S), from memory; flexure formula σ = M·c/I (mechanics of materials).
 """
 
 from __future__ import annotations
@@ -17,6 +17,8 @@ from calcreport.solve import solve_job
 JOB = """
 [job]
 project = "test"
+[settings]
+load_standard = "ASCE 7-16"
 [[material]]
 id = "df"
 family = "wood"

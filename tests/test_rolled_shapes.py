@@ -62,7 +62,7 @@ on = "cp"
 [[member.joint]]
 id = "j"
 holds = ["cp"]
-per_row = 2
+{rows}
 [member.joint.connector]
 type = "{conn}"
 {params}
@@ -73,7 +73,9 @@ WELD = ("fillet_weld", 'size = "1/4 in"\nwelds = 2')
 
 
 def job(shape: str, conn=BOLT) -> str:
-    return JOB.format(shape=shape, conn=conn[0], params=conn[1])
+    # per_row only for spaced connectors: on a continuous weld it has no effect and is refused
+    rows = "" if conn[0] == "fillet_weld" else "per_row = 2"
+    return JOB.format(shape=shape, conn=conn[0], params=conn[1], rows=rows)
 
 
 def steps_of(text: str):
