@@ -85,11 +85,11 @@ def cracked_section(member: Member, section: SectionResult, log: StepLog) -> Sec
             source=SRC,
             note="concrete below the neutral axis (in tension) ignored",
         )
-        A = Q_(b * a, "in**2")
+        A_c = Q_(b * a, "in**2")
         props[i] = replace(
             pp,
-            area=A,
-            area_transformed=A * pp.n,
+            area=A_c,
+            area_transformed=A_c * pp.n,
             centroid_y=Q_(top - a / 2, "in"),
             inertia_own=Q_(b * a**3 / 12, "in**4"),
             area_gross=pp.area_gross or pp.area,

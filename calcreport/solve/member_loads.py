@@ -70,7 +70,7 @@ def analyse_member(member: Member, section: SectionResult, settings: Settings, l
     sw = None
     if member.self_weight:
         sw = self_weight(
-            [(pp.area_gross or pp.area, p.material.density) for pp, p in zip(section.parts, member.parts)],
+            [(pp.area_gross or pp.area, p.material.density) for pp, p in zip(section.parts, member.parts)],  # type: ignore[misc]
             log,
         )
         loads.append(Load("D", "uniform", sw, label="self-weight", key=f"member[{member.id}].self_weight"))

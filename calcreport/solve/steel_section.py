@@ -64,7 +64,7 @@ def find_girder(member: Member) -> tuple[IGirder | None, str]:
     fys = [p.material.Fy for p in parts]
     if any(f is None for f in fys):
         return None, "a plate's material has no Fy"
-    Fy = min(float(f.to("ksi").magnitude) for f in fys)
+    Fy = min(float(f.to("ksi").magnitude) for f in fys if f is not None)
     E = min(float(p.material.E.to("ksi").magnitude) for p in parts)
     web_t = Plate(web.part, web.b, web.b, web.y0, web.y1)
     return IGirder(top, web_t, bot, Fy, E), ""
