@@ -121,6 +121,9 @@ class Shape:
     centroid: tuple[float, float] = (0.0, 0.0)
     description: str = ""
     nominal: str = ""  # e.g. "2x10" for dressed lumber, "W16x31" for a named rolled shape
+    flange_thickness: float = 0.0  # rolled shapes: the plates a bolt or weld bears on (0 = not given)
+    web_thickness: float = 0.0
+    source: str = ""  # where a rolled shape's properties come from (database and edition)
 
 
 @dataclass(frozen=True)
@@ -212,6 +215,7 @@ class Member:
     self_weight: bool = False
     assumptions: tuple[str, ...] = ()
     notes: tuple[str, ...] = ()
+    design: dict[str, Any] = field(default_factory=dict)  # [member.design]: member-check inputs
 
 
 @dataclass(frozen=True)

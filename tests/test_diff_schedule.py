@@ -108,11 +108,11 @@ def test_check_groups_print_their_labels(tmp_path, capsys, sides):
     )
     _, out, _ = run(["diff", old_file, new_file], capsys)
     results = _section(out, "RESULTS CHANGED")
-    assert "\n  Bending stress, df2:\n" in results
+    assert "\n  Panel shear through the web thickness:\n" in results
     assert "\n  Deflection, load case S (span 1):\n" in results
     assert not re.search(r"^  (bending|deflection|shear)\.", results, re.M)
     titles = check_titles(compute_diff(*sides))
-    assert titles["member[RB1].bending.df2"] == "Bending stress, df2"
+    assert titles["member[RB1].web_panel_shear"] == "Panel shear through the web thickness"
     # both joints have an end-distance check with the same label: the key tells them apart
     key = "member[RB1].joint[top-webs].connector.end"
     assert titles[key] == f"End distance from the member end ({key})"

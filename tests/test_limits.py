@@ -111,9 +111,7 @@ def test_deeply_nested_toml(write_job, cli, opening, closing):
 
 
 def test_huge_array_of_text_lines_is_read_once_and_refused_by_key(write_job, cli):
-    body = GOOD.replace(
-        'id = "M"', 'id = "M"\nnotes = [' + ", ".join(['"x"'] * 300_000) + "]", 1
-    )
+    body = GOOD.replace('id = "M"', 'id = "M"\nnotes = [' + ", ".join(['"x"'] * 300_000) + "]", 1)
     refused(cli, write_job(job_text(body)), "member[M].notes", "at most 50 lines", "300,000")
 
 

@@ -137,8 +137,8 @@ def output_paths(jobs: list[str], output: str | None, folder: bool = False) -> l
 
 
 def cmd_build(args) -> int:
-    from .batch import Task, default_workers, expand_jobs, run_jobs
     from ..outputs.report.epoch import EpochError, source_date_epoch
+    from .batch import Task, default_workers, expand_jobs, run_jobs
 
     try:
         source_date_epoch()  # a malformed value is refused once, before any job is built

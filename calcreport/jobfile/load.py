@@ -12,10 +12,11 @@ import tomllib
 from ..errors import JobError, excerpt
 from ..keys import connectors
 from ..keys import job as decl
-from ..model import ConnectorSpec, Header, Job, Joint, Material, Member, Part, RevisionEntry, Settings
 from ..keys.loads import LOAD_STANDARDS
+from ..model import ConnectorSpec, Header, Job, Joint, Material, Member, Part, RevisionEntry, Settings
 from ..outlines import contact_segments, isolated_parts, overlapping_pairs
 from ..units import parse
+from .design import read_design, read_panel, read_wood_keys
 from .lines import LineIndex
 from .parts import read_part
 from .reader import Source, Table
@@ -242,7 +243,12 @@ def _materials(root: Table) -> dict[str, Material]:
             fc=t.quantity("fc", "stress"),
             G=t.number("G", None, minimum=0.2, maximum=1.2),
             density=density,
-            extra={"Fs": t.quantity("Fs", "stress"), "grade": t.text("grade")},
+            extra={
+                "Fs": t.quantity("Fs", "stress"),
+                "grade": t.text("grade"),
+                **read_wood_keys(t),
+                "panel": read_panel(t, t.choice("family", FAMILIES, "other")),
+            },
         )
         t.done()
     if not out:
@@ -290,6 +296,7 @@ def _member(t: Table, materials: dict[str, Material], settings: Settings) -> Mem
         shear=shear,
         assumptions=t.texts("assumptions"),
         notes=t.texts("notes"),
+        design=read_design(t),
     )
     member = _loads_hook(t, member, settings)
     if member.shear is not None and (member.loads or member.self_weight):

@@ -30,9 +30,9 @@ from __future__ import annotations
 
 from dataclasses import replace
 
+from ..errors import excerpt
 from ..keys import job as decl
 from ..keys.loads import LIVE_TYPE, STANDARD_CASES
-from ..errors import excerpt
 from ..model import Combination, Load, Member, Settings, Support
 from ..units import Q_
 from .reader import Table

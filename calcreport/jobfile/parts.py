@@ -8,7 +8,9 @@ Shapes (``shape = …``):
 * ``bar`` — round bar, ``diameter``;
 * ``polygon`` — ``points = [["0 in", "0 in"], …]`` in its own coordinates;
 * ``rolled`` — given by properties: ``area``, ``inertia`` (about its own horizontal centroidal
-  axis), ``depth``, ``width`` and optional ``centroid`` (height above its bottom; default depth/2).
+  axis), ``depth``, ``width``, optional ``centroid`` (height above its bottom; default depth/2) and
+  ``flange_thickness`` / ``web_thickness`` (the plates a bolt or weld bears on); or by
+  ``designation = "W21X50"`` alone, every property from the AISC Shapes Database v16.0.
 
 Placement: ``on``, ``below``, ``left_of`` or ``right_of`` another part (listed earlier), with
 ``align`` and ``offset``; or ``at = ["x", "y"]`` for the lower-left corner of its bounding box.
@@ -21,8 +23,8 @@ import math
 from dataclasses import replace
 from typing import Literal, overload
 
-from ..keys import job as decl
 from ..errors import excerpt
+from ..keys import job as decl
 from ..model import Material, Part, Shape
 from .lumber import LumberSizeError, dressed_size
 from .reader import Table
@@ -112,6 +114,8 @@ def _read_shape(t: Table, kind: str) -> Shape:
         return Shape("circle", (0.0, 0.0, d, d), centre=(d / 2, d / 2), radius=d / 2, description="round bar")
     if kind == "polygon":
         return _read_polygon(t)
+    if not t.has("area") and t.has("designation"):
+        return _read_rolled_by_name(t)
     # rolled: given by its properties
     area = float(t.quantity("area", "area", required=True).to("inch**2").magnitude)
     inertia = float(t.quantity("inertia", "inertia", required=True).to("inch**4").magnitude)
@@ -127,6 +131,12 @@ def _read_shape(t: Table, kind: str) -> Shape:
         raise t.error("centroid", f"expected a height below the depth ({depth:g} in)")
     if area > width * depth * (1 + 1e-9):
         raise t.error("area", "expected an area no larger than width × depth")
+    tf = _len(t, "flange_thickness", required=False) or 0.0
+    tw = _len(t, "web_thickness", required=False) or 0.0
+    if tf and 2 * tf >= depth:
+        raise t.error("flange_thickness", f"expected less than half the depth ({depth:g} in)")
+    if tw and tw >= width:
+        raise t.error("web_thickness", f"expected less than the width ({width:g} in)")
     name = t.text("designation")
     return Shape(
         "properties",
@@ -136,6 +146,41 @@ def _read_shape(t: Table, kind: str) -> Shape:
         centroid=(width / 2, cy),
         description="rolled shape by properties",
         nominal=name,
+        flange_thickness=tf,
+        web_thickness=tw,
+        source="stated in the job file",
+    )
+
+
+def _read_rolled_by_name(t: Table) -> Shape:
+    """A rolled shape by designation, its properties from the AISC Shapes Database v16.0
+    (:mod:`calcreport.shapes_db`). Properties typed beside a designation are refused: the
+    database is the one source."""
+    from ..shapes_db import DATABASE, ShapeNotFound, lookup
+
+    for key in ("inertia", "depth", "width", "centroid", "flange_thickness", "web_thickness"):
+        if t.has(key):
+            raise t.error(
+                key,
+                f"a shape given by designation takes its properties from the {DATABASE}; "
+                f"remove '{key}' or give every property (area, inertia, depth, width) instead",
+            )
+    name = t.text("designation", required=True)
+    try:
+        row = lookup(name)
+    except ShapeNotFound as exc:
+        raise t.error("designation", str(exc)) from None
+    return Shape(
+        "properties",
+        (0.0, 0.0, row.bf, row.d),
+        area=row.area,
+        inertia=row.Ix,
+        centroid=(row.bf / 2, row.d / 2),
+        description=f"rolled shape {row.designation}",
+        nominal=row.designation,
+        flange_thickness=row.tf,
+        web_thickness=row.tw,
+        source=DATABASE,
     )
 
 

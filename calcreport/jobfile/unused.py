@@ -70,12 +70,21 @@ def unused_settings(t: Table, settings: Settings, members: list[Member]) -> None
             for j in m.joints
             if j.connector.kind in NDS_KINDS and j.connector.params.get("CD") is None
         ]
+        # a wood member with plywood webs and a stated shear takes it for its panel shear check
+        panel_web = [
+            m
+            for m in members
+            if not (m.loads or m.self_weight)
+            and any(p.material.family == "plywood" for p in m.parts)
+            and any(p.material.family in ("wood", "glulam") for p in m.parts)
+        ]
         if settings.method != "ASD":
             t.warn("load_duration", "the load duration factor applies to ASD only; this job is LRFD")
-        elif not nds:
+        elif not nds and not panel_web:
             t.warn(
                 "load_duration",
-                "no NDS wood connector of this job uses it (none, or each gives its own CD)",
+                "no NDS wood connector or plywood-web panel shear check of this job uses it "
+                "(none, or each connector gives its own CD)",
             )
     if settings.deflection_limits:
         if not along:

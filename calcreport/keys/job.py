@@ -14,7 +14,19 @@ from dataclasses import dataclass
 from ..fields import Field
 from .loads import LOAD_STANDARDS
 
-__all__ = ["TableSpec", "JOB", "SETTINGS", "MATERIAL", "MEMBER", "PART", "JOINT", "ROOT", "names"]
+__all__ = [
+    "TableSpec",
+    "JOB",
+    "SETTINGS",
+    "MATERIAL",
+    "PANEL",
+    "MEMBER",
+    "DESIGN",
+    "PART",
+    "JOINT",
+    "ROOT",
+    "names",
+]
 
 #: Shapes of a part and the ways to place one (see docs/job-format.md).
 SHAPES = ("rect", "plate", "lumber", "bar", "polygon", "rolled")
@@ -76,7 +88,9 @@ JOB = TableSpec(
         Field("checked_date", "text", help="date checked"),
         Field("approved_by", "text", help="who approved it"),
         Field("notes", "texts", help="notes printed on the cover"),
-        Field("engineer", "text", help="engineer of record, shown on the cover and in a digital seal's stamp"),
+        Field(
+            "engineer", "text", help="engineer of record, shown on the cover and in a digital seal's stamp"
+        ),
         Field("licence", "text", help="the engineer's licence number (shown with a digital seal)"),
         Field("jurisdiction", "text", help="state or province of the licence (shown with a digital seal)"),
     ),
@@ -141,6 +155,38 @@ SETTINGS = TableSpec(
     (DEFLECTION_LIMITS, DISPLAY),
 )
 
+PANEL = TableSpec(
+    "panel",
+    "a plywood panel's published properties parallel to the span, per foot of width (webs by effective section)",
+    (
+        Field(
+            "table",
+            "text",
+            required=True,
+            help="where the values come from, printed beside every step that uses them",
+        ),
+        Field(
+            "thickness",
+            "length",
+            required=True,
+            help="nominal thickness of the panel as placed in the section",
+        ),
+        Field("thickness_effective", "length", help="thickness giving the effective area and I (or give A)"),
+        Field(
+            "A",
+            "length",
+            help='effective area per foot of width, e.g. "3.2 in^2/ft" (or give thickness_effective)',
+        ),
+        Field(
+            "I", "volume", help='effective moment of inertia per foot of width, flatwise, e.g. "0.3 in^4/ft"'
+        ),
+        Field("Fv_tv", "line_load", help='panel shear through the thickness, e.g. "190 lbf/in"'),
+        Field("Gv_tv", "line_load", help='panel shear rigidity through the thickness, e.g. "25000 lbf/in"'),
+        Field("Ft_A", "line_load", help='axial tension capacity per foot of width, e.g. "3100 lbf/ft"'),
+        Field("Fc_A", "line_load", help='axial compression capacity per foot of width, e.g. "3500 lbf/ft"'),
+    ),
+)
+
 MATERIAL = TableSpec(
     "material",
     "a material that parts refer to by id",
@@ -158,7 +204,22 @@ MATERIAL = TableSpec(
         Field("density", "weight_density", help='weight (or mass) density, e.g. "35 pcf" or "500 kg/m^3"'),
         Field("Fs", "stress", help="rolling shear of plywood (panel face glued to a flange)"),
         Field("grade", "text", help="grade or species text printed in the report"),
+        Field("Ft", "stress", help="tension parallel to grain (wood; box-beam flanges, NDS 2018 §3.8)"),
+        Field("Fc", "stress", help="compression parallel to grain (wood; box-beam flanges, NDS 2018 §3.6)"),
+        Field(
+            "Emin",
+            "stress",
+            help="modulus of elasticity for stability (wood; CL and CP, NDS 2018 §3.3.3, §3.7)",
+        ),
+        Field(
+            "CF",
+            "number",
+            minimum=0.5,
+            maximum=1.5,
+            help="size factor of wood bending (NDS 2018 Supplement Table 4A; default 1.0 up to 12 in wide)",
+        ),
     ),
+    (PANEL,),
     array=True,
     required=True,
 )
@@ -182,7 +243,18 @@ PART = TableSpec(
         Field("area", "area", help="area (rolled)"),
         Field("inertia", "inertia", help="moment of inertia about its own centroid (rolled)"),
         Field("centroid", "length", help="height of the centroid above the bottom (rolled; default depth/2)"),
-        Field("designation", "text", help='designation printed in the report, e.g. "W12x26" (rolled)'),
+        Field(
+            "designation",
+            "text",
+            help='rolled shape designation, e.g. "W21X50": alone, its properties come from the AISC Shapes '
+            "Database v16.0; beside area, inertia, depth and width, printed in the report (rolled)",
+        ),
+        Field(
+            "flange_thickness",
+            "length",
+            help="flange thickness a bolt or weld bears on (rolled by properties)",
+        ),
+        Field("web_thickness", "length", help="web thickness a bolt or weld bears on (rolled by properties)"),
         Field("on", "text", help="id of the part this one sits on"),
         Field("below", "text", help="id of the part this one hangs below"),
         Field("left_of", "text", help="id of the part this one is left of"),
@@ -243,7 +315,12 @@ LOAD = TableSpec(
         Field("w_end", "line_load", positive=False, help="linear load at its end"),
         Field("from", "length", positive=False, help="start of a partial load (default: the left end)"),
         Field("to", "length", positive=False, help="end of a partial load (default: the right end)"),
-        Field("variable", "bool", default=False, help="a case of the job's own placed for its worst effect, as live load"),
+        Field(
+            "variable",
+            "bool",
+            default=False,
+            help="a case of the job's own placed for its worst effect, as live load",
+        ),
         Field("moving", "bool", default=False, help="a point load placed where it does the most harm"),
         Field("group", "text", help="moving point loads with the same group move together at fixed offsets"),
         Field("offset", "length", positive=False, help="position of a moving load within its group"),
@@ -267,6 +344,72 @@ COMBINATION = TableSpec(
     array=True,
 )
 
+DESIGN = TableSpec(
+    "design",
+    "member-check inputs (all optional: a check that needs a missing one is listed as not checked "
+    "or runs with a stated default)",
+    (
+        Field(
+            "unbraced_length",
+            "length",
+            help="top flange when in compression: Lb (steel, AISC 360-16 F) or ℓe (wood, NDS 2018 §3.7); default the span",
+        ),
+        Field(
+            "continuous_bracing",
+            "bool",
+            default=False,
+            help="the top flange is braced along its length (Lb = 0)",
+        ),
+        Field("bottom_unbraced_length", "length", help="the same as unbraced_length for the bottom flange"),
+        Field(
+            "bottom_continuous_bracing",
+            "bool",
+            default=False,
+            help="the bottom flange is braced along its length",
+        ),
+        Field(
+            "Cb",
+            "number",
+            minimum=1.0,
+            maximum=3.0,
+            help="lateral-torsional buckling modification factor (default 1.0)",
+        ),
+        Field(
+            "stiffener_spacing",
+            "length",
+            help="clear spacing a of transverse web stiffeners (AISC 360-16 G2)",
+        ),
+        Field(
+            "bearing_length", "length", help="length of bearing lb at each support (AISC 360-16 J10.2, J10.3)"
+        ),
+        Field(
+            "bearing_stiffeners",
+            "bool",
+            default=False,
+            help="bearing stiffeners at the supports (the J10 web checks then do not apply)",
+        ),
+        Field(
+            "cover_plate_end_weld",
+            "bool",
+            default=False,
+            help="cover plates welded across their ends (AISC 360-16 F13.3)",
+        ),
+        Field(
+            "Cr",
+            "number",
+            minimum=1.0,
+            maximum=1.15,
+            help="repetitive member factor of wood bending (NDS 2018 §4.3.9)",
+        ),
+        Field(
+            "construction",
+            "choice",
+            choices=("shored", "unshored"),
+            help="composite: unshored puts the dead load on the steel alone; shored on the composite section",
+        ),
+    ),
+)
+
 MEMBER = TableSpec(
     "member",
     "a built-up member: its parts, joints and either a design shear or loads along it",
@@ -285,7 +428,7 @@ MEMBER = TableSpec(
         Field("span", "length", help="member length (with loads along it)"),
         Field("self_weight", "bool", default=False, help="add the parts' weight as dead load D"),
     ),
-    (PART, JOINT, SUPPORT, LOAD, COMBINATION),
+    (PART, JOINT, SUPPORT, LOAD, COMBINATION, DESIGN),
     array=True,
     required=True,
 )

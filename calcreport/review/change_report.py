@@ -17,12 +17,12 @@ from reportlab.pdfgen.canvas import Canvas
 from reportlab.platypus import Spacer
 
 from .. import __version__
-from ..safewrite import write_atomic
 from ..outputs.pdfmeta import job_metadata, stamp
 from ..outputs.report.common import grid, heading, para
 from ..outputs.report.pages import MarginMark, PageInfo, ReportDoc
 from ..outputs.report.styles import make_styles, register_fonts
 from ..outputs.report.template import Template, load_template
+from ..safewrite import write_atomic
 from .diff import JobDiff
 from .diff_schedule import figures_text, zone_text
 from .diff_text import ARROW, FIELD_SIG, check_titles, display_for, input_pair, owner_title, value_pair

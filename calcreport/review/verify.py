@@ -9,7 +9,6 @@ by rebuilding it (:mod:`.verify_pdf`). The PDF's information dictionary carries
 from __future__ import annotations
 
 from dataclasses import dataclass
-from typing import Any
 
 from ..errors import JobError
 from ..outputs.pdfmeta import KEY_DOCUMENT, KEY_JOB_SHA256, KEY_MARKED_SINCE, KEY_VERSION

@@ -148,9 +148,9 @@ def _read(pdf_path: str) -> bytes:
 
 def _rebuild(job_path: str, since: str = "") -> bytes:
     """The report of ``job_path`` as ``calcreport build`` (``--since since``) writes it."""
-    from ..pipeline import solve_file
     from ..outputs.report.build import render_pdf
     from ..outputs.report.template import load_template
+    from ..pipeline import solve_file
 
     result = solve_file(job_path)
     tpl = load_template(result.job.settings.template, result.job.path)

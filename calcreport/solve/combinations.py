@@ -30,7 +30,6 @@ __all__ = [
 ]
 
 
-
 def source_lrfd(standard: str = DEFAULT_STANDARD) -> str:
     return f"{standard} §2.3.1 (basic combinations, strength design)"
 

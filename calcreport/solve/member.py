@@ -43,6 +43,10 @@ def solve_member(member: Member, settings: Settings) -> MemberResult:
     """Section, shear and every joint of one member."""
     log = StepLog(f"member.{member.id}")
     section = section_properties(member, log.child("section"))
+    from .composite import cracked_section, has_slab
+
+    if has_slab(member):
+        section = cracked_section(member, section, log.child("section"))
     beam = None
     if member.loads or member.self_weight:
         from .member_loads import analyse_member  # loads along the member
@@ -54,6 +58,10 @@ def solve_member(member: Member, settings: Settings) -> MemberResult:
     joints = tuple(solve_joint(member, section, j, V, settings, log, beam) for j in member.joints)
     checks = _keyed(beam.checks, f"member[{member.id}]") if beam is not None else ()
     checks = checks + _shear_only_checks(member, section, V, beam, log.child("checks"))
+    from .member_kinds import member_checks
+
+    more, unchecked = member_checks(member, section, beam, V, settings, log.child("member"), joints)
+    checks = tuple(checks) + _keyed(more, f"member[{member.id}]")
     checks = checks + tuple(missing_stress_rows(member, beam is not None))
     status = worst([j.status for j in joints] + [c.status for c in checks])
     words, connectors_only = checked_words(member.id, checks, joints)
@@ -67,7 +75,7 @@ def solve_member(member: Member, settings: Settings) -> MemberResult:
         steps=tuple(log.steps),
         status=status,
         beam=beam,
-        not_checked=not_checked(member, checks, beam is not None),
+        not_checked=not_checked(member, checks, beam is not None, extra=unchecked),
         checked=words,
         connectors_only=connectors_only,
         assumed=member_assumed(member, settings, joints, beam),

@@ -69,7 +69,10 @@ def analyse_member(member: Member, section: SectionResult, settings: Settings, l
     loads = list(member.loads)
     sw = None
     if member.self_weight:
-        sw = self_weight([(pp.area, p.material.density) for pp, p in zip(section.parts, member.parts)], log)  # type: ignore[misc]
+        sw = self_weight(
+            [(pp.area_gross or pp.area, p.material.density) for pp, p in zip(section.parts, member.parts)],  # type: ignore[misc]
+            log,
+        )
         loads.append(Load("D", "uniform", sw, label="self-weight", key=f"member[{member.id}].self_weight"))
     cases = list(dict.fromkeys(ld.case for ld in loads))
     if member.combinations:
@@ -143,9 +146,14 @@ def _member_checks(member, section, M, V, limits, beam, log) -> list[Check]:
     bottom = section.bottom.to("inch").magnitude
     ybar = section.centroid.to("inch").magnitude
     fibres: dict[str, Fibre] = {}
+    from .member_kinds import member_type
+
+    # box-beam flanges are axial members (member_box); wood members get bending with the NDS
+    # adjustment factors (member_wood): neither takes the bare-Fb check here
+    box = member_type(member) in ("panel-web", "wood")
     for part, props in zip(member.parts, section.parts):
         mat = part.material
-        if mat.Fb is None:
+        if mat.Fb is None or (box and mat.family in ("wood", "glulam")):
             continue
         c = max(abs(part.shape.bbox[3] - bottom - ybar), abs(part.shape.bbox[1] - bottom - ybar))
         old = fibres.get(mat.id)

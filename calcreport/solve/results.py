@@ -97,6 +97,7 @@ class PartProps:
     inertia_own: Quantity  # about its own horizontal centroidal axis, untransformed
     depth: Quantity
     width: Quantity
+    area_gross: Quantity | None = None  # layered panels: gross area (``area`` is the effective one)
 
 
 @dataclass(frozen=True)

@@ -120,6 +120,13 @@ def section_properties(member: Member, log: StepLog) -> SectionResult:
         A = plog.add(
             "A", f"Area of part {part.id}", sym, tpl, vals, Q_(sp.area, "inch**2"), source="geometry"
         )
+        A_gross = None
+        panel = part.material.extra.get("panel") if part.material.extra else None
+        if panel:
+            from .panel import effective_panel
+
+            A_gross = A
+            A, I_eff = effective_panel(part, panel, A, Q_(sp.inertia, "inch**4"), plog)
         n = plog.add(
             "n",
             f"Modular ratio of part {part.id}",
@@ -139,17 +146,20 @@ def section_properties(member: Member, log: StepLog) -> SectionResult:
             source="geometry",
         )
         sym, tpl, vals = _inertia_formula(part)
-        I0 = plog.add(
-            "I0",
-            f"Own moment of inertia of part {part.id}",
-            sym,
-            tpl,
-            vals,
-            Q_(sp.inertia, "inch**4"),
-            source="geometry",
-        )
+        if A_gross is None:
+            I0 = plog.add(
+                "I0",
+                f"Own moment of inertia of part {part.id}",
+                sym,
+                tpl,
+                vals,
+                Q_(sp.inertia, "inch**4"),
+                source="geometry",
+            )
+        else:
+            I0 = I_eff
         w, h = part.shape.bbox[2] - part.shape.bbox[0], part.shape.bbox[3] - part.shape.bbox[1]
-        props.append(PartProps(part.id, A, n, A * n, y, I0, Q_(h, "inch"), Q_(w, "inch")))
+        props.append(PartProps(part.id, A, n, A * n, y, I0, Q_(h, "inch"), Q_(w, "inch"), A_gross))
         sums_A.append(A * n)
         sums_Ay.append(A * n * y)
     slots_A = {f"nA{i + 1}": p.area_transformed for i, p in enumerate(props)}
@@ -242,20 +252,26 @@ def first_moment(section: SectionResult, held: tuple[str, ...], log: StepLog):
     )
 
 
+def _fraction(p: PartProps) -> float:
+    """Effective area over gross area of a layered panel part."""
+    if p.area_gross is None:
+        return 1.0
+    return float((p.area / p.area_gross).to("").magnitude)
+
+
 def first_moment_above(member: Member, section: SectionResult, y_cut: float) -> float:
     """Q (in³, transformed) of everything above the horizontal line at height ``y_cut`` (inches above
     the section's bottom), about the neutral axis. Rolled parts given by properties cannot be cut
     and raise ValueError when the line passes through them.
     """
-    from shapely.geometry import box
-
-    from ..outlines import outline
+    from ..outlines import is_rectangle, outline
 
     bottom = float(section.bottom.to("inch").magnitude)
     ybar = float(section.centroid.to("inch").magnitude) + bottom
     y_abs = y_cut + bottom
     total = 0.0
-    n_by_id = {p.id: p.n for p in section.parts}
+    panels = {p.id for p in member.parts if p.material.extra and p.material.extra.get("panel")}
+    n_by_id = {p.id: p.n * (_fraction(p) if p.id in panels else 1.0) for p in section.parts}
     for part in member.parts:
         x0, y0, x1, y1 = part.shape.bbox
         if y0 >= y_abs:
@@ -264,6 +280,11 @@ def first_moment_above(member: Member, section: SectionResult, y_cut: float) -> 
         elif y1 > y_abs:
             if part.shape.kind == "properties":
                 raise ValueError(f"part {part.id} is given by properties and cannot be cut")
+            if is_rectangle(part.shape):  # axis-aligned: no shapely needed
+                total += n_by_id[part.id] * (x1 - x0) * (y1 - y_abs) * ((y_abs + y1) / 2 - ybar)
+                continue
+            from shapely.geometry import box
+
             piece = outline(part.shape).intersection(box(x0 - 1, y_abs, x1 + 1, y1 + 1))
             if piece.area > 0:
                 total += n_by_id[part.id] * piece.area * (piece.centroid.y - ybar)

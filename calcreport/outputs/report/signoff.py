@@ -17,9 +17,10 @@ CAUTIONS = (
     "Local building codes and the authority having jurisdiction govern. Design values, adjustment factors "
     "and detailing limits must be confirmed against the edition of the standard adopted where the work is built.",
     "Connector design values given in the job file are used as stated; their source is the engineer's responsibility.",
-    "Material design stresses (Fb, Fv, Fs …) are used as entered in the job file: no size, load-duration, "
-    "wet-service, temperature or other adjustment factor is applied to them. Load duration is applied per "
-    "combination only to the values of wood connectors computed to the NDS.",
+    "Material design stresses (Fb, Fv, Fs …) are used as entered in the job file, except in the member checks "
+    "whose steps state their adjustment factors (wood bending and flange checks, panel shear: C_D or λ per "
+    "combination, CP, CL; factors the job does not give are stated there as assumed). Load duration is "
+    "otherwise applied only to the values of wood connectors computed to the NDS.",
     "Results assume the elastic behaviour stated in each member's assumptions; they are not valid beyond the "
     "elastic range or where connectors slip appreciably.",
 )
@@ -30,8 +31,8 @@ NOT_CHECKED = (
     "local buckling, web buckling, web crippling and web yielding under concentrated loads",
     "bearing at supports and under point loads; stiffeners",
     "the connection of the member to its supports and to other members",
-    "deflection and camber, unless a check above states them; deflections are from bending only — "
-    "shear deformation (significant in plywood-web box beams) and connector slip are not included",
+    "deflection and camber, unless a check above states them; deflections are from bending only unless a "
+    "check above adds the webs' shear deformation — connector slip is not included",
     "panel (through-thickness) shear of plywood webs, unless a check above states it",
     "long-term creep and shrinkage, and load-duration effects beyond the factors stated",
     "vibration and dynamic or impact loads",

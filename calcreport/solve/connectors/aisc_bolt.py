@@ -17,7 +17,7 @@ from ...steps import StepLog
 from ...units import Q_
 from ..results import Capacity, Check
 from . import ConnectorError
-from .shear_plane import across_check, find_contact, thickness_normal
+from .shear_plane import across_check, find_contact, missing_rolled_plate, rolled_plate, thickness_normal
 
 KIND = "steel_bolt"
 SRC = "ANSI/AISC 360-16"
@@ -120,7 +120,11 @@ def _thick(log, name, label, given, part, c, key):
             f"{key}.{name.replace('t_', '')}_thickness",
             "expected held_thickness and other_thickness: the parts do not touch",
         )
+    missing = missing_rolled_plate(part, c)
+    if missing:
+        raise ConnectorError(f"{key}.{name.replace('t_', '')}_thickness", missing)
     t = thickness_normal(part, c)
+    rolled = rolled_plate(part, c) is not None
     log.add(
         name,
         label,
@@ -128,8 +132,12 @@ def _thick(log, name, label, given, part, c, key):
         "{t}",
         {"t": Q_(t, "in")},
         Q_(t, "in"),
-        source="geometry of the parts",
-        note=f"part {part.id} measured perpendicular to the {c.orientation} shear plane",
+        source=part.shape.source if rolled else "geometry of the parts",
+        note=(
+            f"part {part.id}: {'flange' if c.orientation == 'horizontal' else 'web'} thickness of the rolled shape"
+            if rolled
+            else f"part {part.id} measured perpendicular to the {c.orientation} shear plane"
+        ),
     )
     return t
 

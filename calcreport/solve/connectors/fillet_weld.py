@@ -20,7 +20,14 @@ from ...steps import StepLog
 from ...units import Q_, Quantity, parse
 from ..results import Capacity, Check
 from . import ConnectorError
-from .shear_plane import extent_along, find_contact, plate_thickness, thickness_normal
+from .shear_plane import (
+    extent_along,
+    find_contact,
+    missing_rolled_plate,
+    plate_thickness,
+    rolled_plate,
+    thickness_normal,
+)
 
 KIND = "fillet_weld"
 SRC = "ANSI/AISC 360-16"
@@ -86,8 +93,14 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
         if given is not None:
             t, note, src = given.to("in").magnitude, "given", "job file"
         elif c is not None:
+            missing = missing_rolled_plate(part, c)
+            if missing:
+                raise ConnectorError(f"{key}.{which}_thickness", missing)
             t, src = plate_thickness(part, c), "geometry of the parts"
             note = f"part {part.id}: the lesser of its depth from the {c.orientation} plane and its width along it"
+            if rolled_plate(part, c) is not None:
+                src = part.shape.source
+                note = f"part {part.id}: {'flange' if c.orientation == 'horizontal' else 'web'} thickness of the rolled shape"
         else:
             raise ConnectorError(
                 f"{key}.{which}_thickness",

@@ -36,6 +36,8 @@ __all__ = [
     "opposite_faces",
     "width_for_lines",
     "across_check",
+    "rolled_plate",
+    "missing_rolled_plate",
 ]
 
 TOL = 1e-6
@@ -136,12 +138,38 @@ def thickness_normal(part: Part, c: Contact) -> float:
     otherwise. Source: geometry.
     """
     side = c.held_side if part is c.held else -c.held_side
+    plate = rolled_plate(part, c)
+    if plate is not None:
+        return plate
     if part.shape.kind == "polygon" and len(part.shape.vertices) >= 3 and not is_rectangle(part.shape):
         runs = _runs_polygon(part, c, side)
         if runs:
             return min(runs)
     x0, y0, x1, y1 = part.shape.bbox
     return (y1 - y0) if c.orientation == "horizontal" else (x1 - x0)
+
+
+def rolled_plate(part: Part, c: Contact) -> float | None:
+    """The plate of a rolled shape (given by properties) that a connector at ``c`` bears on: its
+    flange thickness at a horizontal plane (a plate on the flange), its web thickness at a vertical
+    plane; None for other shapes or when the job (or the shapes database) gave none.
+    Source: geometry of the rolled shape (the plane lies on a flange face or against the web)."""
+    if part.shape.kind != "properties":
+        return None
+    t = part.shape.flange_thickness if c.orientation == "horizontal" else part.shape.web_thickness
+    return t if t > 0 else None
+
+
+def missing_rolled_plate(part: Part, c: Contact | None) -> str | None:
+    """A message when ``part`` is a rolled shape given by properties whose connected plate is not
+    known (so its full depth or width would be taken as a plate), else None."""
+    if part.shape.kind != "properties" or c is None or rolled_plate(part, c) is not None:
+        return None
+    which = "flange_thickness" if c.orientation == "horizontal" else "web_thickness"
+    return (
+        f"part {part.id} is a rolled shape given by its properties without {which}: give {which} "
+        f"on the part (or the shape by designation), or the plate thickness on this connector"
+    )
 
 
 def extent_along(part: Part, c: Contact) -> float:
@@ -153,7 +181,10 @@ def extent_along(part: Part, c: Contact) -> float:
 def plate_thickness(part: Part, c: Contact) -> float:
     """Plate thickness of ``part`` at the contact: the lesser of its run normal to the plane and
     its extent along the plane (a web standing on edge against a flange has thickness t_w along
-    the plane). Source: geometry."""
+    the plane). A rolled shape's plate is its flange or web thickness. Source: geometry."""
+    plate = rolled_plate(part, c)
+    if plate is not None:
+        return plate
     return min(thickness_normal(part, c), extent_along(part, c))
 
 
