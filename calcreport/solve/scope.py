@@ -85,6 +85,28 @@ def _member_prefix(member_id: str) -> str:
     return f"member[{member_id}]."
 
 
+#: Key segments of the member-type checks (``solve/member_kinds.py`` and the modules it calls) and
+#: the expectation tag each one meets: ``web_panel_shear`` is the plywood panel-shear check, a
+#: ``flange[top]`` check is the flange's axial check, and so on.
+ALIASES = {
+    "web_panel_shear": "panel_shear",
+    "web_axial": "panel_stress",
+    "shear_deflection": "shear_deformation",
+    "web_yielding": "web_local_yielding",
+    "web_proportions": "local_buckling",
+}
+
+#: Expectation names whose item a member-type check module reports itself, more precisely, as
+#: Unchecked items keyed with these prefixes (``member[G1].flange[bot].tension``): the general
+#: line is then left out in favour of the precise ones.
+PRECISE = {
+    "flange_axial": ("flange[",),
+    "panel_shear": ("web_panel_shear",),
+    "panel_stress": ("web_axial",),
+    "shear_deformation": ("shear_deflection",),
+}
+
+
 def check_tags(check: Check, member_id: str) -> frozenset[str]:
     """The scope tags ``check`` covers (see the module docstring); empty for joint checks."""
     key = check.key
@@ -95,6 +117,8 @@ def check_tags(check: Check, member_id: str) -> frozenset[str]:
         return frozenset(check.scope.split())
     segs = [s for s in key.split(".") if s]
     tags = set(segs) | {f"{a}:{b}" for a, b in zip(segs, segs[1:])}
+    tags |= {ALIASES[s] for s in segs if s in ALIASES}
+    tags |= {"flange_axial" for s in segs if s.startswith("flange[")}
     return frozenset(tags | set(check.scope.split()))
 
 
@@ -136,7 +160,7 @@ def expectations(member: Member, has_moment: bool) -> list[Expectation]:
         out.append(
             Expectation(
                 f"bending.{mat.id}",
-                (f"bending:{mat.id}",),
+                (f"bending:{mat.id}", "flange_axial") if ply else (f"bending:{mat.id}",),
                 f"bending stress of {mat.id}",
                 f"{NDS} §3.3",
                 reason,
@@ -146,7 +170,7 @@ def expectations(member: Member, has_moment: bool) -> list[Expectation]:
         out.append(
             Expectation(
                 "shear.neutral_axis",
-                ("shear:neutral_axis",),
+                ("shear:neutral_axis", "panel_shear") if ply else ("shear:neutral_axis",),
                 "horizontal shear stress at the neutral axis",
                 f"{NDS} §3.4",
                 "not computed for this member",
@@ -188,7 +212,7 @@ def expectations(member: Member, has_moment: bool) -> list[Expectation]:
                 ("panel_stress", "panel_axial"),
                 f"tension and compression in the plywood webs, {names}",
                 f"{APA}, Ft and Fc parallel to the face grain",
-                "not implemented in this version",
+                "needs loads along the member and the panel's Ft_A and Fc_A ([material.panel])",
             )
         )
         if wood:
@@ -198,7 +222,7 @@ def expectations(member: Member, has_moment: bool) -> list[Expectation]:
                     ("flange_axial",),
                     "axial stress of the wood flanges against Ft and Fc with CP",
                     f"{NDS} §3.8, §3.6-3.7",
-                    "not implemented in this version; flanges get a bending-stress check only",
+                    "needs loads along the member and Ft and Fc of the flange material",
                 )
             )
             out.append(
@@ -217,7 +241,7 @@ def expectations(member: Member, has_moment: bool) -> list[Expectation]:
                         ("shear_deformation",),
                         "shear deformation of the plywood webs in the deflection",
                         f"{APA}, G·Av of the webs",
-                        "deflection is computed from bending only",
+                        "needs the panel's Gv_tv ([material.panel]); deflection is from bending only",
                     )
                 )
     if steel:
@@ -338,6 +362,13 @@ def not_checked(
         reason = _info_reason(e.tags, infos) or e.reason
         out.append(Unchecked(f"member[{member.id}].{e.name}", e.label, e.clause, reason))
     own = {u.key: u for u in extra if u.key.rsplit(".", 1)[-1] not in covered}
+    prefix = f"member[{member.id}]."
+    precise = {k[len(prefix) :] for k in own if k.startswith(prefix)}
+    out = [
+        u
+        for u in out
+        if not any(p.startswith(PRECISE.get(u.key[len(prefix) :], ("\0",))) for p in precise)
+    ]
     merged = [own.pop(u.key, u) for u in out]
     return tuple(merged + list(own.values()))
 
