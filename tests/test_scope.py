@@ -14,10 +14,10 @@ from pathlib import Path
 
 import pytest
 
-from calcreport.pipeline import solve_file
 from calcreport.model import Material, Member, Part, Shape
 from calcreport.outputs.json_out import to_dict
 from calcreport.outputs.table import render_job
+from calcreport.pipeline import solve_file
 from calcreport.solve.results import Check
 from calcreport.solve.scope import check_tags, not_checked
 from calcreport.units import Q_

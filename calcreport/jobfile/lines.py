@@ -81,9 +81,9 @@ class LineIndex:
                 for k in range(1, len(current) + 1):  # a table first named by a sub-table header
                     self._lines.setdefault(current[:k], number)
                 continue
-            k = _key(raw)
-            if k:
-                self._lines.setdefault(current + tuple(_split_dotted(k)), number)
+            key = _key(raw)
+            if key:
+                self._lines.setdefault(current + tuple(_split_dotted(key)), number)
 
     def line(self, path: Path) -> int | None:
         """Line of ``path`` or of its nearest ancestor that has one; None if unknown."""

@@ -9,6 +9,7 @@ by rebuilding it (:mod:`.verify_pdf`). The PDF's information dictionary carries
 from __future__ import annotations
 
 from dataclasses import dataclass
+from typing import Any
 
 from ..errors import JobError
 from ..outputs.pdfmeta import KEY_DOCUMENT, KEY_JOB_SHA256, KEY_MARKED_SINCE, KEY_VERSION
@@ -64,7 +65,7 @@ def read_stamp(pdf_path: str) -> PdfStamp:
         raise JobError(pdf_path, "", str(exc)) from None
     try:
         reader = pypdf.PdfReader(io.BytesIO(data))
-        info = reader.metadata or {}
+        info: Any = reader.metadata or {}
         sha = info.get("/" + KEY_JOB_SHA256)
         version = info.get("/" + KEY_VERSION)
         document = info.get("/" + KEY_DOCUMENT)

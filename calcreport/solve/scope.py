@@ -365,9 +365,7 @@ def not_checked(
     prefix = f"member[{member.id}]."
     precise = {k[len(prefix) :] for k in own if k.startswith(prefix)}
     out = [
-        u
-        for u in out
-        if not any(p.startswith(PRECISE.get(u.key[len(prefix) :], ("\0",))) for p in precise)
+        u for u in out if not any(p.startswith(PRECISE.get(u.key[len(prefix) :], ("\0",))) for p in precise)
     ]
     merged = [own.pop(u.key, u) for u in out]
     return tuple(merged + list(own.values()))

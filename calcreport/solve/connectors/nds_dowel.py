@@ -27,7 +27,6 @@ from ...steps import StepLog
 from ...units import Q_
 from ..results import Capacity, Check
 from . import ConnectorError
-from .shear_plane import across_check, find_contact, thickness_normal
 from .nds_catalog import species_g
 from .nds_factors import adjust
 from .nds_fit import fastener_fit
@@ -41,6 +40,7 @@ from .nds_yield import (
     log_yield_modes,
     yield_modes,
 )
+from .shear_plane import across_check, find_contact, thickness_normal
 
 __all__ = ["Fastener", "design_dowel", "screw_diameters"]
 

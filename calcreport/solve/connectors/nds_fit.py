@@ -40,7 +40,6 @@ NDS_FIT = "ANSI/AWC NDS-2018 §12.1, §12.3.5"
 SRC_BOTH_FACES = "common practice, no source (fasteners driven from both faces)"
 
 
-
 def _direction(c: Contact, main: Part) -> int:
     """+1 / −1: the way from the side member into the main member, normal to the plane."""
     return c.held_side if main is c.held else -c.held_side
