@@ -171,7 +171,6 @@ VALUES = [
 scalar = st.one_of(
     st.sampled_from(VALUES),
     st.sampled_from([5e-324, -2.5e-310, float("inf"), float("-inf"), float("nan")]),
-    st.lists(st.sampled_from(["x", "1 in", 3]), min_size=45, max_size=70),  # long lists, near the caps
     st.integers(-(10**6), 10**6),
     st.floats(allow_nan=False, allow_infinity=False),
     st.booleans(),
