@@ -104,6 +104,7 @@ PRECISE = {
     "panel_shear": ("web_panel_shear",),
     "panel_stress": ("web_axial",),
     "shear_deformation": ("shear_deflection",),
+    "web_local_yielding": ("web_yielding",),
 }
 
 
