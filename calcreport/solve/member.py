@@ -161,6 +161,36 @@ def _plane_shear(
     )
 
 
+#: A joint on a vertical plane whose held parts reach over at least this share of the section's
+#: depth joins plies side by side (common practice, no source: the threshold only tells such a
+#: layout from a flange nailed to the side of a web, which covers a small share of the depth).
+PLY_DEPTH_SHARE = 0.75
+
+
+def _refuse_plies_side_by_side(member: Member, joint: Joint, held, segments) -> None:
+    """Refuse V·Q/I for connectors between plies set side by side.
+
+    When every shear plane of the joint is vertical and the held parts run over (nearly) the whole
+    depth, Q about the neutral axis is zero (equal plies) or an artefact of unequal depths (a
+    flitch plate a little shallower than its timbers): those connectors carry the load that enters
+    one ply across to the others, which shear flow does not give (mechanics of materials: q = V·Q/I
+    holds for a cut parallel to the neutral axis). A confident OK from it would be meaningless.
+    """
+    if not segments or any(abs(a[0] - b[0]) > 1e-6 for a, b in segments):
+        return  # some plane is not vertical: shear flow applies
+    ys = [(p.shape.bbox[1], p.shape.bbox[3]) for p in member.parts]
+    depth = max(y1 for _, y1 in ys) - min(y0 for y0, _ in ys)
+    reach = max(p.shape.bbox[3] for p in held) - min(p.shape.bbox[1] for p in held)
+    if depth > 0 and reach >= PLY_DEPTH_SHARE * depth:
+        raise SolveError(
+            f"member[{member.id}].joint[{joint.id}]",
+            f"joins parts set side by side over {reach / depth:.0%} of the section's depth (a vertical "
+            "shear plane): V·Q/I gives these connectors no meaningful demand — they carry the load "
+            "that enters one ply across to the others. Multi-ply and flitch-plate fastening is not "
+            "designed by this version: remove the joint and design the ply fastening by hand",
+        )
+
+
 def solve_joint(
     member: Member,
     section: SectionResult,
@@ -178,6 +208,7 @@ def solve_joint(
     touching = {p.id for p in rest if contact_segments(held, [p])}
     other = [p for p in rest if p.id in touching]
     contact = sum(((a[0] - b[0]) ** 2 + (a[1] - b[1]) ** 2) ** 0.5 for a, b in segments)
+    _refuse_plies_side_by_side(member, joint, held, segments)
     if joint.width is not None:
         b = log.add(
             "b",
