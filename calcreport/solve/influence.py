@@ -179,12 +179,24 @@ def statics_rows(
     return Influence(xf, hf, CV, zero), Influence(xf, hf, CM, zero), Influence(xf, hf, CR, zero), meta
 
 
+def _distinct(v: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
+    """Sorted distinct values of ``v`` and, for each entry of ``v``, the index of its value among
+    them — what ``np.unique(v, return_inverse=True)`` gives, without importing numpy.ma (start-up)."""
+    order = np.argsort(v, kind="stable")
+    s = v[order]
+    first = np.ones(len(s), bool)
+    first[1:] = s[1:] != s[:-1]
+    inverse = np.empty(len(v), np.intp)
+    inverse[order] = np.cumsum(first) - 1
+    return s[first], inverse
+
+
 def deflection_rows(mesh: Mesh, idx: np.ndarray) -> Rows:
     """Rows giving the deflection (EI = 1) at nodes ``idx`` of the fine model: d = K⁻¹·f. K⁻¹ is
     symmetric, so the rows are the solutions for unit forces at those nodes (one per node)."""
     K, _, free = stiffness(mesh)
     n = len(mesh.x)
-    nodes, where = np.unique(np.asarray(idx), return_inverse=True)
+    nodes, where = _distinct(np.asarray(idx))
     pos = {int(d): k for k, d in enumerate(free)}
     rhs = np.zeros((len(free), len(nodes)))
     for j, nd in enumerate(nodes):
@@ -308,7 +320,7 @@ def _breaks(x: np.ndarray, offsets: np.ndarray, lo: float, hi: float) -> np.ndar
     for d in offsets:
         xs = x - d
         pts.append(xs[(xs > a_lo) & (xs < a_hi)])
-    a = np.unique(np.concatenate(pts))
+    a = np.sort(np.concatenate(pts))  # duplicates are dropped by the tolerance below
     tol = 1e-9 * max(x[-1], 1.0)
     keep = np.concatenate([[True], np.diff(a) > tol])
     a = a[keep]
