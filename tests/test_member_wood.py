@@ -47,15 +47,7 @@ shape = "lumber"
 size = "2x12"
 material = "df"
 right_of = "p2"
-[[member.joint]]
-id = "j"
-holds = ["p1"]
-width = "11.25 in"
-[member.joint.connector]
-type = "given"
-value = "500 lbf"
-source = "test value"
-"""
+"""  # no joint: the plies' fastening is not a shear-flow joint (refused; designed by hand)
 D_ONLY = '[[member.load]]\ncase = "D"\nkind = "uniform"\nw = "300 plf"\n'
 D_S = D_ONLY + '[[member.load]]\ncase = "S"\nkind = "uniform"\nw = "400 plf"\n'
 

@@ -67,7 +67,7 @@ HOSTILE = textwrap.dedent(f"""
     width = "1.5 in"
     depth = "9 in"
     material = "w<1>"
-    right_of = "a"
+    on = "a"
 
     [[member.joint]]
     id = "j<1>"

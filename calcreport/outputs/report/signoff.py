@@ -27,9 +27,12 @@ CAUTIONS = (
 
 NOT_CHECKED = (
     "bending and shear stresses in the parts themselves, unless a check above states them",
-    "lateral-torsional buckling and lateral bracing of the compression flange",
-    "local buckling, web buckling, web crippling and web yielding under concentrated loads",
-    "bearing at supports and under point loads; stiffeners",
+    "lateral-torsional buckling and lateral bracing of the compression flange, unless a check above "
+    "states them (welded plate girders: AISC 360-16 F2-F5 with the Lb and Cb stated)",
+    "local buckling, web buckling, web crippling and web yielding under concentrated loads, unless a "
+    "check above states them (welded plate girders at their supports: J10.2, J10.3)",
+    "bearing at supports and under point loads; stiffeners and tension-field action",
+    "ply-to-ply fastening of multi-ply and flitch beams (a joint between plies side by side is refused)",
     "the connection of the member to its supports and to other members",
     "deflection and camber, unless a check above states them; deflections are from bending only unless a "
     "check above adds the webs' shear deformation — connector slip is not included",
