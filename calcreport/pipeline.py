@@ -48,12 +48,9 @@ def read_bytes(path: str) -> bytes:
                 STDIN_LABEL, "", f"more than {limit:,} bytes; a job file may have at most {limit:,}"
             )
         return data
-    from .safeio import FileRefused, read_regular
+    from .safeio import read_input
 
-    try:
-        return read_regular(path, limit, "a job file")
-    except FileRefused as exc:
-        raise JobError(path, "", str(exc)) from None
+    return read_input(path, limit, "a job file")
 
 
 def load(path: str, warnings: TextIO | None | bool = True) -> Job:

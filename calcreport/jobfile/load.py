@@ -44,12 +44,9 @@ FAMILIES = decl.FAMILIES
 
 def load_job(path: str) -> Job:
     """Read and validate the job file at ``path`` (a regular file of at most MAX_FILE_BYTES)."""
-    from ..safeio import FileRefused, read_regular
+    from ..safeio import read_input
 
-    try:
-        data = read_regular(path, MAX_FILE_BYTES, "a job file")
-    except FileRefused as exc:
-        raise JobError(path, "", str(exc)) from None
+    data = read_input(path, MAX_FILE_BYTES, "a job file")
     return load_text(data, path)
 
 

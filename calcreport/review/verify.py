@@ -57,12 +57,9 @@ def read_stamp(pdf_path: str) -> PdfStamp:
     logging.getLogger("pypdf").setLevel(logging.ERROR + 10)  # our one-line message says what is wrong
     import io
 
-    from ..safeio import FileRefused, read_regular
+    from ..safeio import read_input
 
-    try:
-        data = read_regular(pdf_path, MAX_PDF_BYTES, "a PDF report")
-    except FileRefused as exc:
-        raise JobError(pdf_path, "", str(exc)) from None
+    data = read_input(pdf_path, MAX_PDF_BYTES, "a PDF report")
     try:
         reader = pypdf.PdfReader(io.BytesIO(data))
         info: Any = reader.metadata or {}
