@@ -236,7 +236,7 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
                     "expected pretension (a force): Table J3.1 has no value "
                     "for this bolt group and diameter here (groups A and B, 1/2 in to 1-1/2 in)",
                 )
-            tsrc = f"{SRC} Table J3.1 (from memory)"
+            tsrc = f"{SRC} Table J3.1"
         log.add(
             "Tb", "Minimum bolt pretension", "Tb", "{Tb}", {"Tb": Q_(Tb, "kip")}, Q_(Tb, "kip"), source=tsrc
         )
@@ -289,7 +289,7 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
     elif hole in ("standard", "short_slot_transverse", "long_slot_transverse"):
         dh, hsrc = standard_hole(d), f"{SRC} Table J3.3, standard hole width along the force"
     elif hole == "oversized":
-        dh, hsrc = oversized_hole(d), f"{SRC} Table J3.3 (from memory)"
+        dh, hsrc = oversized_hole(d), f"{SRC} Table J3.3"
     else:
         raise ConnectorError(
             f"{key}.hole_length",
@@ -369,7 +369,7 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
                 max(getattr(ctx, "per_row", 1), 1),
                 edge_min(d),
                 8 / 3 * d,
-                f"{SRC} Table J3.4 (from memory); §J3.3",
+                f"{SRC} Table J3.4; §J3.3",
                 "Table J3.4 minimum edge distance",
                 "§J3.3 minimum spacing 2-2/3 d between bolts across the force",
             ),

@@ -385,7 +385,7 @@ def _stitch_pitch(log: StepLog, t: float, parts) -> Quantity:
         "min(24 × {t}, 12 in)",
         {"t": tq},
         Q_(min(24 * t, 12.0), "in"),
-        source=f"{SRC} §D4 (from memory)",
+        source=f"{SRC} §D4",
     )
     fys = [p.material.Fy for p in parts if p.material.Fy is not None]
     if not fys:
@@ -401,7 +401,7 @@ def _stitch_pitch(log: StepLog, t: float, parts) -> Quantity:
         "min(0.75 × {t} × √({E} / {Fy}), 12 in)",
         {"t": tq, "E": mat.E, "Fy": mat.Fy},
         Q_(min(0.75 * t * ratio, 12.0), "in"),
-        source=f"{SRC} §E6.2(a) (from memory)",
+        source=f"{SRC} §E6.2(a)",
         note=f"Fy of {mat.id}, the higher-strength plate (the smaller limit)",
     )
     return min(d4, e6)

@@ -29,7 +29,7 @@ __all__ = [
     "CATALOG_SOURCE",
 ]
 
-CATALOG_SOURCE = "NDS 2018 Appendix L (Tables L1-L4), from memory"
+CATALOG_SOURCE = "NDS 2018 Appendix L (Tables L1-L4)"  # transcription: docs/sources.md
 
 
 @dataclass(frozen=True)

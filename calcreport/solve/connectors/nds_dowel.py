@@ -27,20 +27,12 @@ from ...steps import StepLog
 from ...units import Q_
 from ..results import Capacity, Check
 from . import ConnectorError
-from .nds_catalog import species_g
+from .nds_bearing import bearing, member_angles, steel_case
+from .nds_detailing import detailing
 from .nds_factors import adjust
 from .nds_fit import fastener_fit
-from .nds_yield import (
-    NDS,
-    fe_parallel,
-    fe_perpendicular,
-    fe_small,
-    fe_steel,
-    hankinson,
-    log_yield_modes,
-    yield_modes,
-)
-from .shear_plane import across_check, find_contact, thickness_normal
+from .nds_yield import NDS, k_theta, log_yield_modes, yield_modes
+from .shear_plane import find_contact, thickness_normal
 
 __all__ = ["Fastener", "design_dowel", "screw_diameters"]
 
@@ -139,134 +131,6 @@ def _thickness(log: StepLog, name: str, label: str, given, part: Part, c, why: s
     return t
 
 
-def plywood_g(mat) -> tuple[float, str]:
-    """Specific gravity of a wood structural panel without a G: Structural I and Marine plywood
-    0.50, other plywood grades 0.42 (the lower, used when the grade is not stated).
-    Source: NDS-2018 Table 12.3.3B (from memory). The grade is read from the material's ``grade``
-    (or, failing that, its name)."""
-    text = f"{mat.extra.get('grade') or ''} {mat.name}".lower()
-    if "structural i" in text or "structural 1" in text or "marine" in text:
-        return 0.50, f"material {mat.id}: Structural I / Marine plywood, NDS-2018 Table 12.3.3B (from memory)"
-    return 0.42, (
-        f"material {mat.id}: plywood of other or unstated grade, NDS-2018 Table 12.3.3B "
-        "(from memory; the lower panel value)"
-    )
-
-
-def _specific_gravity(log: StepLog, p: dict, part: Part, which: str, key: str) -> float:
-    if p.get(f"G_{which}") is not None:
-        g, src = p[f"G_{which}"], "given for this connector"
-    elif part.material.G is not None:
-        g, src = part.material.G, f"material {part.material.id}"
-    elif part.material.family == "plywood" and not p.get("species"):
-        g, src = plywood_g(part.material)
-    elif p.get("species"):
-        g = species_g(p["species"])
-        if g is None:
-            raise ConnectorError(
-                f"{key}.species",
-                "expected a species combination of NDS Table 12.3.3A, "
-                'e.g. "Douglas Fir-Larch", "Southern Pine", "Hem-Fir", "Spruce-Pine-Fir"',
-            )
-        src = f"species {p['species']}, NDS-2018 Table 12.3.3A (from memory)"
-    else:
-        raise ConnectorError(
-            f"{key}.G_{which}",
-            f"expected G_{which} (specific gravity), a species, or a G on material {part.material.id}",
-        )
-    log.add(
-        f"G_{which}", f"Specific gravity of the {which} member", f"G_{which}", "{G}", {"G": g}, g, source=src
-    )
-    return g
-
-
-def _bearing(
-    log: StepLog, p: dict, part: Part, which: str, f: Fastener, t: float, theta: float, key: str
-) -> float:
-    """Dowel bearing strength (psi) of the side or main member, with its steps."""
-    sym = "Fes" if which == "side" else "Fem"
-    mat = part.material
-    if mat.family == "steel":
-        if mat.Fu is None:
-            raise ConnectorError(
-                f"{key}.side_member",
-                f"expected an Fu on steel material {mat.id} (needed for its dowel bearing strength)",
-            )
-        Fu = mat.Fu.to("psi").magnitude
-        fe, mult, form = fe_steel(Fu, t, p.get("steel_form") or "auto")
-        log.add(
-            sym,
-            f"Dowel bearing strength of the {which} member (steel)",
-            f"{sym} = k·Fu",
-            "{k} × {Fu}",
-            {"k": mult, "Fu": mat.Fu},
-            Q_(fe, "psi"),
-            source=f"{NDS} §12.3.4, Appendix I (from memory)",
-            note=f"{form.replace('_', '-')} steel"
-            + (" (t ≥ 1/4 in)" if form == "hot_rolled" else " (t < 1/4 in)"),
-        )
-        return fe
-    if mat.family not in ("wood", "plywood", "other"):
-        raise ConnectorError(
-            f"{key}.side_member",
-            f"expected wood, plywood or steel members; material {mat.id} is {mat.family}",
-        )
-    G = _specific_gravity(log, p, part, which, key)
-    src = f"{NDS} Table 12.3.3 footnote 2"
-    note = (
-        "NDS tables tabulate Fe rounded (to 50 psi for D < 1/4 in, e.g. 4650 psi at G = 0.50); "
-        "the equation is used here unrounded"
-    )
-    if f.D < 0.25:
-        return (
-            log.add(
-                sym,
-                f"Dowel bearing strength of the {which} member",
-                f"{sym} = 16600·G^1.84",
-                "16600 × {G}^1.84",
-                {"G": G},
-                Q_(fe_small(G), "psi"),
-                source=src,
-                note=note,
-            )
-            .to("psi")
-            .magnitude
-        )
-    fpar = fe_parallel(G)
-    fpar_q = log.add(
-        f"{sym}_par",
-        f"Dowel bearing strength parallel to grain, {which} member",
-        f"{sym}∥ = 11200·G",
-        "11200 × {G}",
-        {"G": G},
-        Q_(fpar, "psi"),
-        source=src,
-    )
-    if theta <= 0:
-        return fpar
-    fperp = fe_perpendicular(G, f.D)
-    fperp_q = log.add(
-        f"{sym}_perp",
-        f"Dowel bearing strength perpendicular to grain, {which} member",
-        f"{sym}⊥ = 6100·G^1.45 / √D",
-        "6100 × {G}^1.45 / √{D}",
-        {"G": G, "D": Q_(f.D, "in")},
-        Q_(fperp, "psi"),
-        source=src,
-    )
-    fe = hankinson(fpar, fperp, theta)
-    log.add(
-        sym,
-        f"Dowel bearing strength at the load angle, {which} member",
-        f"{sym}θ = Fe∥·Fe⊥ / (Fe∥·sin²θ + Fe⊥·cos²θ)",
-        "{par} × {perp} / ({par} × sin²({th}°) + {perp} × cos²({th}°))",
-        {"par": fpar_q, "perp": fperp_q, "th": float(theta)},
-        Q_(fe, "psi"),
-        source=f"{NDS} §12.3.3.2, Appendix J (Hankinson formula)",
-    )
-    return fe
-
-
 def design_dowel(
     spec: ConnectorSpec, ctx, log: StepLog, f: Fastener, *, toe_nail: bool = False, diaphragm: bool = False
 ) -> Capacity:
@@ -346,8 +210,7 @@ def design_dowel(
                 Q_(pen, "in"),
                 pmin / pen,
                 "OK" if pen >= pmin - 1e-9 else "NG",
-                source=f"{NDS} Chapter 12 minimum penetration "
-                f"{'6D' if f.min_pen == 6 else '4D'} (from memory)",
+                source=f"{NDS} Chapter 12 minimum penetration {'6D' if f.min_pen == 6 else '4D'}",
                 note="lateral values may not be used with less penetration",
             )
         )
@@ -400,9 +263,9 @@ def design_dowel(
                 f"{key}.size",
                 "expected a longer fastener: no bearing length remains in the main member after the tip",
             )
-    th_s, th_m = p.get("angle_side") or 0.0, p.get("angle_main") or 0.0
-    Fes = _bearing(log, p, side, "side", f, ts, th_s, key)
-    Fem = _bearing(log, p, main, "main", f, tm, th_m, key)
+    ang = member_angles(log, p, ctx, side, main, D, key)
+    Fes = bearing(log, p, side, "side", D, ts, ang.side, key)
+    Fem = bearing(log, p, main, "main", D, tm, ang.main, key)
     log.add(
         "D",
         "Diameter used in the yield equations",
@@ -422,7 +285,18 @@ def design_dowel(
         Q_(f.Fyb, "psi"),
         source=f.fyb_source,
     )
-    theta = max(th_s, th_m)
+    theta = ang.theta
+    if theta > 0 and (D >= 0.25 or f.reduced_rd):
+        log.add(
+            "K_theta",
+            "Load-angle term of the reduction term Rd",
+            "Kθ = 1 + 0.25·(θ/90)",
+            "1 + 0.25 × ({th} / 90)",
+            {"th": theta},
+            k_theta(theta),
+            source=f"{NDS} Table 12.3.1B",
+            note="θ = the largest angle of load to grain of the wood members",
+        )
     modes = yield_modes(f.Dy, lm, ls, Fem, Fes, f.Fyb, theta, planes, f.reduced_rd)
     gov = log_yield_modes(log, modes, planes)
     Z = log.add(
@@ -435,7 +309,7 @@ def design_dowel(
         source=f"{NDS} §12.3.1",
         note=f"mode {gov.mode} governs",
     ).magnitude
-    steel_side = side.material.family == "steel"
+    steel_side = side.material.family == "steel" or main.material.family == "steel"
     Zp, used = adjust(
         log.child("adj"),
         Z,
@@ -450,7 +324,21 @@ def design_dowel(
         diaphragm=diaphragm,
     )
     lines = -(-max(getattr(ctx, "per_row", 1), 1) // faces)  # per face, rounded up
-    smin, smax, lsrc = _detailing(checks, key, f, c, ls, lm, theta, lines)
+    case = steel_case(side, main, planes, key)
+    if case is not None:
+        checks.append(case)
+    smin, smax, lsrc = detailing(
+        log.child("detail"),
+        checks,
+        key,
+        f.kind,
+        D,
+        c,
+        _wood_length(side, main, ls, lm, planes),
+        theta,
+        lines,
+        ply=float(getattr(ctx, "load_angle", 0.0) or 0.0) > 0,
+    )
     return Capacity(
         value=Q_(Zp, "lbf"),
         continuous=False,
@@ -464,81 +352,13 @@ def design_dowel(
     )
 
 
-def _detailing(
-    checks: list[Check], key: str, f: Fastener, c, ls: float, lm: float, theta: float, lines: int = 1
-):
-    """Spacing, end and edge distance (NDS-2018 §12.5.1 for D ≥ 1/4 in; nails: common practice).
-    ``lines``: fasteners of one row side by side across the contact (from one face)."""
-    D = f.D
-    half = (c.hi - c.lo) / 2.0 if c else None
-    if D >= 0.25 and f.kind != "nail":
-        src = f"{NDS} Tables 12.5.1A-12.5.1D (from memory)"
-        l_over_d = min(lm, ls) / D
-        edge = 1.5 * D
-        note = (
-            "load parallel to grain, l/D ≤ 6: 1.5D"
-            if l_over_d <= 6
-            else ("l/D > 6: the greater of 1.5D and half the spacing between rows")
-        )
-        if theta > 0:
-            edge, note = 4.0 * D, "loaded edge with load perpendicular to grain: 4D"
-        if half is not None:
-            checks.append(
-                across_check(
-                    key, c, lines, edge, 1.5 * D, src, note, "Table 12.5.1D: 1.5D between rows, load parallel"
-                )
-            )
-        checks.append(
-            Check(
-                f"{key}.end",
-                "End distance from the member end (full design value)",
-                Q_(7.0 * D, "in"),
-                None,
-                None,
-                "INFO",
-                source=src,
-                note="parallel to grain: 7D in tension (softwoods; 5D hardwoods), 4D in compression; "
-                "minimum 3.5D / 2D with CΔ reduction",
-            )
-        )
-        checks.append(
-            Check(
-                f"{key}.row_spacing",
-                "Spacing between rows",
-                Q_(1.5 * D, "in"),
-                None,
-                None,
-                "INFO",
-                source=src,
-                note="load parallel to grain: 1.5D, rows not over 5 in apart",
-            )
-        )
-        return Q_(4.0 * D, "in"), None, src + ": 4D along the row for CΔ = 1.0 (3D absolute minimum)"
-    src = "common practice, no source (NDS-2018 asks nail spacing that prevents splitting without numbers)"
-    edge = 5.0 * D
-    if half is not None:
-        checks.append(
-            across_check(
-                key,
-                c,
-                lines,
-                edge,
-                5.0 * D,
-                src,
-                "5D (2.5D with pre-bored holes) to avoid splitting",
-                "5D across the grain, as for the edge distance; common practice, no source",
-            )
-        )
-    checks.append(
-        Check(
-            f"{key}.end",
-            "End distance from the member end",
-            Q_(15.0 * D, "in"),
-            None,
-            None,
-            "INFO",
-            source=src,
-            note="15D without pre-boring (10D pre-bored)",
-        )
-    )
-    return Q_(10.0 * D, "in"), None, src + ": 10D along the grain"
+def _wood_length(side: Part, main: Part, ls: float, lm: float, planes: int) -> float:
+    """Bearing length l for the geometry tables: the lesser of the fastener length in the wood
+    main member and its total length in the wood side member(s). Source: NDS-2018 Table 12.5.1C
+    footnote (from memory). With no wood member (refused earlier) the lesser of lm and ls."""
+    lengths = []
+    if main.material.family != "steel":
+        lengths.append(lm)
+    if side.material.family != "steel":
+        lengths.append(ls * planes)
+    return min(lengths) if lengths else min(lm, ls)

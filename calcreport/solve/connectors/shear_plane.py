@@ -289,14 +289,29 @@ def width_for_lines(n: int, edge: float, spacing: float) -> float:
     return 2.0 * edge + max(n - 1, 0) * spacing
 
 
-def across_check(key: str, c, n: int, edge: float, spacing: float, source: str, note: str, across_note: str):
+def across_check(
+    key: str, c, n: int, edge: float, spacing: float, source: str, note: str, across_note: str, log=None
+):
     """The edge-distance check of a row of ``n`` fasteners across the contact of ``c``: with one,
     the fastener centred (half the contact ≥ e); with several, the contact width against
-    W = 2·e + (n − 1)·s. Returns a :class:`calcreport.solve.results.Check`."""
+    W = 2·e + (n − 1)·s, written as a step when ``log`` is given. Returns a
+    :class:`calcreport.solve.results.Check`. Source: geometry of the row (the limits e and s
+    come from the caller's standard)."""
     from ...units import Q_
     from ..results import Check
 
     width = c.hi - c.lo
+    if log is not None and n > 1:
+        log.add(
+            "W_across",
+            f"Contact width needed for {n} fasteners across",
+            "W = 2·e + (n − 1)·s",
+            "2 × {e} + ({n} − 1) × {s}",
+            {"e": Q_(edge, "in"), "n": n, "s": Q_(spacing, "in")},
+            Q_(width_for_lines(n, edge, spacing), "in"),
+            source=source,
+            note=across_note,
+        )
     if n <= 1:
         half = width / 2.0
         return Check(
