@@ -15,9 +15,12 @@ from ...keys.connectors import CONNECTOR_FIELDS
 from ...model import ConnectorSpec
 from ...steps import StepLog
 from ...units import Q_
-from ..results import Capacity, Check
+from ..results import Capacity
 from . import ConnectorError
-from .shear_plane import across_check, find_contact, missing_rolled_plate, rolled_plate, thickness_normal
+from .aisc_bolt_limits import EDGE_MIN, bolt_limits, edge_min
+
+__all__ = ["KIND", "FIELDS", "EDGE_MIN", "edge_min", "design"]
+from .shear_plane import find_contact, missing_rolled_plate, rolled_plate, thickness_normal
 
 KIND = "steel_bolt"
 SRC = "ANSI/AISC 360-16"
@@ -42,9 +45,6 @@ TB = {
     "B": {0.5: 15, 0.625: 24, 0.75: 35, 0.875: 49, 1.0: 64, 1.125: 80, 1.25: 102, 1.375: 121, 1.5: 148},
 }
 
-#: Minimum edge distance (in) from the centre of a standard hole. AISC 360-16 Table J3.4 (from memory).
-EDGE_MIN = {0.5: 0.75, 0.625: 0.875, 0.75: 1.0, 0.875: 1.125, 1.0: 1.25, 1.125: 1.5, 1.25: 1.625}
-
 
 def standard_hole(d: float) -> float:
     """Standard hole diameter (in): d + 1/16 for d ≤ 7/8 in; 1-1/8 for 1 in; d + 1/8 above.
@@ -64,17 +64,6 @@ def oversized_hole(d: float) -> float:
     if d <= 1.0 + 1e-9:
         return 1.25
     return d + 5 / 16
-
-
-def edge_min(d: float) -> float:
-    """Minimum edge distance (in), AISC 360-16 Table J3.4; 1.25·d over 1-1/4 in. Between tabulated
-    diameters the next larger diameter's value is used (conservative)."""
-    if d > 1.25 + 1e-9:
-        return 1.25 * d
-    for k in sorted(EDGE_MIN):
-        if d <= k + 1e-9:
-            return EDGE_MIN[k]
-    return 1.25 * d
 
 
 def shear_nominal(Fnv: float, d: float, planes: int) -> float:
@@ -321,59 +310,7 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
         Q_(lc_req + dh, "in"),
         source=f"{SRC} §J3.10 (lc = s − dh between holes)",
     ).magnitude
-    s_min = max(8 / 3 * d, s_tear)
-    t_thin = min(th, to)
-    if p.get("weathering"):
-        s_max, smsrc = min(14 * t_thin, 7.0), f"{SRC} §J3.5(b): 14·t ≤ 7 in (unpainted weathering steel)"
-    else:
-        s_max, smsrc = (
-            min(24 * t_thin, 12.0),
-            f"{SRC} §J3.5(a): 24·t ≤ 12 in (painted or not subject to corrosion)",
-        )
-    checks = [
-        Check(
-            f"{key}.spacing_pref",
-            "Preferred spacing 3d (minimum 2-2/3 d)",
-            Q_(3 * d, "in"),
-            None,
-            None,
-            "INFO",
-            source=f"{SRC} §J3.3",
-        ),
-        Check(
-            f"{key}.end",
-            "End distance of the end bolt so tearout does not govern",
-            Q_(lc_req + dh / 2, "in"),
-            None,
-            None,
-            "INFO",
-            source=f"{SRC} §J3.10 (lc = le − dh/2) and Table J3.4",
-            note="and not less than the Table J3.4 edge distance",
-        ),
-        Check(
-            f"{key}.edge_max",
-            "Maximum edge distance 12·t ≤ 6 in",
-            None,
-            Q_(min(12 * t_thin, 6.0), "in"),
-            None,
-            "INFO",
-            source=f"{SRC} §J3.5",
-        ),
-    ]
-    if c is not None:
-        checks.insert(
-            0,
-            across_check(
-                key,
-                c,
-                max(getattr(ctx, "per_row", 1), 1),
-                edge_min(d),
-                8 / 3 * d,
-                f"{SRC} Table J3.4; §J3.3",
-                "Table J3.4 minimum edge distance",
-                "§J3.3 minimum spacing 2-2/3 d between bolts across the force",
-            ),
-        )
+    checks, s_min, s_max, smsrc = bolt_limits(log, p, key, c, ctx, d, dh, lcq, lc_req, s_tear, min(th, to))
     return Capacity(
         value=R.to("kip"),
         continuous=False,

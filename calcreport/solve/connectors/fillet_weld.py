@@ -17,9 +17,10 @@ from __future__ import annotations
 from ...keys.connectors import CONNECTOR_FIELDS
 from ...model import ConnectorSpec
 from ...steps import StepLog
-from ...units import Q_, Quantity, parse
+from ...units import Q_, parse
 from ..results import Capacity, Check
 from . import ConnectorError
+from .fillet_limits import max_fillet_along_edge, min_fillet, weld_limits
 from .shear_plane import (
     extent_along,
     find_contact,
@@ -34,23 +35,7 @@ SRC = "ANSI/AISC 360-16"
 
 FIELDS = CONNECTOR_FIELDS[KIND]
 
-
-def min_fillet(t_thinner: float) -> float:
-    """Minimum fillet weld size (in) for the thinner part joined: 1/8 (t ≤ 1/4), 3/16 (≤ 1/2),
-    1/4 (≤ 3/4), 5/16 (over 3/4). Source: AISC 360-16 Table J2.4."""
-    if t_thinner <= 0.25 + 1e-9:
-        return 0.125
-    if t_thinner <= 0.5 + 1e-9:
-        return 0.1875
-    if t_thinner <= 0.75 + 1e-9:
-        return 0.25
-    return 0.3125
-
-
-def max_fillet_along_edge(t: float) -> float:
-    """Maximum fillet size along an edge of material t thick: t (t < 1/4 in), t − 1/16 otherwise.
-    Source: AISC 360-16 §J2.2b(b)."""
-    return t if t < 0.25 else t - 1 / 16
+__all__ = ["KIND", "FIELDS", "min_fillet", "max_fillet_along_edge", "strength_per_inch", "design"]
 
 
 def strength_per_inch(w: float, FEXX: float) -> tuple[float, float, float]:
@@ -246,108 +231,19 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
         note=f"{gov[0]} governs",
     )
     # Detailing.
-    t_thin = min(thick.values())
-    wmin = min_fillet(t_thin)
-    checks = [
-        Check(
-            f"{key}.min_size",
-            "Minimum fillet size for the thinner part joined",
-            Q_(wmin, "in"),
-            wq,
-            wmin / w,
-            "OK" if w >= wmin - 1e-9 else "NG",
-            source=f"{SRC} Table J2.4",
-        )
-    ]
-    if base_check:
-        checks.append(base_check)
-    if form == "lap":
-        wmax = max_fillet_along_edge(t_bm)
-        checks.append(
-            Check(
-                f"{key}.max_size",
-                "Maximum fillet size along the plate edge",
-                wq,
-                Q_(wmax, "in"),
-                w / wmax,
-                "OK" if w <= wmax + 1e-9 else "NG",
-                source=f"{SRC} §J2.2b(b)",
-            )
-        )
-    else:
-        checks.append(
-            Check(
-                f"{key}.max_size",
-                "Maximum fillet size along edges does not apply (tee joint)",
-                None,
-                None,
-                None,
-                "INFO",
-                source=f"{SRC} §J2.2b(b)",
-            )
-        )
     seg = p.get("segment")
+    checks, pitch_max = weld_limits(
+        log, key, w, min(thick.values()), thick[narrow_w], form, seg, (held, other)
+    )
+    if base_check:
+        checks.insert(1, base_check)
     if seg is None:
-        checks.append(
-            Check(
-                f"{key}.length",
-                "Continuous weld: effective length at least 4w",
-                Q_(4 * w, "in"),
-                None,
-                None,
-                "INFO",
-                source=f"{SRC} §J2.2b(c)",
-            )
-        )
         return Capacity(
             value=q.to("kip/in"),
             continuous=True,
             description=p.get("name") or "fillet weld",
             source=f"{SRC} §J2.4",
             checks=tuple(checks),
-        )
-    L = seg.to("in").magnitude
-    lmin = max(4 * w, 1.5)
-    checks.append(
-        Check(
-            f"{key}.segment",
-            "Intermittent segment length at least 4w and 1-1/2 in",
-            Q_(lmin, "in"),
-            seg.to("in"),
-            lmin / L,
-            "OK" if L >= lmin - 1e-9 else "NG",
-            source=f"{SRC} §J2.2b(c), (e)",
-        )
-    )
-    pitch_max = None
-    if form == "lap":
-        pitch_max = _stitch_pitch(log, t_thin, (held, other))
-        checks.append(
-            Check(
-                f"{key}.pitch_max",
-                "Maximum pitch of intermittent welds between plates in contact",
-                None,
-                pitch_max,
-                None,
-                "INFO",
-                source=f"{SRC} §D4, §E6.2(a)",
-                note="applied as the joint's maximum spacing; the lesser of the tension (D4) and "
-                "compression (E6.2) limits, as either face may be in compression",
-            )
-        )
-    else:
-        checks.append(
-            Check(
-                f"{key}.pitch_max",
-                "Maximum pitch of intermittent welds",
-                None,
-                None,
-                None,
-                "INFO",
-                source=f"{SRC} §D4, §E6.2",
-                note="not checked: AISC 360-16 sets no maximum pitch for a stem welded to a plate in a "
-                "flexural member (D4 and E6.2 apply to plates in contact); the job's spacing_max governs",
-            )
         )
     F = log.add(
         "F_segment",
@@ -370,38 +266,3 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
         limits_source="pitch not less than the segment length (geometry)"
         + ("; maximum pitch AISC 360-16 §D4, §E6.2(a)" if pitch_max is not None else ""),
     )
-
-
-def _stitch_pitch(log: StepLog, t: float, parts) -> Quantity:
-    """Largest pitch of intermittent welds joining plates in contact: the lesser of
-    24·t ≤ 12 in (AISC 360-16 §D4, built-up tension members, painted or not subject to corrosion)
-    and 0.75·t·√(E/Fy) ≤ 12 in (§E6.2(a), built-up compression members, outside plate), t the
-    thinner plate. Weathering steel (14·t ≤ 7 in) is not modelled."""
-    tq = Q_(t, "in")
-    d4 = log.add(
-        "pitch_D4",
-        "Maximum pitch, plates in contact in tension",
-        "s_max = min(24·t, 12 in)",
-        "min(24 × {t}, 12 in)",
-        {"t": tq},
-        Q_(min(24 * t, 12.0), "in"),
-        source=f"{SRC} §D4",
-    )
-    fys = [p.material.Fy for p in parts if p.material.Fy is not None]
-    if not fys:
-        return d4
-    mat = max(
-        (p.material for p in parts if p.material.Fy is not None), key=lambda m: m.Fy.to("ksi").magnitude
-    )
-    ratio = float((mat.E / mat.Fy).to("").magnitude) ** 0.5
-    e6 = log.add(
-        "pitch_E6",
-        "Maximum pitch, outside plate in compression",
-        "s_max = min(0.75·t·√(E/Fy), 12 in)",
-        "min(0.75 × {t} × √({E} / {Fy}), 12 in)",
-        {"t": tq, "E": mat.E, "Fy": mat.Fy},
-        Q_(min(0.75 * t * ratio, 12.0), "in"),
-        source=f"{SRC} §E6.2(a)",
-        note=f"Fy of {mat.id}, the higher-strength plate (the smaller limit)",
-    )
-    return min(d4, e6)

@@ -178,10 +178,37 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
         note=tsrc,
     )
     perp = (p.get("deck") or "none") == "perpendicular"
-    smin = 4 * d if perp else 6 * d
-    smax = min(8 * ts, 36.0)
+    smin = log.add(
+        "s_min",
+        "Minimum stud spacing along the beam",
+        "s_min = 4·dsa" if perp else "s_min = 6·dsa",
+        ("4" if perp else "6") + " × {d}",
+        {"d": dq},
+        Q_(4 * d if perp else 6 * d, "in"),
+        source=f"{SRC} §I8.2d(d)",
+        note="deck ribs perpendicular to the beam" if perp else "along the longitudinal axis of the beam",
+    ).magnitude
+    smax = log.add(
+        "s_max",
+        "Maximum stud spacing",
+        "s_max = min(8·t, 36 in)",
+        "min(8 × {t}, 36 in)",
+        {"t": Q_(ts, "in")},
+        Q_(min(8 * ts, 36.0), "in"),
+        source=f"{SRC} §I8.2d(e)",
+        note="t = total slab thickness",
+    ).magnitude
     checks = []
-    dmax = 1.0 if (p.get("deck") or "none") == "none" else 0.75
+    dmax = log.add(
+        "d_max",
+        "Largest stud diameter",
+        "dsa,max",
+        "{d}",
+        {"d": Q_(1.0 if (p.get("deck") or "none") == "none" else 0.75, "in")},
+        Q_(1.0 if (p.get("deck") or "none") == "none" else 0.75, "in"),
+        source=f"{SRC} §I8.1",
+        note="3/4 in, or up to 1 in for shear transfer in solid slabs",
+    ).magnitude
     checks.append(
         Check(
             f"{key}.diameter",
@@ -210,7 +237,16 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
             )
         )
     elif tb is not None:
-        lim = 2.5 * tb.to("in").magnitude
+        lim = log.add(
+            "d_base",
+            "Largest stud diameter on the flange",
+            "dsa ≤ 2.5·t",
+            "2.5 × {t}",
+            {"t": tb.to("in")},
+            Q_(2.5 * tb.to("in").magnitude, "in"),
+            source=f"{SRC} §I8.1",
+            note="studs not over the web",
+        ).magnitude
         checks.append(
             Check(
                 f"{key}.base",
@@ -224,6 +260,15 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
         )
     if p.get("length") is not None:
         L = p["length"].to("in").magnitude
+        log.add(
+            "L_min",
+            "Minimum stud length",
+            "L_min = 4·dsa",
+            "4 × {d}",
+            {"d": dq},
+            Q_(4 * d, "in"),
+            source=f"{SRC} §I8.2",
+        )
         checks.append(
             Check(
                 f"{key}.length",
@@ -235,11 +280,30 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
                 source=f"{SRC} §I8.2",
             )
         )
+    s_tr = log.add(
+        "s_transverse",
+        "Minimum transverse spacing of studs",
+        "s = 4·dsa",
+        "4 × {d}",
+        {"d": dq},
+        Q_(4 * d, "in"),
+        source=f"{SRC} §I8.2d(d)",
+    )
+    e_free = log.add(
+        "e_free",
+        "Distance to a free edge in the direction of the shear force",
+        "e",
+        "{e}",
+        {"e": Q_(10.0 if p.get("lightweight") else 8.0, "in")},
+        Q_(10.0 if p.get("lightweight") else 8.0, "in"),
+        source=f"{SRC} §I8.2d(c)",
+        note="lightweight concrete: 10 in" if p.get("lightweight") else "normal-weight concrete: 8 in",
+    )
     checks.append(
         Check(
             f"{key}.transverse",
             "Transverse spacing of studs at least 4·dsa; 1 in lateral cover",
-            Q_(4 * d, "in"),
+            s_tr,
             None,
             None,
             "INFO",
@@ -250,7 +314,7 @@ def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
         Check(
             f"{key}.edge",
             "Distance to a free edge in the direction of the shear force",
-            Q_(10.0 if p.get("lightweight") else 8.0, "in"),
+            e_free,
             None,
             None,
             "INFO",
