@@ -201,7 +201,16 @@ def design_dowel(
             if planes == 1 and f.L - ts > tm + 1e-9
             else "",
         )
-        pmin = f.min_pen * D
+        pmin = log.add(
+            "p_min",
+            "Minimum penetration for lateral design values",
+            f"p_min = {f.min_pen:g}·D",
+            "{k} × {D}",
+            {"k": f.min_pen, "D": Q_(D, "in")},
+            Q_(f.min_pen * D, "in"),
+            source=f"{NDS} Chapter 12 minimum penetration",
+            note="6D for nails, spikes and wood screws; 4D for lag screws",
+        ).magnitude
         checks.append(
             Check(
                 f"{key}.penetration",
