@@ -130,8 +130,8 @@ def member_angles(log: StepLog, p: dict, ctx, side: Part, main: Part, D: float, 
         if D < 0.25:
             log.add(
                 "theta_effect",
-                "Effect of the load angle on a fastener with D < 1/4 in",
-                "Fe = 16600·G^1.84 at any angle; Rd = KD",
+                "Angle of load to grain, no effect for D < 1/4 in (degrees)",
+                "θ",
                 "{th}",
                 {"th": theta},
                 theta,

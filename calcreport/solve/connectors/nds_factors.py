@@ -194,8 +194,13 @@ def adjust(
         )
         factors.append(("Cg", cg))
     else:
+        carried = (
+            "its own tributary share of the load passed across the plies"
+            if float(getattr(ctx, "load_angle", 0.0) or 0.0) > 0
+            else "its own tributary shear flow along the member"
+        )
         why = (
-            "each fastener transfers its own tributary shear flow along the member, so no row of "
+            f"each fastener transfers {carried}, so no row of "
             "fasteners shares one load (conservative simplification stated: set row_count for a "
             "splice-like row)"
             if D >= 0.25
