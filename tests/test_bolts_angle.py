@@ -295,3 +295,15 @@ def test_plated_timber_job_without_fu_is_one_located_error():
     with pytest.raises(JobError) as e:
         solve_bytes(text.encode(), "plate.toml")
     assert "material[pl].Fu" in str(e.value) and "1.5·Fu" in str(e.value)
+
+
+def test_double_shear_takes_the_thinner_side_member():
+    # NDS-2018 Table 12.3.1A double shear: ls is the side member thickness; with unequal side
+    # members the thinner one bounds the value (1-1/2 in and 3-1/2 in outer plies → ts = 1-1/2 in).
+    a = rect("A", 0, 0, 3.5, 11.25, wood())
+    m = rect("M", 3.5, 0, 5.0, 11.25, wood())
+    b = rect("B", 5.0, 0, 6.5, 11.25, wood())
+    ctx = dataclasses.replace(context([m], [a, b], width=11.25), load_angle=90.0, parts=(a, m, b))
+    _, log = run("wood_bolt", bolt(0.5, planes=2), ctx)
+    assert step(log, "ts").result.to("in").magnitude == pytest.approx(1.5)
+    assert "thinner of its side members" in step(log, "ts").note

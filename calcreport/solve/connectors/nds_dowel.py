@@ -95,7 +95,15 @@ def _members(p: dict, ctx, key: str):
     planes = p.get("planes") or 1
     choice = p.get("side_member") or "auto"
     if planes == 2:
-        side, main, why = other, held, "double shear: the held part is the main (middle) member"
+        why = "double shear: the held part is the main (middle) member"
+        if c is not None:
+            # The thinner of the side members bounds ls (NDS-2018 Table 12.3.1A, double shear).
+            for o in ctx.other:
+                co = find_contact((held,), (o,))
+                if co is not None and thickness_normal(o, co) < thickness_normal(other, c) - 1e-9:
+                    c, other = co, o
+                    why += "; the thinner of its side members"
+        side, main = other, held
     elif choice == "held":
         side, main, why = held, other, "side member = held part (as given)"
     elif choice == "other":
