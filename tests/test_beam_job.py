@@ -188,6 +188,15 @@ BAD = [
         ["member[M].support[1]", "fixed support or supports at two"],
     ),
     (
+        # found by tests/test_fuzz.py (a support 0.0001 in beside another made the stiffness
+        # model singular and ended in an internal error)
+        "supports a hair apart",
+        'span = "16 ft"',
+        'span = "16 ft"\n[[member.support]]\nat = "0 ft"\n[[member.support]]\nat = "8 ft"\n'
+        '[[member.support]]\nat = "96.0001 in"\n[[member.support]]\nat = "16 ft"',
+        ["member[M].support[3].at", "0.0001 in", "apart"],
+    ),
+    (
         "self weight without density",
         'span = "16 ft"',
         'span = "16 ft"\nself_weight = true',

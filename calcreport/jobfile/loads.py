@@ -96,6 +96,7 @@ def read_loads(t: Table, member: Member, settings: Settings) -> Member:
     ):
         target = support_tables[-1] if support_tables else t
         raise target.error(None, "the member needs one fixed support or supports at two different places")
+    _check_support_gaps(support_tables, supports, span)
     loads = tuple(_load(lt, span) for lt in load_tables)
     loads = _check_variable(load_tables, loads)
     if self_weight:
@@ -131,6 +132,30 @@ def _position(t: Table, name: str, span, required: bool = False):
     if q is not None and q > span * (1 + 1e-12):
         raise t.error(name, f"expected a position within the span (0 to {span:~P}), got {t.data[name]!r}")
     return q
+
+
+#: Distinct supports closer than this (or than the span / 10,000) are refused: the element between
+#: them is so short that the stiffness model of the beam becomes singular to rounding. No bearing
+#: pair is built this close; one support stands for both.
+SUPPORT_GAP_MIN_IN = 1.0 / 16.0
+
+
+def _check_support_gaps(tables: list[Table], supports: tuple[Support, ...], span) -> None:
+    """Refuse two supports at different places closer than the smallest gap the beam model solves."""
+    if len(tables) < 2:
+        return
+    L = float(span.to("inch").magnitude)
+    gap_min = max(SUPPORT_GAP_MIN_IN, L / 10_000.0)
+    xs = [float(s.x.to("inch").magnitude) for s in supports]
+    order = sorted(range(len(xs)), key=lambda i: xs[i])
+    for a, b in zip(order, order[1:]):
+        gap = xs[b] - xs[a]
+        if 0.0 < gap < gap_min:
+            raise tables[b].error(
+                "at",
+                f"this support is {gap:.4g} in ({gap * 25.4:.4g} mm) from another one: give one "
+                f"support there, or place them at least {gap_min:.4g} in apart",
+            )
 
 
 def _support(t: Table, span) -> Support:
