@@ -14,7 +14,7 @@ from ..model import Joint, Part
 from ..outlines import contact_segments
 from ..units import Quantity
 
-__all__ = ["PlaneCallout", "Callout", "joint_callout"]
+__all__ = ["PlaneCallout", "ShopZone", "Callout", "joint_callout"]
 
 
 @dataclass(frozen=True)
@@ -25,6 +25,18 @@ class PlaneCallout:
     rows: int  # connectors of one row on this segment (lines of fasteners along the member)
     other: str  # id of the part across the plane from the held parts ("" if none found)
     other_label: str = ""
+
+
+@dataclass(frozen=True)
+class ShopZone:
+    """One zone of the schedule as the shop sheet counts it."""
+
+    start: Quantity  # from the member's left end (x = 0)
+    end: Quantity
+    length: Quantity  # end − start
+    spacing: Quantity
+    rows: int  # connector rows in the zone (the first zone also holds the row at x = 0)
+    pieces: int  # connectors in the zone: rows × per_row; welds: segments on all weld lines
 
 
 @dataclass(frozen=True)
@@ -45,6 +57,11 @@ class Callout:
     weld_form: str = ""  # "tee" / "lap" / "auto" as given
     segment: Quantity | None = None  # intermittent weld segment length (pitch = spacing)
     plane_width: Quantity | None = None  # glue lines: width b of the line
+    zones: tuple[ShopZone, ...] = ()  # the schedule's zones, counted (empty without a schedule)
+    rows_total: int | None = None  # the schedule's N
+    pieces_total: int | None = None  # connectors (or weld segments) along the member
+    length: Quantity | None = None  # the member length the schedule covers (or its span)
+    pieces_per_row: int = 1  # connectors (or weld segments) one row puts in
 
 
 def _share(per_row: int, n: int) -> list[int]:
@@ -75,6 +92,7 @@ def joint_callout(
     spacing: Quantity | None,
     schedule,
     plane_width: Quantity | None,
+    span: Quantity | None = None,
 ) -> Callout:
     """The callout record of one joint (see module docstring)."""
     held = [p for p in parts if p.id in joint.holds]
@@ -93,6 +111,14 @@ def joint_callout(
     p = joint.connector.params
     size = p.get("size")
     weld = joint.connector.kind == "fillet_weld"
+    per = int(p.get("welds", 2)) if weld else joint.per_row
+    shop = (
+        tuple(ShopZone(z.start, z.end, z.end - z.start, z.spacing, int(z.count), int(z.count) * per) for z in zones)
+        if feasible
+        else ()
+    )
+    n_rows = int(schedule.count) if feasible and schedule.count is not None else None
+    length = schedule.length if schedule is not None else span
     return Callout(
         kind=joint.connector.kind,
         name=description,
@@ -108,4 +134,9 @@ def joint_callout(
         weld_form=str(p.get("joint_form", "")) if weld else "",
         segment=p.get("segment") if weld else None,
         plane_width=plane_width,
+        zones=shop,
+        rows_total=n_rows,
+        pieces_total=None if n_rows is None else n_rows * per,
+        length=length,
+        pieces_per_row=per,
     )

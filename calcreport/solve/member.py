@@ -314,6 +314,14 @@ def solve_joint(
         steps=tuple(s for s in log.steps if s.key.startswith(log.prefix + ".")),
         schedule=schedule,
         callout=joint_callout(
-            joint, member.parts, segments, cap.description, cap.continuous, res.provided, schedule, b
+            joint,
+            member.parts,
+            segments,
+            cap.description,
+            cap.continuous,
+            res.provided,
+            schedule,
+            b,
+            member.span,
         ),
     )
