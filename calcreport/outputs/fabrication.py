@@ -10,12 +10,14 @@ report sheet it copies. Reads results only (``JointResult.callout``); never comp
 
 from __future__ import annotations
 
+from dataclasses import replace
+
 from reportlab.platypus import Flowable, KeepTogether, PageBreak, Paragraph, Table, TableStyle
 
 from ..solve.results import JointResult, MemberResult
 from ..units import Quantity
 from .callouts import joint_callout_text, shop_length
-from .fabrication_draw import ShopQR, elevation
+from .fabrication_draw import QR_SIZE, ShopQR, elevation
 from .report.common import Ctx, grid, para
 from .report.pages import SectionStart
 from .report.styles import esc
@@ -53,12 +55,12 @@ def _pieces_table(m: MemberResult, ctx: Ctx) -> Table:
         pp = props.get(p.id)
         wd = f"{shop_length(pp.width, sys_)} × {shop_length(pp.depth, sys_)}" if pp is not None else "—"
         rows.append(
-            [p.id, p.shape.nominal or p.label or p.shape.kind, wd, p.material.name or p.material.id, length]
+            [p.id, p.shape.nominal or p.label or "cut to size", wd, p.material.name or p.material.id, length]
         )
     del d
-    w = ctx.width * 0.62
+    w = ctx.width - QR_SIZE - 60
     return grid(
-        rows, [w * 0.16, w * 0.2, w * 0.24, w * 0.22, w * 0.18], ctx.styles, frame_height=ctx.frame_height
+        rows, [w * 0.12, w * 0.13, w * 0.23, w * 0.37, w * 0.15], ctx.styles, frame_height=ctx.frame_height
     )
 
 
@@ -105,13 +107,36 @@ def _zone_table(j: JointResult, ctx: Ctx) -> Table | None:
     )
 
 
-def _joint_story(j: JointResult, m: MemberResult, ctx: Ctx) -> list[Flowable]:
+def _same_as(j: JointResult, earlier: list[JointResult]) -> JointResult | None:
+    """An earlier joint fastened exactly alike: same connector, rows on each plane, zones and
+    counts (only the planes' places differ) — its sheet is stated once."""
+    c = j.callout
+    if c is None:
+        return None
+    for e in earlier:
+        o = e.callout
+        if o is not None and replace(o, planes=()) == replace(c, planes=()):
+            if [p.rows for p in o.planes] == [p.rows for p in c.planes]:
+                return e
+    return None
+
+
+def _joint_story(j: JointResult, m: MemberResult, ctx: Ctx, earlier: list[JointResult]) -> list[Flowable]:
     st, sys_ = ctx.styles, ctx.display.system
     c = j.callout
     title = f"Joint {j.id}" + (f" — {j.label}" if j.label else "")
     words = joint_callout_text(c, sys_) if c is not None else j.connector
     out: list[Flowable] = [para(title, st.h3), Paragraph(f"<b>{esc(words)}</b>", st.body)]
     if c is None:
+        return [KeepTogether(out)]
+    twin = _same_as(j, earlier)
+    if twin is not None:
+        total = (
+            f": {c.rows_total} rows, {c.pieces_total} {_what(j)} in total"
+            if c.pieces_total is not None
+            else ""
+        )
+        out.append(para(f"Same fastening, zones and counts as joint {twin.id}{total}.", st.small))
         return [KeepTogether(out)]
     if c.zones:
         out.append(
@@ -189,6 +214,6 @@ def fabrication_story(
         out.append(top)
         if not m.joints:
             out.append(para("No joints: nothing to fasten.", st.body))
-        for j in m.joints:
-            out += _joint_story(j, m, ctx)
+        for i, j in enumerate(m.joints):
+            out += _joint_story(j, m, ctx, list(m.joints[:i]))
     return out

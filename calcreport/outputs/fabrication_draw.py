@@ -171,7 +171,7 @@ class ShopQR(Flowable):
         super().__init__()
         self.number, self.revision, self.member, self.sha256 = number, revision, member, sha256
         self.font, self.sheet, self.record, self.payloads = font, sheet, record, payloads
-        self.width, self.height = QR_SIZE + 60, QR_SIZE + 8 * 7.2
+        self.width, self.height = QR_SIZE + 44, QR_SIZE + 9 * 7.6
 
     def wrap(self, aw, ah):
         return self.width, self.height
@@ -192,7 +192,7 @@ class ShopQR(Flowable):
         sha = lines.pop()  # the hash on two lines of 32 characters
         lines += [sha[: len("job file SHA-256 ")].strip(), sha[17:49], sha[49:]]
         y = self.height - QR_SIZE - 7
-        self.canv.setFont(self.font, 5.6)
+        self.canv.setFont(self.font, 6.5)
         for line in lines:
             self.canv.drawRightString(self.width, y, line)
-            y -= 6.6
+            y -= 7.6
