@@ -137,11 +137,8 @@ def elevation(
         g.transform = (0, 1, -1, 0, px + SIZE / 2 - 1, ty - 2)
         dr.add(g)
     dr.add(String(left - 4, y0 + h / 2 - 2.5, "0", fontName=bold, fontSize=SIZE, textAnchor="end"))
-    dr.add(
-        String(
-            left, height - SIZE - 1, "spacing  ·  pieces per zone", fontName=font, fontSize=6, fillColor=INK
-        )
-    )
+    legend = "spacing  ·  pieces per zone" if zones else ("continuous, full length" if c.continuous else "")
+    dr.add(String(left, height - SIZE - 1, legend, fontName=font, fontSize=SIZE, fillColor=INK))
     return dr
 
 
