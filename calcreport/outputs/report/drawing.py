@@ -182,33 +182,17 @@ def section_drawing(m: MemberResult, ctx: Ctx) -> tuple[Drawing, str]:
     for j in m.joints:
         draw_joint(dr, j, P, k, polys, boxes)
 
-    # neutral axis (dash-dot), its label and its dimension from the bottom
     ybar = float((m.section.bottom + m.section.centroid).to("inch").magnitude)
     _, ny = P(0, ybar)
     bx0, by_bot = P(xmin, ymin)
     bx1, by_top = P(xmax, ymax)
-    na_x = bx0 - 34
-    dr.add(
-        Line(na_x - 4, ny, bx1 + 9, ny, strokeColor=NA_INK, strokeWidth=0.8, strokeDashArray=[7, 2, 1.2, 2])
-    )
-    dr.add(
-        String(na_x - 6, ny - 2.2, "N.A.", fontName=bold, fontSize=6.5, fillColor=NA_INK, textAnchor="end")
-    )
-    dr.add(Line(na_x - 3, by_bot, bx0 - 3, by_bot, strokeColor=DIM, strokeWidth=0.35))
-    dr.add(Line(na_x, by_bot, na_x, ny, strokeColor=NA_INK, strokeWidth=0.6))
-    for yy in (by_bot, ny):
-        dr.add(Line(na_x - 2.5, yy - 2.5, na_x + 2.5, yy + 2.5, strokeColor=NA_INK, strokeWidth=0.7))
-    na_text = f"ȳ = {dim_text(m.section.centroid.to('inch').magnitude, system)}"
-    g = Group(String(0, 0, na_text, fontName=font, fontSize=DIM_SIZE, textAnchor="middle", fillColor=NA_INK))
-    g.transform = (0, 1, -1, 0, na_x - 2, (by_bot + ny) / 2)
-    dr.add(g)
-
     # dimension strings: across the bottom (every x breakpoint, then overall), up the left side
     xs_in = _breaks([v for p in parts for v in (p.shape.bbox[0], p.shape.bbox[2])])
     ys_in = _breaks([v for p in parts for v in (p.shape.bbox[1], p.shape.bbox[3])])
     xs = [P(x, 0)[0] for x in xs_in]
     ys = [P(0, y)[1] for y in ys_in]
     low = by_bot - 14
+    left_used = bx0 - 14
     if len(xs) > 2:
         low = (
             chain_h(
@@ -223,9 +207,43 @@ def section_drawing(m: MemberResult, ctx: Ctx) -> tuple[Drawing, str]:
         )
     chain_h(dr, [xs[0], xs[-1]], [dim_text(xmax - xmin, system)], low, by_bot - 3, font)
     if len(ys) > 2:
-        chain_v(dr, ys, [dim_text(b - a, system) for a, b in zip(ys_in, ys_in[1:])], bx0 - 14, bx0 - 3, font)
+        left_used = chain_v(
+            dr, ys, [dim_text(b - a, system) for a, b in zip(ys_in, ys_in[1:])], bx0 - 14, bx0 - 3, font
+        )
     dim_x = bx1 + 14
     chain_v(dr, [by_bot, by_top], [dim_text(ymax - ymin, system)], dim_x, bx1 + 3, font)
+
+    # neutral axis (dash-dot), its label and its dimension from the bottom
+    na_x = min(bx0 - 34, left_used - 12)
+    dr.add(
+        Line(na_x - 4, ny, bx1 + 9, ny, strokeColor=NA_INK, strokeWidth=0.8, strokeDashArray=[7, 2, 1.2, 2])
+    )
+    dr.add(
+        String(na_x - 6, ny - 2.2, "N.A.", fontName=bold, fontSize=6.5, fillColor=NA_INK, textAnchor="end")
+    )
+    dr.add(Line(na_x - 3, by_bot, bx0 - 3, by_bot, strokeColor=DIM, strokeWidth=0.35))
+    dr.add(Line(na_x, by_bot, na_x, ny, strokeColor=NA_INK, strokeWidth=0.6))
+    for yy in (by_bot, ny):
+        dr.add(Line(na_x - 2.5, yy - 2.5, na_x + 2.5, yy + 2.5, strokeColor=NA_INK, strokeWidth=0.7))
+    na_text = f"ȳ = {dim_text(m.section.centroid.to('inch').magnitude, system)}"
+    if stringWidth(na_text, font, DIM_SIZE) + 4 <= ny - by_bot:  # along the line
+        g = Group(
+            String(0, 0, na_text, fontName=font, fontSize=DIM_SIZE, textAnchor="middle", fillColor=NA_INK)
+        )
+        g.transform = (0, 1, -1, 0, na_x - 2, (by_bot + ny) / 2)
+        dr.add(g)
+    else:  # a short distance: level, left of the line and below the N.A. label
+        dr.add(
+            String(
+                na_x - 4,
+                min(ny - 11, by_bot),
+                na_text,
+                fontName=font,
+                fontSize=DIM_SIZE,
+                textAnchor="end",
+                fillColor=NA_INK,
+            )
+        )
 
     # callout column on the right
     col_x = dim_x + GAP_R - 8

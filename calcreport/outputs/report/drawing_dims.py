@@ -184,10 +184,10 @@ def chain_h(
 
 def chain_v(
     dr: Drawing, ys: Sequence[float], texts: Sequence[str], x: float, x_ext: float, font: str
-) -> None:
+) -> float:
     """A vertical dimension string at ``x`` over the breakpoints ``ys``; texts along the line
     (rotated) where they fit, else set level to the left of the line; extension lines from
-    ``x_ext``."""
+    ``x_ext``. Returns the leftmost x its texts reach."""
     for y in ys:
         dr.add(Line(x_ext, y, x - 3, y, strokeColor=DIM, strokeWidth=0.35))
     _dim_line(dr, (x, ys[0]), (x, ys[-1]))
@@ -203,10 +203,13 @@ def chain_v(
             dr.add(g)
         else:
             level.append(((a + b) / 2, text))
+    leftmost = x - DIM_SIZE - 2
     if level:
         placed = pack([c - 2.5 for c, _ in level], -1e9, 1e9, gap=DIM_SIZE + 1.5)
         for (_c, text), y in zip(level, placed):
             dr.add(String(x - 4, y, text, fontName=font, fontSize=DIM_SIZE, textAnchor="end"))
+            leftmost = min(leftmost, x - 4 - stringWidth(text, font, DIM_SIZE))
+    return leftmost
 
 
 def scale_bar(dr: Drawing, display, x: float, y: float, k: float, font: str) -> None:
