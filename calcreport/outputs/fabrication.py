@@ -194,7 +194,10 @@ def fabrication_story(
         intro = [
             para(
                 f"Positions from {end_words}, in {units}. Counts are rows of connectors across the joint "
-                "and the pieces they hold; the first zone also counts the row at x = 0." + ref,
+                "and the pieces they hold; the first zone also counts the row at x = 0."
+                + ref
+                + " Fastening from the calculation report: it does not replace the approved drawings and "
+                "holds only with the reviewed and sealed report the QR code names.",
                 st.small,
             ),
             _pieces_table(m, ctx),

@@ -208,10 +208,16 @@ def section_drawing(m: MemberResult, ctx: Ctx) -> tuple[Drawing, str]:
     chain_h(dr, [xs[0], xs[-1]], [dim_text(xmax - xmin, system)], low, by_bot - 3, font)
     if len(ys) > 2:
         left_used = chain_v(
-            dr, ys, [dim_text(b - a, system) for a, b in zip(ys_in, ys_in[1:])], bx0 - 14, bx0 - 3, font
+            dr,
+            ys,
+            [dim_text(b - a, system) for a, b in zip(ys_in, ys_in[1:])],
+            bx0 - 14,
+            bx0 - 3,
+            font,
+            (ny,),
         )
     dim_x = bx1 + 14
-    chain_v(dr, [by_bot, by_top], [dim_text(ymax - ymin, system)], dim_x, bx1 + 3, font)
+    chain_v(dr, [by_bot, by_top], [dim_text(ymax - ymin, system)], dim_x, bx1 + 3, font, (ny,))
 
     # neutral axis (dash-dot), its label and its dimension from the bottom
     na_x = min(bx0 - 34, left_used - 12)

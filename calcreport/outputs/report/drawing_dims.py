@@ -175,7 +175,7 @@ def chain_h(
     if not low:
         return y
     yl = y - 10
-    xs_low = pack_blocks([c - w / 2 for c, _, w in low], [w + 4 for *_, w in low], -1e9, 1e9)
+    xs_low = pack_blocks([c - w / 2 for c, _, w in low], [w + 6 for *_, w in low], -1e9, 1e9)
     for (c, text, w), x in zip(low, xs_low):
         dr.add(Line(c, y, x + w / 2, yl + 7, strokeColor=DIM, strokeWidth=0.3))
         dr.add(String(x, yl, text, fontName=font, fontSize=DIM_SIZE))
@@ -183,10 +183,17 @@ def chain_h(
 
 
 def chain_v(
-    dr: Drawing, ys: Sequence[float], texts: Sequence[str], x: float, x_ext: float, font: str
+    dr: Drawing,
+    ys: Sequence[float],
+    texts: Sequence[str],
+    x: float,
+    x_ext: float,
+    font: str,
+    avoid: Sequence[float] = (),
 ) -> float:
     """A vertical dimension string at ``x`` over the breakpoints ``ys``; texts along the line
-    (rotated) where they fit, else set level to the left of the line; extension lines from
+    (rotated) where they fit — moved along their segment off any height in ``avoid`` (a line
+    crossing the string) — else set level to the left of the line; extension lines from
     ``x_ext``. Returns the leftmost x its texts reach."""
     for y in ys:
         dr.add(Line(x_ext, y, x - 3, y, strokeColor=DIM, strokeWidth=0.35))
@@ -198,8 +205,13 @@ def chain_v(
     for (a, b), text in zip(zip(ys, ys[1:]), texts):
         w = stringWidth(text, font, DIM_SIZE)
         if w + 3 <= abs(b - a):
+            lo, hi = min(a, b) + w / 2 + 1.5, max(a, b) - w / 2 - 1.5
+            yc = (a + b) / 2
+            for f in avoid:
+                if abs(yc - f) < w / 2 + 2:  # slide to the roomier side of the crossing line
+                    yc = min(hi, f + w / 2 + 2.5) if hi - f >= f - lo else max(lo, f - w / 2 - 2.5)
             g = Group(String(0, 0, text, fontName=font, fontSize=DIM_SIZE, textAnchor="middle"))
-            g.transform = (0, 1, -1, 0, x - 2, (a + b) / 2)
+            g.transform = (0, 1, -1, 0, x - 2, yc)
             dr.add(g)
         else:
             level.append(((a + b) / 2, text))
