@@ -55,7 +55,9 @@ def _weld_triangles(j: JointResult, P: ToPoint, k: float, polys: list[SPolygon])
     """Fillet triangles (points) at the ends of each plane segment, in the free corner between the
     part that ends there and the part that runs on."""
     c = j.callout
-    leg = max(float(c.weld_size.to("inch").magnitude) * k if c.weld_size is not None else 0.0, 3.0)
+    leg = max(
+        float(c.weld_size.to("inch").magnitude) * k if c.weld_size is not None else 0.0, 4.0
+    )  # drawn no smaller than 4 pt to be seen
     out = []
     lines = c.weld_lines or 2
     for pl in c.planes:
