@@ -113,7 +113,10 @@ def joint_callout(
     weld = joint.connector.kind == "fillet_weld"
     per = int(p.get("welds", 2)) if weld else joint.per_row
     shop = (
-        tuple(ShopZone(z.start, z.end, z.end - z.start, z.spacing, int(z.count), int(z.count) * per) for z in zones)
+        tuple(
+            ShopZone(z.start, z.end, z.end - z.start, z.spacing, int(z.count), int(z.count) * per)
+            for z in zones
+        )
         if feasible
         else ()
     )
