@@ -28,6 +28,7 @@ class Task:
     since: str | None = None
     json: bool = False
     allow_outside: bool = False  # template, logo and fonts may lie outside the job's folder
+    fabrication: bool = False  # also write the fabrication sheets as <report>-fabrication.pdf
 
 
 @dataclass(frozen=True)
@@ -84,7 +85,9 @@ def build_one(task: Task) -> Outcome:
 
             marks = revision_marks_since(task.job, task.since, r)
             keys, mark = marks.changed_keys, marks.mark
-        pdf = render_pdf(r, tpl, keys, mark, marked_since=task.since or "")
+        sheets: dict[str, int] = {}
+        pdf = render_pdf(r, tpl, keys, mark, marked_since=task.since or "", fab_sheets=sheets)
+        fab = _fabrication(task, r, tpl, sheets) if task.fabrication else None
     except JobError as exc:
         return Outcome(task.job, EXIT_INVALID, _one_line(str(exc)))
     except Exception as exc:  # a defect of ours: still one line, exit 2, nothing written
@@ -99,6 +102,8 @@ def build_one(task: Task) -> Outcome:
     from ..safewrite import write_set
 
     files = [(task.out, pdf)]
+    if fab is not None:  # the report and its shop copy are moved into place together
+        files.append(fab)
     try:
         if task.json:  # the PDF and its JSON are moved into place together, or neither is
             from ..outputs.json_out import dumps, json_path_for, to_dict
@@ -125,9 +130,22 @@ def build_one(task: Task) -> Outcome:
             ),
         )
     extra = f" and {task.out.with_suffix('.json').name}" if task.json else ""
+    if fab is not None:
+        extra += f" and {Path(fab[0]).name}"
     return Outcome(
         task.job, EXIT_NG if r.status == "NG" else EXIT_OK, f"wrote {task.out}{extra}  [{r.status}]"
     )
+
+
+def _fabrication(task: Task, r, tpl, sheets: dict[str, int]) -> tuple[Path, bytes]:
+    """The separate fabrication PDF of ``--fabrication``; a job with no joint has nothing to
+    fabricate and is refused (JobError: one line, exit 2, nothing written)."""
+    from ..errors import JobError
+    from ..outputs.fabrication_pdf import fabrication_path_for, render_fabrication_pdf
+
+    if not any(m.joints for m in r.members):
+        raise JobError(task.job, "", "--fabrication: no member has a joint, so there is nothing to fabricate")
+    return Path(fabrication_path_for(task.out)), render_fabrication_pdf(r, sheets, tpl)
 
 
 class _Progress:

@@ -63,6 +63,14 @@ def register(sub, common) -> None:
         help="also write the results JSON beside each PDF (same name, .json; stable for git)",
     )
     b.add_argument(
+        "--fabrication",
+        action="store_true",
+        help="also write each job's fabrication sheets (the last sheets of its report: pieces, "
+        "fastening per zone, positions from the left end, counts, a QR code with the job file's "
+        "SHA-256 and the report sheet) as a PDF of their own beside the report, "
+        "<name>-fabrication.pdf; report and shop copy are written together or not at all",
+    )
+    b.add_argument(
         "--allow-outside",
         action="store_true",
         help="let a job's report template, logo and fonts come from outside the job's folder and "
@@ -136,6 +144,26 @@ def output_paths(jobs: list[str], output: str | None, folder: bool = False) -> l
     return paths
 
 
+def fabrication_clash(jobs: list[str], paths: list[Path], with_json: bool) -> None:
+    """Refuse (ValueError, one line) a run where a job's fabrication PDF would be another job's
+    report, JSON or fabrication PDF (``a.toml`` beside ``a-fabrication.toml``)."""
+    from ..outputs.fabrication_pdf import fabrication_path_for
+
+    owner: dict[Path, str] = {}
+    for job, p in zip(jobs, paths):
+        owner[p] = job
+        if with_json:
+            owner[p.with_suffix(".json")] = job
+    for job, p in zip(jobs, paths):
+        fab = Path(fabrication_path_for(p))
+        if fab in owner and owner[fab] != job:
+            raise ValueError(
+                f"--fabrication: the fabrication sheets of {job} would overwrite {fab}, written for "
+                f"{owner[fab]}; build them in separate runs or rename one"
+            )
+        owner[fab] = job
+
+
 def cmd_build(args) -> int:
     from ..outputs.report.epoch import EpochError, source_date_epoch
     from .batch import Task, default_workers, expand_jobs, run_jobs
@@ -144,11 +172,15 @@ def cmd_build(args) -> int:
         source_date_epoch()  # a malformed value is refused once, before any job is built
         jobs = expand_jobs(args.jobs)
         paths = output_paths(jobs, args.output, folder=any(os.path.isdir(j) for j in args.jobs))
+        fabrication = bool(getattr(args, "fabrication", False))
+        if fabrication:
+            fabrication_clash(jobs, paths, args.json)
     except (ValueError, EpochError) as exc:
         print(f"calcreport build: {exc}", file=sys.stderr)
         return EXIT_INVALID
     tasks = [
-        Task(j, p, args.since, args.json, getattr(args, "allow_outside", False)) for j, p in zip(jobs, paths)
+        Task(j, p, args.since, args.json, getattr(args, "allow_outside", False), fabrication)
+        for j, p in zip(jobs, paths)
     ]
     workers = 1 if "-" in jobs else (args.workers or default_workers())  # stdin is read here
     if jobs.count("-") > 1:

@@ -16,6 +16,7 @@ from ..steps import StepLog
 from ..units import Q_, Quantity
 from . import connectors
 from .assumed import job_assumed, member_assumed
+from .callout import joint_callout
 from .results import Check, JobResult, JointResult, MemberResult, SectionResult, SolveError, worst
 from .scope import checked_words, missing_stress_rows, not_checked
 from .section import first_moment, section_properties
@@ -312,4 +313,15 @@ def solve_joint(
         plane_width=b,
         steps=tuple(s for s in log.steps if s.key.startswith(log.prefix + ".")),
         schedule=schedule,
+        callout=joint_callout(
+            joint,
+            member.parts,
+            segments,
+            cap.description,
+            cap.continuous,
+            res.provided,
+            schedule,
+            b,
+            member.span,
+        ),
     )

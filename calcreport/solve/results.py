@@ -158,6 +158,7 @@ class JointResult:
     plane_width: Quantity
     steps: tuple[Step, ...]
     schedule: Any = None  # zoned schedule (loads along the member)
+    callout: Any = None  # what a detail calls out (solve/callout.py Callout)
 
 
 @dataclass(frozen=True)

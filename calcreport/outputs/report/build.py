@@ -21,6 +21,7 @@ from reportlab.platypus import KeepTogether, PageBreak, Paragraph
 from ... import __version__
 from ...safewrite import write_atomic
 from ...solve.results import JobResult
+from ..fabrication import fabrication_sections, fabrication_story
 from ..fmt import Display
 from ..pdfmeta import KEY_MARKED_SINCE, job_metadata, seal_metadata
 from ..pdfmeta import stamp as stamp_info
@@ -75,10 +76,13 @@ def report_sections(result: JobResult) -> list[tuple[str, str]]:
         ("signoff", "Review and sign-off"),
         ("limits", "Limitations and cautions"),
     ]
+    out += fabrication_sections(result)  # fabrication sheets close the report (outputs/fabrication.py)
     return out
 
 
-def _story(ctx: Ctx, info: PageInfo, sections: list[tuple[str, str]]) -> list:
+def _story(
+    ctx: Ctx, info: PageInfo, sections: list[tuple[str, str]], fab_sheets: dict[str, int] | None = None
+) -> list:
     st = ctx.styles
     story: list = [SectionStart("cover", sections[0][1], "Cover and summary")]
     story += cover_story(ctx, info, sections)
@@ -104,6 +108,7 @@ def _story(ctx: Ctx, info: PageInfo, sections: list[tuple[str, str]]) -> list:
     story += signoff_story(ctx)
     story.append(SectionStart("limits", "Limitations and cautions", "Limitations and cautions"))
     story += limitations_story(ctx)
+    story += fabrication_story(ctx, record=fab_sheets)  # one sheet per member, each on a new page
     return story
 
 
@@ -132,11 +137,13 @@ def render_pdf(
     changed_keys: frozenset[str] = frozenset(),
     revision_mark: str = "",
     marked_since: str = "",
+    fab_sheets: dict[str, int] | None = None,
 ) -> bytes:
     """The report of ``result`` as PDF bytes (see module docstring).
 
     ``marked_since``: the git revision the marks compare with (``build --since``), stamped in the
     metadata so that ``calcreport verify`` can recompute the marks and rebuild the same bytes.
+    ``fab_sheets`` (optional) receives the sheet of each member's fabrication sheet.
     """
     job = result.job
     tpl = template if template is not None else load_template(job.settings.template, job.path)
@@ -183,7 +190,7 @@ def render_pdf(
     ctx = Ctx(
         result, display, styles, tpl, doc.width, frozenset(changed_keys), revision_mark, doc.frame_height
     )
-    doc.build(_story(ctx, info, sections), canvasmaker=maker)
+    doc.build(_story(ctx, info, sections, fab_sheets), canvasmaker=maker)
     pdf = buf.getvalue()
     return pdf
 

@@ -1,0 +1,145 @@
+"""What a drawing calls out at a joint, as data: the connector, its rows on each shear plane, the
+spacing that governs, weld size, segment and pitch, the parts on the far side of each plane.
+
+Gathered from the joint's connector spec, the capacity the model returned, the spacing result and
+the schedule — nothing here computes an engineering value; the outputs only put it into words
+(``outputs/callouts.py``).
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+from ..model import Joint, Part
+from ..outlines import contact_segments
+from ..units import Quantity
+
+__all__ = ["PlaneCallout", "ShopZone", "Callout", "joint_callout"]
+
+
+@dataclass(frozen=True)
+class PlaneCallout:
+    """One shear-plane segment of a joint and the connectors a row puts on it."""
+
+    segment: tuple[tuple[float, float], tuple[float, float]]  # inches, section coordinates
+    rows: int  # connectors of one row on this segment (lines of fasteners along the member)
+    other: str  # id of the part across the plane from the held parts ("" if none found)
+    other_label: str = ""
+
+
+@dataclass(frozen=True)
+class ShopZone:
+    """One zone of the schedule as the shop sheet counts it."""
+
+    start: Quantity  # from the member's left end (x = 0)
+    end: Quantity
+    length: Quantity  # end − start
+    spacing: Quantity
+    rows: int  # connector rows in the zone (the first zone also holds the row at x = 0)
+    pieces: int  # connectors in the zone: rows × per_row; welds: segments on all weld lines
+
+
+@dataclass(frozen=True)
+class Callout:
+    """The connector of one joint as a detail or a shop sheet states it."""
+
+    kind: str  # connector type as in the job file (``nail``, ``fillet_weld``, ``glue`` …)
+    name: str  # the connector in words (the capacity's description, e.g. "8d common nail")
+    size: str  # the job's size text when the connector has one ("8d common", "5/16 in"), else ""
+    continuous: bool
+    per_row: int
+    planes: tuple[PlaneCallout, ...]
+    spacing: Quantity | None  # governing (closest) spacing: the schedule's densest zone, else s
+    spacing_widest: Quantity | None  # the schedule's widest zone spacing (None without zones)
+    zoned: bool  # a zoned schedule along the member gives the spacing
+    weld_size: Quantity | None = None
+    weld_lines: int | None = None  # fillet welds: 2 = both sides / both edges
+    weld_form: str = ""  # "tee" / "lap" / "auto" as given
+    segment: Quantity | None = None  # intermittent weld segment length (pitch = spacing)
+    plane_width: Quantity | None = None  # glue lines: width b of the line
+    zones: tuple[ShopZone, ...] = ()  # the schedule's zones, counted (empty without a schedule)
+    rows_total: int | None = None  # the schedule's N
+    pieces_total: int | None = None  # connectors (or weld segments) along the member
+    length: Quantity | None = None  # the member length the schedule covers (or its span)
+    pieces_per_row: int = 1  # connectors (or weld segments) one row puts in
+
+
+def _share(per_row: int, n: int) -> list[int]:
+    """The row's connectors shared out over ``n`` plane segments (the first get one more)."""
+    n = max(1, n)
+    return [per_row // n + (1 if k < per_row % n else 0) for k in range(n)]
+
+
+def _across(seg, held: list[Part], rest: list[Part]) -> Part | None:
+    """The part across the plane segment ``seg`` from the held parts (its edge holds the segment)."""
+    for p in rest:
+        for a, b in contact_segments(held, [p]):
+            if _close(a, seg[0]) and _close(b, seg[1]):
+                return p
+    return None
+
+
+def _close(a, b, tol: float = 1e-4) -> bool:
+    return abs(a[0] - b[0]) <= tol and abs(a[1] - b[1]) <= tol
+
+
+def joint_callout(
+    joint: Joint,
+    parts: tuple[Part, ...],
+    segments,
+    description: str,
+    continuous: bool,
+    spacing: Quantity | None,
+    schedule,
+    plane_width: Quantity | None,
+    span: Quantity | None = None,
+) -> Callout:
+    """The callout record of one joint (see module docstring)."""
+    held = [p for p in parts if p.id in joint.holds]
+    rest = [p for p in parts if p.id not in joint.holds]
+    shares = _share(joint.per_row, len(segments))
+    planes = []
+    for seg, rows in zip(segments, shares):
+        o = _across(seg, held, rest)
+        planes.append(PlaneCallout(seg, rows, o.id if o else "", (o.label if o else "") or ""))
+    zones = tuple(getattr(schedule, "zones", ()) or ()) if schedule is not None else ()
+    feasible = bool(zones) and bool(getattr(schedule, "feasible", False))
+    s_gov, s_wide = spacing, None
+    if feasible:
+        s_gov = min((z.spacing for z in zones), key=lambda q: q.to("inch").magnitude)
+        s_wide = max((z.spacing for z in zones), key=lambda q: q.to("inch").magnitude)
+    p = joint.connector.params
+    size = p.get("size")
+    weld = joint.connector.kind == "fillet_weld"
+    per = int(p.get("welds", 2)) if weld else joint.per_row
+    shop = (
+        tuple(
+            ShopZone(z.start, z.end, z.end - z.start, z.spacing, int(z.count), int(z.count) * per)
+            for z in zones
+        )
+        if feasible
+        else ()
+    )
+    n_rows = int(schedule.count) if feasible and schedule.count is not None else None
+    length = schedule.length if schedule is not None else span
+    return Callout(
+        kind=joint.connector.kind,
+        name=description,
+        size=size if isinstance(size, str) else "",
+        continuous=continuous,
+        per_row=joint.per_row,
+        planes=tuple(planes),
+        spacing=None if continuous else s_gov,
+        spacing_widest=None if continuous else s_wide,
+        zoned=feasible,
+        weld_size=size if weld and isinstance(size, Quantity) else None,
+        weld_lines=int(p.get("welds", 2)) if weld else None,
+        weld_form=str(p.get("joint_form", "")) if weld else "",
+        segment=p.get("segment") if weld else None,
+        plane_width=plane_width,
+        zones=shop,
+        rows_total=n_rows,
+        pieces_total=None if n_rows is None else n_rows * per,
+        length=length,
+        pieces_per_row=per,
+    )
