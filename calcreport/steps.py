@@ -110,7 +110,7 @@ class StepLog:
 
     prefix: str
     steps: list[Step] = field(default_factory=list)
-    #: table a step added with a ``column`` joins when the call names no ``group`` (see :meth:`table`)
+    #: the table a step joins when the call names no ``group`` (see :meth:`table`)
     group: str = ""
     row: str = ""
 
@@ -133,8 +133,8 @@ class StepLog:
         """Append a step keyed ``prefix.name`` and return its result (so code reads as math).
 
         ``group``/``row``/``column`` place the step in a table of repeated formulas (module
-        docstring); a call naming a ``column`` but no ``group`` joins this log's table."""
-        if column and not group:
+        docstring); a call naming no ``group`` joins this log's table (see :meth:`table`)."""
+        if self.group and not group:
             group, row = self.group, row or self.row
         self.steps.append(
             step(
@@ -160,7 +160,8 @@ class StepLog:
         return _ChildLog(f"{self.prefix}.{name}", self.steps, self.group, self.row)
 
     def table(self, group: str, row: str = "") -> StepLog:
-        """The same log, whose steps added with a ``column`` go in table ``group``, row ``row``."""
+        """The same log, whose steps go in table ``group``, row ``row`` (with the ``column`` each
+        call names; a step without one is stated under the table)."""
         return _ChildLog(self.prefix, self.steps, group, row)
 
 
