@@ -16,7 +16,7 @@ from pathlib import Path
 
 from reportlab.lib.utils import TimeStamp
 from reportlab.pdfgen.canvas import Canvas
-from reportlab.platypus import PageBreak
+from reportlab.platypus import CondPageBreak, PageBreak
 
 from ... import __version__
 from ...safewrite import write_atomic
@@ -84,7 +84,8 @@ def _story(ctx: Ctx, info: PageInfo, sections: list[tuple[str, str]]) -> list:
         story.append(SectionStart(f"member:{m.id}", sections[i][1], subject))
         story.append(member_title(m, i, ctx))
         story += member_story(m, ctx, i)
-    story.append(PageBreak())
+    # the assumed values follow the last member's results on its sheet when a good part of it is left
+    story.append(CondPageBreak(0.45 * ctx.frame_height))
     story.append(SectionStart("assumed", "Assumed values", "Assumed values"))
     story += assumed_story(ctx)
     story.append(PageBreak())

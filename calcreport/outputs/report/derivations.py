@@ -17,7 +17,7 @@ from __future__ import annotations
 from dataclasses import dataclass, field
 
 from reportlab.lib.styles import ParagraphStyle
-from reportlab.platypus import Paragraph
+from reportlab.platypus import Paragraph, Spacer
 
 from ...solve.results import MemberResult
 from ...steps import Step
@@ -142,8 +142,7 @@ def step_rows(
         sub, res = d.substituted(s), d.result(s)
         line = f"= <b>{esc(res)}</b>" if sub.strip() == res else f"= {esc(sub)}   = <b>{esc(res)}</b>"
         body = [
-            Paragraph(f"<b>{esc(s.label)}</b>{tag}&nbsp;&nbsp;&nbsp; {esc(s.symbol)}", st.cell),
-            Paragraph(line, st.formula),
+            Paragraph(f"<b>{esc(s.label)}</b>{tag}&nbsp;&nbsp; {esc(s.symbol)}&nbsp;&nbsp; {line}", st.cell)
         ]
         if s.note:
             body.append(para(cited(s.note), st.caption))
@@ -240,7 +239,7 @@ def _table(steps: list[Step], ctx: Ctx, prefix: str, index: dict[str, int]) -> l
     )
     out += _steps_table(worked, ctx, prefix, [index[s.key] for s in worked])
     if differ:
-        out.append(para(f"Where a {word} uses another formula, that step in full:", st.small))
+        out += [Spacer(1, 4), para(f"Where a {word} uses another formula, that step in full:", st.small)]
         out += _steps_table(differ, ctx, prefix, [index[s.key] for s in differ])
     heads: dict[str, list[str]] = {c: [] for c in cols}
     for seq in rows.values():
