@@ -258,18 +258,18 @@ def _table(steps: list[Step], ctx: Ctx, prefix: str, index: dict[str, int]) -> l
     for rid, seq in rows.items():
         by = {s.column: s for s in seq}
         marks = [m for s in seq for m in ctx.mark(s.key)][:1]
-        line = [marks + [para(rid, cell)]]
+        line: list = [marks + [para(rid, cell)]]
         for k, c in enumerate(cols, 1):
-            s = by.get(c)
-            line.append(para(d.result(s), cell_r) if s is not None else para("—", cell_r))
-            if s is not None and s.governs:
+            cs = by.get(c)
+            line.append(para(d.result(cs), cell_r) if cs is not None else para("—", cell_r))
+            if cs is not None and cs.governs:
                 extra.append(("BACKGROUND", (k, len(data)), (k, len(data)), GOVERNS_TINT))
         data.append(line)
     if totals:
         line = [para("Σ", st.cell_bold)]
         for c in cols:
-            s = totals.get(c)
-            line.append(Paragraph(f"<b>{esc(d.result(s))}</b>", cell_r) if s is not None else "")
+            ts = totals.get(c)
+            line.append(Paragraph(f"<b>{esc(d.result(ts))}</b>", cell_r) if ts is not None else "")
         data.append(line)
         extra.append(("LINEABOVE", (0, len(data) - 1), (-1, len(data) - 1), 0.7, st.accent))
     first = 0.11 * w
