@@ -58,6 +58,8 @@ _TITLES = {
 #: what a row of a table is, by the table's group id (the first dotted segment)
 _ROW_WORDS = {"section": "part", "zones": "zone", "combinations": "combination", "cases": "case"}
 _LOAD_STEPS = ("self_weight", "combinations")
+#: tables whose cells give the result only (their formulas are in the worked row and the header)
+_RESULT_ONLY = frozenset({"section"})
 
 
 @dataclass
@@ -251,8 +253,9 @@ def _table(steps: list[Step], ctx: Ctx, prefix: str, index: dict[str, int]) -> l
     )
     cell_r = ParagraphStyle("tcellr", parent=cell, alignment=2)
     head_r = ParagraphStyle("theadr", parent=st.cell_bold, fontSize=cell.fontSize, alignment=2)
+    head_style = head_r if group in _RESULT_ONLY else st.cell_bold
     data: list[list] = [
-        [para(word.capitalize(), st.cell_bold)] + [para(" / ".join(heads[c]), head_r) for c in cols]
+        [para(word.capitalize(), st.cell_bold)] + [para(" / ".join(heads[c]), head_style) for c in cols]
     ]
     extra: list[tuple] = []
     for rid, seq in rows.items():
@@ -261,7 +264,13 @@ def _table(steps: list[Step], ctx: Ctx, prefix: str, index: dict[str, int]) -> l
         line: list = [marks + [para(rid, cell)]]
         for k, c in enumerate(cols, 1):
             cs = by.get(c)
-            line.append(para(d.result(cs), cell_r) if cs is not None else para("—", cell_r))
+            if cs is None:
+                line.append(para("—", cell_r))
+            else:
+                text, sub = esc(d.result(cs)), d.substituted(cs)
+                if group not in _RESULT_ONLY and sub.strip() != d.result(cs):  # how it was found
+                    text += f'<br/><font size="{cell.fontSize - 1}" color="#444444">{esc(sub)}</font>'
+                line.append(Paragraph(text, cell_r if group in _RESULT_ONLY else cell))
             if cs is not None and cs.governs:
                 extra.append(("BACKGROUND", (k, len(data)), (k, len(data)), GOVERNS_TINT))
         data.append(line)
@@ -272,14 +281,15 @@ def _table(steps: list[Step], ctx: Ctx, prefix: str, index: dict[str, int]) -> l
             line.append(Paragraph(f"<b>{esc(d.result(ts))}</b>", cell_r) if ts is not None else "")
         data.append(line)
         extra.append(("LINEABOVE", (0, len(data) - 1), (-1, len(data) - 1), 0.7, st.accent))
-    first = 0.11 * w
+    first = 0.11 * w if group in _RESULT_ONLY else 0.22 * w
     widths = [first] + [(w - first) / len(cols)] * len(cols)
     out.append(grid(data, widths, st, extra=extra, zebra=True, frame_height=ctx.frame_height))
     lo, hi = min(index[s.key] for s in steps), max(index[s.key] for s in steps)
     out.append(
         para(
             f"Steps {prefix}{lo}–{prefix}{hi}: each value is the result of one step, listed one by one in "
-            f"the results JSON with its table, {word} and column; Σ: the totals, each its own step.",
+            f"the results JSON with its table, {word} and column"
+            + ("; Σ: the totals, each its own step." if totals else "."),
             st.caption,
         )
     )

@@ -62,11 +62,13 @@ def _loads_figures(m: MemberResult, ctx: Ctx) -> list:
     return out
 
 
-def _schedule_figures(m: MemberResult, ctx: Ctx, jid: str) -> list:
+def _schedule_figures(m: MemberResult, ctx: Ctx, jid: str, charts: bool = True) -> list:
     j = next((x for x in m.joints if x.id == jid), None)
     if j is None or j.schedule is None:
         return []
     out = list(schedule_figures(j, ctx, m.id))
+    if not charts:
+        return out
     mark = ctx.mark(schedule_key(m.id, j.id))
     chart = demand_capacity_chart(j, ctx.display, ctx.styles.fonts, ctx.width)
     out += _figure(
@@ -126,15 +128,12 @@ def member_story(m: MemberResult, ctx: Ctx, number: int) -> list:
                 fold = folds.get(g.gid)
                 jid = g.gid.split(".", 1)[1]
                 done_schedules.add(jid)
+                body += _schedule_figures(m, ctx, jid, charts=fold is None or bool(fold.differ))
                 if fold is not None and not fold.differ:
                     base = fold.base_gid.split(".", 1)[1]
                     body.append(
-                        para(
-                            f"The zone table and figures of joint {jid} are those of joint {base}.", st.small
-                        )
+                        para(f"Its q(x) chart and zone elevation are those of joint {base}.", st.small)
                     )
-                else:
-                    body += _schedule_figures(m, ctx, jid)
         else:
             body += stage_story(by_stage.get(sid, []), ctx, folds)
         if sid == "schedule":  # a schedule without steps of its own still shows its table
