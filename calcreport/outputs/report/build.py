@@ -16,7 +16,7 @@ from pathlib import Path
 
 from reportlab.lib.utils import TimeStamp
 from reportlab.pdfgen.canvas import Canvas
-from reportlab.platypus import CondPageBreak, PageBreak
+from reportlab.platypus import CondPageBreak, KeepTogether, PageBreak
 
 from ... import __version__
 from ...safewrite import write_atomic
@@ -88,9 +88,11 @@ def _story(ctx: Ctx, info: PageInfo, sections: list[tuple[str, str]]) -> list:
     story.append(CondPageBreak(0.45 * ctx.frame_height))
     story.append(SectionStart("assumed", "Assumed values", "Assumed values"))
     story += assumed_story(ctx)
-    story.append(PageBreak())
-    story.append(SectionStart("signoff", "Review and sign-off", "Review and sign-off"))
-    story += signoff_story(ctx)
+    # the sign-off block is set whole: on the assumed values' last sheet when it fits there
+    block: list = [SectionStart("signoff", "Review and sign-off", "Review and sign-off")]
+    for f in signoff_story(ctx):  # flattened: a KeepTogether inside another always measures as too tall
+        block += f._content if isinstance(f, KeepTogether) else [f]
+    story.append(KeepTogether(block))
     story.append(SectionStart("limits", "Limitations and cautions", "Limitations and cautions"))
     story += limitations_story(ctx)
     return story

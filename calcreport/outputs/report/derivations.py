@@ -162,6 +162,7 @@ def _steps_table(steps: list[Step], ctx: Ctx, prefix: str, numbers: list[int]) -
         return []
     w = ctx.width
     rows, extra = step_rows(steps, ctx, prefix, numbers)
+    extra = [("TOPPADDING", (0, 1), (-1, -1), 1.5), ("BOTTOMPADDING", (0, 1), (-1, -1), 1.5), *extra]
     widths = [0.08 * w, 0.67 * w, 0.25 * w]
     return [grid(rows, widths, ctx.styles, extra=extra, zebra=False, frame_height=ctx.frame_height)]
 

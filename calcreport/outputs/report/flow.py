@@ -176,9 +176,12 @@ def disciplined(story: list, frame_height: float) -> list:
                 done.append(KeepHead(head, out[j], frame_height))
                 i = j + 1
                 continue
-            if _is_heading(f) and j > i and j < len(out) and isinstance(out[j], KeepTogether):
-                f.keepWithNext = 1
-            if _is_heading(f) and i + 1 < len(out) and isinstance(out[i + 1], Paragraph):
+            nxt = out[i + 1] if i + 1 < len(out) else None
+            if _is_heading(f) and isinstance(nxt, KeepTogether):  # one level: nested ones measure as too tall
+                done.append(KeepTogether([f, *nxt._content]))
+                i += 2
+                continue
+            if _is_heading(f) and isinstance(nxt, Paragraph):
                 f.keepWithNext = 1
         done.append(f)
         i += 1
