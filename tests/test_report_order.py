@@ -127,7 +127,7 @@ def test_section_table_cells_are_step_values(built):
     ctx = Ctx(result, d, styles, tpl, 540.0)
     (section,) = [g for g in member_groups(m) if g.gid == "section"]
     section.number = "1.1"
-    story = stage_story([section], ctx)
+    story = [getattr(f, "table", f) for f in stage_story([section], ctx)]
     tables = [t for t in story if isinstance(t, Table) and t._cellvalues[0][0].getPlainText() == "Part"]
     assert len(tables) == 1
     rows = tables[0]._cellvalues

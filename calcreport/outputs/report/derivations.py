@@ -22,6 +22,7 @@ from reportlab.platypus import Paragraph, Spacer
 from ...solve.results import MemberResult
 from ...steps import Step
 from .common import GOVERNS_TINT, Ctx, cited, grid, heading, para
+from .flow import KeepTail
 from .folding import Fold, fold_groups
 from .styles import esc
 
@@ -284,16 +285,15 @@ def _table(steps: list[Step], ctx: Ctx, prefix: str, index: dict[str, int]) -> l
         extra.append(("LINEABOVE", (0, len(data) - 1), (-1, len(data) - 1), 0.7, st.accent))
     first = 0.11 * w if group in _RESULT_ONLY else 0.22 * w
     widths = [first] + [(w - first) / len(cols)] * len(cols)
-    out.append(grid(data, widths, st, extra=extra, zebra=True, frame_height=ctx.frame_height))
     lo, hi = min(index[s.key] for s in steps), max(index[s.key] for s in steps)
-    out.append(
-        para(
-            f"Steps {prefix}{lo}–{prefix}{hi}: each value is the result of one step, listed one by one in "
-            f"the results JSON with its table, {word} and column"
-            + ("; Σ: the totals, each its own step." if totals else "."),
-            st.caption,
-        )
+    caption = para(
+        f"Steps {prefix}{lo}–{prefix}{hi}: each value is the result of one step, listed one by one in "
+        f"the results JSON with its table, {word} and column"
+        + ("; Σ: the totals, each its own step." if totals else "."),
+        st.caption,
     )
+    table = grid(data, widths, st, extra=extra, zebra=True, frame_height=ctx.frame_height)
+    out.append(KeepTail(table, [caption]))  # the caption stays with the table's last rows
     out += _steps_table(stated, ctx, prefix, [index[s.key] for s in stated])
     return out
 

@@ -14,6 +14,8 @@ from __future__ import annotations
 
 from reportlab.platypus import CondPageBreak, Flowable, KeepTogether, Paragraph, Table
 
+from .pages import MarginMark, OutlineMark, SectionStart
+
 __all__ = ["EvenTable", "KeepHead", "KeepTail", "disciplined", "MIN_ROWS"]
 
 #: body rows a split table keeps on each side of the break
@@ -144,7 +146,7 @@ def _is_lead(f: Flowable) -> bool:
     """A short line introducing what follows (small print, a CondPageBreak, a zero-size mark)."""
     if isinstance(f, Paragraph):
         return getattr(f.style, "name", "") in ("small", "caption") and len(f.getPlainText()) < 400
-    return isinstance(f, CondPageBreak) or (getattr(f, "width", 1) == 0 and getattr(f, "height", 1) == 0)
+    return isinstance(f, (CondPageBreak, OutlineMark, SectionStart, MarginMark))
 
 
 def disciplined(story: list, frame_height: float) -> list:
