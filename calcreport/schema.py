@@ -183,6 +183,12 @@ def results_schema() -> dict[str, Any]:
             "source": {"type": "string"},
             "note": {"type": "string"},
             "governs": {"type": "boolean"},
+            "group": {"type": "string", "description": "table of repeated formulas the step belongs to"},
+            "row": {"type": "string", "description": "the item (part, zone, combination) of its table"},
+            "column": {
+                "type": "string",
+                "description": "the quantity of its table; no row: the column's total",
+            },
         },
         "required": ["key", "label", "symbol", "substituted", "values", "result", "source"],
     }

@@ -11,7 +11,13 @@ A :class:`Step` is data, never text ready to print. It holds
 * ``source`` — the standard and clause, or "mechanics of materials", or "common practice, no source";
 * ``key`` — a stable dotted id (``member.B1.joint.top.q``) that the diff lines up across revisions;
 * ``positions`` — names of the values (and ``"result"``) that are positions or lengths along the
-  member, which outputs write the way drawings do (feet-inches in US units).
+  member, which outputs write the way drawings do (feet-inches in US units);
+* ``group``, ``row``, ``column`` — optional: the same formula repeated over items (parts, zones,
+  combinations) forms a table. ``group`` names the table (unique within the member, e.g.
+  ``"section.parts"``), ``row`` the item (a part id, a zone number), ``column`` the quantity (``"A"``,
+  ``"nA"``). A step of the group with a ``column`` and no ``row`` is that column's total (the sums
+  row); one with neither is a result stated under the table (ȳ). The solver sets them; the report
+  lays out the table from them without computing anything, the JSON carries them only when set.
 
 The solver appends steps as it computes; the PDF typesets them, the JSON serialises them and the
 diff compares them.
@@ -47,6 +53,9 @@ class Step:
     note: str = ""
     governs: bool = False
     positions: tuple[str, ...] = ()
+    group: str = ""
+    row: str = ""
+    column: str = ""
 
 
 def step(
@@ -60,6 +69,9 @@ def step(
     note: str = "",
     governs: bool = False,
     positions: tuple[str, ...] = (),
+    group: str = "",
+    row: str = "",
+    column: str = "",
 ) -> Step:
     """Build a :class:`Step`, checking that every slot of ``template`` has a value.
 
@@ -75,7 +87,21 @@ def step(
     missing = slots - set(values)
     if missing:
         raise ValueError(f"step {key}: template slots without values: {sorted(missing)}")
-    return Step(key, label, symbol, template, dict(values), result, source, note, governs, tuple(positions))
+    return Step(
+        key,
+        label,
+        symbol,
+        template,
+        dict(values),
+        result,
+        source,
+        note,
+        governs,
+        tuple(positions),
+        group,
+        row,
+        column,
+    )
 
 
 @dataclass
@@ -84,6 +110,9 @@ class StepLog:
 
     prefix: str
     steps: list[Step] = field(default_factory=list)
+    #: the table a step joins when the call names no ``group`` (see :meth:`table`)
+    group: str = ""
+    row: str = ""
 
     def add(
         self,
@@ -97,8 +126,16 @@ class StepLog:
         note: str = "",
         governs: bool = False,
         positions: tuple[str, ...] = (),
+        group: str = "",
+        row: str = "",
+        column: str = "",
     ) -> R:
-        """Append a step keyed ``prefix.name`` and return its result (so code reads as math)."""
+        """Append a step keyed ``prefix.name`` and return its result (so code reads as math).
+
+        ``group``/``row``/``column`` place the step in a table of repeated formulas (module
+        docstring); a call naming no ``group`` joins this log's table (see :meth:`table`)."""
+        if self.group and not group:
+            group, row = self.group, row or self.row
         self.steps.append(
             step(
                 f"{self.prefix}.{name}",
@@ -111,15 +148,23 @@ class StepLog:
                 note,
                 governs,
                 positions,
+                group,
+                row,
+                column,
             )
         )
         return result
 
     def child(self, name: str) -> StepLog:
         """A log whose keys are nested under ``prefix.name`` and whose steps land here too."""
-        return _ChildLog(f"{self.prefix}.{name}", self.steps)
+        return _ChildLog(f"{self.prefix}.{name}", self.steps, self.group, self.row)
+
+    def table(self, group: str, row: str = "") -> StepLog:
+        """The same log, whose steps go in table ``group``, row ``row`` (with the ``column`` each
+        call names; a step without one is stated under the table)."""
+        return _ChildLog(self.prefix, self.steps, group, row)
 
 
 class _ChildLog(StepLog):
-    def __init__(self, prefix: str, steps: list[Step]):
-        super().__init__(prefix, steps)
+    def __init__(self, prefix: str, steps: list[Step], group: str = "", row: str = ""):
+        super().__init__(prefix, steps, group, row)

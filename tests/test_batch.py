@@ -96,12 +96,12 @@ def test_bad_worker_count_is_a_usage_error(cli, folder):
 
 
 def test_unexpected_failure_is_one_line_and_writes_nothing(tmp_path, monkeypatch):
-    from calcreport.outputs.report import build as build_mod
+    from calcreport.outputs.report import member_story as member_story_mod
 
     def boom(*a, **k):
         raise RuntimeError("drawing failed")
 
-    monkeypatch.setattr(build_mod, "section_drawing", boom)
+    monkeypatch.setattr(member_story_mod, "section_drawing", boom)  # the member section draws it
     out = tmp_path / "x.pdf"
     o = build_one(Task(str(JOBS[0]), out))
     assert o.code == 2 and "internal error" in o.line and "\n" not in o.line

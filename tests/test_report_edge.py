@@ -11,7 +11,7 @@ import pytest
 pypdf = pytest.importorskip("pypdf")
 
 from calcreport.errors import JobError  # noqa: E402
-from calcreport.outputs.report import build as build_mod  # noqa: E402
+from calcreport.outputs.report import member_story as member_story_mod  # noqa: E402
 from calcreport.outputs.report.build import build_pdf  # noqa: E402
 from calcreport.outputs.report.template import load_template  # noqa: E402
 from calcreport.pipeline import solve_file  # noqa: E402
@@ -140,7 +140,7 @@ def test_a_failing_build_leaves_the_earlier_report(tmp_path, monkeypatch):
     def boom(*a, **k):
         raise RuntimeError("drawing failed")
 
-    monkeypatch.setattr(build_mod, "section_drawing", boom)
+    monkeypatch.setattr(member_story_mod, "section_drawing", boom)  # the member section draws it
     with pytest.raises(RuntimeError):
         build_pdf(result, target)
     assert target.read_bytes() == b"earlier report"

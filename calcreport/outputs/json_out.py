@@ -32,6 +32,15 @@ def _scalar(v: Any, d: Display) -> Any:
 
 
 def _step(s: Step, d: Display) -> dict[str, Any]:
+    out = _step_fields(s, d)
+    for name in ("group", "row", "column"):  # table placement, only when the solver set it
+        value = getattr(s, name)
+        if value:
+            out[name] = value
+    return out
+
+
+def _step_fields(s: Step, d: Display) -> dict[str, Any]:
     return {
         "key": s.key,
         "label": s.label,

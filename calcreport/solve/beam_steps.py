@@ -58,6 +58,9 @@ def log_analysis(
                     r.force,
                     source=SOURCE_FE,
                     positions=("x",),
+                    group="cases",
+                    row=d.name,
+                    column=f"R{k + 1}",
                 )
                 continue
             log.add(
@@ -69,6 +72,9 @@ def log_analysis(
                 Q_(float(ex.hi["R"][k]), _LBF),
                 source=f"{SOURCE_IL}; {source_placement(standard)}",
                 positions=("x",),
+                group="cases",
+                row=d.name,
+                column=f"R{k + 1}",
             )
     for i, d in enumerate(combs):
         for what, hi, lo, unit in (("V", d.V_hi, d.V_lo, _LBF), ("M", d.M_hi, d.M_lo, "lbf*inch")):
@@ -84,6 +90,9 @@ def log_analysis(
                 Q_(float(mag[k]), unit),
                 source=d.source,
                 positions=("x",),
+                group="combinations",
+                row=d.name,
+                column=what,
             )
     if not len(env.V_abs_by):
         return

@@ -67,6 +67,7 @@ def effective_panel(
         f,
         source=src,
         note="only the plies with grain along the span carry bending stress",
+        column="f",
     )
     if how == "edge":
         A_eff = log.add(
@@ -77,6 +78,7 @@ def effective_panel(
             {"f": f, "A": A},
             (f * A).to("inch**2"),
             source=src,
+            column="A",
         )
         I_eff = log.add(
             "I0",
@@ -86,6 +88,7 @@ def effective_panel(
             {"f": f, "I": I0},
             (f * I0).to("inch**4"),
             source=src,
+            column="I0",
         )
         return A_eff, I_eff
     x0, _, x1, _ = part.shape.bbox
@@ -98,6 +101,7 @@ def effective_panel(
         {"f": f, "A": A},
         (f * A).to("inch**2"),
         source=src,
+        column="A",
     )
     if "I" in panel:
         I_eff = log.add(
@@ -108,6 +112,7 @@ def effective_panel(
             {"I": panel["I"], "b": b},
             (panel["I"] * b).to("inch**4"),
             source=src,
+            column="I0",
         )
     else:
         I_eff = log.add(
@@ -119,5 +124,6 @@ def effective_panel(
             (f * I0).to("inch**4"),
             source=src,
             note="no flatwise I in [material.panel]: the area fraction is used (approximate)",
+            column="I0",
         )
     return A_eff, I_eff

@@ -21,6 +21,9 @@ __all__ = ["shape_properties", "ShapeProps", "section_properties", "first_moment
 SOURCE_CENTROID = "mechanics of materials: centroid of a transformed section"
 SOURCE_PARALLEL = "mechanics of materials: parallel-axis theorem"
 SOURCE_TRANSFORM = "mechanics of materials: transformed section, n = E/E_ref"
+#: the table (``Step.group``) of the per-part steps: rows are part ids, columns A, n, nA, y, nAy,
+#: I0, d, I (panels add A_g and f); the sums carry a column and no row, ȳ neither
+GROUP = "section"
 
 
 @dataclass(frozen=True)
@@ -114,14 +117,23 @@ def section_properties(member: Member, log: StepLog) -> SectionResult:
     props: list[PartProps] = []
     sums_A, sums_Ay = [], []
     for part in member.parts:
-        plog = log.child(f"part.{part.id}")
+        plog = log.child(f"part.{part.id}").table(GROUP, part.id)
         sp = shape_properties(part.shape)
         sym, tpl, vals = _area_formula(part)
-        A = plog.add(
-            "A", f"Area of part {part.id}", sym, tpl, vals, Q_(sp.area, "inch**2"), source="geometry"
-        )
         A_gross = None
         panel = part.material.extra.get("panel") if part.material.extra else None
+        if panel:  # the gross area, before the panel's effective fraction
+            sym = sym.replace("A = ", "A_g = ", 1)
+        A = plog.add(
+            "A",
+            f"{'Gross area' if panel else 'Area'} of part {part.id}",
+            sym,
+            tpl,
+            vals,
+            Q_(sp.area, "inch**2"),
+            source="geometry",
+            column="A_g" if panel else "A",
+        )
         if panel:
             from .panel import effective_panel
 
@@ -135,6 +147,17 @@ def section_properties(member: Member, log: StepLog) -> SectionResult:
             {"E": part.material.E, "E_ref": E_ref},
             float((part.material.E / E_ref).to("")),
             source=SOURCE_TRANSFORM,
+            column="n",
+        )
+        nA = plog.add(
+            "nA",
+            f"Transformed area of part {part.id}",
+            "n·A",
+            "{n} × {A}",
+            {"n": n, "A": A},
+            (A * n).to("inch**2"),
+            source=SOURCE_TRANSFORM,
+            column="nA",
         )
         y = plog.add(
             "y",
@@ -144,6 +167,17 @@ def section_properties(member: Member, log: StepLog) -> SectionResult:
             {"yc": Q_(sp.cy - bottom, "inch")},
             Q_(sp.cy - bottom, "inch"),
             source="geometry",
+            column="y",
+        )
+        nAy = plog.add(
+            "nAy",
+            f"First moment of part {part.id} about the bottom",
+            "n·A·y",
+            "{nA} × {y}",
+            {"nA": nA, "y": y},
+            (nA * y).to("inch**3"),
+            source=SOURCE_CENTROID,
+            column="nAy",
         )
         sym, tpl, vals = _inertia_formula(part)
         if A_gross is None:
@@ -155,15 +189,17 @@ def section_properties(member: Member, log: StepLog) -> SectionResult:
                 vals,
                 Q_(sp.inertia, "inch**4"),
                 source="geometry",
+                column="I0",
             )
         else:
             I0 = I_eff
         w, h = part.shape.bbox[2] - part.shape.bbox[0], part.shape.bbox[3] - part.shape.bbox[1]
-        props.append(PartProps(part.id, A, n, A * n, y, I0, Q_(h, "inch"), Q_(w, "inch"), A_gross))
-        sums_A.append(A * n)
-        sums_Ay.append(A * n * y)
+        props.append(PartProps(part.id, A, n, nA, y, I0, Q_(h, "inch"), Q_(w, "inch"), A_gross))
+        sums_A.append(nA)
+        sums_Ay.append(nAy)
+    tlog = log.table(GROUP)
     slots_A = {f"nA{i + 1}": p.area_transformed for i, p in enumerate(props)}
-    A_t = log.add(
+    A_t = tlog.add(
         "A",
         "Transformed area",
         "A = Σ n·A",
@@ -171,6 +207,18 @@ def section_properties(member: Member, log: StepLog) -> SectionResult:
         slots_A,
         sum(sums_A[1:], sums_A[0]).to("inch**2"),
         source=SOURCE_TRANSFORM,
+        column="nA",
+    )
+    slots_Ay = {f"nAy{i + 1}": v for i, v in enumerate(sums_Ay)}
+    S_y = tlog.add(
+        "nAy",
+        "First moment of the transformed section about the bottom",
+        "Σ n·A·y",
+        " + ".join(f"{{{k}}}" for k in slots_Ay),
+        slots_Ay,
+        sum(sums_Ay[1:], sums_Ay[0]).to("inch**3"),
+        source=SOURCE_CENTROID,
+        column="nAy",
     )
     slots = {}
     terms = []
@@ -179,30 +227,41 @@ def section_properties(member: Member, log: StepLog) -> SectionResult:
         slots[f"y{i + 1}"] = p.centroid_y
         terms.append(f"{{nA{i + 1}}} × {{y{i + 1}}}")
     slots["A"] = A_t
-    ybar = log.add(
+    ybar = tlog.add(
         "ybar",
         "Neutral axis height above the bottom",
         "ȳ = Σ n·A·y / Σ n·A",
         "(" + " + ".join(terms) + ") / {A}",
         slots,
-        (sum(sums_Ay[1:], sums_Ay[0]) / A_t).to("inch"),
+        (S_y / A_t).to("inch"),
         source=SOURCE_CENTROID,
     )
     contribs = []
     for p in props:
-        d = p.centroid_y - ybar
-        c = log.add(
-            f"part.{p.id}.I",
+        plog = log.child(f"part.{p.id}").table(GROUP, p.id)
+        d = plog.add(
+            "d",
+            f"Distance of part {p.id} from the neutral axis",
+            "d = y − ȳ",
+            "{y} − {ybar}",
+            {"y": p.centroid_y, "ybar": ybar},
+            (p.centroid_y - ybar).to("inch"),
+            source=SOURCE_PARALLEL,
+            column="d",
+        )
+        c = plog.add(
+            "I",
             f"Contribution of part {p.id} to I",
             "n·(I₀ + A·d²)",
             "{n} × ({I0} + {A} × ({d})²)",
             {"n": p.n, "I0": p.inertia_own, "A": p.area, "d": d},
             (p.n * (p.inertia_own + p.area * d**2)).to("inch**4"),
             source=SOURCE_PARALLEL,
+            column="I",
         )
         contribs.append(c)
     slots_I = {f"I{i + 1}": c for i, c in enumerate(contribs)}
-    inertia = log.add(
+    inertia = tlog.add(
         "I",
         "Moment of inertia about the neutral axis",
         "I = Σ n·(I₀ + A·d²)",
@@ -210,6 +269,7 @@ def section_properties(member: Member, log: StepLog) -> SectionResult:
         slots_I,
         sum(contribs[1:], contribs[0]).to("inch**4"),
         source=SOURCE_PARALLEL,
+        column="I",
     )
     return SectionResult(
         E_ref=E_ref,

@@ -16,7 +16,7 @@ from pathlib import Path
 
 from reportlab.lib.utils import TimeStamp
 from reportlab.pdfgen.canvas import Canvas
-from reportlab.platypus import KeepTogether, PageBreak, Paragraph
+from reportlab.platypus import CondPageBreak, KeepTogether, PageBreak
 
 from ... import __version__
 from ...safewrite import write_atomic
@@ -26,17 +26,14 @@ from ..fmt import Display
 from ..pdfmeta import KEY_MARKED_SINCE, job_metadata, seal_metadata
 from ..pdfmeta import stamp as stamp_info
 from .assumed import assumed_story
-from .common import Ctx, para
+from .common import Ctx
 from .cover import cover_story
-from .derivations import derivation_story
-from .drawing import section_drawing
 from .epoch import reportlab_epoch, timestamp
-from .inputs import assumptions_story, description_story, inputs_story
-from .loads_section import member_figures
+from .flow import disciplined
+from .member_story import member_story, member_title
 from .pages import PageInfo, ReportDoc, SectionStart
-from .results_tables import results_story
 from .signoff import limitations_story, signoff_story
-from .styles import esc, make_styles, register_fonts
+from .styles import make_styles, register_fonts
 from .template import Template, load_template
 
 __all__ = ["build_pdf", "render_pdf", "write_atomic", "report_sections"]
@@ -83,29 +80,23 @@ def report_sections(result: JobResult) -> list[tuple[str, str]]:
 def _story(
     ctx: Ctx, info: PageInfo, sections: list[tuple[str, str]], fab_sheets: dict[str, int] | None = None
 ) -> list:
-    st = ctx.styles
     story: list = [SectionStart("cover", sections[0][1], "Cover and summary")]
     story += cover_story(ctx, info, sections)
     for i, m in enumerate(ctx.result.members, 1):
         story.append(PageBreak())
         subject = f"Member {m.id} — {m.member.title}"
         story.append(SectionStart(f"member:{m.id}", sections[i][1], subject))
-        status = "" if m.status == "OK" else '   <font color="#b3261e">NG</font>'
-        story.append(Paragraph(f"{i}  {esc(subject)}{status}", st.h1))
-        story += description_story(m, ctx)
-        story += assumptions_story(m, ctx)
-        story += inputs_story(m, ctx)
-        drawing, caption = section_drawing(m, ctx)
-        story.append(KeepTogether([Paragraph("Section", st.h2), drawing, para(caption, st.caption)]))
-        story += derivation_story(m, ctx, str(i))
-        story += results_story(m, ctx)
-        story += member_figures(m, ctx)
-    story.append(PageBreak())
+        story.append(member_title(m, i, ctx))
+        story += member_story(m, ctx, i)
+    # the assumed values follow the last member's results on its sheet when a good part of it is left
+    story.append(CondPageBreak(0.45 * ctx.frame_height))
     story.append(SectionStart("assumed", "Assumed values", "Assumed values"))
     story += assumed_story(ctx)
-    story.append(PageBreak())
-    story.append(SectionStart("signoff", "Review and sign-off", "Review and sign-off"))
-    story += signoff_story(ctx)
+    # the sign-off block is set whole: on the assumed values' last sheet when it fits there
+    block: list = [SectionStart("signoff", "Review and sign-off", "Review and sign-off")]
+    for f in signoff_story(ctx):  # flattened: a KeepTogether inside another always measures as too tall
+        block += f._content if isinstance(f, KeepTogether) else [f]
+    story.append(KeepTogether(block))
     story.append(SectionStart("limits", "Limitations and cautions", "Limitations and cautions"))
     story += limitations_story(ctx)
     story += fabrication_story(ctx, record=fab_sheets)  # one sheet per member, each on a new page
@@ -190,7 +181,7 @@ def render_pdf(
     ctx = Ctx(
         result, display, styles, tpl, doc.width, frozenset(changed_keys), revision_mark, doc.frame_height
     )
-    doc.build(_story(ctx, info, sections, fab_sheets), canvasmaker=maker)
+    doc.build(disciplined(_story(ctx, info, sections, fab_sheets), ctx.frame_height), canvasmaker=maker)
     pdf = buf.getvalue()
     return pdf
 

@@ -22,6 +22,7 @@ __all__ = [
     "PageInfo",
     "ReportDoc",
     "SectionStart",
+    "OutlineMark",
     "SheetRef",
     "MarginMark",
     "TITLE_H",
@@ -102,6 +103,21 @@ class SectionStart(Flowable):
         pass
 
 
+class OutlineMark(Flowable):
+    """Zero-size marker: a PDF bookmark (outline entry) at ``level`` below the last section's."""
+
+    def __init__(self, title: str, level: int = 1):
+        super().__init__()
+        self.title, self.level = title, level
+        self.width = self.height = 0
+
+    def wrap(self, aw, ah):
+        return 0, 0
+
+    def draw(self):
+        pass
+
+
 class MarginMark(Flowable):
     """Zero-size flowable that draws a revision triangle with its letter in the left margin."""
 
@@ -143,6 +159,7 @@ class ReportDoc(BaseDocTemplate):
         self.tpl, self.styles, self.info = template, styles, info
         self.current_subject = info.subject
         self.seen_sections: dict[str, int] = {}
+        self._level = -1  # outline level of the last bookmark
         self._subject_page = 0
         left, right, top, bottom = template.margins
         w, h = template.pagesize
@@ -203,8 +220,20 @@ class ReportDoc(BaseDocTemplate):
     def body_width(self) -> float:
         return self.width
 
+    def _bookmark(self, title: str, level: int) -> None:
+        """An outline entry at the current position (the PDF's bookmarks follow the report order)."""
+        self._marks = getattr(self, "_marks", 0) + 1
+        key = f"crmark{self._marks}"
+        c = self.canv
+        c.bookmarkHorizontal(key, 0, self.frame._y + 12)
+        c.addOutlineEntry(plain(title), key, level=min(level, self._level + 1), closed=level > 0)
+        self._level = level
+
     def afterFlowable(self, flowable):
+        if isinstance(flowable, OutlineMark):
+            self._bookmark(flowable.title, flowable.level)
         if isinstance(flowable, SectionStart):
+            self._bookmark(flowable.title, 0)
             self.seen_sections.setdefault(flowable.sid, self.page)
             if self._subject_page != self.page:  # the first section begun on a sheet names it
                 self.current_subject = flowable.subject

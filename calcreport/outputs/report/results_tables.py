@@ -90,7 +90,7 @@ def results_story(m: MemberResult, ctx: Ctx) -> list:
             out.append(
                 para(
                     "With loads along the member, the spacings in this table are those for the largest "
-                    "shear; the zoned schedules under 'Along the member' vary the spacing with the shear.",
+                    "shear; the zoned schedules under 'Spacing and schedule' vary the spacing with the shear.",
                     st.small,
                 )
             )
