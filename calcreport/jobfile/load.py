@@ -17,6 +17,7 @@ from ..model import ConnectorSpec, Header, Job, Joint, Material, Member, Part, R
 from ..outlines import contact_segments, isolated_parts, overlapping_pairs
 from ..units import parse
 from .design import read_design, read_panel, read_wood_keys
+from .ec5_keys import ec5_connector_keys, read_ec5_material, read_ec5_settings
 from .lines import LineIndex
 from .parts import read_part
 from .reader import Source, Table
@@ -157,7 +158,7 @@ def _header(t: Table) -> Header:
 def _settings(t: Table) -> Settings:
     t.expect(decl.names(decl.SETTINGS))
     units = t.choice("units", ("US", "SI"), "US")
-    method = t.choice("method", ("ASD", "LRFD"), "ASD")
+    method = t.choice("method", decl.METHODS, "ASD")
     step = t.quantity(
         "spacing_step", "length", default=parse("0.25 in" if units == "US" else "5 mm", "length")
     )
@@ -211,6 +212,7 @@ def _settings(t: Table) -> Settings:
         standard,
         zones_span,
         tuple(t.data),
+        **read_ec5_settings(t, method),
     )
     t.done()
     return s
@@ -245,6 +247,7 @@ def _materials(root: Table) -> dict[str, Material]:
                 "grade": t.text("grade"),
                 **read_wood_keys(t),
                 "panel": read_panel(t, t.choice("family", FAMILIES, "other")),
+                **read_ec5_material(t, t.choice("family", FAMILIES, "other")),
             },
         )
         t.done()
@@ -345,6 +348,7 @@ def _joints(t: Table, parts: dict[str, Part], method: str):
         params = ct.fields(connectors.fields_for(kind))
         given = tuple(k for k in ct.data if k != "type")
         ct.done()
+        ec5_connector_keys(ct, kind, method)
         connector_keys(ct, kind, params, method)
         if is_continuous(kind, params):
             for key in ("per_row", "spacing_max", "spacing_min"):

@@ -10,7 +10,7 @@ from __future__ import annotations
 
 from ..fields import Field
 
-__all__ = ["CONNECTOR_FIELDS", "NDS_COMMON", "kinds", "fields_for"]
+__all__ = ["CONNECTOR_FIELDS", "NDS_COMMON", "EC5_KEYS", "kinds", "fields_for"]
 
 #: Keys shared by every NDS 2018 dowel-type fastener model (nail, wood screw, lag screw, wood bolt).
 NDS_COMMON = (
@@ -218,6 +218,52 @@ WOOD_BOLT = (
     Field("Fyb", "stress", help="bending yield strength (default 45,000 psi)"),
     Field("name", "text", help="how the report names the bolt"),
 ) + NDS_COMMON
+
+# --- EN 1995-1-1 §8 keys of the wood dowel fasteners (settings.method = "EC5"); owner: ec5 -------
+EC5_FU = Field(
+    "fu",
+    "stress",
+    help="EC5: tensile strength of the nail wire or screw f_u, of the bolt f_u,k (EN 1995-1-1 eq. 8.14, "
+    "8.30); required under EC5",
+)
+EC5_AXIAL = Field(
+    "F_ax_Rk",
+    "force",
+    help="EC5: characteristic axial withdrawal capacity F_ax,Rk for the rope effect (EN 1995-1-1 §8.2.2(2)); "
+    "none given: no rope effect",
+)
+EC5_PREDRILLED = Field(
+    "predrilled", "bool", default=False, help="EC5: holes pre-drilled (EN 1995-1-1 eq. 8.16 embedment)"
+)
+EC5_NAIL = (
+    EC5_FU,
+    EC5_AXIAL,
+    EC5_PREDRILLED,
+    Field(
+        "nail_shank",
+        "choice",
+        default="round",
+        choices=("round", "square", "other"),
+        help="EC5: smooth round, square/grooved or other (threaded) nail: M_y,Rk (8.14) and rope-effect limit",
+    ),
+)
+EC5_SCREW = (EC5_FU, EC5_AXIAL, EC5_PREDRILLED)
+EC5_BOLT = (
+    EC5_FU,
+    EC5_AXIAL,
+    Field("dowel", "bool", default=False, help="EC5: a smooth dowel, not a bolt (no rope effect, §8.2.2(2))"),
+)
+#: The EC5 keys of each wood dowel model (the reader refuses them in an ASD or LRFD job).
+EC5_KEYS = {
+    "nail": tuple(f.name for f in EC5_NAIL),
+    "wood_screw": tuple(f.name for f in EC5_SCREW),
+    "wood_bolt": tuple(f.name for f in EC5_BOLT),
+}
+NAIL = NAIL + EC5_NAIL
+WOOD_SCREW = WOOD_SCREW + EC5_SCREW
+WOOD_BOLT = WOOD_BOLT + EC5_BOLT
+# --- end of EC5 keys ------------------------------------------------------------------------------
+
 
 #: ``type = "steel_bolt"``
 STEEL_BOLT = (

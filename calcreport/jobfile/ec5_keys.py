@@ -1,0 +1,139 @@
+"""The EN 1995-1-1 / EN 1990 keys (``settings.method = "EC5"``): reading them, and refusing the
+keys that have no effect under the method the job uses (docs/job-format.md, "Keys without effect").
+
+* ``[settings]``: ``service_class`` (required under EC5), ``gamma_M_connections``, ``duration``, and
+  ``[[settings.load_case]]`` tables (a case's duration class and ψ factors);
+* ``[[material]]``: ``rho_k``, ``timber_product``, ``gamma_M``;
+* connector keys of the wood dowel fasteners: the EC5 ones (``fu``, ``F_ax_Rk``, ``predrilled``,
+  ``nail_shank``, ``dowel``) are refused in an ASD or LRFD job, the NDS-only ones (``CD``,
+  ``G_side``, ``Fyb``, ``species``, ``wet_service`` …) in an EC5 job.
+"""
+
+from __future__ import annotations
+
+from typing import Any
+
+from ..keys import job as decl
+from ..keys.connectors import EC5_KEYS
+from ..keys.loads import DURATION_CLASSES, PERMANENT_CASE, TIMBER_PRODUCTS
+from ..model import LoadCaseFactors
+from .reader import Table
+
+__all__ = [
+    "read_ec5_settings",
+    "read_ec5_material",
+    "ec5_connector_keys",
+    "NDS_ONLY_KEYS",
+    "EC5_REFUSED_KINDS",
+]
+
+#: Connector keys of the NDS wood models that the EC5 route does not read (an error under EC5).
+NDS_ONLY_KEYS = (
+    "G_side",
+    "G_main",
+    "species",
+    "Fyb",
+    "CD",
+    "wet_service",
+    "CM",
+    "Ct",
+    "end_grain",
+    "time_effect",
+    "row_count",
+    "row_spacing",
+    "steel_form",
+    "toe_nail",
+    "diaphragm",
+    "clinched",
+    "staggered",
+)
+#: Connector types with no EN 1995-1-1 / EN 1993 route in this tool: refused under EC5.
+EC5_REFUSED_KINDS = {
+    "lag_screw": 'use type = "wood_screw" (EN 1995-1-1 §8.7 covers screws of every diameter)',
+    "steel_bolt": "bolts in steel plates are designed to EN 1993-1-8, which this tool does not implement",
+    "fillet_weld": "fillet welds are designed to EN 1993-1-8, which this tool does not implement",
+    "stud": "headed studs are designed to EN 1994-1-1, which this tool does not implement",
+    "glue": 'the glue model takes an allowable stress; under EC5 give the design value with type = "given_line"',
+}
+
+
+def read_ec5_settings(t: Table, method: str) -> dict[str, Any]:
+    """The EC5 settings as keyword arguments of :class:`calcreport.model.Settings`.
+
+    Under ASD or LRFD every one of them is an error (it would have no effect); under EC5
+    ``service_class`` is required, and the NDS/ASCE settings ``load_duration`` and
+    ``load_standard`` are errors."""
+    ec5 = method == "EC5"
+    own = [f.name for f in decl.EC5_SETTINGS] + ["load_case"]
+    if not ec5:
+        for name in own:
+            if t.has(name):
+                raise t.error(name, f'{name} applies to method = "EC5" only; this job is {method}')
+        return {}
+    for name, why in (
+        ("load_duration", "EC5 uses k_mod by load-duration class (give duration on [[settings.load_case]])"),
+        ("load_standard", "EC5 uses the EN 1990 combinations (6.10), not ASCE 7"),
+    ):
+        if t.has(name):
+            raise t.error(name, f'{name} has no effect with method = "EC5": {why}')
+    sc = t.integer("service_class", None, 1, 3, True)
+    gm = t.number("gamma_M_connections", None, minimum=1.0, maximum=2.0)
+    duration = t.choice("duration", DURATION_CLASSES, "")
+    cases: dict[str, LoadCaseFactors] = {}
+    for ct in t.tables("load_case", id_key="case"):
+        ct.expect(decl.names(decl.LOAD_CASE))
+        case = ct.text("case", required=True)
+        if case in cases:
+            raise ct.error("case", f"load case {case!r} is described twice")
+        dur = ct.choice("duration", DURATION_CLASSES, "", True)
+        psi0 = ct.number("psi0", None, minimum=0.0, maximum=1.0)
+        psi2 = ct.number("psi2", None, minimum=0.0, maximum=1.0)
+        if case == PERMANENT_CASE:
+            for name in ("psi0", "psi2"):
+                if ct.has(name):
+                    raise ct.error(name, f"{name} has no effect on the permanent case {PERMANENT_CASE}")
+        cases[case] = LoadCaseFactors(case, dur, psi0, psi2)
+        ct.done()
+    return {"service_class": sc, "gamma_M_connections": gm, "duration": duration, "load_cases": cases}
+
+
+def read_ec5_material(t: Table, family: str) -> dict[str, Any]:
+    """``rho_k``, ``timber_product``, ``gamma_M`` of a material (kept in ``Material.extra``)."""
+    out: dict[str, Any] = {
+        "rho_k": t.quantity("rho_k", "mass_density"),
+        "timber_product": t.choice("timber_product", TIMBER_PRODUCTS, ""),
+        "gamma_M": t.number("gamma_M", None, minimum=1.0, maximum=2.0),
+    }
+    timber = family in ("wood", "glulam", "plywood")
+    for name in ("rho_k", "timber_product", "gamma_M"):
+        if t.has(name) and not timber:
+            raise t.error(name, f"{name} applies to timber materials (family wood, glulam or plywood)")
+    product = out["timber_product"]
+    if product:
+        fits = {"wood": ("solid", "LVL"), "glulam": ("glulam",), "plywood": ("plywood",)}[family]
+        if product not in fits:
+            raise t.error(
+                "timber_product",
+                f"expected {' or '.join(repr(f) for f in fits)} for a material of family {family!r}",
+            )
+    return out
+
+
+def ec5_connector_keys(ct: Table, kind: str, method: str) -> None:
+    """Errors for connector keys the job's method makes inert, and connector types without an
+    EC5 route (refused under EC5 rather than designed to another standard)."""
+    if method == "EC5":
+        if kind in EC5_REFUSED_KINDS:
+            raise ct.error("type", f'type = "{kind}" has no EC5 route: {EC5_REFUSED_KINDS[kind]}')
+        if kind in EC5_KEYS:
+            for name in NDS_ONLY_KEYS:
+                if ct.has(name):
+                    raise ct.error(
+                        name,
+                        f'{name} is an NDS 2018 key with no effect under method = "EC5" '
+                        "(EN 1995-1-1 §8 reads rho_k, fu, k_mod and γ_M instead)",
+                    )
+        return
+    for name in EC5_KEYS.get(kind, ()):
+        if ct.has(name):
+            raise ct.error(name, f'{name} applies to method = "EC5" only; this job is {method}')
