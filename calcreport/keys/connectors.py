@@ -259,9 +259,6 @@ EC5_KEYS = {
     "wood_screw": tuple(f.name for f in EC5_SCREW),
     "wood_bolt": tuple(f.name for f in EC5_BOLT),
 }
-NAIL = NAIL + EC5_NAIL
-WOOD_SCREW = WOOD_SCREW + EC5_SCREW
-WOOD_BOLT = WOOD_BOLT + EC5_BOLT
 # --- end of EC5 keys ------------------------------------------------------------------------------
 
 
@@ -424,10 +421,10 @@ CONNECTOR_FIELDS: dict[str, tuple[Field, ...]] = {
     "given_line": GIVEN_LINE,
     "shank": SHANK,
     "glue": GLUE,
-    "nail": NAIL,
-    "wood_screw": WOOD_SCREW,
+    "nail": NAIL + EC5_NAIL,
+    "wood_screw": WOOD_SCREW + EC5_SCREW,
     "lag_screw": LAG_SCREW,
-    "wood_bolt": WOOD_BOLT,
+    "wood_bolt": WOOD_BOLT + EC5_BOLT,
     "steel_bolt": STEEL_BOLT,
     "fillet_weld": FILLET_WELD,
     "stud": STUD,
