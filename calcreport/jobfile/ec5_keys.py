@@ -14,7 +14,7 @@ from __future__ import annotations
 from typing import Any
 
 from ..keys import job as decl
-from ..keys.connectors import EC5_KEYS
+from ..keys.connectors import EC5_KEYS, NDS_ONLY_KEYS
 from ..keys.loads import DURATION_CLASSES, PERMANENT_CASE, TIMBER_PRODUCTS
 from ..model import LoadCaseFactors
 from .reader import Table
@@ -27,26 +27,6 @@ __all__ = [
     "EC5_REFUSED_KINDS",
 ]
 
-#: Connector keys of the NDS wood models that the EC5 route does not read (an error under EC5).
-NDS_ONLY_KEYS = (
-    "G_side",
-    "G_main",
-    "species",
-    "Fyb",
-    "CD",
-    "wet_service",
-    "CM",
-    "Ct",
-    "end_grain",
-    "time_effect",
-    "row_count",
-    "row_spacing",
-    "steel_form",
-    "toe_nail",
-    "diaphragm",
-    "clinched",
-    "staggered",
-)
 #: Connector types with no EN 1995-1-1 / EN 1993 route in this tool: refused under EC5.
 EC5_REFUSED_KINDS = {
     "lag_screw": 'use type = "wood_screw" (EN 1995-1-1 §8.7 covers screws of every diameter)',

@@ -10,7 +10,7 @@ from __future__ import annotations
 
 from ..fields import Field
 
-__all__ = ["CONNECTOR_FIELDS", "NDS_COMMON", "EC5_KEYS", "kinds", "fields_for"]
+__all__ = ["CONNECTOR_FIELDS", "NDS_COMMON", "EC5_KEYS", "NDS_ONLY_KEYS", "kinds", "fields_for"]
 
 #: Keys shared by every NDS 2018 dowel-type fastener model (nail, wood screw, lag screw, wood bolt).
 NDS_COMMON = (
@@ -259,6 +259,26 @@ EC5_KEYS = {
     "wood_screw": tuple(f.name for f in EC5_SCREW),
     "wood_bolt": tuple(f.name for f in EC5_BOLT),
 }
+#: Connector keys of the NDS wood models that the EC5 route does not read (an error under EC5).
+NDS_ONLY_KEYS = (
+    "G_side",
+    "G_main",
+    "species",
+    "Fyb",
+    "CD",
+    "wet_service",
+    "CM",
+    "Ct",
+    "end_grain",
+    "time_effect",
+    "row_count",
+    "row_spacing",
+    "steel_form",
+    "toe_nail",
+    "diaphragm",
+    "clinched",
+    "staggered",
+)
 # --- end of EC5 keys ------------------------------------------------------------------------------
 
 

@@ -29,7 +29,18 @@ from .ec5_combinations import (
 from .ec5_factors import SOURCE_KMOD, SOURCE_KMOD_COMBINATION, combination_duration, k_mod
 from .results import SolveError
 
-__all__ = ["ec5_combinations", "shortest_duration", "kmod_weights", "ec5_deflection_sets"]
+__all__ = [
+    "ec5_combinations",
+    "shortest_duration",
+    "kmod_weights",
+    "ec5_deflection_sets",
+    "SOURCE_EC5_DEFLECTION",
+]
+
+SOURCE_EC5_DEFLECTION = (
+    "EN 1995-1-1:2004 §7.2 (limiting values of deflection; span/ratio as set in the job, a cantilever "
+    "twice its length), EN 1990:2002 A1.4"
+)
 
 
 def _missing(exc: MissingFactor) -> SolveError:

@@ -137,6 +137,7 @@ def deflection_check(
     log: StepLog | None = None,
     note: str = "",
     label: str | None = None,
+    source: str = SOURCE_DEFLECTION,
 ) -> Check:
     """Deflection against span/limit (a cantilever or overhang uses twice its length).
 
@@ -155,7 +156,7 @@ def deflection_check(
         "{l} / {r}",
         {"l": ell, "r": limit},
         allow,
-        source=SOURCE_DEFLECTION,
+        source=source,
         note=note,
     )
     ratio = float((abs(delta) / allow).to("").magnitude)
@@ -166,13 +167,17 @@ def deflection_check(
         allow,
         ratio,
         _status(ratio),
-        SOURCE_DEFLECTION,
+        source,
         note,
     )
 
 
 def deflection_checks(
-    beam, limits: dict[str, float], log: StepLog | None = None, sets: dict[str, list] | None = None
+    beam,
+    limits: dict[str, float],
+    log: StepLog | None = None,
+    sets: dict[str, list] | None = None,
+    source: str = SOURCE_DEFLECTION,
 ) -> list[Check]:
     """Deflection checks of every segment (span, overhang, cantilever) for the job's limits.
 
@@ -216,6 +221,7 @@ def deflection_checks(
                     log,
                     note=f"governed by {label}",
                     label=f"Deflection, {what} ({seg.kind} {seg.index + 1})",
+                    source=source,
                 )
             )
     return out

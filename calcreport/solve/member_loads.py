@@ -28,6 +28,7 @@ from .combinations import (
     time_effect,
 )
 from .ec5_factors import SOURCE_KMOD_COMBINATION
+from .ec5_loads import SOURCE_EC5_DEFLECTION
 from .member_checks import Fibre, bending_checks, deflection_checks, shear_stress_check
 from .results import Check, SectionResult, SolveError
 from .schedule import Schedule, zoned_schedule
@@ -127,7 +128,7 @@ def analyse_member(member: Member, section: SectionResult, settings: Settings, l
             EI=EI,
             log=log,
             variable=variable,
-            standard=settings.load_standard,
+            standard="EN 1990" if settings.method == "EC5" else settings.load_standard,
         )
     except BeamInputError as exc:
         raise _error(exc) from None
@@ -140,7 +141,10 @@ def analyse_member(member: Member, section: SectionResult, settings: Settings, l
         M, Mby = Q_(abs(mneg[kn]), "lbf*inch"), env.M_min_by[kn]
     else:
         M, Mby = Q_(abs(mpos[kp]), "lbf*inch"), env.M_max_by[kp]
-    limits = dict(settings.deflection_limits) or dict(DEFAULT_DEFLECTION_LIMITS)
+    # under EC5 the limits are the job's (EN 1995-1-1 §7.2 gives ranges, not values): none by default
+    limits = dict(settings.deflection_limits) or (
+        {} if settings.method == "EC5" else dict(DEFAULT_DEFLECTION_LIMITS)
+    )
     checks = _member_checks(
         member, section, M, env.V_abs[kv], limits, beam, log.child("checks"), settings=settings
     )
@@ -175,7 +179,9 @@ def _member_checks(member, section, M, V, limits, beam, log, settings: Settings 
     if ec5:
         from .ec5_loads import ec5_deflection_sets
 
-        checks += deflection_checks(beam, limits, log, sets=ec5_deflection_sets(beam, limits, settings))
+        checks += deflection_checks(
+            beam, limits, log, sets=ec5_deflection_sets(beam, limits, settings), source=SOURCE_EC5_DEFLECTION
+        )
     else:
         checks += deflection_checks(beam, limits, log)
     return checks

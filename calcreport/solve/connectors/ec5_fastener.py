@@ -40,7 +40,43 @@ from .ec5_johansen import (
 )
 from .shear_plane import find_contact, thickness_normal
 
-__all__ = ["design_ec5"]
+__all__ = ["design_ec5", "MODE_TEXT"]
+
+_D_SQRT = "√(2β(1+β) + 4β(2+β)·M_y,Rk/(f_h,1,k·d·t_1²))"
+#: Mode → (equation as printed in EN 1995-1-1 eq. 8.6 / 8.7, template with the values).
+MODE_TEXT = {
+    "a": ("f_h,1,k·t_1·d", "{fh1} × {t1} × {d}"),
+    "b": ("f_h,2,k·t_2·d", "{fh2} × {t2} × {d}"),
+    "c": (
+        "f_h,1,k·t_1·d/(1+β)·[√(β + 2β²(1 + t_2/t_1 + (t_2/t_1)²) + β³(t_2/t_1)²) − β(1 + t_2/t_1)]",
+        "{fh1} × {t1} × {d} / (1 + {b}) × [√({b} + 2·{b}²·(1 + {r} + {r}²) + {b}³·{r}²) − {b}·(1 + {r})]",
+    ),
+    "d": (
+        f"1.05·f_h,1,k·t_1·d/(2+β)·[{_D_SQRT} − β]",
+        "1.05 × {fh1} × {t1} × {d} / (2 + {b}) × [√(2·{b}·(1 + {b}) + 4·{b}·(2 + {b})·{My} / "
+        "({fh1} × {d} × {t1}²)) − {b}]",
+    ),
+    "e": (
+        "1.05·f_h,1,k·t_2·d/(1+2β)·[√(2β²(1+β) + 4β(1+2β)·M_y,Rk/(f_h,1,k·d·t_2²)) − β]",
+        "1.05 × {fh1} × {t2} × {d} / (1 + 2·{b}) × [√(2·{b}²·(1 + {b}) + 4·{b}·(1 + 2·{b})·{My} / "
+        "({fh1} × {d} × {t2}²)) − {b}]",
+    ),
+    "f": (
+        "1.15·√(2β/(1+β))·√(2·M_y,Rk·f_h,1,k·d)",
+        "1.15 × √(2·{b} / (1 + {b})) × √(2 × {My} × {fh1} × {d})",
+    ),
+    "g": ("f_h,1,k·t_1·d", "{fh1} × {t1} × {d}"),
+    "h": ("0.5·f_h,2,k·t_2·d", "0.5 × {fh2} × {t2} × {d}"),
+    "j": (
+        f"1.05·f_h,1,k·t_1·d/(2+β)·[{_D_SQRT} − β]",
+        "1.05 × {fh1} × {t1} × {d} / (2 + {b}) × [√(2·{b}·(1 + {b}) + 4·{b}·(2 + {b})·{My} / "
+        "({fh1} × {d} × {t1}²)) − {b}]",
+    ),
+    "k": (
+        "1.15·√(2β/(1+β))·√(2·M_y,Rk·f_h,1,k·d)",
+        "1.15 × √(2·{b} / (1 + {b})) × √(2 × {My} × {fh1} × {d})",
+    ),
+}
 
 EC5 = "EN 1995-1-1:2004"
 _MM = "mm"
@@ -417,10 +453,10 @@ def design_ec5(spec: ConnectorSpec, ctx, log: StepLog, kind: str) -> Capacity:
     fax = p["F_ax_Rk"].to("N").magnitude if p.get("F_ax_Rk") is not None else 0.0
     log.add(
         "rope",
-        "Rope effect: limit of F_ax,Rk/4 as a fraction of the Johansen part",
-        "F_ax,Rk/4 ≤ limit × Johansen part",
-        "F_ax,Rk = {fax}, limit {lim}",
-        {"fax": Q_(fax, "N"), "lim": limit},
+        "Rope effect: largest F_ax,Rk/4 as a fraction of the Johansen part",
+        "F_rope = min(F_ax,Rk/4, limit × Johansen part)",
+        "limit for {what}, with F_ax,Rk = {fax}",
+        {"fax": Q_(fax, "N"), "what": limit_key.replace("_", " ") + "s"},
         limit,
         source=SOURCE_ROPE,
         note=(
@@ -444,16 +480,29 @@ def design_ec5(spec: ConnectorSpec, ctx, log: StepLog, kind: str) -> Capacity:
     else:
         modes, src = double_shear_modes(fh1, fh2, t1, t2, d, My, fax, limit), SOURCE_MODES_DOUBLE
     gov = min(modes, key=lambda m: m.F)
+    vals = {
+        "fh1": Q_(fh1, "N/mm**2"),
+        "fh2": Q_(fh2, "N/mm**2"),
+        "t1": Q_(t1, _MM),
+        "t2": Q_(t2, _MM),
+        "d": Q_(d, _MM),
+        "b": fh2 / fh1,
+        "r": t2 / t1,
+        "My": Q_(My, "N*mm"),
+    }
     for m in modes:
+        sym, tmpl = MODE_TEXT[m.mode]
+        rope = m.mode not in ("a", "b", "g", "h")
         log.add(
             f"mode.{m.mode}",
-            f"Failure mode ({m.mode})",
-            f"F_v,Rk,{m.mode}",
-            "Johansen part {j} + rope effect {r}",
-            {"j": Q_(m.johansen, "N"), "r": Q_(m.rope, "N")},
+            f"Failure mode ({m.mode})" + (" with the rope effect" if rope and m.rope else ""),
+            f"F_{m.mode} = {sym}" + (" + F_rope" if rope else ""),
+            tmpl + (" + {rope}" if rope else ""),
+            {**vals, "rope": Q_(m.rope, "N")},
             Q_(m.F, "N"),
             source=f"{src} ({m.mode})",
             governs=m is gov,
+            note="F_rope = min(F_ax,Rk/4, limit × Johansen part)" if rope and m.rope else "",
         )
     Fk = log.add(
         "FvRk",
