@@ -239,3 +239,57 @@ def test_demo_with_fewer_nails_is_ng():
     text = DEMO.read_text().replace("per_row = 3", "per_row = 2")
     res = solve_bytes(text.encode(), DEMO.name)
     assert res.members[0].joints[0].status == "NG" and res.members[0].status == "NG"
+
+
+STRENGTHS = 'f_m_k = "24 MPa"\nf_t_0_k = "14.5 MPa"\nf_c_0_k = "21 MPa"\nf_v_k = "4.0 MPa"\n'
+
+
+def test_single_joist_bending_and_shear_against_hand_calculation():
+    # EN 1995-1-1 §6.1.6 (6.11) and §6.1.7 (6.13), C24 (EN 338:2016 f_m,k 24, f_v,k 4.0 MPa — from
+    # memory), 75 × 225 mm, 4 m simple span, g = 1 kN/m (permanent), q = 2 kN/m (medium), SC1.
+    # 1.35g: w = 1.35 kN/m, M = 1.35 × 16/8 = 2.70 kN·m with k_mod 0.6 → M/k_mod = 4.50
+    # 1.35g + 1.5q: w = 4.35 kN/m, M = 8.70 kN·m with k_mod 0.8 → 10.875: governs
+    # W = 75 × 225²/6 = 632,812.5 mm³; σ_m,d = 8.70e6 / 632,812.5 = 13.748 N/mm²
+    # f_m,d = 0.8 × 24 / 1.3 = 14.769 N/mm² (k_h = 1, h ≥ 150 mm); ratio 0.9309
+    # V = 4.35 × 2 = 8.70 kN; b_ef = 0.67 × 75 = 50.25 mm; τ_d = 1.5 × 8700 / (50.25 × 225) = 1.1542
+    # f_v,d = 0.8 × 4.0 / 1.3 = 2.4615 N/mm²; ratio 0.4689
+    text = job(wd="1 kN/m", wl="2 kN/m").decode()
+    text = text.replace('rho_k = "350 kg/m^3"\n', 'rho_k = "350 kg/m^3"\n' + STRENGTHS)
+    text = text.replace('span = "3 m"', 'span = "4 m"')
+    head, _, _ = text.partition('[[member.part]]\nid = "flange"')
+    text = head.replace('id = "web"', 'id = "joist"')
+    res = solve_bytes(text.encode(), "t.toml")
+    checks = {c.key: c for c in res.members[0].checks}
+    b = checks["member[B1].bending.c24"]
+    assert b.ratio == pytest.approx(13.748 / 14.769, rel=2e-4) and b.status == "OK"
+    s = checks["member[B1].shear.neutral_axis"]
+    assert s.demand.to("N/mm**2").magnitude == pytest.approx(1.1542, rel=2e-4)
+    assert s.ratio == pytest.approx(1.1542 / 2.4615, rel=2e-4)
+    assert not any(
+        u.key.endswith((".bending.c24", ".shear.neutral_axis")) for u in res.members[0].not_checked
+    )
+
+
+def test_tee_beam_parts_in_bending_with_axial_stress_hand_calculation():
+    # EN 1995-1-1 §6.2.3 (6.17) web in tension, §6.2.4 (6.19) flange in compression; k_h (3.1).
+    # Section (mechanics of materials): web 75 × 225 (y 0–225), flange 150 × 38 on top (y 225–263)
+    A1, y1, A2, y2 = 75 * 225, 112.5, 150 * 38, 244.0
+    yb = (A1 * y1 + A2 * y2) / (A1 + A2)  # 145.70 mm
+    inertia = 75 * 225**3 / 12 + A1 * (y1 - yb) ** 2 + 150 * 38**3 / 12 + A2 * (y2 - yb) ** 2
+    M = (1.35 * 0.5 + 1.5 * 1.5) * 3.0**2 / 8 * 1e6  # N·mm, 1.35g + 1.5q governs (k_mod 0.8)
+    fm, ft, fc = 0.8 * 24 / 1.3, 0.8 * 14.5 / 1.3, 0.8 * 21 / 1.3
+    web = M * (yb - y1) / inertia / ft + M * 112.5 / inertia / fm
+    kh = min((150 / 38) ** 0.2, 1.3)  # = 1.3 (flange 38 mm deep, solid timber)
+    flange = (M * (y2 - yb) / inertia / fc) ** 2 + M * 19 / inertia / (kh * fm)
+    text = (
+        job(wd="0.5 kN/m", wl="1.5 kN/m")
+        .decode()
+        .replace('rho_k = "350 kg/m^3"\n', 'rho_k = "350 kg/m^3"\n' + STRENGTHS)
+    )
+    res = solve_bytes(text.encode(), "t.toml")
+    b = next(c for c in res.members[0].checks if c.key == "member[B1].bending.c24")
+    assert b.ratio == pytest.approx(max(web, flange), rel=2e-4)
+    steps = {s.key.split(".ec5.")[-1]: s for s in res.members[0].steps if ".ec5." in s.key}
+    assert steps["bending.flange.kh"].result == pytest.approx(1.3)
+    assert steps["bending.web.u"].result == pytest.approx(web, rel=2e-4)
+    assert steps["bending.flange.u"].result == pytest.approx(flange, rel=2e-4)

@@ -77,15 +77,24 @@ def read_ec5_settings(t: Table, method: str) -> dict[str, Any]:
     return {"service_class": sc, "gamma_M_connections": gm, "duration": duration, "load_cases": cases}
 
 
-def read_ec5_material(t: Table, family: str) -> dict[str, Any]:
-    """``rho_k``, ``timber_product``, ``gamma_M`` of a material (kept in ``Material.extra``)."""
+#: Characteristic strengths of a timber material (EN 338 / EN 14080 symbols, our key names).
+STRENGTHS = ("f_m_k", "f_t_0_k", "f_c_0_k", "f_v_k")
+
+
+def read_ec5_material(t: Table, family: str, method: str = "EC5") -> dict[str, Any]:
+    """``rho_k``, ``timber_product``, ``gamma_M`` and the characteristic strengths of a material
+    (kept in ``Material.extra``); refused in an ASD or LRFD job, where nothing reads them."""
+    for name in ("rho_k", "timber_product", "gamma_M", *STRENGTHS):
+        if method != "EC5" and t.has(name):
+            raise t.error(name, f'{name} applies to method = "EC5" only; this job is {method}')
     out: dict[str, Any] = {
         "rho_k": t.quantity("rho_k", "mass_density"),
         "timber_product": t.choice("timber_product", TIMBER_PRODUCTS, ""),
         "gamma_M": t.number("gamma_M", None, minimum=1.0, maximum=2.0),
+        **{k: t.quantity(k, "stress") for k in STRENGTHS},
     }
     timber = family in ("wood", "glulam", "plywood")
-    for name in ("rho_k", "timber_product", "gamma_M"):
+    for name in ("rho_k", "timber_product", "gamma_M", *STRENGTHS):
         if t.has(name) and not timber:
             raise t.error(name, f"{name} applies to timber materials (family wood, glulam or plywood)")
     product = out["timber_product"]

@@ -81,7 +81,7 @@ def load_text(data: bytes, path: str = "<job>") -> Job:
     header = _header(root.table("job", required=True))
     settings_table = root.table("settings") or Table({}, src, ("settings",), "settings")
     settings = _settings(settings_table)
-    materials = _materials(root)
+    materials = _materials(root, settings.method)
     member_tables = root.id_tables("member", MAX_MEMBERS, "member")
     if not member_tables:
         raise root.error(None, "missing required key 'member' (at least one [[member]])")
@@ -218,7 +218,7 @@ def _settings(t: Table) -> Settings:
     return s
 
 
-def _materials(root: Table) -> dict[str, Material]:
+def _materials(root: Table, method: str = "ASD") -> dict[str, Material]:
     out: dict[str, Material] = {}
     for t, mid in root.id_tables("material", MAX_MATERIALS, "material"):
         t.expect(decl.names(decl.MATERIAL))
@@ -247,7 +247,7 @@ def _materials(root: Table) -> dict[str, Material]:
                 "grade": t.text("grade"),
                 **read_wood_keys(t),
                 "panel": read_panel(t, t.choice("family", FAMILIES, "other")),
-                **read_ec5_material(t, t.choice("family", FAMILIES, "other")),
+                **read_ec5_material(t, t.choice("family", FAMILIES, "other"), method),
             },
         )
         t.done()

@@ -195,6 +195,10 @@ EC5_MATERIAL = (
         maximum=2.0,
         help="EC5: partial factor γ_M of the material (default EN 1995-1-1 Table 2.3 by product)",
     ),
+    Field("f_m_k", "stress", help="EC5: characteristic bending strength f_m,k (EN 338, EN 14080)"),
+    Field("f_t_0_k", "stress", help="EC5: characteristic tension strength parallel to grain f_t,0,k"),
+    Field("f_c_0_k", "stress", help="EC5: characteristic compression strength parallel to grain f_c,0,k"),
+    Field("f_v_k", "stress", help="EC5: characteristic shear strength f_v,k"),
 )
 # --- end of EC5 keys ------------------------------------------------------------------------------
 
