@@ -293,3 +293,30 @@ def test_tee_beam_parts_in_bending_with_axial_stress_hand_calculation():
     assert steps["bending.flange.kh"].result == pytest.approx(1.3)
     assert steps["bending.web.u"].result == pytest.approx(web, rel=2e-4)
     assert steps["bending.flange.u"].result == pytest.approx(flange, rel=2e-4)
+
+
+def test_ec5_settings_without_effect_warn():
+    from calcreport.jobfile import load_text
+
+    text = (
+        job()
+        .decode()
+        .replace(
+            "[[material]]",
+            '[[settings.load_case]]\ncase = "S"\nduration = "short"\npsi0 = 0.5\n\n[[material]]',
+            1,
+        )
+    )
+    warned = {w.key: w.message for w in load_text(text.encode(), "t.toml").warnings}
+    assert any("settings.load_case" in k and "case 'S'" in m for k, m in warned.items())
+    assert any(k.endswith("psi2") for k in warned)  # psi2 of L without a quasi_permanent limit
+
+
+def test_ec5_material_keys_refused_in_an_asd_job():
+    text = job().decode().replace('method = "EC5"\nservice_class = 1', 'method = "ASD"')
+    text = text.replace(
+        '\n[[settings.load_case]]\ncase = "L"\nduration = "medium"\npsi0 = 0.7\npsi2 = 0.3\n', ""
+    )
+    with pytest.raises(JobError) as e:
+        solve_bytes(text.encode(), "t.toml")
+    assert "rho_k" in str(e.value) + str(e.value.key)

@@ -16,7 +16,7 @@ from typing import Any
 from ..keys import job as decl
 from ..keys.connectors import EC5_KEYS, NDS_ONLY_KEYS
 from ..keys.loads import DURATION_CLASSES, PERMANENT_CASE, TIMBER_PRODUCTS
-from ..model import LoadCaseFactors
+from ..model import LoadCaseFactors, Member, Settings
 from .reader import Table
 
 __all__ = [
@@ -25,6 +25,7 @@ __all__ = [
     "ec5_connector_keys",
     "NDS_ONLY_KEYS",
     "EC5_REFUSED_KINDS",
+    "unused_ec5_settings",
 ]
 
 #: Connector types with no EN 1995-1-1 / EN 1993 route in this tool: refused under EC5.
@@ -126,3 +127,25 @@ def ec5_connector_keys(ct: Table, kind: str, method: str) -> None:
     for name in EC5_KEYS.get(kind, ()):
         if ct.has(name):
             raise ct.error(name, f'{name} applies to method = "EC5" only; this job is {method}')
+
+
+def unused_ec5_settings(t: Table, settings: Settings, members: list[Member]) -> None:
+    """Warnings for EC5 settings that no member of this job uses: a ``[[settings.load_case]]`` of a
+    case no member has, ``psi2`` without a ``quasi_permanent`` deflection limit, ``duration`` when
+    every member has loads along it (each combination then gives its own k_mod)."""
+    if settings.method != "EC5":
+        return
+    cases = {ld.case for m in members for ld in m.loads} | (
+        {"D"} if any(m.self_weight for m in members) else set()
+    )
+    for ct in t.tables("load_case", id_key="case"):
+        case = ct.data.get("case")
+        if case not in cases:
+            ct.warn("case", f"no member has loads of case {case!r}, so this load case changes nothing")
+        elif ct.has("psi2") and "quasi_permanent" not in settings.deflection_limits:
+            ct.warn("psi2", "psi2 is read only for a quasi_permanent deflection limit, and the job sets none")
+    if t.has("duration") and all(m.loads or m.self_weight for m in members):
+        t.warn(
+            "duration",
+            "every member has loads along it: each combination uses the k_mod of its own shortest-duration load",
+        )

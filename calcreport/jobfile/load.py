@@ -17,7 +17,7 @@ from ..model import ConnectorSpec, Header, Job, Joint, Material, Member, Part, R
 from ..outlines import contact_segments, isolated_parts, overlapping_pairs
 from ..units import parse
 from .design import read_design, read_panel, read_wood_keys
-from .ec5_keys import ec5_connector_keys, read_ec5_material, read_ec5_settings
+from .ec5_keys import ec5_connector_keys, read_ec5_material, read_ec5_settings, unused_ec5_settings
 from .lines import LineIndex
 from .parts import read_part
 from .reader import Source, Table
@@ -94,6 +94,7 @@ def load_text(data: bytes, path: str = "<job>") -> Job:
         )
     root.done()
     unused_settings(settings_table, settings, members)
+    unused_ec5_settings(settings_table, settings, members)
     return Job(
         path,
         hashlib.sha256(data).hexdigest(),

@@ -38,7 +38,7 @@ from .ec5_johansen import (
     yield_moment_bolt,
     yield_moment_nail,
 )
-from .shear_plane import find_contact, thickness_normal
+from .shear_plane import find_contact, opposite_faces, thickness_normal
 
 __all__ = ["design_ec5", "MODE_TEXT"]
 
@@ -391,6 +391,35 @@ def design_ec5(spec: ConnectorSpec, ctx, log: StepLog, kind: str) -> Capacity:
                 ),
             )
         )
+        if planes == 1 and pen > t_2 + 1e-9:
+            checks.append(
+                Check(
+                    f"{key}.point",
+                    "Point beyond member 2",
+                    Q_(pen - t_2, _MM),
+                    None,
+                    None,
+                    "INFO",
+                    source="geometry",
+                    note="not checked: the point leaves member 2 and bears in no member of this joint; "
+                    "confirm the parts beyond take it or that it does not protrude",
+                )
+            )
+        far = opposite_faces(m2, c, tuple(getattr(ctx, "parts", ()))) if c is not None else []
+        if planes == 1 and far:
+            checks.append(
+                Check(
+                    f"{key}.overlap",
+                    "Fasteners from opposite faces overlapping in member 2",
+                    Q_(4 * d, _MM),
+                    None,
+                    None,
+                    "INFO",
+                    source=f"{EC5} §8.3.1.1",
+                    note="not checked: part " + ", ".join(o.id for o, _ in far) + " lies on the far face of "
+                    "member 2; fasteners driven from there may overlap only where t − t_2 > 4d",
+                )
+            )
         if planes == 1:
             t2 = min(pen, t_2)
             t1 = t_1
