@@ -178,12 +178,13 @@ def _bending(member: Member, part: Part, props, section: SectionResult, combos, 
         Q_(fm, "N/mm**2"),
         source=f"{_EC5} §2.4.1, eq. (2.14)",
     )
+    tension = form_is_tension(sym)
     slog.add(
         "f0d",
-        f"Design axial strength of {mat.id}",
-        "f_t,0,d or f_c,0,d = k_mod·f_k / γ_M",
-        "{f}",
-        {"f": Q_(f0, "N/mm**2")},
+        f"Design {'tension' if tension else 'compression'} strength parallel to grain of {mat.id}",
+        "f_t,0,d = k_mod·f_t,0,k / γ_M" if tension else "f_c,0,d = k_mod·f_c,0,k / γ_M",
+        "{k} × {f} / {g}",
+        {"k": km, "f": mat.extra["f_t_0_k" if tension else "f_c_0_k"], "g": gm},
         Q_(f0, "N/mm**2"),
         source=f"{_EC5} §2.4.1, eq. (2.14)",
     )
