@@ -320,3 +320,14 @@ def test_ec5_material_keys_refused_in_an_asd_job():
     with pytest.raises(JobError) as e:
         solve_bytes(text.encode(), "t.toml")
     assert "rho_k" in str(e.value) + str(e.value.key)
+
+
+def test_nds_member_inputs_under_ec5():
+    from calcreport.jobfile import load_text
+
+    text = job().decode().replace('span = "3 m"', 'span = "3 m"\n\n[member.design]\nCr = 1.15', 1)
+    with pytest.raises(JobError) as e:
+        solve_bytes(text.encode(), "t.toml")
+    assert "Cr" in str(e.value) + str(e.value.key) and "EC5" in str(e.value)
+    text = job().decode().replace('rho_k = "350 kg/m^3"\n', 'rho_k = "350 kg/m^3"\nFb = "900 psi"\n')
+    assert any(w.key.endswith("Fb") for w in load_text(text.encode(), "t.toml").warnings)

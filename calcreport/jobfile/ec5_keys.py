@@ -26,6 +26,8 @@ __all__ = [
     "NDS_ONLY_KEYS",
     "EC5_REFUSED_KINDS",
     "unused_ec5_settings",
+    "ec5_member_keys",
+    "NDS_MATERIAL_KEYS",
 ]
 
 #: Connector types with no EN 1995-1-1 / EN 1993 route in this tool: refused under EC5.
@@ -149,3 +151,34 @@ def unused_ec5_settings(t: Table, settings: Settings, members: list[Member]) -> 
             "duration",
             "every member has loads along it: each combination uses the k_mod of its own shortest-duration load",
         )
+
+
+#: Material keys read only by the NDS 2018 / AISC member checks and NDS connectors.
+NDS_MATERIAL_KEYS = ("Fb", "Fv", "Ft", "Fc", "Emin", "CF", "G", "Fs")
+
+
+def ec5_member_keys(t: Table, method: str) -> None:
+    """Under EC5: ``[member.design]`` keys are read by no check (the EN 1995-1-1 §6.3 stability
+    checks are not implemented) — an error naming the key."""
+    if method != "EC5":
+        return
+    dt = t.table("design")
+    if dt is None:
+        return
+    for name in dt.data:
+        raise dt.error(
+            name,
+            f'{name} has no effect with method = "EC5": the member checks that read [member.design] '
+            "(NDS 2018 / AISC 360-16) do not run under EC5",
+        )
+
+
+def ec5_material_warnings(t: Table, method: str) -> None:
+    """Under EC5: warn for the NDS/AISC design-stress keys of a timber material (nothing reads them)."""
+    if method != "EC5":
+        return
+    for name in NDS_MATERIAL_KEYS:
+        if t.has(name):
+            t.warn(
+                name, f'{name} is read by the NDS 2018 checks only; under method = "EC5" give f_m_k, f_v_k …'
+            )

@@ -17,7 +17,14 @@ from ..model import ConnectorSpec, Header, Job, Joint, Material, Member, Part, R
 from ..outlines import contact_segments, isolated_parts, overlapping_pairs
 from ..units import parse
 from .design import read_design, read_panel, read_wood_keys
-from .ec5_keys import ec5_connector_keys, read_ec5_material, read_ec5_settings, unused_ec5_settings
+from .ec5_keys import (
+    ec5_connector_keys,
+    ec5_material_warnings,
+    ec5_member_keys,
+    read_ec5_material,
+    read_ec5_settings,
+    unused_ec5_settings,
+)
 from .lines import LineIndex
 from .parts import read_part
 from .reader import Source, Table
@@ -251,6 +258,7 @@ def _materials(root: Table, method: str = "ASD") -> dict[str, Material]:
                 **read_ec5_material(t, t.choice("family", FAMILIES, "other"), method),
             },
         )
+        ec5_material_warnings(t, method)
         t.done()
     if not out:
         raise root.error(None, "missing required key 'material' (at least one [[material]])")
@@ -287,6 +295,7 @@ def _member(t: Table, materials: dict[str, Material], settings: Settings) -> Mem
         )
     shear = t.quantity("shear", "force", allow_zero=True)
     joints = tuple(_joints(t, placed, settings.method))
+    ec5_member_keys(t, settings.method)
     member = Member(
         id=mid,
         title=t.text("title", default=mid),

@@ -325,6 +325,12 @@ def design_ec5(spec: ConnectorSpec, ctx, log: StepLog, kind: str) -> Capacity:
             "default): the yield moment M_y,Rk (eq. 8.14, 8.30) needs it",
         )
     d, L, desc, rule, dnote = _fastener(kind, p, key)
+    if rule == "bolt" and d > 30.0:
+        raise ConnectorError(
+            f"{key}.diameter",
+            "expected a diameter up to 30 mm: the embedment strength of EN 1995-1-1 §8.5.1.1 (eq. 8.32) "
+            "covers bolts up to 30 mm",
+        )
     log.add(
         "d",
         "Diameter used in the failure modes",
