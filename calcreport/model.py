@@ -63,6 +63,16 @@ class Header:
 
 
 @dataclass(frozen=True)
+class LoadCaseFactors:
+    """EC5: a load case's duration class (EN 1995-1-1 Table 2.1) and ψ factors (EN 1990 A1)."""
+
+    case: str
+    duration: str
+    psi0: float | None = None
+    psi2: float | None = None
+
+
+@dataclass(frozen=True)
 class Settings:
     """Job-wide choices. Defaults are stated in the report so nothing is silent."""
 
@@ -80,6 +90,11 @@ class Settings:
     load_standard: str = "ASCE 7-22"  # edition of the load standard for combinations and clauses
     zones_per_span: int | None = None  # Z per half of each span/overhang (None: zones_per_half)
     given: tuple[str, ...] = ()  # keys the job's [settings] table states (the rest are defaults)
+    # --- EC5 (EN 1995-1-1 with EN 1990); owner: ec5 ---
+    service_class: int | None = None  # EN 1995-1-1 §2.3.1.3
+    gamma_M_connections: float | None = None  # national value of γ_M for connections (Table 2.3: 1.3)
+    duration: str = ""  # load-duration class of a design shear given without loads (for k_mod)
+    load_cases: dict[str, LoadCaseFactors] = field(default_factory=dict)  # [[settings.load_case]]
 
 
 @dataclass(frozen=True)

@@ -285,7 +285,7 @@ def results_schema() -> dict[str, Any]:
                     "number": {"type": "string"},
                     "revision": {"type": "string"},
                     "units": {"enum": ["US", "SI"]},
-                    "method": {"enum": ["ASD", "LRFD"]},
+                    "method": {"enum": ["ASD", "LRFD", "EC5"]},
                 },
                 "required": ["file", "sha256", "project", "units", "method"],
             },

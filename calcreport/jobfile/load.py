@@ -17,6 +17,14 @@ from ..model import ConnectorSpec, Header, Job, Joint, Material, Member, Part, R
 from ..outlines import contact_segments, isolated_parts, overlapping_pairs
 from ..units import parse
 from .design import read_design, read_panel, read_wood_keys
+from .ec5_keys import (
+    ec5_connector_keys,
+    ec5_material_warnings,
+    ec5_member_keys,
+    read_ec5_material,
+    read_ec5_settings,
+    unused_ec5_settings,
+)
 from .lines import LineIndex
 from .parts import read_part
 from .reader import Source, Table
@@ -80,7 +88,7 @@ def load_text(data: bytes, path: str = "<job>") -> Job:
     header = _header(root.table("job", required=True))
     settings_table = root.table("settings") or Table({}, src, ("settings",), "settings")
     settings = _settings(settings_table)
-    materials = _materials(root)
+    materials = _materials(root, settings.method)
     member_tables = root.id_tables("member", MAX_MEMBERS, "member")
     if not member_tables:
         raise root.error(None, "missing required key 'member' (at least one [[member]])")
@@ -93,6 +101,7 @@ def load_text(data: bytes, path: str = "<job>") -> Job:
         )
     root.done()
     unused_settings(settings_table, settings, members)
+    unused_ec5_settings(settings_table, settings, members)
     return Job(
         path,
         hashlib.sha256(data).hexdigest(),
@@ -157,7 +166,7 @@ def _header(t: Table) -> Header:
 def _settings(t: Table) -> Settings:
     t.expect(decl.names(decl.SETTINGS))
     units = t.choice("units", ("US", "SI"), "US")
-    method = t.choice("method", ("ASD", "LRFD"), "ASD")
+    method = t.choice("method", decl.METHODS, "ASD")
     step = t.quantity(
         "spacing_step", "length", default=parse("0.25 in" if units == "US" else "5 mm", "length")
     )
@@ -211,12 +220,13 @@ def _settings(t: Table) -> Settings:
         standard,
         zones_span,
         tuple(t.data),
+        **read_ec5_settings(t, method),
     )
     t.done()
     return s
 
 
-def _materials(root: Table) -> dict[str, Material]:
+def _materials(root: Table, method: str = "ASD") -> dict[str, Material]:
     out: dict[str, Material] = {}
     for t, mid in root.id_tables("material", MAX_MATERIALS, "material"):
         t.expect(decl.names(decl.MATERIAL))
@@ -245,8 +255,10 @@ def _materials(root: Table) -> dict[str, Material]:
                 "grade": t.text("grade"),
                 **read_wood_keys(t),
                 "panel": read_panel(t, t.choice("family", FAMILIES, "other")),
+                **read_ec5_material(t, t.choice("family", FAMILIES, "other"), method),
             },
         )
+        ec5_material_warnings(t, method)
         t.done()
     if not out:
         raise root.error(None, "missing required key 'material' (at least one [[material]])")
@@ -283,6 +295,7 @@ def _member(t: Table, materials: dict[str, Material], settings: Settings) -> Mem
         )
     shear = t.quantity("shear", "force", allow_zero=True)
     joints = tuple(_joints(t, placed, settings.method))
+    ec5_member_keys(t, settings.method)
     member = Member(
         id=mid,
         title=t.text("title", default=mid),
@@ -345,6 +358,7 @@ def _joints(t: Table, parts: dict[str, Part], method: str):
         params = ct.fields(connectors.fields_for(kind))
         given = tuple(k for k in ct.data if k != "type")
         ct.done()
+        ec5_connector_keys(ct, kind, method)
         connector_keys(ct, kind, params, method)
         if is_continuous(kind, params):
             for key in ("per_row", "spacing_max", "spacing_min"):

@@ -113,7 +113,16 @@ def read_loads(t: Table, member: Member, settings: Settings) -> Member:
     for ct, c in zip(combo_tables, combos):
         if names.count(c.name) > 1:
             raise ct.error("name", f"duplicate combination name {c.name!r}")
-    if not combos:
+    if not combos and settings.method == "EC5":  # EN 1990 combinations need each case described
+        bare = sorted(c for c in cases if c not in settings.load_cases and c != "D")
+        if bare:
+            lt = next(lt for lt, ld in zip(load_tables, loads) if ld.case == bare[0])
+            raise lt.error(
+                "case",
+                f"case {bare[0]!r} has no [[settings.load_case]] (duration and psi0) for the EN 1990 "
+                'combinations of method = "EC5"',
+            )
+    elif not combos:
         own = sorted(cases - set(STANDARD_CASES))
         if own:
             lt = next(lt for lt, ld in zip(load_tables, loads) if ld.case in own)

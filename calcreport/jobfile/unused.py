@@ -98,5 +98,6 @@ def unused_settings(t: Table, settings: Settings, members: list[Member]) -> None
         )
         lt = t.table("deflection_limits")
         for case in settings.deflection_limits:
-            if case != "total" and case not in cases and lt is not None:
+            ec5_set = case == "quasi_permanent" and settings.method == "EC5"  # EN 1990 (6.16b)
+            if case != "total" and not ec5_set and case not in cases and lt is not None:
                 lt.warn(case, f"no member has loads of case {case!r}, so this limit checks nothing")

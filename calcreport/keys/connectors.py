@@ -10,7 +10,7 @@ from __future__ import annotations
 
 from ..fields import Field
 
-__all__ = ["CONNECTOR_FIELDS", "NDS_COMMON", "kinds", "fields_for"]
+__all__ = ["CONNECTOR_FIELDS", "NDS_COMMON", "EC5_KEYS", "NDS_ONLY_KEYS", "kinds", "fields_for"]
 
 #: Keys shared by every NDS 2018 dowel-type fastener model (nail, wood screw, lag screw, wood bolt).
 NDS_COMMON = (
@@ -219,6 +219,69 @@ WOOD_BOLT = (
     Field("name", "text", help="how the report names the bolt"),
 ) + NDS_COMMON
 
+# --- EN 1995-1-1 §8 keys of the wood dowel fasteners (settings.method = "EC5"); owner: ec5 -------
+EC5_FU = Field(
+    "fu",
+    "stress",
+    help="EC5: tensile strength of the nail wire or screw f_u, of the bolt f_u,k (EN 1995-1-1 eq. 8.14, "
+    "8.30); required under EC5",
+)
+EC5_AXIAL = Field(
+    "F_ax_Rk",
+    "force",
+    help="EC5: characteristic axial withdrawal capacity F_ax,Rk for the rope effect (EN 1995-1-1 §8.2.2(2)); "
+    "none given: no rope effect",
+)
+EC5_PREDRILLED = Field(
+    "predrilled", "bool", default=False, help="EC5: holes pre-drilled (EN 1995-1-1 eq. 8.16 embedment)"
+)
+EC5_NAIL = (
+    EC5_FU,
+    EC5_AXIAL,
+    EC5_PREDRILLED,
+    Field(
+        "nail_shank",
+        "choice",
+        default="round",
+        choices=("round", "square", "other"),
+        help="EC5: smooth round, square/grooved or other (threaded) nail: M_y,Rk (8.14) and rope-effect limit",
+    ),
+)
+EC5_SCREW = (EC5_FU, EC5_AXIAL, EC5_PREDRILLED)
+EC5_BOLT = (
+    EC5_FU,
+    EC5_AXIAL,
+    Field("dowel", "bool", default=False, help="EC5: a smooth dowel, not a bolt (no rope effect, §8.2.2(2))"),
+)
+#: The EC5 keys of each wood dowel model (the reader refuses them in an ASD or LRFD job).
+EC5_KEYS = {
+    "nail": tuple(f.name for f in EC5_NAIL),
+    "wood_screw": tuple(f.name for f in EC5_SCREW),
+    "wood_bolt": tuple(f.name for f in EC5_BOLT),
+}
+#: Connector keys of the NDS wood models that the EC5 route does not read (an error under EC5).
+NDS_ONLY_KEYS = (
+    "G_side",
+    "G_main",
+    "species",
+    "Fyb",
+    "CD",
+    "wet_service",
+    "CM",
+    "Ct",
+    "end_grain",
+    "time_effect",
+    "row_count",
+    "row_spacing",
+    "steel_form",
+    "toe_nail",
+    "diaphragm",
+    "clinched",
+    "staggered",
+)
+# --- end of EC5 keys ------------------------------------------------------------------------------
+
+
 #: ``type = "steel_bolt"``
 STEEL_BOLT = (
     Field("diameter", "length", required=True, help="nominal bolt diameter d"),
@@ -378,10 +441,10 @@ CONNECTOR_FIELDS: dict[str, tuple[Field, ...]] = {
     "given_line": GIVEN_LINE,
     "shank": SHANK,
     "glue": GLUE,
-    "nail": NAIL,
-    "wood_screw": WOOD_SCREW,
+    "nail": NAIL + EC5_NAIL,
+    "wood_screw": WOOD_SCREW + EC5_SCREW,
     "lag_screw": LAG_SCREW,
-    "wood_bolt": WOOD_BOLT,
+    "wood_bolt": WOOD_BOLT + EC5_BOLT,
     "steel_bolt": STEEL_BOLT,
     "fillet_weld": FILLET_WELD,
     "stud": STUD,

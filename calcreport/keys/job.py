@@ -12,7 +12,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 
 from ..fields import Field
-from .loads import LOAD_STANDARDS
+from .loads import DURATION_CLASSES, LOAD_STANDARDS, TIMBER_PRODUCTS
 
 __all__ = [
     "TableSpec",
@@ -116,12 +116,105 @@ DEFLECTION_LIMITS = TableSpec(
     free="number",
 )
 
+# --- EN 1995-1-1 / EN 1990 keys (settings.method = "EC5"); owner: ec5 ---------------------------
+METHODS = ("ASD", "LRFD", "EC5")
+
+LOAD_CASE = TableSpec(
+    "load_case",
+    "EC5: a load case's duration class and combination factors ψ (EN 1990 Annex A1, EN 1995-1-1 §2.3.1.2)",
+    (
+        Field(
+            "case", "text", required=True, help="the load case: D, L, S, W or a case name of the job's own"
+        ),
+        Field(
+            "duration",
+            "choice",
+            required=True,
+            choices=DURATION_CLASSES,
+            help="load-duration class (EN 1995-1-1 Table 2.1), for k_mod",
+        ),
+        Field(
+            "psi0",
+            "number",
+            positive=False,
+            minimum=0.0,
+            maximum=1.0,
+            help="combination value factor ψ0 (variable cases; EN 1990 Table A1.1 or the national annex)",
+        ),
+        Field(
+            "psi2",
+            "number",
+            positive=False,
+            minimum=0.0,
+            maximum=1.0,
+            help="quasi-permanent value factor ψ2 (variable cases; for the quasi_permanent deflection limit)",
+        ),
+    ),
+    array=True,
+)
+
+EC5_SETTINGS = (
+    Field(
+        "service_class",
+        "int",
+        minimum=1,
+        maximum=3,
+        help="EC5: service class 1, 2 or 3 (EN 1995-1-1 §2.3.1.3), for k_mod",
+    ),
+    Field(
+        "gamma_M_connections",
+        "number",
+        minimum=1.0,
+        maximum=2.0,
+        help="EC5: partial factor γ_M of connections (default 1.3, EN 1995-1-1 Table 2.3; give the national value)",
+    ),
+    Field(
+        "duration",
+        "choice",
+        choices=DURATION_CLASSES,
+        help="EC5: load-duration class of a member's design shear given without loads along it (for k_mod)",
+    ),
+)
+
+EC5_MATERIAL = (
+    Field(
+        "rho_k",
+        "mass_density",
+        help='EC5: characteristic density ρ_k, e.g. "350 kg/m^3" (EN 338, EN 14080; embedment strength)',
+    ),
+    Field(
+        "timber_product",
+        "choice",
+        choices=TIMBER_PRODUCTS,
+        help="EC5: product for k_mod and γ_M (default by family: wood solid, glulam, plywood)",
+    ),
+    Field(
+        "gamma_M",
+        "number",
+        minimum=1.0,
+        maximum=2.0,
+        help="EC5: partial factor γ_M of the material (default EN 1995-1-1 Table 2.3 by product)",
+    ),
+    Field("f_m_k", "stress", help="EC5: characteristic bending strength f_m,k (EN 338, EN 14080)"),
+    Field("f_t_0_k", "stress", help="EC5: characteristic tension strength parallel to grain f_t,0,k"),
+    Field("f_c_0_k", "stress", help="EC5: characteristic compression strength parallel to grain f_c,0,k"),
+    Field("f_v_k", "stress", help="EC5: characteristic shear strength f_v,k"),
+)
+# --- end of EC5 keys ------------------------------------------------------------------------------
+
+
 SETTINGS = TableSpec(
     "settings",
     "design method, units and spacing rules for the whole job",
     (
         Field("units", "choice", default="US", choices=("US", "SI"), help="units the outputs use"),
-        Field("method", "choice", default="ASD", choices=("ASD", "LRFD"), help="design method"),
+        Field(
+            "method",
+            "choice",
+            default="ASD",
+            choices=METHODS,
+            help="design method: ASD or LRFD (NDS 2018, ASCE 7), or EC5 (EN 1995-1-1 with EN 1990)",
+        ),
         Field(
             "spacing_step", "length", help="practical spacings are multiples of this (default 1/4 in, 5 mm)"
         ),
@@ -151,8 +244,9 @@ SETTINGS = TableSpec(
             maximum=2.0,
             help="load duration factor CD for wood (ASD) where a connector does not state its own",
         ),
-    ),
-    (DEFLECTION_LIMITS, DISPLAY),
+    )
+    + EC5_SETTINGS,
+    (DEFLECTION_LIMITS, DISPLAY, LOAD_CASE),
 )
 
 PANEL = TableSpec(
@@ -218,7 +312,8 @@ MATERIAL = TableSpec(
             maximum=1.5,
             help="size factor of wood bending (NDS 2018 Supplement Table 4A; default 1.0 up to 12 in wide)",
         ),
-    ),
+    )
+    + EC5_MATERIAL,
     (PANEL,),
     array=True,
     required=True,

@@ -11,3 +11,11 @@ LIVE_TYPE = ("L", "Lr", "S", "R")
 #: Editions of ASCE 7 whose basic combinations are built in (``settings.load_standard``).
 LOAD_STANDARDS = ("ASCE 7-22", "ASCE 7-16")
 DEFAULT_STANDARD = "ASCE 7-22"
+
+# --- EN 1990 / EN 1995-1-1 (settings.method = "EC5"); owner: ec5 -------------------------------
+#: Load-duration classes of EN 1995-1-1 §2.3.1.2, Table 2.1, shortest last.
+DURATION_CLASSES = ("permanent", "long", "medium", "short", "instantaneous")
+#: Timber products whose k_mod (EN 1995-1-1 Table 3.1) and γ_M (Table 2.3) the tool knows.
+TIMBER_PRODUCTS = ("solid", "glulam", "LVL", "plywood")
+#: The permanent case of the built-in EN 1990 combinations (every other case is variable).
+PERMANENT_CASE = "D"

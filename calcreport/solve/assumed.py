@@ -8,6 +8,7 @@ connector key the job left at its default). Outputs only show these records
 
 from __future__ import annotations
 
+from ..keys.connectors import EC5_KEYS, NDS_ONLY_KEYS
 from ..model import Job, Member, Settings
 from .results import Assumed, JointResult
 
@@ -29,7 +30,15 @@ def _settings_assumed(s: Settings, any_loads: bool) -> list[Assumed]:
             out.append(Assumed(f"settings.{key}", label, value, where, source))
 
     add("units", "unit system", s.units, '[settings] units = "US" or "SI"')
-    add("method", "design method", s.method, '[settings] method = "ASD" or "LRFD"')
+    add("method", "design method", s.method, '[settings] method = "ASD", "LRFD" or "EC5"')
+    if s.method == "EC5":
+        add(
+            "gamma_M_connections",
+            "partial factor γ_M of connections",
+            1.3,
+            "[settings] gamma_M_connections (the national value)",
+            "EN 1995-1-1:2004 Table 2.3",
+        )
     add(
         "spacing_step",
         "step the practical spacing is rounded down to",
@@ -62,7 +71,7 @@ def _settings_assumed(s: Settings, any_loads: bool) -> list[Assumed]:
         "[settings] zone_module",
         when=any_loads,
     )
-    if not s.deflection_limits and any_loads:
+    if not s.deflection_limits and any_loads and s.method != "EC5":
         from .member_loads import DEFAULT_DEFLECTION_LIMITS
 
         text = ", ".join(f"{k}: span/{v:g}" for k, v in DEFAULT_DEFLECTION_LIMITS.items())
@@ -90,7 +99,17 @@ def _loads_assumed(member: Member, settings: Settings) -> list[Assumed]:
     if not (member.loads or member.self_weight):
         return out
     cases = {ld.case for ld in member.loads}
-    if not member.combinations:
+    if not member.combinations and settings.method == "EC5":
+        out.append(
+            Assumed(
+                f"{pre}.combination",
+                "load combinations (standard and partial factors)",
+                "EN 1990 (6.10) with γ_G = 1.35 (1.00 favourable), γ_Q = 1.5",
+                "[[member.combination]] name, factors",
+                "EN 1990:2002 Table A1.2(B) recommended values",
+            )
+        )
+    elif not member.combinations:
         std = (
             "ASCE 7-22 §2.3.1 (strength)"
             if settings.method == "LRFD"
@@ -187,6 +206,10 @@ def _connector_assumed(member: Member, settings: Settings, joints: tuple[JointRe
                 continue
             if f.name == "time_effect" and settings.method != "LRFD":
                 continue
+            if settings.method == "EC5" and f.name in NDS_ONLY_KEYS:  # refused under EC5
+                continue
+            if settings.method != "EC5" and f.name in EC5_KEYS.get(spec.kind, ()):
+                continue
             if f.name == "steel_form" and not any(p.material.family == "steel" for p in member.parts):
                 continue
             if f.default is not None:
@@ -205,6 +228,16 @@ def _connector_assumed(member: Member, settings: Settings, joints: tuple[JointRe
                             step.source,
                         )
                     )
+        if settings.method == "EC5" and spec.kind in EC5_KEYS and "F_ax_Rk" not in given:
+            out.append(
+                Assumed(
+                    f"{pre}.F_ax_Rk",
+                    "axial withdrawal capacity for the rope effect",
+                    "none: the rope effect is not counted (conservative)",
+                    "[member.joint.connector] F_ax_Rk",
+                    "EN 1995-1-1:2004 §8.2.2(2)",
+                )
+            )
         size = str(spec.params.get("size") or "").lower()
         if spec.kind == "nail" and size and not any(w in size for w in ("common", "box", "sinker", "spike")):
             out.append(

@@ -39,7 +39,12 @@ def source_asd(standard: str = DEFAULT_STANDARD) -> str:
 
 
 def source_placement(standard: str = DEFAULT_STANDARD) -> str:
-    """Clauses that ask for the worst placement of live load (same numbers in 7-16 and 7-22)."""
+    """Clauses that ask for the worst placement of live load (same numbers in 7-16 and 7-22; under
+    EC5, ``standard = "EN 1990"``: EN 1991-1-1 §6.2.1 and EN 1990 §6.4.3.2, from memory)."""
+    if standard == "EN 1990":
+        return (
+            "EN 1991-1-1:2002 §6.2.1(1) (imposed loads at the most unfavourable part), EN 1990:2002 §6.4.3.2"
+        )
     return f"{standard} §4.3.3 (partial loading), §4.4 (concentrated live loads)"
 
 

@@ -58,12 +58,14 @@ def solve_member(member: Member, settings: Settings) -> MemberResult:
         V = _design_shear(member, log.child("shear"))
     joints = tuple(solve_joint(member, section, j, V, settings, log, beam) for j in member.joints)
     checks = _keyed(beam.checks, f"member[{member.id}]") if beam is not None else ()
-    checks = checks + _shear_only_checks(member, section, V, beam, log.child("checks"))
+    if settings.method != "EC5":  # τ against Fv (allowable); EN 1995-1-1 §6.1.7 is listed instead
+        checks = checks + _shear_only_checks(member, section, V, beam, log.child("checks"))
     from .member_kinds import member_checks
 
     more, unchecked = member_checks(member, section, beam, V, settings, log.child("member"), joints)
     checks = tuple(checks) + _keyed(more, f"member[{member.id}]")
-    checks = checks + tuple(missing_stress_rows(member, beam is not None))
+    if settings.method != "EC5":  # Fb / Fy rows name NDS / AISC inputs
+        checks = checks + tuple(missing_stress_rows(member, beam is not None))
     status = worst([j.status for j in joints] + [c.status for c in checks])
     words, connectors_only = checked_words(member.id, checks, joints)
     return MemberResult(
@@ -231,6 +233,10 @@ def solve_joint(
             source="geometry of the placed parts",
         )
     Q = first_moment(section, joint.holds, log)
+    if settings.method == "EC5" and beam is not None:  # k_mod of the shortest-duration load (ec5)
+        from .ec5_loads import shortest_duration
+
+        settings = replace(settings, duration=shortest_duration(beam.combinations, settings))
     ctx = connectors.JointContext(
         settings.method,
         tuple(held),
@@ -246,7 +252,7 @@ def solve_joint(
     if beam is not None and cap.duration_factor is not None:
         from .member_loads import duration_demand
 
-        demand = duration_demand(beam, cap.duration_factor, settings.method, log.child("duration"))
+        demand = duration_demand(beam, cap.duration_factor, settings.method, log.child("duration"), settings)
         if demand is not None:
             V = demand[2]
     q = shear_flow(V, Q, section.inertia, log)

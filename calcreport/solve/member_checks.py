@@ -137,6 +137,7 @@ def deflection_check(
     log: StepLog | None = None,
     note: str = "",
     label: str | None = None,
+    source: str = SOURCE_DEFLECTION,
 ) -> Check:
     """Deflection against span/limit (a cantilever or overhang uses twice its length).
 
@@ -155,7 +156,7 @@ def deflection_check(
         "{l} / {r}",
         {"l": ell, "r": limit},
         allow,
-        source=SOURCE_DEFLECTION,
+        source=source,
         note=note,
     )
     ratio = float((abs(delta) / allow).to("").magnitude)
@@ -166,12 +167,18 @@ def deflection_check(
         allow,
         ratio,
         _status(ratio),
-        SOURCE_DEFLECTION,
+        source,
         note,
     )
 
 
-def deflection_checks(beam, limits: dict[str, float], log: StepLog | None = None) -> list[Check]:
+def deflection_checks(
+    beam,
+    limits: dict[str, float],
+    log: StepLog | None = None,
+    sets: dict[str, list] | None = None,
+    source: str = SOURCE_DEFLECTION,
+) -> list[Check]:
     """Deflection checks of every segment (span, overhang, cantilever) for the job's limits.
 
     ``limits`` maps a load case name (e.g. ``{"L": 360}``) to the span/limit ratio for that
@@ -187,17 +194,20 @@ def deflection_checks(beam, limits: dict[str, float], log: StepLog | None = None
     names = [d.name for d in beam.cases]
     for key, ratio in limits.items():
         what = "total load" if key == "total" else f"load case {key}"
-        if key == "total":
+        if sets is not None and key in sets:  # load sets of the job's method (EC5: EN 1990 6.14b, 6.16b)
+            what = "quasi-permanent combination" if key == "quasi_permanent" else what
+            case_sets = sets[key]
+        elif key == "total":
             variable = [c for c in names if c not in ("D", "W")]
-            sets = [({"D": 1.0, c: 1.0}, f"D + {c}") for c in variable] or [({"D": 1.0}, "D")]
+            case_sets = [({"D": 1.0, c: 1.0}, f"D + {c}") for c in variable] or [({"D": 1.0}, "D")]
         elif key in names:
-            sets = [({key: 1.0}, key)]
+            case_sets = [({key: 1.0}, key)]
         else:
             continue
         for seg in beam.segments:
             worst: Any = None
             label = ""
-            for factors, text in sets:
+            for factors, text in case_sets:
                 dl = beam.deflection_max(factors, seg.index)
                 if worst is None or dl > worst:
                     worst, label = dl, text
@@ -211,6 +221,7 @@ def deflection_checks(beam, limits: dict[str, float], log: StepLog | None = None
                     log,
                     note=f"governed by {label}",
                     label=f"Deflection, {what} ({seg.kind} {seg.index + 1})",
+                    source=source,
                 )
             )
     return out

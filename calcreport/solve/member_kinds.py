@@ -35,6 +35,11 @@ def member_checks(
     member: Member, section: SectionResult, beam, V: Quantity, settings: Settings, log: StepLog, joints=()
 ) -> tuple[tuple[Check, ...], tuple[Unchecked, ...]]:
     """The member-type checks of ``member`` and what of them did not run."""
+    if settings.method == "EC5":  # no NDS / AISC member check under EC5 (owner: ec5)
+        from .ec5_members import ec5_member_checks
+
+        ec5_checks, ec5_missing = ec5_member_checks(member, section, beam, settings, log.child("ec5"))
+        return tuple(ec5_checks), ec5_missing
     kind = member_type(member)
     if kind == "steel":
         from .member_girder import girder_checks

@@ -27,6 +27,8 @@ from .combinations import (
     standard_combinations,
     time_effect,
 )
+from .ec5_factors import SOURCE_KMOD_COMBINATION
+from .ec5_loads import SOURCE_EC5_DEFLECTION
 from .member_checks import Fibre, bending_checks, deflection_checks, shear_stress_check
 from .results import Check, SectionResult, SolveError
 from .schedule import Schedule, zoned_schedule
@@ -77,6 +79,10 @@ def analyse_member(member: Member, section: SectionResult, settings: Settings, l
     cases = list(dict.fromkeys(ld.case for ld in loads))
     if member.combinations:
         combos, source = tuple(member.combinations), "stated in the job file"
+    elif settings.method == "EC5":
+        from .ec5_loads import ec5_combinations
+
+        combos, source = ec5_combinations(member, cases, settings)
     else:
         std = settings.load_standard
         combos = tuple(standard_combinations(settings.method, cases, std))
@@ -122,7 +128,7 @@ def analyse_member(member: Member, section: SectionResult, settings: Settings, l
             EI=EI,
             log=log,
             variable=variable,
-            standard=settings.load_standard,
+            standard="EN 1990" if settings.method == "EC5" else settings.load_standard,
         )
     except BeamInputError as exc:
         raise _error(exc) from None
@@ -135,14 +141,19 @@ def analyse_member(member: Member, section: SectionResult, settings: Settings, l
         M, Mby = Q_(abs(mneg[kn]), "lbf*inch"), env.M_min_by[kn]
     else:
         M, Mby = Q_(abs(mpos[kp]), "lbf*inch"), env.M_max_by[kp]
-    limits = dict(settings.deflection_limits) or dict(DEFAULT_DEFLECTION_LIMITS)
-    checks = _member_checks(member, section, M, env.V_abs[kv], limits, beam, log.child("checks"))
+    # under EC5 the limits are the job's (EN 1995-1-1 §7.2 gives ranges, not values): none by default
+    limits = dict(settings.deflection_limits) or (
+        {} if settings.method == "EC5" else dict(DEFAULT_DEFLECTION_LIMITS)
+    )
+    checks = _member_checks(
+        member, section, M, env.V_abs[kv], limits, beam, log.child("checks"), settings=settings
+    )
     return AlongResult(
         beam, env.V_abs[kv], env.V_abs_by[kv], M, Mby, combos, source, sw, limits, tuple(checks)
     )
 
 
-def _member_checks(member, section, M, V, limits, beam, log) -> list[Check]:
+def _member_checks(member, section, M, V, limits, beam, log, settings: Settings | None = None) -> list[Check]:
     bottom = section.bottom.to("inch").magnitude
     ybar = section.centroid.to("inch").magnitude
     fibres: dict[str, Fibre] = {}
@@ -151,19 +162,28 @@ def _member_checks(member, section, M, V, limits, beam, log) -> list[Check]:
     # box-beam flanges are axial members (member_box); wood members get bending with the NDS
     # adjustment factors (member_wood): neither takes the bare-Fb check here
     box = member_type(member) in ("panel-web", "wood")
+    # under EC5 the stress checks are EN 1995-1-1's (solve/ec5_members.py), never bare Fb / Fv
+    ec5 = settings is not None and settings.method == "EC5"
     for part, props in zip(member.parts, section.parts):
         mat = part.material
-        if mat.Fb is None or (box and mat.family in ("wood", "glulam")):
+        if mat.Fb is None or (box and mat.family in ("wood", "glulam")) or ec5:
             continue
         c = max(abs(part.shape.bbox[3] - bottom - ybar), abs(part.shape.bbox[1] - bottom - ybar))
         old = fibres.get(mat.id)
         if old is None or c > old.c.magnitude:
             fibres[mat.id] = Fibre(mat.id, Q_(c, "inch"), props.n, mat.Fb)
     checks = bending_checks(M, section.inertia, list(fibres.values()), log) if fibres else []
-    na = _neutral_axis_shear(member, section, V, log)
+    na = None if ec5 else _neutral_axis_shear(member, section, V, log)
     if na is not None:
         checks.append(na)
-    checks += deflection_checks(beam, limits, log)
+    if ec5:
+        from .ec5_loads import ec5_deflection_sets
+
+        checks += deflection_checks(
+            beam, limits, log, sets=ec5_deflection_sets(beam, limits, settings), source=SOURCE_EC5_DEFLECTION
+        )
+    else:
+        checks += deflection_checks(beam, limits, log)
     return checks
 
 
@@ -224,7 +244,9 @@ def _neutral_axis_shear(member, section, V, log) -> Check | None:
     )
 
 
-def duration_demand(along: AlongResult, factor_used: float, method: str, log: StepLog):
+def duration_demand(
+    along: AlongResult, factor_used: float, method: str, log: StepLog, settings: Settings | None = None
+):
     """Shear demand normalised for wood load duration, or ``None`` when no combination needs it.
 
     The connector's value holds one load duration factor C_D (ASD) or time effect factor λ (LRFD),
@@ -237,7 +259,11 @@ def duration_demand(along: AlongResult, factor_used: float, method: str, log: St
     lrfd = method == "LRFD"
     sym = "λ" if lrfd else "C_D"
     weights: dict[str, float] = {}
-    for i, cb in enumerate(along.combinations, 1):
+    if method == "EC5":
+        from .ec5_loads import kmod_weights
+
+        weights, sym = kmod_weights(along.combinations, factor_used, settings, log), "k_mod"
+    for i, cb in enumerate(along.combinations if method != "EC5" else (), 1):
         f_c, case = time_effect(cb) if lrfd else duration_factor(cb)
         log.add(
             f"CD.{i}",
@@ -260,7 +286,9 @@ def duration_demand(along: AlongResult, factor_used: float, method: str, log: St
         "{V} in {by} at x = {x}, with " + sym + " = {f}",
         {"V": Vw[k], "by": by[k], "x": along.analysis.envelope.x[k], "f": factor_used},
         Vw[k],
-        source=SOURCE_TIME_EFFECT if lrfd else SOURCE_DURATION,
+        source=SOURCE_KMOD_COMBINATION
+        if method == "EC5"
+        else (SOURCE_TIME_EFFECT if lrfd else SOURCE_DURATION),
         governs=True,
         positions=("x",),
         note=f"a combination that calls for a smaller {sym} governs once that factor is used",

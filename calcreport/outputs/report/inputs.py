@@ -104,6 +104,11 @@ def _materials_table(member: Member, ctx: Ctx):
                 ("Fu", mat.Fu),
                 ("f′c", mat.fc),
                 ("Fs", mat.extra.get("Fs")),
+                # EC5 characteristic strengths (EN 338 symbols)
+                ("f_m,k", mat.extra.get("f_m_k")),
+                ("f_t,0,k", mat.extra.get("f_t_0_k")),
+                ("f_c,0,k", mat.extra.get("f_c_0_k")),
+                ("f_v,k", mat.extra.get("f_v_k")),
             )
             if v is not None
         ]
@@ -114,6 +119,8 @@ def _materials_table(member: Member, ctx: Ctx):
             other.append(f"γ = {ctx.q(mat.density)}")
         if mat.extra.get("grade"):
             other.append(f"grade {mat.extra['grade']}")
+        if mat.extra.get("rho_k") is not None:  # EC5 characteristic density
+            other.append(f"ρ_k = {ctx.q(mat.extra['rho_k'])}")
         name = f"{mat.id} — {mat.name}" + (" (reference)" if mat.id == member.reference_material.id else "")
         rows.append(
             [

@@ -40,6 +40,10 @@ _MODULES: dict[str, str] = {
 }
 
 
+#: Connector types designed under ``settings.method = "EC5"`` (EN 1995-1-1 §8, or a stated value).
+EC5_KINDS = ("given", "given_line", "shank", "nail", "wood_screw", "wood_bolt")
+
+
 class ConnectorError(ValueError):
     """A connector cannot be designed as specified (message names what is wrong)."""
 
@@ -75,4 +79,9 @@ def model_for(kind: str) -> ModuleType:
 
 def design(spec: ConnectorSpec, ctx: JointContext, log: StepLog) -> Capacity:
     """Design value of the connector ``spec`` in the joint described by ``ctx``."""
+    if ctx.method == "EC5" and spec.kind not in EC5_KINDS:  # never an NDS/AISC value under EC5
+        raise ConnectorError(
+            f"{ctx.key}.connector.type",
+            f'type = "{spec.kind}" has no EC5 route; under method = "EC5" use one of {", ".join(EC5_KINDS)}',
+        )
     return model_for(spec.kind).design(spec, ctx, log)

@@ -45,6 +45,10 @@ def fastener(p: dict, key: str) -> Fastener:
 
 def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
     """Lateral design value of one nail or spike. Source: NDS-2018 §12.3, Table 11.3.1."""
+    if ctx.method == "EC5":  # EN 1995-1-1 §8 route (owner: ec5)
+        from .ec5_fastener import design_ec5
+
+        return design_ec5(spec, ctx, log, KIND)
     key = f"{ctx.key}.connector"
     f = fastener(spec.params, key)
     return design_dowel(

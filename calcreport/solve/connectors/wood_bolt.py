@@ -20,6 +20,10 @@ FIELDS = CONNECTOR_FIELDS[KIND]
 
 def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
     """Lateral design value of one bolt in wood. Source: NDS-2018 §12.3, Table 11.3.1, §12.5.1."""
+    if ctx.method == "EC5":  # EN 1995-1-1 §8 route (owner: ec5)
+        from .ec5_fastener import design_ec5
+
+        return design_ec5(spec, ctx, log, KIND)
     p = spec.params
     D = p["diameter"].to("in").magnitude
     if not 0.25 <= D <= 1.0:

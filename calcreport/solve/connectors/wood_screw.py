@@ -20,6 +20,10 @@ FIELDS = CONNECTOR_FIELDS[KIND]
 
 def design(spec: ConnectorSpec, ctx, log: StepLog) -> Capacity:
     """Lateral design value of one wood screw. Source: NDS-2018 §12.3, Table 11.3.1."""
+    if ctx.method == "EC5":  # EN 1995-1-1 §8 route (owner: ec5)
+        from .ec5_fastener import design_ec5
+
+        return design_ec5(spec, ctx, log, KIND)
     p = spec.params
     key = f"{ctx.key}.connector"
     size = (p.get("size") or "").strip().lower().replace(" ", "").replace("gauge", "g").replace("#", "")
