@@ -192,7 +192,10 @@ def design_ec5(spec: ConnectorSpec, ctx, log: StepLog, kind: str) -> Capacity:
     else:
         t1, t2 = t_1, t_2
     predrilled = bool(p.get("predrilled"))
-    a1, a2 = p.get("angle_side") or 0.0, p.get("angle_main") or 0.0
+    # the joint's load angle (load passed across side-by-side plies: 90°) unless the job states one
+    joint_angle = float(getattr(ctx, "load_angle", 0.0))
+    a1 = p["angle_side"] if p.get("angle_side") is not None else joint_angle
+    a2 = p["angle_main"] if p.get("angle_main") is not None else joint_angle
     fh1 = embedment(log, "1", m1, d, rule, predrilled, a1)
     fh2 = embedment(log, "2", m2, d, rule, predrilled, a2)
     fu = p["fu"].to("N/mm**2").magnitude
