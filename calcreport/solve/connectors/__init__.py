@@ -60,6 +60,7 @@ class JointContext:
     key: str  # job-file key path of the joint, for messages
     parts: tuple[Part, ...] = ()  # every part of the member (what a fastener may pass beyond)
     per_row: int = 1  # connectors side by side in one row across the plane
+    load_angle: float = 0.0  # degrees between the fastener's load and the grain (90: plies)
 
 
 def kinds() -> list[str]:

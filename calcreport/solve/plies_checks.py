@@ -1,0 +1,386 @@
+"""Member checks of plies side by side and flitch beams (issue 14): each ply under its share.
+
+* Wood plies: bending fb = share·M / S against Fb′ = Fb·C_D·CM·Ct·CF·Cr·CL per combination
+  (NDS 2018 §3.3, Table 4.3.1; CL by §3.3.3 with the width of the fastened plies together);
+  shear fv = 1.5·share·V / (b·d) against Fv′ (NDS 2018 §3.4.2, Eq. 3.4-2).
+* Steel flitch plate: flexure of a rectangular bar, AISC 360-16 F11 (yielding F11-1, lateral-
+  torsional buckling F11-2 to F11-4 with Lb = the largest bolt spacing: the timbers brace the plate
+  at each bolt — an assumption recorded with the member) and shear, G2.1 (Cv1 by G2-3/G2-4, kv = 5.34).
+* The minimum fastening practice requires (two rows of 16d at 12 in for 2x plies) — an INFO row,
+  never the design result; bearing is listed as not checked.
+"""
+
+from __future__ import annotations
+
+import math
+
+from ..model import Member, Settings
+from ..steps import StepLog
+from ..units import Q_
+from .bracing import unbraced_length
+from .checks_wood import Adjust, adjusted
+from .member_box import combination_extremes
+from .member_wood import beam_stability, effective_length
+from .plies import PlyShare
+from .results import Assumed, Check, Unchecked
+from .scope import Expectation
+
+__all__ = ["ply_checks", "ply_expectations", "plate_flexure", "plate_assumed"]
+
+NDS = "NDS 2018"
+AISC = "AISC 360-16"
+
+
+def _status(r: float) -> str:
+    return "OK" if r <= 1 + 1e-9 else "NG"
+
+
+def plate_flexure(Fy: float, E: float, d: float, t: float, Lb: float, Cb: float) -> tuple[float, str, float]:
+    """Nominal flexural strength Mn (lbf·in) of a rectangular bar bent about its major axis,
+    AISC 360-16 F11: Mp = Fy·Z ≤ 1.6·Fy·Sx (F11-1) when Lb·d/t² ≤ 0.08E/Fy; F11-2 up to 1.9E/Fy;
+    Fcr·Sx with Fcr = 1.9E·Cb/(Lb·d/t²) beyond (F11-3, F11-4). Returns (Mn, equation, Lb·d/t²).
+
+    Example (1/2 × 11 in A36 plate, Lb = 16 in):
+        >>> [round(v, 1) if isinstance(v, float) else v for v in plate_flexure(36000, 29e6, 11, 0.5, 16, 1.0)]
+        [544500.0, 'F11-1', 704.0]
+    """
+    Z, S = t * d * d / 4, t * d * d / 6
+    My, Mp = Fy * S, min(Fy * Z, 1.6 * Fy * S)
+    lam = Lb * d / t**2
+    if lam <= 0.08 * E / Fy:
+        return Mp, "F11-1", lam
+    if lam <= 1.9 * E / Fy:
+        return min(Mp, Cb * (1.52 - 0.274 * lam * Fy / E) * My), "F11-2", lam
+    return min(Mp, 1.9 * E * Cb / lam * S), "F11-3", lam
+
+
+def _wood(member, sh: PlyShare, part, extremes, settings, log, total_b, d_all, key):
+    checks: list[Check] = []
+    out: list[Unchecked] = []
+    mat = part.material
+    pid = sh.id
+    S = sh.width * sh.depth**2 / 6
+    if mat.Fb is None:
+        out.append(
+            Unchecked(
+                f"{key}.bending.{pid}",
+                f"bending of ply {pid}",
+                f"{NDS} §3.3",
+                f"no Fb given for material {mat.id}",
+            )
+        )
+    elif mat.family == "glulam":
+        out.append(
+            Unchecked(
+                f"{key}.bending.{pid}",
+                f"bending of glulam ply {pid} with CV",
+                f"{NDS} §5.3.6",
+                "volume factor CV not implemented",
+            )
+        )
+    elif sh.depth > 12.0 + 1e-6 and mat.extra.get("CF") is None:
+        out.append(Unchecked(f"{key}.bending.{pid}", f"bending of ply {pid}", f"{NDS} Supplement Table 4A",
+                             "ply deeper than 12 in: give the size factor CF on the material"))  # fmt: skip
+    else:
+        cf = float(mat.extra.get("CF") or 1.0)
+        Cr = float(member.design.get("Cr", 1.0))
+        name, cd, Mv = max(
+            ((n, c, float(abs(M).max())) for n, c, _V, M in extremes), key=lambda r: r[2] / r[1]
+        )
+        slog = log.child(f"bending.{pid}")
+        Mi = slog.add("M", f"Moment carried by ply {pid}, {name}", "M_i = share·M", "{s} × {M}",
+                      {"s": round(sh.share, 4), "M": Q_(Mv, "lbf*inch")}, Q_(sh.share * Mv, "lbf*inch"),
+                      source="mechanics of materials (share by E·I)")  # fmt: skip
+        fb = slog.add("fb", f"Bending stress of ply {pid}", "fb = M_i / S, S = b·d²/6", "{M} / {S}",
+                      {"M": Mi, "S": Q_(S, "inch**3")}, (Mi / Q_(S, "inch**3")).to("psi"), source="mechanics of materials")  # fmt: skip
+        Fb_star = adjusted(
+            "Fb",
+            f"Fb* of ply {pid} (all factors but CL), {name}",
+            mat.Fb,
+            Adjust(CD=cd, CF=cf * Cr, method=settings.method),
+            slog,
+        )
+        lu = unbraced_length(member, "top", slog, "lu", f"{NDS} §3.3.3")
+        CL, scope = 1.0, ""
+        if lu is not None and d_all / total_b <= 2.0:
+            slog.add("CL", f"Beam stability factor of ply {pid}", "CL = 1.0 (d/b ≤ 2)", "d/b = {r}", {"r": round(d_all / total_b, 3)},
+                     1.0, source=f"{NDS} §4.4.1.1", note="b = width of the fastened plies together (assumption)")  # fmt: skip
+            scope = "stability"
+        elif lu:
+            if mat.extra.get("Emin") is None:
+                out.append(
+                    Unchecked(
+                        f"{key}.stability.{pid}",
+                        f"beam stability CL of ply {pid}",
+                        f"{NDS} §3.3.3",
+                        f"no Emin given for material {mat.id}",
+                    )
+                )
+            else:
+                le, eq = effective_length(lu, d_all)
+                Emin = adjusted(
+                    "Emin",
+                    f"Emin′ of ply {pid}",
+                    mat.extra["Emin"],
+                    Adjust(1.0, method=settings.method),
+                    slog,
+                )
+                RB, FbE, CL = beam_stability(
+                    float(Fb_star.to("psi").magnitude), float(Emin.to("psi").magnitude), le, d_all, total_b
+                )
+                slog.add("CL", f"Beam stability factor of ply {pid}", "CL = (1 + FbE/Fb*)/1.9 − √(((1 + FbE/Fb*)/1.9)² − (FbE/Fb*)/0.95)",
+                         eq + "; RB = {RB}, FbE = {FbE}", {"RB": round(RB, 2), "FbE": Q_(FbE, "psi")}, CL,
+                         source=f"{NDS} §3.3.3, Eq. 3.3-6", note="b = width of the fastened plies together (assumption)")  # fmt: skip
+                scope = "stability"
+        elif lu == 0.0:
+            scope = "stability"
+        Fb_adj = slog.add("Fb_prime", f"Adjusted bending design value of ply {pid}", "Fb′ = Fb*·CL", "{F} × {CL}",
+                          {"F": Fb_star, "CL": CL}, (Fb_star * CL).to("psi"), source=f"{NDS} §3.3, Table 4.3.1")  # fmt: skip
+        r = float((fb / Fb_adj).to("").magnitude)
+        checks.append(Check(f"{key}.bending.{pid}", f"Bending of ply {pid} under its share ({name})", fb, Fb_adj, r,
+                            _status(r), f"{NDS} §3.3.1", scope=scope))  # fmt: skip
+    if mat.Fv is None:
+        out.append(
+            Unchecked(
+                f"{key}.shear.{pid}",
+                f"shear of ply {pid}",
+                f"{NDS} §3.4",
+                f"no Fv given for material {mat.id}",
+            )
+        )
+        return checks, out
+    name, cd, Vv = max(((n, c, float(abs(V).max())) for n, c, V, _M in extremes), key=lambda r: r[2] / r[1])
+    slog = log.child(f"shear.{pid}")
+    Vi = slog.add("V", f"Shear carried by ply {pid}, {name}", "V_i = share·V", "{s} × {V}",
+                  {"s": round(sh.share, 4), "V": Q_(Vv, "lbf")}, Q_(sh.share * Vv, "lbf"), source="mechanics of materials (share by E·I)")  # fmt: skip
+    fv = slog.add("fv", f"Shear stress of ply {pid}", "fv = 1.5·V_i / (b·d)", "1.5 × {V} / ({b} × {d})",
+                  {"V": Vi, "b": Q_(sh.width, "inch"), "d": Q_(sh.depth, "inch")},
+                  (1.5 * Vi / Q_(sh.width * sh.depth, "inch**2")).to("psi"), source=f"{NDS} §3.4.2, Eq. 3.4-2",
+                  note="largest shear taken at the support (no reduction within d of it)")  # fmt: skip
+    Fv = adjusted("Fv", f"Fv′ of ply {pid}, {name}", mat.Fv, Adjust(CD=cd, method=settings.method), slog)
+    r = float((fv / Fv).to("").magnitude)
+    checks.append(
+        Check(
+            f"{key}.shear.{pid}",
+            f"Shear of ply {pid} under its share ({name})",
+            fv,
+            Fv,
+            r,
+            _status(r),
+            f"{NDS} §3.4.2",
+        )
+    )
+    return checks, out
+
+
+def _steel(member, sh: PlyShare, part, extremes, settings, log, Lb, key):
+    checks: list[Check] = []
+    out: list[Unchecked] = []
+    mat = part.material
+    pid = sh.id
+    if mat.Fy is None:
+        out.append(
+            Unchecked(
+                f"{key}.plate_flexure.{pid}",
+                f"flexure of the flitch plate {pid}",
+                f"{AISC} F11",
+                f"no Fy given for material {mat.id}",
+            )
+        )
+        return checks, out
+    Fy, E = float(mat.Fy.to("psi").magnitude), float(mat.E.to("psi").magnitude)
+    d, t = sh.depth, sh.width
+    Cb = float(member.design.get("Cb", 1.0))
+    lrfd = settings.method == "LRFD"
+    slog = log.child(f"plate.{pid}")
+    Mv = max(float(abs(M).max()) for _n, _c, _V, M in extremes)
+    Vv = max(float(abs(V).max()) for _n, _c, V, _M in extremes)
+    Mi = slog.add("M", f"Moment carried by the plate {pid}", "M_p = share·M", "{s} × {M}", {"s": round(sh.share, 4), "M": Q_(Mv, "lbf*inch")},
+                  Q_(sh.share * Mv, "lbf*inch"), source="mechanics of materials (share by E·I)")  # fmt: skip
+    Mn, eq, lam = plate_flexure(Fy, E, d, t, Lb, Cb)
+    slog.add("slender", f"Slenderness of the plate {pid} for lateral-torsional buckling", "Lb·d / t²", "{Lb} × {d} / {t}²",
+             {"Lb": Q_(Lb, "inch"), "d": Q_(d, "inch"), "t": Q_(t, "inch")}, round(lam, 1), source=f"{AISC} F11.2",
+             note=f"limits 0.08E/Fy = {0.08 * E / Fy:.1f}, 1.9E/Fy = {1.9 * E / Fy:.1f}; Lb = the largest bolt spacing (braced by the timbers at each bolt)")  # fmt: skip
+    tpl = {"F11-1": "Mp = Fy·Z = {Fy} × {Z}", "F11-2": "Cb·[1.52 − 0.274·(Lb·d/t²)·Fy/E]·Fy·Sx ≤ Mp, Cb = {Cb}, Sx = {S}",
+           "F11-3": "Fcr·Sx, Fcr = 1.9·E·Cb/(Lb·d/t²), Cb = {Cb}, Sx = {S}"}[eq]  # fmt: skip
+    Mn_q = slog.add("Mn", f"Nominal flexural strength of the plate {pid}", f"Mn ({eq})", tpl,
+                    {"Fy": mat.Fy, "Z": Q_(t * d * d / 4, "inch**3"), "S": Q_(t * d * d / 6, "inch**3"), "Cb": Cb},
+                    Q_(Mn, "lbf*inch"), source=f"{AISC} F11.1, F11.2, Eq. {eq}")  # fmt: skip
+    Mc = slog.add("Mc", f"Available flexural strength of the plate {pid}", "φb·Mn" if lrfd else "Mn / Ωb", "{Mn} × 0.90" if lrfd else "{Mn} / 1.67",
+                  {"Mn": Mn_q}, (Mn_q * 0.9 if lrfd else Mn_q / 1.67).to("lbf*inch"), source=f"{AISC} F1")  # fmt: skip
+    r = float((Mi / Mc).to("").magnitude)
+    checks.append(
+        Check(
+            f"{key}.plate_flexure.{pid}",
+            f"Flexure of the flitch plate {pid} (F11)",
+            Mi,
+            Mc,
+            r,
+            _status(r),
+            f"{AISC} F11",
+            scope="stability",
+        )
+    )
+    Vi = slog.add("V", f"Shear carried by the plate {pid}", "V_p = share·V", "{s} × {V}", {"s": round(sh.share, 4), "V": Q_(Vv, "lbf")},
+                  Q_(sh.share * Vv, "lbf"), source="mechanics of materials (share by E·I)")  # fmt: skip
+    h_t, lim = d / t, 1.10 * math.sqrt(5.34 * E / Fy)
+    Cv1 = 1.0 if h_t <= lim else lim / h_t
+    slog.add("Cv1", f"Web shear strength coefficient of the plate {pid}", "Cv1 (h/t vs 1.10·√(kv·E/Fy), kv = 5.34)", "h/t = {ht}, limit {lim}",
+             {"ht": round(h_t, 2), "lim": round(lim, 2)}, round(Cv1, 4), source=f"{AISC} G2.1(b), Eq. G2-3 / G2-4")  # fmt: skip
+    Vn = Q_(0.6 * Fy * d * t * Cv1, "lbf")
+    Vc = slog.add("Vc", f"Available shear strength of the plate {pid}", "0.6·Fy·Aw·Cv1 " + ("× φv (0.90)" if lrfd else "/ Ωv (1.67)"),
+                  "0.6 × {Fy} × {Aw} × {Cv1}", {"Fy": mat.Fy, "Aw": Q_(d * t, "inch**2"), "Cv1": round(Cv1, 4)},
+                  (Vn * 0.9 if lrfd else Vn / 1.67).to("lbf"), source=f"{AISC} G2.1, Eq. G2-1; G1")  # fmt: skip
+    r = float((Vi / Vc).to("").magnitude)
+    checks.append(
+        Check(
+            f"{key}.shear.{pid}",
+            f"Shear of the flitch plate {pid} (G2.1)",
+            Vi,
+            Vc,
+            r,
+            _status(r),
+            f"{AISC} G2.1",
+        )
+    )
+    return checks, out
+
+
+def _largest_spacing(joints) -> float | None:
+    vals = [
+        float(z.spacing.to("inch").magnitude)
+        for j in joints
+        if j.schedule is not None
+        for z in j.schedule.zones
+    ]
+    vals += [
+        float(j.spacing_provided.to("inch").magnitude)
+        for j in joints
+        if j.schedule is None and j.spacing_provided is not None
+    ]
+    return max(vals) if vals else None
+
+
+def _minimum_practice(member: Member, joints, key: str) -> Check:
+    """Minimum fastening of plies whatever the load: two rows of 16d common at 12 in for nailed
+    2x plies, two rows of bolts at 24 in staggered for bolted plies (common practice, no source)
+    — INFO, never the design result."""
+    f = member.ply_fastening
+    s = _largest_spacing(joints)
+    bolts = f is not None and f.connector.kind in ("wood_bolt", "lag_screw")
+    rule = "two rows of bolts at 24 in, staggered" if bolts else "two rows of 16d common at 12 in, or equal"
+    meets = f is not None and f.rows >= 2 and s is not None and s <= (24.0 if bolts else 12.0) + 1e-9
+    return Check(f"{key}.ply_minimum", f"Minimum fastening of plies ({rule})", None, None, None, "INFO",
+                 "common practice, no source", note=("provided: " + (f"{f.rows} rows, largest spacing {s:g} in" if f and s else "no schedule")
+                 + ("; meets the rows and spacing of the practice minimum" if meets else "; below the practice minimum in rows or spacing")
+                 + " (a practice rule, not the design result)"))  # fmt: skip
+
+
+def ply_checks(
+    member: Member, shares: tuple[PlyShare, ...], beam, settings: Settings, log: StepLog, joints=()
+) -> tuple[list[Check], list[Unchecked]]:
+    """Checks of every ply under its share, the practice minimum and what did not run."""
+    key = f"member[{member.id}]"
+    checks: list[Check] = []
+    out: list[Unchecked] = []
+    if beam is None:
+        return checks, [
+            Unchecked(
+                f"{key}.bending",
+                "bending of the plies",
+                f"{NDS} §3.3",
+                "members of plies need span and loads",
+            )
+        ]
+    extremes = combination_extremes(beam, settings.method)
+    total_b = sum(s.width for s in shares if s.family != "steel") or sum(s.width for s in shares)
+    d_all = max(s.top for s in shares) - min(s.bottom for s in shares)
+    Lb = _largest_spacing(joints)
+    for sh, ply in zip(shares, member.plies):
+        if sh.family == "steel":
+            if Lb is None:
+                out.append(
+                    Unchecked(
+                        f"{key}.plate_flexure.{sh.id}",
+                        f"flexure of the flitch plate {sh.id}",
+                        f"{AISC} F11",
+                        "no bolt schedule to brace the plate",
+                    )
+                )
+                continue
+            c, u = _steel(member, sh, ply.part, extremes, settings, log, Lb, key)
+        else:
+            c, u = _wood(member, sh, ply.part, extremes, settings, log, total_b, d_all, key)
+        checks += c
+        out += u
+    checks.append(_minimum_practice(member, joints, key))
+    out.append(Unchecked(f"{key}.bearing", "bearing of the plies on the supports, Fc⊥", f"{NDS} §3.10",
+                         "not implemented for plies: each ply is taken to bear on the supports with its own share "
+                         "of the reaction (no reaction passes through the fasteners)"))  # fmt: skip
+    return checks, out
+
+
+def plate_assumed(member: Member, joints) -> list[Assumed]:
+    """The flitch plate's bracing (an assumption the F11 check rests on)."""
+    if not any(p.part.material.family == "steel" for p in member.plies):
+        return []
+    s = _largest_spacing(joints)
+    return [Assumed(f"member[{member.id}].ply_fastening", "Flitch plate braced laterally by the timbers at every bolt (Lb = largest bolt spacing)",
+                    Q_(s, "inch") if s is not None else "—", "spacing_max in [member.ply_fastening] limits Lb", f"{AISC} F11 (assumption)")]  # fmt: skip
+
+
+def ply_expectations(member: Member, has_moment: bool) -> list[Expectation]:
+    """What a plan checker expects of a member of plies."""
+    why = "the job gives no moment (give span and loads)" if not has_moment else "not checked"
+    out = []
+    wood = False
+    for p in member.plies:
+        m = p.part.material
+        if m.family == "steel":
+            out.append(
+                Expectation(
+                    f"plate_flexure.{p.id}",
+                    (f"plate_flexure:{p.id}",),
+                    f"flexure of the flitch plate {p.id}",
+                    f"{AISC} F11",
+                    why,
+                )
+            )
+        else:
+            wood = True
+            out.append(
+                Expectation(
+                    f"bending.{p.id}", (f"bending:{p.id}",), f"bending of ply {p.id}", f"{NDS} §3.3", why
+                )
+            )
+        out.append(
+            Expectation(
+                f"shear.{p.id}",
+                (f"shear:{p.id}",),
+                f"shear of ply {p.id}",
+                f"{AISC} G2.1" if m.family == "steel" else f"{NDS} §3.4",
+                why,
+            )
+        )
+    if wood:
+        out.append(
+            Expectation(
+                "stability",
+                ("stability", "CL"),
+                "lateral stability, beam stability factor CL",
+                f"{NDS} §3.3.3",
+                "no unbraced length given",
+            )
+        )
+        out.append(
+            Expectation(
+                "bearing",
+                ("bearing",),
+                "bearing on the supports, Fc⊥",
+                f"{NDS} §3.10",
+                "not implemented for plies",
+            )
+        )
+    out.append(Expectation("deflection", ("deflection",), "deflection of the plies together", "IBC 2021 Table 1604.3",
+                           "no loads given" if not has_moment else "no deflection limit applies to the load cases given"))  # fmt: skip
+    return out
