@@ -156,6 +156,81 @@ def _overlap_check(
                  "stagger the lines from the two faces (staggered = true in [member.ply_fastening]) or use shorter fasteners")  # fmt: skip
 
 
+@dataclass(frozen=True)
+class PointNeed:
+    """Rows of fasteners a point load needs within its transfer length on one line."""
+
+    index: int
+    name: str
+    tag: str
+    lo: float  # in, the stretch ℓt (clipped to the member)
+    hi: float
+    force: Quantity  # T, the part of the load this line passes (factored, with C_D/C_D,c)
+    rows: int  # n_req = ⌈T / (n·F)⌉
+
+
+def _point_needs(member: Member, line: PlyLine, shares, along, w: list[float], nF: Quantity, log: StepLog) -> list[PointNeed]:
+    """Fasteners at each point load: the part of the load this line passes, T = max over c of
+    γ_c·|P|·|a_k|·C_D/C_D,c, needs n_req = ⌈T / (n·F)⌉ rows within its transfer length ℓt
+    (statics; bolts at each point load: common practice, no source)."""
+    from .plies import entry_fractions, interface_coefficients, transfer_length
+
+    out: list[PointNeed] = []
+    row = float(nF.to("lbf").magnitude)
+    L = float(along.analysis.length.to(_IN).magnitude)
+    for i, ld in enumerate(member.loads, 1):
+        if ld.kind != "point" or ld.at is None:
+            continue
+        a_k = interface_coefficients(entry_fractions(member, ld, shares), shares)
+        a = max(abs(a_k[k]) for k in line.interfaces)
+        P = abs(float(ld.magnitude.to("lbf").magnitude))
+        T = max((cb.factors.get(ld.case, 0.0) * P * a * wc for cb, wc in zip(along.combinations, w)), default=0.0)
+        if T <= 1e-6 * row:
+            continue
+        x = float(ld.at.to(_IN).magnitude)
+        lt = transfer_length(member, ld)
+        name = ld.label or ld.key
+        Tq = log.add(f"load{i}.T", f"Part of {name} this line passes", "T = max over c of γ_c·|P|·|a_k|·C_D/C_D,c",
+                     "{P} × {a}, factored", {"P": Q_(P, "lbf"), "a": round(a, 4)}, Q_(T, "lbf"),
+                     source="statics (see the transfer steps of the plies)")  # fmt: skip
+        need = int(np.ceil(T / row - 1e-9))
+        log.add(f"load{i}.n_req", f"Rows of fasteners needed within the transfer length of {name}", "n_req = ⌈T / (n·F)⌉",
+                "⌈{T} / {nF}⌉", {"T": Tq, "nF": nF}, need, source=SRC_PRACTICE + " (bolts at each point load)",
+                note="the demand within ℓt is raised to n_req·n·F/ℓt so that the schedule places them")  # fmt: skip
+        tag = ld.key.rsplit("load[", 1)[-1].rstrip("]") if "load[" in ld.key else str(i)
+        out.append(PointNeed(i, name, tag, max(0.0, x - lt / 2), min(L, x + lt / 2), Tq, need))
+    return out
+
+
+def _raise_for_points(xs: np.ndarray, q: np.ndarray, needs: list[PointNeed], nF: Quantity) -> np.ndarray:
+    """q(x) within each point load's stretch at least n_req·n·F/ℓt: any spacing the schedule then
+    gives there places n_req rows within it (s ≤ ℓt/n_req)."""
+    row = float(nF.to("lbf").magnitude)
+    out = q.copy()
+    for nd in needs:
+        m = (xs >= nd.lo) & (xs <= nd.hi)
+        out = np.where(m, np.maximum(out, nd.rows * row / max(nd.hi - nd.lo, 1e-9)), out)
+    return out
+
+
+def _point_checks(needs: list[PointNeed], sched) -> list[Check]:
+    """The schedule places at least ⌊ℓt / s⌋ rows within any stretch ℓt at spacing s (the largest
+    zone spacing met over ℓt is used): n_req ≤ ⌊ℓt / s⌋. Common practice, no source."""
+    out: list[Check] = []
+    if not sched.zones:
+        return out
+    for nd in needs:
+        s = max(float(z.spacing.to(_IN).magnitude) for z in sched.zones
+                if float(z.start.to(_IN).magnitude) < nd.hi and float(z.end.to(_IN).magnitude) > nd.lo)  # fmt: skip
+        have = int(np.floor((nd.hi - nd.lo) / s + 1e-9))
+        ok = have >= nd.rows
+        out.append(Check(f"load[{nd.tag}].fasteners", f"Fasteners at point load {nd.name} (rows within its transfer length)",
+                         nd.rows, have, nd.rows / have if have else None, "OK" if ok else "NG", SRC_PRACTICE,
+                         note=f"⌊ℓt / s⌋ with s = {s:g} in" if ok else f"place at least {nd.rows} row(s) within ℓt at the load, "
+                         "or state a longer transfer_length on the load if the hanger or post spreads it"))  # fmt: skip
+    return out
+
+
 def solve_ply_lines(
     member: Member,
     along,
@@ -204,6 +279,9 @@ def solve_ply_lines(
                 q = np.where(better, v, q)
                 gov = np.where(better, c, gov)
         by = tuple(demand.names[g] if g >= 0 else "—" for g in gov)
+        nF = (f.rows * F).to("lbf")
+        needs = _point_needs(member, line, shares, along, w, nF, log.child("points"))
+        q = _raise_for_points(demand.x, q, needs, nF)
         j = int(q.argmax())
         q_peak = log.add("q", "Largest transfer demand per length along the line", "t = max over x, c of |Σ a_k·w(x)|·C_D/C_D,c",
                          "{t} in {by} at x = {x}", {"t": Q_(float(q[j]), "lbf/inch"), "by": by[j], "x": Q_(float(demand.x[j]), _IN)},
@@ -218,7 +296,6 @@ def solve_ply_lines(
             else f"default largest spacing of ply fasteners ({SRC_PRACTICE})"
         )
         res = discrete_spacing(q_peak, f.rows, F, settings.spacing_step, s_min, s_max, log, src)
-        nF = (f.rows * F).to("lbf")
         sched = zoned_schedule(
             Q_(demand.x, _IN), Q_(q, "lbf/inch"), L, nF, settings.spacing_step, res.s_min,
             res.s_max if res.s_max is not None else L, settings.zones_per_half, settings.zone_module,
@@ -229,6 +306,7 @@ def solve_ply_lines(
         ov = _overlap_check(member, line, spec, f.staggered, "connector")
         if ov is not None:
             checks.append(ov)
+        checks += _point_checks(needs, sched)
         checks = [c if c.key.startswith("member[") else replace(c, key=f"{key}.{c.key}") for c in checks]
         status = worst([res.status, sched.status] + [c.status for c in checks])
         out.append(JointResult(
