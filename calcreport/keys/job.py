@@ -485,7 +485,11 @@ PLY_FASTENING = TableSpec(
             default=False,
             help="rows driven from opposite faces are offset along the member (their points may overlap)",
         ),
-        Field("spacing_max", "length", help="largest spacing (default 12 in for nails and screws, 24 in for bolts)"),
+        Field(
+            "spacing_max",
+            "length",
+            help="largest spacing (default 12 in for nails and screws, 24 in for bolts)",
+        ),
         Field("spacing_min", "length", help="smallest spacing allowed"),
     ),
     (PLY_CONNECTOR,),

@@ -205,8 +205,8 @@ def _refuse_plies_side_by_side(member: Member, joint: Joint, held, segments) -> 
             f"joins parts set side by side over {reach / depth:.0%} of the section's depth (a vertical "
             "shear plane): V·Q/I gives these connectors no meaningful demand — they carry the load "
             "that enters one ply across to the others. Describe the member by [[member.ply]] tables "
-            "with [member.ply_fastening] and say where each load enters (enters = \"top\", "
-            "\"left_face\", \"right_face\" or \"ply\"); see docs/job-format.md, Plies side by side",
+            'with [member.ply_fastening] and say where each load enters (enters = "top", '
+            '"left_face", "right_face" or "ply"); see docs/job-format.md, Plies side by side',
         )
 
 

@@ -169,7 +169,9 @@ class PointNeed:
     rows: int  # n_req = ⌈T / (n·F)⌉
 
 
-def _point_needs(member: Member, line: PlyLine, shares, along, w: list[float], nF: Quantity, log: StepLog) -> list[PointNeed]:
+def _point_needs(
+    member: Member, line: PlyLine, shares, along, w: list[float], nF: Quantity, log: StepLog
+) -> list[PointNeed]:
     """Fasteners at each point load: the part of the load this line passes, T = max over c of
     γ_c·|P|·|a_k|·C_D/C_D,c, needs n_req = ⌈T / (n·F)⌉ rows within its transfer length ℓt
     (statics; bolts at each point load: common practice, no source)."""
@@ -184,7 +186,9 @@ def _point_needs(member: Member, line: PlyLine, shares, along, w: list[float], n
         a_k = interface_coefficients(entry_fractions(member, ld, shares), shares)
         a = max(abs(a_k[k]) for k in line.interfaces)
         P = abs(float(ld.magnitude.to("lbf").magnitude))
-        T = max((cb.factors.get(ld.case, 0.0) * P * a * wc for cb, wc in zip(along.combinations, w)), default=0.0)
+        T = max(
+            (cb.factors.get(ld.case, 0.0) * P * a * wc for cb, wc in zip(along.combinations, w)), default=0.0
+        )
         if T <= 1e-6 * row:
             continue
         x = float(ld.at.to(_IN).magnitude)
