@@ -49,10 +49,15 @@ def connector_keys(ct: Table, kind: str, params: dict[str, Any], method: str) ->
 def unused_settings(t: Table, settings: Settings, members: list[Member]) -> None:
     """Warn (``t.warn``) for each job-wide setting given in the file that has no effect on this job."""
     along = [m for m in members if m.loads or m.self_weight]
-    spaced = [j for m in members for j in m.joints if not is_continuous(j.connector.kind, j.connector.params)]
-    spaced_along = [
+    spaced: list = [
+        j for m in members for j in m.joints if not is_continuous(j.connector.kind, j.connector.params)
+    ]
+    spaced_along: list = [
         j for m in along for j in m.joints if not is_continuous(j.connector.kind, j.connector.params)
     ]
+    plies = [m.ply_fastening for m in members if m.ply_fastening is not None]  # always spaced, zoned
+    spaced += plies
+    spaced_along += plies
     for key in ("spacing_step", "spacing_max", "spacing_min"):
         if t.has(key) and not spaced:
             t.warn(key, "no joint of this job has spaced connectors (every connector is continuous)")
@@ -67,7 +72,7 @@ def unused_settings(t: Table, settings: Settings, members: list[Member]) -> None
         nds = [
             j
             for m in members
-            for j in m.joints
+            for j in (*m.joints, *([m.ply_fastening] if m.ply_fastening is not None else []))
             if j.connector.kind in NDS_KINDS and j.connector.params.get("CD") is None
         ]
         # a wood member with plywood webs and a stated shear takes it for its panel shear check

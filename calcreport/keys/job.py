@@ -268,8 +268,8 @@ PART = TableSpec(
         Field("offset", "length", positive=False, help="shift along the face after aligning"),
     ),
     array=True,
-    required=True,
-)
+)  # required unless the member is described by plies ([[member.ply]]); see schema.py
+
 
 CONNECTOR = TableSpec(
     "connector",
