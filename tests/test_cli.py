@@ -73,7 +73,7 @@ def test_several_jobs_and_ng_exit_1(cli, write_job):
     assert "NG" in out and "below the minimum spacing" in out
 
 
-@pytest.mark.parametrize("kind", ["box", "girder", "tee"])
+@pytest.mark.parametrize("kind", ["box", "girder", "tee", "plies", "side-loaded", "flitch"])
 def test_new_writes_a_starter_that_checks(kind, cli, tmp_path):
     dest = tmp_path / f"{kind}.toml"
     code, out, err = cli("new", str(dest), "--kind", kind)
