@@ -326,7 +326,9 @@ def plate_assumed(member: Member, joints) -> list[Assumed]:
         return []
     s = _largest_spacing(joints)
     return [Assumed(f"member[{member.id}].ply_fastening", "Flitch plate braced laterally by the timbers at every bolt (Lb = largest bolt spacing)",
-                    Q_(s, "inch") if s is not None else "—", "spacing_max in [member.ply_fastening] limits Lb", f"{AISC} F11 (assumption)")]  # fmt: skip
+                    Q_(s, "inch") if s is not None else "—", "spacing_max in [member.ply_fastening] limits Lb", f"{AISC} F11 (assumption)"),
+            Assumed(f"member[{member.id}].ply_fastening.bearings", "Flitch plate not relied on to bear on the supports: its share of each reaction passes to the timbers through the bolts within d of the bearing",
+                    "bolts at the bearings", "not adjustable", "common practice, no source")]  # fmt: skip
 
 
 def ply_expectations(member: Member, has_moment: bool) -> list[Expectation]:

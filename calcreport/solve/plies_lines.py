@@ -206,6 +206,49 @@ def _point_needs(
     return out
 
 
+def _bearing_needs(
+    member: Member, line: PlyLine, shares, along, w: list[float], nF: Quantity, log: StepLog
+) -> list[PointNeed]:
+    """Bolts at the bearings of a flitch beam: the plate is not relied on to bear on the supports
+    (assumption, recorded); each reaction enters the wood plies by their widths and the part
+    R·|a_k| crosses the line within the member's depth d of the support (both sides of an interior
+    one): n_req = ⌈R·|a_k| / (n·F)⌉ rows there, R the largest reaction with C_D,used/C_D,c.
+    Statics; common practice, no source."""
+    from .plies import interface_coefficients
+
+    if not any(s.family == "steel" for s in shares):
+        return []
+    wood = [0.0 if s.family == "steel" else s.width for s in shares]
+    e = tuple(v / sum(wood) for v in wood)
+    a = max(abs(interface_coefficients(e, shares)[k]) for k in line.interfaces)
+    if a <= 1e-12:
+        return []
+    names = [cb.name for cb in along.combinations]
+    V, _by = along.analysis.shear_abs_weighted(dict(zip(names, w)))
+    xs = np.asarray(along.analysis.envelope.x.to(_IN).magnitude)
+    Vm = np.asarray(V.to("lbf").magnitude)
+    L = float(along.analysis.length.to(_IN).magnitude)
+    d = max(s.top for s in shares) - min(s.bottom for s in shares)
+    row = float(nF.to("lbf").magnitude)
+    out: list[PointNeed] = []
+    for i, sup in enumerate(along.analysis.supports, 1):
+        x = float(sup.x.to(_IN).magnitude)
+        at = np.abs(xs - x) <= 1e-6 * max(L, 1.0)
+        R = float(Vm[at].sum()) if at.any() else 0.0  # |V| on both sides: at least the reaction
+        T = R * a
+        if T <= 1e-6 * row:
+            continue
+        Tq = log.add(f"support{i}.T", f"Plate's part of the reaction at support {i} crossing this line",
+                     "T = R·|a_k|, R = Σ |V| beside the support", "{R} × {a}", {"R": Q_(R, "lbf"), "a": round(a, 4)},
+                     Q_(T, "lbf"), source="statics; the plate is not relied on for bearing (assumption)")  # fmt: skip
+        need = int(np.ceil(T / row - 1e-9))
+        log.add(f"support{i}.n_req", f"Rows of bolts needed within d of support {i}", "n_req = ⌈T / (n·F)⌉", "⌈{T} / {nF}⌉",
+                {"T": Tq, "nF": nF}, need, source=SRC_PRACTICE + " (bolts at the bearings)",
+                note="the demand within d of the support is raised so that the schedule places them")  # fmt: skip
+        out.append(PointNeed(i, f"support {i}", f"support{i}", max(0.0, x - d), min(L, x + d), Tq, need))
+    return out
+
+
 def _raise_for_points(xs: np.ndarray, q: np.ndarray, needs: list[PointNeed], nF: Quantity) -> np.ndarray:
     """q(x) within each point load's stretch at least n_req·n·F/ℓt: any spacing the schedule then
     gives there places n_req rows within it (s ≤ ℓt/n_req)."""
@@ -228,7 +271,15 @@ def _point_checks(needs: list[PointNeed], sched) -> list[Check]:
                 if float(z.start.to(_IN).magnitude) < nd.hi and float(z.end.to(_IN).magnitude) > nd.lo)  # fmt: skip
         have = int(np.floor((nd.hi - nd.lo) / s + 1e-9))
         ok = have >= nd.rows
-        out.append(Check(f"load[{nd.tag}].fasteners", f"Fasteners at point load {nd.name} (rows within its transfer length)",
+        what = (
+            f"the bearing at {nd.name} (rows within d of it)"
+            if nd.tag.startswith("support")
+            else f"point load {nd.name} (rows within its transfer length)"
+        )
+        key = (
+            f"bearing[{nd.index}].fasteners" if nd.tag.startswith("support") else f"load[{nd.tag}].fasteners"
+        )
+        out.append(Check(key, f"Fasteners at {what}",
                          nd.rows, have, nd.rows / have if have else None, "OK" if ok else "NG", SRC_PRACTICE,
                          note=f"⌊ℓt / s⌋ with s = {s:g} in" if ok else f"place at least {nd.rows} row(s) within ℓt at the load, "
                          "or state a longer transfer_length on the load if the hanger or post spreads it"))  # fmt: skip
@@ -285,6 +336,7 @@ def solve_ply_lines(
         by = tuple(demand.names[g] if g >= 0 else "—" for g in gov)
         nF = (f.rows * F).to("lbf")
         needs = _point_needs(member, line, shares, along, w, nF, log.child("points"))
+        needs += _bearing_needs(member, line, shares, along, w, nF, log.child("bearings"))
         q = _raise_for_points(demand.x, q, needs, nF)
         j = int(q.argmax())
         q_peak = log.add("q", "Largest transfer demand per length along the line", "t = max over x, c of |Σ a_k·w(x)|·C_D/C_D,c",
