@@ -246,3 +246,25 @@ def test_members_of_plies_build_complete_reports(write_job, cli, tmp_path, text)
     for words in ("Load sharing between plies", "Fasteners between plies", "transfer demand", "share"):
         assert words in body, words
     assert "NDS 2018" in body and "not checked" in body.lower()
+
+
+def test_bearing_of_the_plies_with_a_bearing_length_and_Fc_perp():
+    # NDS 2018 §3.10.2: fc⊥ = R_i/(b·lb); 3 equal plies, R = 350 plf × 10 ft / 2 = 1750 lbf, each ply
+    # its share 1/3 on lb = 3 in: 583.3/(1.5 × 3) = 129.6 psi against Fc⊥′ = 625 psi (DF-L,
+    # NDS Supplement Table 4A, from memory; no C_D for Fc⊥, Table 4.3.1; Cb = 1.0 taken).
+    text = three_ply_side().replace("G = 0.50\n", 'G = 0.50\nFc_perp = "625 psi"\n', 1)
+    text = text.replace("continuous_bracing = true", 'continuous_bracing = true\nbearing_length = "3 in"')
+    m = solved(text)
+    c = next(c for c in m.checks if c.key == "member[H3].bearing.support1")
+    assert mag(c.demand, "psi") == pytest.approx(1750 / 3 / (1.5 * 3), rel=1e-6)
+    assert mag(c.capacity, "psi") == pytest.approx(625.0)
+    assert not any(u.key.endswith(".bearing") for u in m.not_checked)
+    # without a bearing length the bearing is listed as not checked, with the reason
+    m2 = solved(three_ply_side())
+    assert any(u.key.endswith(".bearing") and "bearing_length" in u.reason for u in m2.not_checked)
+
+
+def test_Fc_perp_without_a_ply_bearing_check_warns(write_job, cli):
+    text = three_ply_side().replace('G = 0.50\n', 'G = 0.50\nFc_perp = "625 psi"\n', 1)
+    code, out, err = cli("check", write_job(text))
+    assert code in (0, 1) and "Fc_perp" in err and "warning" in err and "bearing_length" in err

@@ -94,6 +94,9 @@ def load_text(data: bytes, path: str = "<job>") -> Job:
         )
     root.done()
     unused_settings(settings_table, settings, members)
+    from .plies import unused_ply_keys
+
+    unused_ply_keys(root, members)
     return Job(
         path,
         hashlib.sha256(data).hexdigest(),

@@ -17,7 +17,14 @@ from .lumber import LumberSizeError, dressed_size
 from .reader import Table
 from .unused import connector_keys
 
-__all__ = ["read_plies", "read_ply_fastening", "check_ply_loads", "PLY_CONNECTORS", "MAX_PLIES"]
+__all__ = [
+    "read_plies",
+    "read_ply_fastening",
+    "check_ply_loads",
+    "unused_ply_keys",
+    "PLY_CONNECTORS",
+    "MAX_PLIES",
+]
 
 #: Most plies in one member: fasteners driven from the faces reach the two interfaces of three
 #: plies; through-fastened assemblies of more plies are not designed by this version.
@@ -200,4 +207,21 @@ def check_ply_loads(t: Table, member: Member) -> None:
             raise lt.error(
                 "transfer_length",
                 "transfer_length is for point loads (a distributed load passes on where it acts)",
+            )
+
+
+def unused_ply_keys(root: Table, members: list[Member]) -> None:
+    """Warn for ``Fc_perp`` on a material that no ply bearing check reads (a key without effect)."""
+    used = {
+        p.part.material.id
+        for m in members
+        if m.plies and m.design.get("bearing_length") is not None
+        for p in m.plies
+    }
+    for mt in root.tables("material"):
+        if mt.has("Fc_perp") and mt.data.get("id") not in used:
+            mt.warn(
+                "Fc_perp",
+                "Fc_perp is read only for the bearing of plies ([[member.ply]] with bearing_length "
+                "in [member.design]); no such ply uses this material",
             )

@@ -69,12 +69,9 @@ def unused_settings(t: Table, settings: Settings, members: list[Member]) -> None
                 "and spaced connectors)",
             )
     if t.has("load_duration"):
-        nds = [
-            j
-            for m in members
-            for j in (*m.joints, *([m.ply_fastening] if m.ply_fastening is not None else []))
-            if j.connector.kind in NDS_KINDS and j.connector.params.get("CD") is None
-        ]
+        specs = [j.connector for m in members for j in m.joints]
+        specs += [m.ply_fastening.connector for m in members if m.ply_fastening is not None]
+        nds = [c for c in specs if c.kind in NDS_KINDS and c.params.get("CD") is None]
         # a wood member with plywood webs and a stated shear takes it for its panel shear check
         panel_web = [
             m

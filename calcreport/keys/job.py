@@ -222,6 +222,12 @@ MATERIAL = TableSpec(
             maximum=1.5,
             help="size factor of wood bending (NDS 2018 Supplement Table 4A; default 1.0 up to 12 in wide)",
         ),
+        # --- plies side by side (issue 14) ---
+        Field(
+            "Fc_perp",
+            "stress",
+            help="compression perpendicular to grain Fc⊥ (wood; bearing of plies on the supports, NDS 2018 §3.10)",
+        ),
     ),
     (PANEL,),
     array=True,

@@ -133,6 +133,8 @@ def _wood(member, sh: PlyShare, part, extremes, settings, log, total_b, d_all, k
                          source=f"{NDS} §3.3.3, Eq. 3.3-6", note="b = width of the fastened plies together (assumption)")  # fmt: skip
                 scope = "stability"
         elif lu == 0.0:
+            slog.add("CL", f"Beam stability factor of ply {pid}", "CL = 1.0 (braced along its length)", "ℓu = {lu}",
+                     {"lu": Q_(0.0, "inch")}, 1.0, source=f"{NDS} §3.3.3")  # fmt: skip
             scope = "stability"
         Fb_adj = slog.add("Fb_prime", f"Adjusted bending design value of ply {pid}", "Fb′ = Fb*·CL", "{F} × {CL}",
                           {"F": Fb_star, "CL": CL}, (Fb_star * CL).to("psi"), source=f"{NDS} §3.3, Table 4.3.1")  # fmt: skip
@@ -314,10 +316,67 @@ def ply_checks(
         checks += c
         out += u
     checks.append(_minimum_practice(member, joints, key))
-    out.append(Unchecked(f"{key}.bearing", "bearing of the plies on the supports, Fc⊥", f"{NDS} §3.10",
-                         "not implemented for plies: each ply is taken to bear on the supports with its own share "
-                         "of the reaction (no reaction passes through the fasteners)"))  # fmt: skip
+    c, u = _bearing(member, shares, beam, settings, log.child("bearing"), key)
+    checks += c
+    out += u
     return checks, out
+
+
+def _bearing(member: Member, shares: tuple[PlyShare, ...], beam, settings: Settings, log: StepLog, key: str):
+    """Bearing of the wood plies on the supports: fc⊥ = R_i / (b_i·lb) ≤ Fc⊥′ = Fc⊥·CM·Ct·Cb
+    (NDS 2018 §3.10.2, Table 4.3.1; no C_D for Fc⊥; LRFD KF = 1.67, φ = 0.90), Cb = 1.0 taken
+    (§3.10.4 allows more away from the ends). R_i: all-wood members, each ply's share of the
+    reaction (each ply bears with its share); flitch beams, the wood plies by width (the plate is
+    not relied on to bear). R = Σ |V| beside the support over the envelope."""
+    import numpy as np
+
+    wood = [(s, p) for s, p in zip(shares, member.plies) if s.family != "steel"]
+    lb_q = member.design.get("bearing_length")
+    missing = [p.part.material.id for _s, p in wood if p.part.material.extra.get("Fc_perp") is None]
+    if lb_q is None or missing:
+        why = (
+            "no bearing_length in [member.design]"
+            if lb_q is None
+            else f"no Fc_perp given for material {', '.join(sorted(set(missing)))}"
+        )
+        return [], [
+            Unchecked(f"{key}.bearing", "bearing of the plies on the supports, Fc⊥", f"{NDS} §3.10", why)
+        ]
+    lb = float(lb_q.to("inch").magnitude)
+    flitch = len(wood) < len(shares)
+    bw = sum(s.width for s, _p in wood)
+    env = beam.analysis.envelope
+    xs = np.asarray(env.x.to("inch").magnitude)
+    V = np.asarray(env.V_abs.to("lbf").magnitude)
+    L = float(beam.analysis.length.to("inch").magnitude)
+    lrfd = settings.method == "LRFD"
+    checks: list[Check] = []
+    for i, sup in enumerate(beam.analysis.supports, 1):
+        x = float(sup.x.to("inch").magnitude)
+        at = np.abs(xs - x) <= 1e-6 * max(L, 1.0)
+        R = float(V[at].sum()) if at.any() else 0.0
+        slog = log.child(f"support{i}")
+        Rq = slog.add("R", f"Reaction at support {i} (largest over the combinations)", "R = Σ |V| beside the support", "{R}",
+                      {"R": Q_(R, "lbf")}, Q_(R, "lbf"), source="statics")  # fmt: skip
+        worst_c: Check | None = None
+        for s, p in wood:
+            part = Rq * (s.width / bw if flitch else s.share)
+            fc = slog.add(f"{s.id}.fc", f"Bearing stress of ply {s.id} at support {i}", "fc⊥ = R_i / (b·lb)", "{R} / ({b} × {lb})",
+                          {"R": part, "b": Q_(s.width, "inch"), "lb": lb_q}, (part / Q_(s.width * lb, "inch**2")).to("psi"),
+                          source=f"{NDS} §3.10.2", note="plate not relied on to bear" if flitch else "each ply bears with its share")  # fmt: skip
+            F = p.part.material.extra["Fc_perp"]
+            Fa = slog.add(f"{s.id}.Fc_perp", f"Adjusted Fc⊥ of ply {s.id}", "Fc⊥′ = Fc⊥·KF·φ·CM·Ct·Cb" if lrfd else "Fc⊥′ = Fc⊥·CM·Ct·Cb",
+                          "{F} × 1.67 × 0.90 × 1.0 × 1.0 × 1.0" if lrfd else "{F} × 1.0 × 1.0 × 1.0", {"F": F},
+                          (F * (1.67 * 0.9 if lrfd else 1.0)).to("psi"), source=f"{NDS} Table 4.3.1, §3.10.4",
+                          note="CM = Ct = 1.0 (dry, normal temperature) and Cb = 1.0 taken; no C_D for Fc⊥")  # fmt: skip
+            r = float((fc / Fa).to("").magnitude)
+            c = Check(f"{key}.bearing.support{i}", f"Bearing of the plies on support {i} (Fc⊥; ply {s.id} governs)", fc, Fa, r,
+                      _status(r), f"{NDS} §3.10")  # fmt: skip
+            if worst_c is None or r > (worst_c.ratio or 0.0):
+                worst_c = c
+        if worst_c is not None:
+            checks.append(worst_c)
+    return checks, []
 
 
 def plate_assumed(member: Member, joints) -> list[Assumed]:
@@ -380,7 +439,7 @@ def ply_expectations(member: Member, has_moment: bool) -> list[Expectation]:
                 ("bearing",),
                 "bearing on the supports, Fc⊥",
                 f"{NDS} §3.10",
-                "not implemented for plies",
+                "no bearing_length in [member.design] or no Fc_perp on the wood materials",
             )
         )
     out.append(Expectation("deflection", ("deflection",), "deflection of the plies together", "IBC 2021 Table 1604.3",
