@@ -231,7 +231,7 @@ def transfer_demand(
                 if ld.enters == "top" else "statics", note=f"enters: {ld.enters or 'own weight of each ply'}")  # fmt: skip
         for k in range(nk):
             log.add(f"load{i}.a{k + 1}", f"Part of {name} crossing interface {shares[k].id}|{shares[k + 1].id}",
-                    "a_k = Σ_{i≤k} (e_i − share_i)", "{a}", {"a": round(a[k], 4)}, a[k], source=SRC_TRANSFER)  # fmt: skip
+                    "a_k = Σ (e_i − share_i) over the plies i ≤ k", "{a}", {"a": round(a[k], 4)}, a[k], source=SRC_TRANSFER)  # fmt: skip
             if ld.kind == "point":
                 log.add(f"load{i}.lt", f"Transfer length of {name}", "ℓt", "{lt}", {"lt": Q_(lt, _IN)}, Q_(lt, _IN),
                         source="assumption (stated on the load, or the member's depth)", positions=("result",),

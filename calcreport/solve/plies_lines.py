@@ -267,8 +267,10 @@ def _point_checks(needs: list[PointNeed], sched) -> list[Check]:
     if not sched.zones:
         return out
     for nd in needs:
-        s = max(float(z.spacing.to(_IN).magnitude) for z in sched.zones
-                if float(z.start.to(_IN).magnitude) < nd.hi and float(z.end.to(_IN).magnitude) > nd.lo)  # fmt: skip
+        s = max((float(z.spacing.to(_IN).magnitude) for z in sched.zones
+                 if float(z.start.to(_IN).magnitude) < nd.hi and float(z.end.to(_IN).magnitude) > nd.lo), default=None)  # fmt: skip
+        if s is None or nd.hi - nd.lo <= 0:
+            continue  # a stretch of no length on the member: nothing to place
         have = int(np.floor((nd.hi - nd.lo) / s + 1e-9))
         ok = have >= nd.rows
         what = (
