@@ -136,7 +136,9 @@ def build_parser() -> argparse.ArgumentParser:
         "--kind",
         choices=sorted(STARTERS),
         default="box",
-        help="box: nailed plywood box beam; girder: welded steel plate girder; tee: glued T-beam",
+        help="box: nailed plywood box beam; girder: welded steel plate girder; tee: glued T-beam; "
+        "plies: two-ply nailed header, top-loaded; side-loaded: three-ply beam loaded on one face; "
+        "flitch: steel plate bolted between two timbers",
     )
     n.add_argument("--force", action="store_true", help="overwrite an existing file")
     n.set_defaults(func=_cmd_new)

@@ -21,6 +21,8 @@ __all__ = [
     "ConnectorSpec",
     "Joint",
     "Member",
+    "Ply",
+    "PlyFastening",
     "Job",
     "Load",
     "Support",
@@ -201,6 +203,10 @@ class Load:
     offset: Quantity | None = None  # position within its group
     between: tuple[Quantity, Quantity] | None = None  # travel range of a moving load or group
     variable: bool = False  # a case of the job's own marked as variable (placed for worst effect)
+    # members of plies side by side (issue 14): where the load enters the plies
+    enters: str = ""  # "top" (bears on the plies' tops), "left_face", "right_face", "ply"; "" elsewhere
+    ply: str = ""  # id of the ply a load enters (enters = "ply")
+    transfer_length: Quantity | None = None  # point loads: length over which a ply passes it on
 
 
 @dataclass(frozen=True)
@@ -210,6 +216,30 @@ class Combination:
     name: str
     factors: dict[str, float]
     source: str = ""
+
+
+@dataclass(frozen=True)
+class Ply:
+    """One ply of a member built of plies side by side (``[[member.ply]]``), in order across the
+    width; its ``part`` is the placed piece of the section (also in ``Member.parts``)."""
+
+    id: str
+    part: Part
+    key: str = ""  # job-file key path, for messages
+
+
+@dataclass(frozen=True)
+class PlyFastening:
+    """The fasteners joining the plies (``[member.ply_fastening]``)."""
+
+    connector: ConnectorSpec
+    rows: int  # rows of fasteners across the depth (connectors side by side in one row)
+    through: bool = False  # each fastener passes through every ply (through-bolts)
+    face: str = "left"  # two plies driven from one face: the face the heads are on
+    staggered: bool = False  # rows from opposite faces (or across the depth) offset along the member
+    spacing_max: Quantity | None = None
+    spacing_min: Quantity | None = None
+    key: str = ""
 
 
 @dataclass(frozen=True)
@@ -231,6 +261,8 @@ class Member:
     assumptions: tuple[str, ...] = ()
     notes: tuple[str, ...] = ()
     design: dict[str, Any] = field(default_factory=dict)  # [member.design]: member-check inputs
+    plies: tuple[Ply, ...] = ()  # [[member.ply]]: plies side by side (parts are their pieces)
+    ply_fastening: PlyFastening | None = None
 
 
 @dataclass(frozen=True)

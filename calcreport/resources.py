@@ -14,6 +14,9 @@ STARTERS = {
     "box": "starter-box-beam.toml",
     "girder": "starter-plate-girder.toml",
     "tee": "starter-glued-tee.toml",
+    "plies": "starter-multi-ply-header.toml",
+    "side-loaded": "starter-side-loaded-3-ply.toml",
+    "flitch": "starter-flitch-beam.toml",
 }
 
 

@@ -121,6 +121,8 @@ def _table(spec: TableSpec) -> dict[str, Any]:
     required = [f.name for f in spec.fields if f.required] + [t.name for t in spec.tables if t.required]
     if required:
         out["required"] = required
+    if spec.name == "member":  # a member is described by its parts or by its plies (issue 14)
+        out["anyOf"] = [{"required": ["part"]}, {"required": ["ply"]}]
     if spec.free:
         out["additionalProperties"] = {"type": spec.free}
     else:
@@ -216,7 +218,7 @@ def results_schema() -> dict[str, Any]:
             "connector_source": {"type": "string"},
             "per_row": {"type": "integer"},
             "continuous": {"type": "boolean"},
-            "Q": q,
+            "Q": q_or_null,  # null on fastener lines between plies (no shear flow V·Q/I)
             "shear": q,
             "shear_flow": q,
             "capacity": q,

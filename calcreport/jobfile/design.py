@@ -76,7 +76,7 @@ def read_design(t: Table) -> dict[str, Any]:
 
 def read_wood_keys(t: Table) -> dict[str, Any]:
     """Ft, Fc and Emin of a material, when given (stresses), and its bending size factor CF."""
-    out: dict[str, Any] = {k: t.quantity(k, "stress") for k in ("Ft", "Fc", "Emin")}
+    out: dict[str, Any] = {k: t.quantity(k, "stress") for k in ("Ft", "Fc", "Emin", "Fc_perp")}
     out["CF"] = t.number("CF", None, minimum=0.5, maximum=1.5)
     return out
 

@@ -8,6 +8,7 @@ from __future__ import annotations
 
 import hashlib
 import tomllib
+from dataclasses import replace
 
 from ..errors import JobError, excerpt
 from ..keys import connectors
@@ -102,6 +103,9 @@ def load_text(data: bytes, path: str = "<job>") -> Job:
     root.done()
     unused_settings(settings_table, settings, members)
     unused_ec5_settings(settings_table, settings, members)
+    from .plies import unused_ply_keys
+
+    unused_ply_keys(root, members)
     return Job(
         path,
         hashlib.sha256(data).hexdigest(),
@@ -269,11 +273,24 @@ def _member(t: Table, materials: dict[str, Material], settings: Settings) -> Mem
     t.expect(decl.names(decl.MEMBER))
     mid = t.ident("id")
     part_tables = t.tables("part")
-    if not part_tables:
+    ply_tables = t.tables("ply")
+    plies: tuple = ()
+    if ply_tables:
+        from .plies import read_plies
+
+        if part_tables:
+            raise t.error("part", "a member is described by [[member.part]] or by [[member.ply]], not both")
+        if t.has("joint"):
+            raise t.error(
+                "joint", "plies are joined by [member.ply_fastening], not [[member.joint]]; remove the joint"
+            )
+        plies = read_plies(t, ply_tables, materials)
+        part_tables = []
+    elif not part_tables:
         raise t.error(None, "missing required key 'part' (at least one [[member.part]])")
     if len(part_tables) > MAX_PARTS:
         raise t.error("part", f"expected at most {MAX_PARTS} parts, got {len(part_tables)}")
-    placed: dict[str, Part] = {}
+    placed: dict[str, Part] = {p.id: p.part for p in plies}
     for pt in part_tables:
         p = read_part(pt, materials, placed)
         placed[p.id] = p
@@ -308,7 +325,14 @@ def _member(t: Table, materials: dict[str, Material], settings: Settings) -> Mem
         notes=t.texts("notes"),
         design=read_design(t),
     )
+    if plies:
+        from .plies import read_ply_fastening
+
+        member = replace(member, plies=plies, ply_fastening=read_ply_fastening(t, plies, settings.method))
     member = _loads_hook(t, member, settings)
+    from .plies import check_ply_loads
+
+    check_ply_loads(t, member)
     if member.shear is not None and (member.loads or member.self_weight):
         raise t.error(
             "shear",

@@ -275,8 +275,22 @@ def _load(t: Table, span) -> Load:
             start is not None and start >= span * (1 - 1e-12)
         ):
             raise t.error("from" if start is not None else "to", "the load has no length on the member")
+    ld = _entry(t, ld)
     t.done()
     return ld
+
+
+def _entry(t: Table, ld: Load) -> Load:
+    """Where a load enters a member of plies (checked against the plies in jobfile/plies.py)."""
+    enters = t.choice("enters", decl.LOAD_ENTRIES)
+    if enters is None and not t.has("ply") and not t.has("transfer_length"):
+        return ld
+    return replace(
+        ld,
+        enters=enters or "",
+        ply=t.text("ply"),
+        transfer_length=t.quantity("transfer_length", "length"),
+    )
 
 
 def _between(t: Table, span):

@@ -49,10 +49,15 @@ def connector_keys(ct: Table, kind: str, params: dict[str, Any], method: str) ->
 def unused_settings(t: Table, settings: Settings, members: list[Member]) -> None:
     """Warn (``t.warn``) for each job-wide setting given in the file that has no effect on this job."""
     along = [m for m in members if m.loads or m.self_weight]
-    spaced = [j for m in members for j in m.joints if not is_continuous(j.connector.kind, j.connector.params)]
-    spaced_along = [
+    spaced: list = [
+        j for m in members for j in m.joints if not is_continuous(j.connector.kind, j.connector.params)
+    ]
+    spaced_along: list = [
         j for m in along for j in m.joints if not is_continuous(j.connector.kind, j.connector.params)
     ]
+    plies = [m.ply_fastening for m in members if m.ply_fastening is not None]  # always spaced, zoned
+    spaced += plies
+    spaced_along += plies
     for key in ("spacing_step", "spacing_max", "spacing_min"):
         if t.has(key) and not spaced:
             t.warn(key, "no joint of this job has spaced connectors (every connector is continuous)")
@@ -64,12 +69,9 @@ def unused_settings(t: Table, settings: Settings, members: list[Member]) -> None
                 "and spaced connectors)",
             )
     if t.has("load_duration"):
-        nds = [
-            j
-            for m in members
-            for j in m.joints
-            if j.connector.kind in NDS_KINDS and j.connector.params.get("CD") is None
-        ]
+        specs = [j.connector for m in members for j in m.joints]
+        specs += [m.ply_fastening.connector for m in members if m.ply_fastening is not None]
+        nds = [c for c in specs if c.kind in NDS_KINDS and c.params.get("CD") is None]
         # a wood member with plywood webs and a stated shear takes it for its panel shear check
         panel_web = [
             m

@@ -24,6 +24,8 @@ __all__ = [
     "DESIGN",
     "PART",
     "JOINT",
+    "PLY",
+    "PLY_FASTENING",
     "ROOT",
     "names",
 ]
@@ -34,6 +36,8 @@ PLACEMENTS = ("on", "below", "left_of", "right_of", "at")
 FAMILIES = ("wood", "plywood", "glulam", "steel", "concrete", "aluminum", "other")
 SUPPORT_TYPES = ("pin", "roller", "fixed")
 LOAD_KINDS = ("uniform", "point", "linear")
+#: Where a load enters a member of plies side by side (issue 14).
+LOAD_ENTRIES = ("top", "left_face", "right_face", "ply")
 
 
 @dataclass(frozen=True)
@@ -312,6 +316,12 @@ MATERIAL = TableSpec(
             maximum=1.5,
             help="size factor of wood bending (NDS 2018 Supplement Table 4A; default 1.0 up to 12 in wide)",
         ),
+        # --- plies side by side (issue 14) ---
+        Field(
+            "Fc_perp",
+            "stress",
+            help="compression perpendicular to grain Fc⊥ (wood; bearing of plies on the supports, NDS 2018 §3.10)",
+        ),
     )
     + EC5_MATERIAL,
     (PANEL,),
@@ -359,8 +369,8 @@ PART = TableSpec(
         Field("offset", "length", positive=False, help="shift along the face after aligning"),
     ),
     array=True,
-    required=True,
-)
+)  # required unless the member is described by plies ([[member.ply]]); see schema.py
+
 
 CONNECTOR = TableSpec(
     "connector",
@@ -420,6 +430,21 @@ LOAD = TableSpec(
         Field("group", "text", help="moving point loads with the same group move together at fixed offsets"),
         Field("offset", "length", positive=False, help="position of a moving load within its group"),
         Field("between", "point", help='travel range of a moving load or group, e.g. ["0 ft", "16 ft"]'),
+        # --- plies side by side (issue 14): where a load enters the plies ---
+        Field(
+            "enters",
+            "choice",
+            choices=LOAD_ENTRIES,
+            help="members of plies: top (bears on the plies' tops, shared by bearing), left_face / "
+            "right_face (hung from the first / last ply: ledger, hangers) or ply (one ply, see ply)",
+        ),
+        Field("ply", "text", help='members of plies: id of the ply the load enters (with enters = "ply")'),
+        Field(
+            "transfer_length",
+            "length",
+            help="members of plies, point loads: length along the member over which the loaded ply "
+            "passes the load on to the others (default: the member's depth)",
+        ),
     ),
     array=True,
 )
@@ -505,6 +530,72 @@ DESIGN = TableSpec(
     ),
 )
 
+# --- plies side by side and flitch beams (issue 14) -------------------------------------------
+
+PLY = TableSpec(
+    "ply",
+    "one ply of a member built of plies set side by side, listed in order across the width "
+    "(left to right); instead of [[member.part]]",
+    (
+        Field("id", "id", required=True, help="short id that loads refer to"),
+        Field("material", "text", required=True, help="id of a [[material]]"),
+        Field("label", "text", help="name printed in the report"),
+        Field("size", "text", help='nominal dressed lumber size, on edge, e.g. "2x12"'),
+        Field("width", "length", help="width across the member (LVL, glulam: with depth)"),
+        Field("depth", "length", help="depth (LVL, glulam: with width; steel plate: with thickness)"),
+        Field("thickness", "length", help="thickness of a steel flitch plate (with depth)"),
+        Field(
+            "align",
+            "choice",
+            default="bottom",
+            choices=("bottom", "top"),
+            help="set flush with the other plies at the bottom (default) or at the top",
+        ),
+    ),
+    array=True,
+)
+
+PLY_CONNECTOR = TableSpec(
+    "connector",
+    "the fastener between the plies (nail, wood_screw, lag_screw, wood_bolt or given)",
+    required=True,
+    connector=True,
+)
+
+PLY_FASTENING = TableSpec(
+    "ply_fastening",
+    "the fasteners that join the plies and carry the load that enters one ply across to the others",
+    (
+        Field("rows", "int", required=True, minimum=1, maximum=12, help="rows of fasteners across the depth"),
+        Field(
+            "through",
+            "bool",
+            default=False,
+            help="each fastener passes through every ply (through-bolts; three plies: double shear); "
+            "otherwise fasteners are driven from the outer faces, one line per interface",
+        ),
+        Field(
+            "face",
+            "choice",
+            choices=("left", "right"),
+            help="two plies fastened from one face: the face the heads are on (default left)",
+        ),
+        Field(
+            "staggered",
+            "bool",
+            default=False,
+            help="rows driven from opposite faces are offset along the member (their points may overlap)",
+        ),
+        Field(
+            "spacing_max",
+            "length",
+            help="largest spacing (default 12 in for nails and screws, 24 in for bolts)",
+        ),
+        Field("spacing_min", "length", help="smallest spacing allowed"),
+    ),
+    (PLY_CONNECTOR,),
+)
+
 MEMBER = TableSpec(
     "member",
     "a built-up member: its parts, joints and either a design shear or loads along it",
@@ -523,7 +614,7 @@ MEMBER = TableSpec(
         Field("span", "length", help="member length (with loads along it)"),
         Field("self_weight", "bool", default=False, help="add the parts' weight as dead load D"),
     ),
-    (PART, JOINT, SUPPORT, LOAD, COMBINATION, DESIGN),
+    (PART, JOINT, SUPPORT, LOAD, COMBINATION, DESIGN, PLY, PLY_FASTENING),
     array=True,
     required=True,
 )

@@ -33,7 +33,7 @@ def render_member(m: MemberResult, d: Display) -> list[str]:
         rows.append(
             [
                 j.id,
-                d.quantity(j.Q),
+                d.quantity(j.Q) if j.Q is not None else "—",  # plies: no Q
                 d.quantity(j.shear_flow),
                 cap,
                 d.quantity(j.spacing_required) if j.spacing_required is not None else "—",

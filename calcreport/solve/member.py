@@ -52,11 +52,21 @@ def solve_member(member: Member, settings: Settings) -> MemberResult:
     if member.loads or member.self_weight:
         from .member_loads import analyse_member  # loads along the member
 
-        beam = analyse_member(member, section, settings, log.child("beam"))
+        EI = None
+        if member.plies:  # plies side by side bend about their own axes: Σ E·I
+            from .plies import ply_EI
+
+            EI = ply_EI(member)
+        beam = analyse_member(member, section, settings, log.child("beam"), EI=EI)
         V = beam.V_design
     else:
         V = _design_shear(member, log.child("shear"))
-    joints = tuple(solve_joint(member, section, j, V, settings, log, beam) for j in member.joints)
+    if member.plies:
+        from .plies_solve import ply_joints
+
+        joints = ply_joints(member, beam, settings, log)
+    else:
+        joints = tuple(solve_joint(member, section, j, V, settings, log, beam) for j in member.joints)
     checks = _keyed(beam.checks, f"member[{member.id}]") if beam is not None else ()
     if settings.method != "EC5":  # τ against Fv (allowable); EN 1995-1-1 §6.1.7 is listed instead
         checks = checks + _shear_only_checks(member, section, V, beam, log.child("checks"))
@@ -81,8 +91,16 @@ def solve_member(member: Member, settings: Settings) -> MemberResult:
         not_checked=not_checked(member, checks, beam is not None, extra=unchecked),
         checked=words,
         connectors_only=connectors_only,
-        assumed=member_assumed(member, settings, joints, beam),
+        assumed=_assumed(member, settings, joints, beam),
     )
+
+
+def _assumed(member: Member, settings: Settings, joints: tuple, beam) -> tuple:
+    if member.plies:
+        from .plies_solve import ply_assumed
+
+        return ply_assumed(member, settings, joints, beam)
+    return member_assumed(member, settings, joints, beam)
 
 
 def _shear_only_checks(member: Member, section: SectionResult, V: Quantity, beam, log: StepLog) -> tuple:
@@ -189,8 +207,9 @@ def _refuse_plies_side_by_side(member: Member, joint: Joint, held, segments) -> 
             f"member[{member.id}].joint[{joint.id}]",
             f"joins parts set side by side over {reach / depth:.0%} of the section's depth (a vertical "
             "shear plane): V·Q/I gives these connectors no meaningful demand — they carry the load "
-            "that enters one ply across to the others. Multi-ply and flitch-plate fastening is not "
-            "designed by this version: remove the joint and design the ply fastening by hand",
+            "that enters one ply across to the others. Describe the member by [[member.ply]] tables "
+            'with [member.ply_fastening] and say where each load enters (enters = "top", '
+            '"left_face", "right_face" or "ply"); see docs/job-format.md, Plies side by side',
         )
 
 

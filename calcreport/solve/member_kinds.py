@@ -18,7 +18,9 @@ __all__ = ["member_checks", "member_type"]
 
 
 def member_type(member: Member) -> str:
-    """ "steel" (every part steel), "panel-web" (wood flanges with plywood webs) or "other"."""
+    """ "plies" (plies side by side), "steel" (every part steel), "panel-web" (wood flanges with plywood webs) or "other"."""
+    if member.plies:
+        return "plies"  # plies side by side: solve/plies_solve.py
     fams = {p.material.family for p in member.parts}
     if fams == {"steel"}:
         return "steel"
@@ -41,7 +43,12 @@ def member_checks(
         ec5_checks, ec5_missing = ec5_member_checks(member, section, beam, settings, log.child("ec5"))
         return tuple(ec5_checks), ec5_missing
     kind = member_type(member)
-    if kind == "steel":
+    if kind == "plies":
+        from .plies import ply_shares
+        from .plies_checks import ply_checks
+
+        checks, unchecked = ply_checks(member, ply_shares(member), beam, settings, log.child("plies"), joints)
+    elif kind == "steel":
         from .member_girder import girder_checks
 
         checks, unchecked = girder_checks(member, beam, V, settings, log.child("girder"), section, joints)

@@ -61,7 +61,9 @@ def _error(exc: BeamInputError):
     return SolveError(exc.key, str(exc))
 
 
-def analyse_member(member: Member, section: SectionResult, settings: Settings, log: StepLog) -> AlongResult:
+def analyse_member(
+    member: Member, section: SectionResult, settings: Settings, log: StepLog, EI: Quantity | None = None
+) -> AlongResult:
     """Analyse the member for its loads; design shear and moment; member checks.
 
     Sources: matrix structural analysis (stiffness method) and its influence lines; ASCE 7 §2.3.1 /
@@ -104,16 +106,27 @@ def analyse_member(member: Member, section: SectionResult, settings: Settings, l
             f"member[{member.id}]",
             "no load combination applies to the cases given; list [[member.combination]] tables",
         )
-    EI = (section.E_ref * section.inertia).to("lbf*inch**2")
-    log.add(
-        "EI",
-        "Flexural rigidity of the transformed section",
-        "EI = E_ref · I",
-        "{E} · {I}",
-        {"E": section.E_ref, "I": section.inertia},
-        EI,
-        source="mechanics of materials: transformed section",
-    )
+    if EI is not None:  # plies side by side: Σ E·I of the plies, each about its own axis
+        EI = log.add(
+            "EI",
+            "Flexural rigidity of the plies together",
+            "EI = Σ E_i·I_i",
+            "{EI}",
+            {"EI": EI},
+            EI.to("lbf*inch**2"),
+            source="mechanics of materials (plies bending about their own axes)",
+        )
+    else:
+        EI = (section.E_ref * section.inertia).to("lbf*inch**2")
+        log.add(
+            "EI",
+            "Flexural rigidity of the transformed section",
+            "EI = E_ref · I",
+            "{E} · {I}",
+            {"E": section.E_ref, "I": section.inertia},
+            EI,
+            source="mechanics of materials: transformed section",
+        )
     from ..model import Support
 
     span: Any = member.span  # the reader requires a span with loads along the member
@@ -154,6 +167,8 @@ def analyse_member(member: Member, section: SectionResult, settings: Settings, l
 
 
 def _member_checks(member, section, M, V, limits, beam, log, settings: Settings | None = None) -> list[Check]:
+    if member.plies:  # each ply is checked under its share (solve/plies_checks.py)
+        return deflection_checks(beam, limits, log)
     bottom = section.bottom.to("inch").magnitude
     ybar = section.centroid.to("inch").magnitude
     fibres: dict[str, Fibre] = {}

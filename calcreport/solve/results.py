@@ -137,7 +137,7 @@ class JointResult:
     id: str
     label: str
     holds: tuple[str, ...]
-    Q: Quantity
+    Q: Quantity | None  # None on fastener lines between plies (they carry no shear flow V·Q/I)
     shear: Quantity  # design shear V used for the single spacing
     shear_flow: Quantity  # q = V·Q/I
     connector: str  # description of the connector

@@ -95,6 +95,7 @@ def zoned_schedule(
     log: StepLog | None = None,
     segment_ends: tuple[Quantity, ...] = (),
     zones_per_span: int | None = None,
+    demand: tuple[str, str, str] | None = None,
 ) -> Schedule:
     """Fewest-connector zoned schedule for a joint (see the module docstring for the rules).
 
@@ -110,6 +111,8 @@ def zoned_schedule(
         segment_ends: interior supports of a member with more than one span or overhang; the
             schedule is then zoned span by span with at most ``zones_per_span`` (default Z)
             zones per half of each.
+        demand: (name, formula, source) of the demand when it is not the shear flow V·Q/I
+            (plies side by side: the transfer demand between plies).
 
     Source: mechanics of materials (s = n·F/q); rules: common practice, no source.
     """
@@ -154,25 +157,26 @@ def zoned_schedule(
     peak = float(qs.max()) if qs.size else 0.0
     kpeak = int(np.argmax(qs)) if qs.size else 0
     q_peak = Q_(peak, "lbf/inch")
+    d_name, d_formula, d_source = demand or ("shear flow", "max of |V(x)|·Q/I", SOURCE_SPACING)
     log.add(
         "q_peak",
-        "Largest shear flow along the member",
+        f"Largest {d_name} along the member",
         "q_max",
-        "max of |V(x)|·Q/I",
+        d_formula,
         {},
         q_peak,
-        source=SOURCE_SPACING,
+        source=d_source,
     )
     s_req = Q_(nF / peak, _IN) if peak > 0 else None
     if s_req is not None:
         log.add(
             "s_req_peak",
-            "Spacing required at the largest shear flow",
+            f"Spacing required at the largest {d_name}",
             "s = n·F / q_max",
             "{nF} / {q}",
             {"nF": capacity_row, "q": q_peak},
             s_req,
-            source=SOURCE_SPACING,
+            source=d_source,
         )
     n_min = d.bound(nF, smax)
     log.add(
@@ -272,7 +276,7 @@ def zoned_schedule(
                 "b": z.end,
             },
             z.spacing,
-            source=SOURCE_SPACING,
+            source=d_source,
             note=f"governed by {gov}" if gov else "",
             positions=("a", "b"),
         )

@@ -67,6 +67,9 @@ TAGS = {
     "web_crippling": "web crippling at bearings (AISC 360-16 J10.3)",
     "cover_plate": "cover-plate termination (AISC 360-16 F13.3)",
     "composite": "composite steel-concrete flexure, cracked slab, construction stage (AISC 360-16 Ch. I)",
+    "bending:<ply>": "members of plies: bending of that ply under its share (NDS 2018 §3.3)",
+    "shear:<ply>": "members of plies: shear of that ply under its share (NDS 2018 §3.4.2; AISC 360-16 G2.1)",
+    "plate_flexure:<ply>": "flitch plate: flexure of a rectangular bar (AISC 360-16 F11)",
 }
 
 
@@ -149,6 +152,10 @@ def _is_rolled(p: Part) -> bool:
 def expectations(member: Member, has_moment: bool) -> list[Expectation]:
     """What a plan checker expects of ``member``. ``has_moment``: loads along the member are given
     (a moment and deflections are known), rather than a design shear alone."""
+    if member.plies:
+        from .plies_checks import ply_expectations
+
+        return ply_expectations(member, has_moment)
     fam = _families(member)
     no_m = "the job gives only a design shear V, so no moment is known (give span and loads)"
     out: list[Expectation] = []

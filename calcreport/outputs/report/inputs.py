@@ -43,9 +43,14 @@ def assumptions_story(m: MemberResult, ctx: Ctx) -> list:
     st = ctx.styles
     out: list = [*heading("Assumptions", st.h2)]
     rows = [["No.", "Assumption"]]
-    items = list(ELASTIC_ASSUMPTIONS) + list(m.member.assumptions)
+    base: tuple[str, ...] = ELASTIC_ASSUMPTIONS
+    if m.member.plies:
+        from .plies_inputs import PLY_ASSUMPTIONS
+
+        base = PLY_ASSUMPTIONS
+    items = list(base) + list(m.member.assumptions)
     for i, a in enumerate(items, 1):
-        key = f"member[{m.id}].assumptions" if i > len(ELASTIC_ASSUMPTIONS) else ""
+        key = f"member[{m.id}].assumptions" if i > len(base) else ""
         rows.append([marked_cell(ctx, key, str(i)), a])
     out.append(grid(rows, [28, ctx.width - 28], st, zebra=False))
     return out
@@ -77,7 +82,7 @@ def _parts_table(member: Member, ctx: Ctx):
         pid = p.id + (f" — {p.label}" if p.label else "")
         rows.append(
             [
-                marked_cell(ctx, f"member[{member.id}].part[{p.id}]", pid),
+                marked_cell(ctx, f"member[{member.id}].{'ply' if member.plies else 'part'}[{p.id}]", pid),
                 _shape_text(p),
                 _size_text(p, ctx),
                 f"({ctx.q(_inch(x0))}, {ctx.q(_inch(y0))})",
@@ -196,6 +201,20 @@ def _written_table(m: MemberResult, ctx: Ctx) -> list:
     ]
 
 
+def _connectors(m: MemberResult, ctx: Ctx) -> list:
+    st = ctx.styles
+    if not m.member.plies:
+        return [*heading("Connectors", st.h3), _connectors_table(m, ctx)]
+    from .plies_inputs import ply_fastening_table, ply_sharing_table
+
+    return [
+        *heading("Load sharing between plies", st.h3),
+        ply_sharing_table(m, ctx),
+        *heading("Fasteners between plies", st.h3),
+        ply_fastening_table(m, ctx),
+    ]
+
+
 def inputs_story(m: MemberResult, ctx: Ctx) -> list:
     st = ctx.styles
     return [
@@ -204,8 +223,7 @@ def inputs_story(m: MemberResult, ctx: Ctx) -> list:
         _parts_table(m.member, ctx),
         *heading("Materials", st.h3),
         _materials_table(m.member, ctx),
-        *heading("Connectors", st.h3),
-        _connectors_table(m, ctx),
+        *_connectors(m, ctx),
         *heading("Design shear and settings", st.h3),
         _shear_and_settings(m, ctx),
         *_written_table(m, ctx),

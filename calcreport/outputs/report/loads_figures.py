@@ -235,7 +235,8 @@ def demand_capacity_chart(j: JointResult, display, fonts, width: float) -> Drawi
         width,
         140,
         fonts,
-        title=f"Shear flow at joint {j.id}: demand and provided capacity",
+        title=f"{'Shear flow' if j.Q is not None else 'Transfer demand between plies'} at joint {j.id}: "
+        "demand and provided capacity",
     )
 
 

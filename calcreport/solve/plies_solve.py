@@ -1,0 +1,55 @@
+"""Members of plies side by side in the solver (issue 14): the hooks :func:`.member.solve_member`
+calls instead of the V·Q/I joints — load sharing, transfer demand and the fastener lines
+(:func:`ply_joints`), and the values the tool chose (:func:`ply_assumed`)."""
+
+from __future__ import annotations
+
+from dataclasses import replace
+
+from ..model import Member, Settings
+from ..steps import StepLog
+from ..units import Q_
+from .assumed import member_assumed
+from .plies import plies_assumed, ply_shares, transfer_demand
+from .plies_checks import plate_assumed
+from .plies_lines import SRC_PRACTICE, default_spacing_max, joint_record, ply_lines, solve_ply_lines
+from .results import Assumed, JointResult, SolveError
+
+__all__ = ["ply_joints", "ply_assumed"]
+
+
+def ply_joints(member: Member, beam, settings: Settings, log: StepLog) -> tuple[JointResult, ...]:
+    """Shares by E·I, transfer demand along x per combination, and every fastener line."""
+    if beam is None:
+        raise SolveError(f"member[{member.id}]", "a member of plies needs span and loads along it")
+    plog = log.child("plies")
+    shares = ply_shares(member, plog)
+    demand = transfer_demand(member, beam, shares, plog.child("transfer"), beam.self_weight)
+    return solve_ply_lines(member, beam, shares, demand, settings, log)
+
+
+def ply_assumed(
+    member: Member, settings: Settings, joints: tuple[JointResult, ...], beam
+) -> tuple[Assumed, ...]:
+    """The member's assumed values, with the ply fastening's connector keys named where they are
+    written ([member.ply_fastening.connector]) and the values the ply layout sets."""
+    f = member.ply_fastening
+    assert f is not None
+    view = replace(member, joints=tuple(joint_record(line, f) for line in ply_lines(member)))
+    out = []
+    for a in member_assumed(view, settings, joints, beam):
+        if a.key.endswith((".planes", ".staggered")):
+            continue  # set by the ply layout and ply_fastening.staggered
+        a = replace(a, where=a.where.replace("[member.joint.connector]", "[member.ply_fastening.connector]"))
+        if a.key.endswith((".angle_side", ".angle_main")) and f.connector.kind in ("wood_bolt", "lag_screw"):
+            a = replace(
+                a, value=90.0, source="load between plies acts perpendicular to grain (NDS 2018 §12.3.3)"
+            )
+        out.append(a)
+    out += plies_assumed(member)
+    if f.spacing_max is None:
+        out.append(Assumed(f"{f.key}.spacing_max", "Largest spacing of the ply fasteners",
+                           default_spacing_max(f.connector.kind), f"spacing_max in [{f.key}]", SRC_PRACTICE))  # fmt: skip
+    out += plate_assumed(member, joints)
+    _ = Q_
+    return tuple(out)
