@@ -101,16 +101,14 @@ def default_spacing_max(kind: str) -> Quantity:
 
 
 def _spec(f: PlyFastening, line: PlyLine) -> ConnectorSpec:
-    """The connector spec of one line: planes from the layout; bolts and lag screws bear
-    perpendicular to grain in wood plies (θ = 90°, NDS 2018 §12.3.3) unless the job states angles."""
+    """The connector spec of one line: planes from the layout. Bolts and lag screws bear
+    perpendicular to grain in wood plies (θ = 90°, NDS 2018 §12.3.3): the line's JointContext
+    carries load_angle = 90, which the NDS dowel models apply to the wood members only."""
     names = {fd.name for fd in fields_for(f.connector.kind)}
     p = dict(f.connector.params)
     if "planes" in names:
         p["planes"] = line.planes
-    if f.connector.kind in ("wood_bolt", "lag_screw"):
-        for k in ("angle_side", "angle_main"):
-            if k not in f.connector.given:
-                p[k] = 90.0
+    # the angle to grain comes from the joint (JointContext.load_angle = 90 on every ply line)
     return replace(f.connector, params=p)
 
 
