@@ -282,7 +282,8 @@ def _member(t: Table, materials: dict[str, Material], settings: Settings) -> Mem
             "reference_material", f"expected a material id ({', '.join(materials)}), got {excerpt(ref_id)}"
         )
     shear = t.quantity("shear", "force", allow_zero=True)
-    joints = tuple(_joints(t, placed, settings.method))
+    design = read_design(t)
+    joints = tuple(_joints(t, placed, settings.method, bool(design.get("slip"))))
     member = Member(
         id=mid,
         title=t.text("title", default=mid),
@@ -293,7 +294,7 @@ def _member(t: Table, materials: dict[str, Material], settings: Settings) -> Mem
         shear=shear,
         assumptions=t.texts("assumptions"),
         notes=t.texts("notes"),
-        design=read_design(t),
+        design=design,
     )
     member = _loads_hook(t, member, settings)
     if member.shear is not None and (member.loads or member.self_weight):
@@ -317,7 +318,7 @@ def _loads_hook(t: Table, member: Member, settings: Settings) -> Member:
     return loads_reader.read_loads(t, member, settings)
 
 
-def _joints(t: Table, parts: dict[str, Part], method: str):
+def _joints(t: Table, parts: dict[str, Part], method: str, slip: bool = False):
     for jt, jid in t.id_tables("joint", MAX_JOINTS, "joint"):
         jt.expect(decl.names(decl.JOINT))
         holds = jt.raw("holds", True, "the list of part ids held on one side of the shear plane")
@@ -344,6 +345,8 @@ def _joints(t: Table, parts: dict[str, Part], method: str):
         kind = ct.choice("type", connectors.kinds(), required=True)
         params = ct.fields(connectors.fields_for(kind))
         given = tuple(k for k in ct.data if k != "type")
+        if ct.has("slip_modulus") and not slip:
+            ct.warn("slip_modulus", "has no effect without [member.design] slip = true")
         ct.done()
         connector_keys(ct, kind, params, method)
         if is_continuous(kind, params):

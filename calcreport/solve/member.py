@@ -62,6 +62,13 @@ def solve_member(member: Member, settings: Settings) -> MemberResult:
 
     more, unchecked = member_checks(member, section, beam, V, settings, log.child("member"), joints)
     checks = tuple(checks) + _keyed(more, f"member[{member.id}]")
+    # slip of mechanical connectors, γ-method beside the rigid results (solve/slip.py)
+    from .slip import slip_analysis
+
+    slip, slip_checks, slip_unchecked = slip_analysis(
+        member, section, beam, settings, joints, checks, log.steps, log.child("slip")
+    )
+    checks, unchecked = checks + slip_checks, tuple(unchecked) + slip_unchecked
     checks = checks + tuple(missing_stress_rows(member, beam is not None))
     status = worst([j.status for j in joints] + [c.status for c in checks])
     words, connectors_only = checked_words(member.id, checks, joints)
@@ -79,6 +86,7 @@ def solve_member(member: Member, settings: Settings) -> MemberResult:
         checked=words,
         connectors_only=connectors_only,
         assumed=member_assumed(member, settings, joints, beam),
+        slip=slip,
     )
 
 

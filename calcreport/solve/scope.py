@@ -67,6 +67,7 @@ TAGS = {
     "web_crippling": "web crippling at bearings (AISC 360-16 J10.3)",
     "cover_plate": "cover-plate termination (AISC 360-16 F13.3)",
     "composite": "composite steel-concrete flexure, cracked slab, construction stage (AISC 360-16 Ch. I)",
+    "slip": "slip of mechanical connectors by the γ-method (EN 1995-1-1:2004 Annex B, solve/slip.py)",
 }
 
 
@@ -314,6 +315,7 @@ def expectations(member: Member, has_moment: bool) -> list[Expectation]:
                 "not implemented in this version: the section is taken uncracked and fully composite",
             )
         )
+    out += _slip_expectation(member, fam)
     if member.parts:
         out.append(
             Expectation(
@@ -325,6 +327,27 @@ def expectations(member: Member, has_moment: bool) -> list[Expectation]:
             )
         )
     return out
+
+
+#: Connector types that slip (dowel-type fasteners and given values); glue lines are rigid.
+SLIP_KINDS = ("nail", "wood_screw", "lag_screw", "wood_bolt", "shank", "given")
+
+
+def _slip_expectation(member: Member, fam: dict[str, list[Part]]) -> list[Expectation]:
+    """Timber members joined by fasteners that slip: their partial composite action (stiffness,
+    connector forces, deflection) is expected; ``[member.design] slip = true`` checks it."""
+    timber = any(fam.get(f) for f in ("wood", "glulam", "plywood"))
+    if not timber or not any(j.connector.kind in SLIP_KINDS for j in member.joints):
+        return []
+    return [
+        Expectation(
+            "slip",
+            ("slip",),
+            "slip of mechanical connectors (partial composite action): stiffness, connector forces, deflection",
+            "EN 1995-1-1:2004 Annex B",
+            "not asked for: the results take the connectors as rigid (set slip = true in [member.design])",
+        )
+    ]
 
 
 def _info_reason(tags: tuple[str, ...], infos: list[tuple[frozenset[str], Check]]) -> str | None:
@@ -379,6 +402,7 @@ WORDS = {
     "deflection": "deflection",
     "flexure": "flexure",
     "web_shear": "web shear",
+    "slip": "connector slip (γ-method)",
 }
 
 
