@@ -54,7 +54,8 @@ class SlipJoint:
     K_ser: Quantity  # per connector and shear plane
     K_u: Quantity
     modulus_source: str
-    spacing: Quantity  # the spacing γ is found with (provided, or s_ef over the schedule)
+    spacing: Quantity  # the spacing γ is found with at strength (provided, or s_ef over the schedule)
+    spacing_at: Quantity  # the spacing where the forces are given (largest rigid utilisation)
     force_rigid: Quantity  # per connector, where the utilisation is largest
     force_slip: Quantity
     capacity: Quantity  # per connector

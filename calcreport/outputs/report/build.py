@@ -35,6 +35,7 @@ from .loads_section import member_figures
 from .pages import PageInfo, ReportDoc, SectionStart
 from .results_tables import results_story
 from .signoff import limitations_story, signoff_story
+from .slip_section import slip_story
 from .styles import esc, make_styles, register_fonts
 from .template import Template, load_template
 
@@ -95,6 +96,7 @@ def _story(ctx: Ctx, info: PageInfo, sections: list[tuple[str, str]]) -> list:
         story.append(KeepTogether([Paragraph("Section", st.h2), drawing, para(caption, st.caption)]))
         story += derivation_story(m, ctx, str(i))
         story += results_story(m, ctx)
+        story += slip_story(m, ctx)  # connector slip: rigid beside the γ-method (solve/slip.py)
         story += member_figures(m, ctx)
     story.append(PageBreak())
     story.append(SectionStart("assumed", "Assumed values", "Assumed values"))

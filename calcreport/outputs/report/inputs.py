@@ -24,6 +24,12 @@ ELASTIC_ASSUMPTIONS = (
     "from the loads along the member.",
 )
 
+#: In place of the full-composite-action assumption when the γ-method ran (solve/slip.py).
+SLIP_ASSUMPTION = (
+    "The rigid results take the connectors as acting without slip (full composite action); the section "
+    '"Connector slip" gives the results with slip beside them (γ-method, EN 1995-1-1:2004 Annex B).'
+)
+
 
 def _inch(v: float) -> Quantity:
     return Q_(v, "inch")
@@ -44,6 +50,8 @@ def assumptions_story(m: MemberResult, ctx: Ctx) -> list:
     out: list = [*heading("Assumptions", st.h2)]
     rows = [["No.", "Assumption"]]
     items = list(ELASTIC_ASSUMPTIONS) + list(m.member.assumptions)
+    if m.slip is not None:  # the γ-method ran: the rigid results stand beside the results with slip
+        items[2] = SLIP_ASSUMPTION
     for i, a in enumerate(items, 1):
         key = f"member[{m.id}].assumptions" if i > len(ELASTIC_ASSUMPTIONS) else ""
         rows.append([marked_cell(ctx, key, str(i)), a])
