@@ -119,6 +119,18 @@ def slip_analysis(
             (),
             (unchecked(member, "needs the span and loads along the member (the effective length)"),),
         )
+    if member.joints and all(j.connector.kind == "glue" for j in member.joints):
+        info = Check(
+            f"member[{member.id}].slip",
+            "Connector slip",
+            None,
+            None,
+            None,
+            "INFO",
+            SOURCE,
+            note="glued joints are rigid (γ = 1): the rigid results are the results with slip",
+        )
+        return None, (info,), ()
     try:
         groups = layout(member, section)
         return _run(member, section, beam, settings, joints, checks, steps, groups, log)
