@@ -63,7 +63,7 @@ def solve_member(member: Member, settings: Settings) -> MemberResult:
     more, unchecked = member_checks(member, section, beam, V, settings, log.child("member"), joints)
     checks = tuple(checks) + _keyed(more, f"member[{member.id}]")
     # slip of mechanical connectors, γ-method beside the rigid results (solve/slip.py)
-    from .slip import slip_analysis
+    from .slip import slip_analysis, slip_assumed
 
     slip, slip_checks, slip_unchecked = slip_analysis(
         member, section, beam, settings, joints, checks, log.steps, log.child("slip")
@@ -85,7 +85,7 @@ def solve_member(member: Member, settings: Settings) -> MemberResult:
         not_checked=not_checked(member, checks, beam is not None, extra=unchecked),
         checked=words,
         connectors_only=connectors_only,
-        assumed=member_assumed(member, settings, joints, beam),
+        assumed=member_assumed(member, settings, joints, beam) + slip_assumed(member, settings, slip),
         slip=slip,
     )
 

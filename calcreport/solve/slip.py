@@ -22,11 +22,19 @@ from dataclasses import dataclass
 from ..model import Member, Settings
 from ..steps import StepLog
 from ..units import Quantity
-from .results import Check, JointResult, SectionResult, Unchecked
+from .results import Assumed, Check, JointResult, SectionResult, Unchecked
 from .slip_layout import Group, NotApplicable, layout
 from .slip_moduli import SlipInputError, route_for, slip_modulus
 
-__all__ = ["SlipResult", "SlipLayer", "SlipJoint", "SlipDeflection", "slip_analysis", "SOURCE"]
+__all__ = [
+    "SlipResult",
+    "SlipLayer",
+    "SlipJoint",
+    "SlipDeflection",
+    "slip_analysis",
+    "slip_assumed",
+    "SOURCE",
+]
 
 SOURCE = "EN 1995-1-1:2004 Annex B"
 LABEL = "slip of mechanical connectors (partial composite action): stiffness, connector forces, deflection"
@@ -206,3 +214,33 @@ def _run(member, section, beam, settings, joints, checks, steps, groups: list[Gr
         notes,
     )
     return res, tuple(jchecks) + tuple(dchecks), ()
+
+
+def slip_assumed(member: Member, settings: Settings, result: SlipResult | None) -> tuple[Assumed, ...]:
+    """Values the γ-method took because the job did not state them (the assumed-values page)."""
+    if result is None:
+        return ()
+    out = []
+    if "slip_moduli" not in member.design:
+        out.append(
+            Assumed(
+                f"member[{member.id}].design.slip_moduli",
+                "source of the connectors' slip moduli",
+                result.route,
+                'slip_moduli = "EN 1995-1-1" or "NDS 2018" in [member.design]',
+                "common practice, no source: EN 1995-1-1 for SI or EC5 jobs, NDS 2018 otherwise",
+            )
+        )
+    if result.route == "EN 1995-1-1":
+        for j in member.joints:
+            if j.connector.kind == "nail" and j.connector.params.get("slip_modulus") is None:
+                out.append(
+                    Assumed(
+                        f"member[{member.id}].joint[{j.id}].connector.slip_modulus",
+                        "nails driven without pre-drilling (K_ser row of EN 1995-1-1 Table 7.1)",
+                        "ρ_m^1.5·d^0.8/30",
+                        "slip_modulus on the connector (a tested value)",
+                        "EN 1995-1-1:2004 Table 7.1",
+                    )
+                )
+    return tuple(out)
