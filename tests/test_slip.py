@@ -350,3 +350,29 @@ def test_report_and_json_show_slip(tmp_path):
     assert data["route"] == "EN 1995-1-1"
     assert data["joints"][0]["governs"] in ("rigid", "slip")
     assert data["deflections"][0]["governs"] == "slip"
+
+
+@pytest.mark.parametrize(
+    "connector, D",
+    [
+        ('type = "wood_screw"\nsize = "14g"\nlength = "3 in"', 0.242),  # NDS 2018 Table L3, from memory
+        ('type = "lag_screw"\nsize = "3/8"\nlength = "3.5 in"', 0.375),  # nominal diameter
+    ],
+)
+def test_screw_diameters_for_k_ser(connector, D):
+    """Screws take the screw/bolt row of EN 1995-1-1 Table 7.1: K_ser = ρ_m^1.5·d/23 with the
+    shank diameter d of the model's catalogue."""
+    text = DEMO.read_text()
+    start = text.index('type = "nail"')
+    text = text[:start] + connector + "\n"
+    m = solve_bytes(text.encode(), str(DEMO)).members[0]
+    assert m.slip is not None, m.not_checked
+    rho = math.sqrt(500.0 * 530.0)
+    K = rho**1.5 * D * 25.4 / 23.0
+    assert float(m.slip.joints[0].K_ser.to("N/mm").magnitude) == pytest.approx(K, rel=1e-6)
+
+
+def test_rho_mean_without_slip_warns():
+    text = DEMO.read_text().replace("slip = true ", "slip = false ")
+    r = solve_bytes(text.encode(), str(DEMO))
+    assert any(w.key.endswith("rho_mean") for w in r.job.warnings)

@@ -93,6 +93,10 @@ def load_text(data: bytes, path: str = "<job>") -> Job:
         )
     root.done()
     unused_settings(settings_table, settings, members)
+    if not any(m.design.get("slip") for m in members):  # rho_mean is read by the γ-method only
+        for mt, _ in root.id_tables("material", MAX_MATERIALS, "material"):
+            if mt.has("rho_mean"):
+                mt.warn("rho_mean", "has no effect: no member asks for slip ([member.design] slip = true)")
     return Job(
         path,
         hashlib.sha256(data).hexdigest(),

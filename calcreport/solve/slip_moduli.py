@@ -70,8 +70,12 @@ def diameter_of(spec: ConnectorSpec, key: str) -> float:
         from .connectors.nds_catalog import LAG_SCREWS, WOOD_SCREWS
         from .connectors.nds_dowel import screw_diameters
 
-        cat = WOOD_SCREWS if spec.kind == "wood_screw" else LAG_SCREWS
-        return screw_diameters(p, key, cat, "size", "", "a screw size", threads_default=True)[0]
+        raw = (p.get("size") or "").strip().lower()
+        if spec.kind == "wood_screw":  # the size as wood_screw.py and lag_screw.py read it
+            cat, size = WOOD_SCREWS, raw.replace(" ", "").replace("gauge", "g").replace("#", "")
+        else:
+            cat, size = LAG_SCREWS, raw.replace("in", "").replace('"', "").strip()
+        return screw_diameters(p, key, cat, size, '"10g" or "1/2"', "a screw size", threads_default=True)[0]
     return float(p["diameter"].to("inch").magnitude)
 
 
