@@ -144,7 +144,7 @@ def gamma_steps(groups, moduli, spacing, joints, ell: Quantity, section, log: St
         EI, a = ei_effective(lay, g)
         tag = "" if same else ("_u" if lim == "u" else "_ser")
         what = "" if same else (", strength (K_u)" if lim == "u" else ", serviceability (K_ser)")
-        for grp, layer, gi, ai in zip(groups, lay, g, a):
+        for grp, layer, gi in zip(groups, lay, g):
             sl = log.child(f"layer.{grp.name}")
             if lim == "u":
                 sl.add("EA", f"Axial stiffness of {_parts(grp)}", "Eᵢ·Aᵢ = Σ E·A", "{EA}", {"EA": Q_(layer.EA, "lbf")},
@@ -155,15 +155,27 @@ def gamma_steps(groups, moduli, spacing, joints, ell: Quantity, section, log: St
             if grp.joint is not None:
                 n = joints[grp.joint.id].per_row
                 sl.add(f"gamma{tag}", f"γ of {_parts(grp)}{what}", "γᵢ = 1 / (1 + π²·Eᵢ·Aᵢ·sᵢ / (n·K·ℓ²))",
-                       "1 / (1 + π² × {EA} × {s} / ({n} × {K} × {l}²))",
+                       "1 / (1 + π² × {EA} × {s} / ({n} × {K} × ({l})²))",
                        {"EA": Q_(layer.EA, "lbf"), "s": Q_(layer.s, "inch"), "n": n,
                         "K": Q_((layer.K or 0.0) / n, "lbf/inch"), "l": ell}, gi, source=f"{SRC}, B.2")  # fmt: skip
-            sl.add(f"a{tag}", f"Distance of {_parts(grp)} from the neutral axis{what}", "aᵢ = yᵢ − y₀",
-                   "{y} − y₀", {"y": Q_(layer.y, "inch")}, Q_(ai, "inch"), source=f"{SRC}, B.2",
-                   note="y₀ = Σγ·E·A·y / Σγ·E·A")  # fmt: skip
+        y0 = lay[0].y - a[0]
+        terms = " + ".join(f"{{g{i}}} × {{EA{i}}} × {{y{i}}}" for i in range(len(lay)))
+        den = " + ".join(f"{{g{i}}} × {{EA{i}}}" for i in range(len(lay)))
+        vals: dict = {}
+        for i, (layer, gi) in enumerate(zip(lay, g)):
+            vals.update({f"g{i}": gi, f"EA{i}": Q_(layer.EA, "lbf"), f"y{i}": Q_(layer.y, "inch")})
+        q_y0 = log.add(f"y0{tag}", f"Height of the neutral axis{what}", "y₀ = Σγᵢ·Eᵢ·Aᵢ·yᵢ / Σγᵢ·Eᵢ·Aᵢ",
+                       f"({terms}) / ({den})", vals, Q_(y0, "inch"), source=f"{SRC}, B.2",
+                       note="yᵢ: centroid of each layer above the section's lowest point")  # fmt: skip
+        for grp, layer, ai in zip(groups, lay, a):
+            log.child(f"layer.{grp.name}").add(
+                f"a{tag}", f"Distance of {_parts(grp)} from the neutral axis{what}", "aᵢ = yᵢ − y₀",
+                "{y} − {y0}", {"y": Q_(layer.y, "inch"), "y0": q_y0}, Q_(ai, "inch"), source=f"{SRC}, B.2")  # fmt: skip
+        own = sum(L.EI for L in lay)
         log.add(f"EI_ef{tag}", f"Effective bending stiffness{what}", "(EI)_ef = Σ(Eᵢ·Iᵢ + γᵢ·Eᵢ·Aᵢ·aᵢ²)",
-                "{EIr} rigid (γ = 1)", {"EIr": Q_(EI_r, "lbf*inch**2")}, Q_(EI, "lbf*inch**2"),
-                source=f"{SRC}, B.2")  # fmt: skip
+                "{own} + {comp}", {"own": Q_(own, "lbf*inch**2"), "comp": Q_(EI - own, "lbf*inch**2")},
+                Q_(EI, "lbf*inch**2"), source=f"{SRC}, B.2",
+                note="Σ Eᵢ·Iᵢ of the layers + Σ γᵢ·Eᵢ·Aᵢ·aᵢ²")  # fmt: skip
         states[lim] = (g, a, EI)
     g_u, a_u, EI_u = states["u"]
     g_s, a_s, EI_s = states.get("ser", states["u"])
@@ -230,7 +242,7 @@ def stress_steps(groups: list[Group], st: State, beam, log: StepLog) -> None:
     h = top - y0
     E = Es.pop()
     log.add("tau_web", "Largest shear stress in the web", "τ₂,max = (γᵢ·Eᵢ·Aᵢ·aᵢ + 0.5·E₂·b₂·h²)·V / (b₂·(EI)_ef)",
-            "({g} × {EA} × {a} + 0.5 × {E} × {b} × {h}²) × {V} / ({b} × {EI})",
+            "({g} × {EA} × {a} + 0.5 × {E} × {b} × ({h})²) × {V} / ({b} × {EI})",
             {"g": st.g_u[i], "EA": Q_(st.base[i].EA, "lbf"), "a": Q_(st.a_u[i], "inch"), "E": Q_(E, "psi"),
              "b": Q_(b, "inch"), "h": Q_(h, "inch"), "V": beam.V_design, "EI": st.EI_u},
             Q_(web_shear_max(st.g_u[i], st.base[i].EA, st.a_u[i], E, b, h, V, EI), "psi"),
