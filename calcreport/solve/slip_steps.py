@@ -65,11 +65,13 @@ def joint_spacing(j: JointResult, log: StepLog) -> tuple[Quantity, Quantity]:
     zoned schedule s_ef = 0.75·s_min + 0.25·s_max (EN 1995-1-1:2004 §9.1.3(3), valid for
     s_max ≤ 4·s_min); beyond that, bounds: s_min for strength (more composite action, larger
     connector forces) and s_max for deflection (less stiffness)."""
+    from .slip_layout import NotApplicable
+
+    if not float(j.capacity.to("lbf").magnitude) > 0.0:
+        raise NotApplicable(f"joint {j.id}: its connectors have no design value")
     zones = j.schedule.zones if j.schedule is not None and j.schedule.feasible else ()
     if not zones:
         if j.spacing_provided is None:
-            from .slip_layout import NotApplicable
-
             raise NotApplicable(f"joint {j.id}: no spacing could be provided")
         s = log.add("s", "Spacing of the rows", "s (provided)", "{s}", {"s": j.spacing_provided},
                     j.spacing_provided.to("inch"), source="connector spacing above")  # fmt: skip
