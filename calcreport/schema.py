@@ -266,6 +266,11 @@ def results_schema() -> dict[str, Any]:
             "checks": {"type": "array", "items": {"$ref": "#/$defs/check"}},
             "steps": {"type": "array", "items": {"$ref": "#/$defs/step"}},
             "along": {"type": "object", "description": "beam analysis: reactions, envelopes, combinations"},
+            "slip": {
+                "type": "object",
+                "description": "γ-method (EN 1995-1-1 Annex B) beside the rigid results: layers, joints, "
+                "(EI)_ef, deflections (with [member.design] slip = true)",
+            },
         },
         "required": ["id", "status", "section", "shear", "joints", "checks", "steps"],
     }

@@ -17,6 +17,8 @@ checked, or runs with a stated conservative default)::
     cover_plate_end_weld = true     # cover plates welded across their ends (AISC 360-16 F13.3)
     Cr = 1.15                       # repetitive member factor of wood bending (NDS 2018 §4.3.9)
     construction = "unshored"       # composite: dead load on the steel alone ("shored": on the composite)
+    slip = true                     # γ-method (EN 1995-1-1 Annex B) beside the rigid V·Q/I results
+    slip_moduli = "auto"            # "EN 1995-1-1" (Table 7.1) or "NDS 2018" (§11.3.6); auto by units
 
 Material keys read here: ``Ft``, ``Fc`` (wood tension and compression parallel to grain),
 ``Emin`` (wood, for column stability), and for plywood the table ``[material.panel]`` with its
@@ -67,9 +69,14 @@ def read_design(t: Table) -> dict[str, Any]:
         q = dt.quantity(key, "length")
         if q is not None:
             out[key] = q
-    for flag in ("bearing_stiffeners", "cover_plate_end_weld"):
+    for flag in ("bearing_stiffeners", "cover_plate_end_weld", "slip"):
         if dt.has(flag):
             out[flag] = dt.boolean(flag)
+    moduli = dt.choice("slip_moduli", ("auto", "EN 1995-1-1", "NDS 2018"))
+    if moduli is not None:
+        if not out.get("slip"):
+            dt.warn("slip_moduli", "has no effect without slip = true")
+        out["slip_moduli"] = moduli
     dt.done()
     return out
 
@@ -78,6 +85,7 @@ def read_wood_keys(t: Table) -> dict[str, Any]:
     """Ft, Fc and Emin of a material, when given (stresses), and its bending size factor CF."""
     out: dict[str, Any] = {k: t.quantity(k, "stress") for k in ("Ft", "Fc", "Emin", "Fc_perp")}
     out["CF"] = t.number("CF", None, minimum=0.5, maximum=1.5)
+    out["rho_mean"] = t.quantity("rho_mean", "mass_density")  # γ-method: K_ser (EN 1995-1-1 Table 7.1)
     return out
 
 

@@ -106,6 +106,10 @@ def load_text(data: bytes, path: str = "<job>") -> Job:
     from .plies import unused_ply_keys
 
     unused_ply_keys(root, members)
+    if not any(m.design.get("slip") for m in members):  # rho_mean is read by the γ-method only
+        for mt, _ in root.id_tables("material", MAX_MATERIALS, "material"):
+            if mt.has("rho_mean"):
+                mt.warn("rho_mean", "has no effect: no member asks for slip ([member.design] slip = true)")
     return Job(
         path,
         hashlib.sha256(data).hexdigest(),
@@ -311,7 +315,8 @@ def _member(t: Table, materials: dict[str, Material], settings: Settings) -> Mem
             "reference_material", f"expected a material id ({', '.join(materials)}), got {excerpt(ref_id)}"
         )
     shear = t.quantity("shear", "force", allow_zero=True)
-    joints = tuple(_joints(t, placed, settings.method))
+    design = read_design(t)
+    joints = tuple(_joints(t, placed, settings.method, bool(design.get("slip"))))
     ec5_member_keys(t, settings.method)
     member = Member(
         id=mid,
@@ -323,7 +328,7 @@ def _member(t: Table, materials: dict[str, Material], settings: Settings) -> Mem
         shear=shear,
         assumptions=t.texts("assumptions"),
         notes=t.texts("notes"),
-        design=read_design(t),
+        design=design,
     )
     if plies:
         from .plies import read_ply_fastening
@@ -354,7 +359,7 @@ def _loads_hook(t: Table, member: Member, settings: Settings) -> Member:
     return loads_reader.read_loads(t, member, settings)
 
 
-def _joints(t: Table, parts: dict[str, Part], method: str):
+def _joints(t: Table, parts: dict[str, Part], method: str, slip: bool = False):
     for jt, jid in t.id_tables("joint", MAX_JOINTS, "joint"):
         jt.expect(decl.names(decl.JOINT))
         holds = jt.raw("holds", True, "the list of part ids held on one side of the shear plane")
@@ -381,6 +386,8 @@ def _joints(t: Table, parts: dict[str, Part], method: str):
         kind = ct.choice("type", connectors.kinds(), required=True)
         params = ct.fields(connectors.fields_for(kind))
         given = tuple(k for k in ct.data if k != "type")
+        if ct.has("slip_modulus") and not slip:
+            ct.warn("slip_modulus", "has no effect without [member.design] slip = true")
         ct.done()
         ec5_connector_keys(ct, kind, method)
         connector_keys(ct, kind, params, method)

@@ -450,6 +450,19 @@ CONNECTOR_FIELDS: dict[str, tuple[Field, ...]] = {
     "stud": STUD,
 }
 
+# --- slip of mechanical connectors (γ-method, issue 18) ---
+#: Connector types that slip: each takes ``slip_modulus``, a tested value replacing the computed one.
+SLIP_TYPES = ("given", "shank", "nail", "wood_screw", "lag_screw", "wood_bolt", "steel_bolt", "stud")
+SLIP_MODULUS = Field(
+    "slip_modulus",
+    "line_load",
+    help='slip modulus of one connector per shear plane from a test report, e.g. "1200 N/mm" '
+    "(replaces EN 1995-1-1 Table 7.1 / NDS 2018 §11.3.6 in the γ-method)",
+)
+for _kind in SLIP_TYPES:
+    CONNECTOR_FIELDS[_kind] = CONNECTOR_FIELDS[_kind] + (SLIP_MODULUS,)
+# --- end slip ---
+
 
 def kinds() -> list[str]:
     """All connector type names, in registration order."""

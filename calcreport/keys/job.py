@@ -322,6 +322,13 @@ MATERIAL = TableSpec(
             "stress",
             help="compression perpendicular to grain Fc⊥ (wood; bearing of plies on the supports, NDS 2018 §3.10)",
         ),
+        # --- slip of mechanical connectors (γ-method, issue 18) ---
+        Field(
+            "rho_mean",
+            "mass_density",
+            help='mean density ρm for the slip modulus K_ser (EN 1995-1-1 Table 7.1), e.g. "420 kg/m^3"',
+        ),
+        # --- end slip ---
     )
     + EC5_MATERIAL,
     (PANEL,),
@@ -527,6 +534,22 @@ DESIGN = TableSpec(
             choices=("shored", "unshored"),
             help="composite: unshored puts the dead load on the steel alone; shored on the composite section",
         ),
+        # --- slip of mechanical connectors (γ-method, issue 18) ---
+        Field(
+            "slip",
+            "bool",
+            default=False,
+            help="add the γ-method (EN 1995-1-1 Annex B): connector slip beside the rigid V·Q/I results",
+        ),
+        Field(
+            "slip_moduli",
+            "choice",
+            default="auto",
+            choices=("auto", "EN 1995-1-1", "NDS 2018"),
+            help="slip moduli from EN 1995-1-1 Table 7.1 or NDS 2018 §11.3.6; auto: EN 1995-1-1 for SI "
+            "or EC5 jobs, NDS 2018 otherwise",
+        ),
+        # --- end slip ---
     ),
 )
 

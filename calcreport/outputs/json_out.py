@@ -176,6 +176,8 @@ def _member(m: MemberResult, d: Display) -> dict[str, Any]:
     }
     if m.beam is not None:
         out["along"] = along_json(m.beam, d)
+    if m.slip is not None:  # γ-method beside the rigid results (solve/slip.py SlipResult)
+        out["slip"] = _plain(m.slip, d)
     return out
 
 

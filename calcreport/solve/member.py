@@ -74,6 +74,13 @@ def solve_member(member: Member, settings: Settings) -> MemberResult:
 
     more, unchecked = member_checks(member, section, beam, V, settings, log.child("member"), joints)
     checks = tuple(checks) + _keyed(more, f"member[{member.id}]")
+    # slip of mechanical connectors, γ-method beside the rigid results (solve/slip.py)
+    from .slip import slip_analysis, slip_assumed
+
+    slip, slip_checks, slip_unchecked = slip_analysis(
+        member, section, beam, settings, joints, checks, log.steps, log.child("slip")
+    )
+    checks, unchecked = checks + slip_checks, tuple(unchecked) + slip_unchecked
     if settings.method != "EC5":  # Fb / Fy rows name NDS / AISC inputs
         checks = checks + tuple(missing_stress_rows(member, beam is not None))
     status = worst([j.status for j in joints] + [c.status for c in checks])
@@ -91,7 +98,8 @@ def solve_member(member: Member, settings: Settings) -> MemberResult:
         not_checked=not_checked(member, checks, beam is not None, extra=unchecked),
         checked=words,
         connectors_only=connectors_only,
-        assumed=_assumed(member, settings, joints, beam),
+        assumed=_assumed(member, settings, joints, beam) + slip_assumed(member, settings, slip),
+        slip=slip,
     )
 
 

@@ -176,6 +176,7 @@ class MemberResult:
     checked: tuple[str, ...] = ()  # what did run, in words ("connectors (2 joints)", "deflection")
     connectors_only: bool = False  # the only checks that ran are the joints' connectors
     assumed: tuple[Assumed, ...] = ()  # values the tool chose for this member (see Assumed)
+    slip: Any = None  # γ-method beside the rigid results (solve/slip.py SlipResult), when asked for
 
 
 @dataclass(frozen=True)

@@ -70,6 +70,7 @@ TAGS = {
     "bending:<ply>": "members of plies: bending of that ply under its share (NDS 2018 §3.3)",
     "shear:<ply>": "members of plies: shear of that ply under its share (NDS 2018 §3.4.2; AISC 360-16 G2.1)",
     "plate_flexure:<ply>": "flitch plate: flexure of a rectangular bar (AISC 360-16 F11)",
+    "slip": "slip of mechanical connectors by the γ-method (EN 1995-1-1:2004 Annex B, solve/slip.py)",
 }
 
 
@@ -321,6 +322,7 @@ def expectations(member: Member, has_moment: bool) -> list[Expectation]:
                 "not implemented in this version: the section is taken uncracked and fully composite",
             )
         )
+    out += _slip_expectation(member, fam)
     if member.parts:
         out.append(
             Expectation(
@@ -332,6 +334,27 @@ def expectations(member: Member, has_moment: bool) -> list[Expectation]:
             )
         )
     return out
+
+
+#: Connector types that slip (dowel-type fasteners and given values); glue lines are rigid.
+SLIP_KINDS = ("nail", "wood_screw", "lag_screw", "wood_bolt", "shank", "given")
+
+
+def _slip_expectation(member: Member, fam: dict[str, list[Part]]) -> list[Expectation]:
+    """Timber members joined by fasteners that slip: their partial composite action (stiffness,
+    connector forces, deflection) is expected; ``[member.design] slip = true`` checks it."""
+    timber = any(fam.get(f) for f in ("wood", "glulam", "plywood"))
+    if not timber or not any(j.connector.kind in SLIP_KINDS for j in member.joints):
+        return []
+    return [
+        Expectation(
+            "slip",
+            ("slip",),
+            "slip of mechanical connectors (partial composite action): stiffness, connector forces, deflection",
+            "EN 1995-1-1:2004 Annex B",
+            "not asked for: the results take the connectors as rigid (set slip = true in [member.design])",
+        )
+    ]
 
 
 def _info_reason(tags: tuple[str, ...], infos: list[tuple[frozenset[str], Check]]) -> str | None:
@@ -386,6 +409,7 @@ WORDS = {
     "deflection": "deflection",
     "flexure": "flexure",
     "web_shear": "web shear",
+    "slip": "connector slip (γ-method)",
 }
 
 

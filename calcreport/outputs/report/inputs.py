@@ -24,6 +24,12 @@ ELASTIC_ASSUMPTIONS = (
     "from the loads along the member.",
 )
 
+#: In place of the full-composite-action assumption when the γ-method ran (solve/slip.py).
+SLIP_ASSUMPTION = (
+    "The rigid results take the connectors as acting without slip (full composite action); the section "
+    '"Connector slip" gives the results with slip beside them (γ-method, EN 1995-1-1:2004 Annex B).'
+)
+
 
 def _inch(v: float) -> Quantity:
     return Q_(v, "inch")
@@ -49,6 +55,8 @@ def assumptions_story(m: MemberResult, ctx: Ctx) -> list:
 
         base = PLY_ASSUMPTIONS
     items = list(base) + list(m.member.assumptions)
+    if m.slip is not None:  # the γ-method ran: the rigid results stand beside the results with slip
+        items[2] = SLIP_ASSUMPTION
     for i, a in enumerate(items, 1):
         key = f"member[{m.id}].assumptions" if i > len(base) else ""
         rows.append([marked_cell(ctx, key, str(i)), a])

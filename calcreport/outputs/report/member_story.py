@@ -27,6 +27,7 @@ from .loads_figures import demand_capacity_chart, loading_diagram, zone_elevatio
 from .loads_section import beam_figures, combinations_table, schedule_figures, schedule_key
 from .pages import OutlineMark
 from .results_tables import results_story
+from .slip_section import slip_story
 from .styles import esc
 
 __all__ = ["member_story", "fit_figure", "STAGE_TITLES"]
@@ -146,6 +147,9 @@ def member_story(m: MemberResult, ctx: Ctx, number: int) -> list:
                 out.append(intro)
                 intro = None
             out += body
+    slip = slip_story(m, ctx)  # connector slip: rigid beside the γ-method (solve/slip.py)
+    if slip:
+        out += [OutlineMark("Connector slip", 1), *slip]
     out.append(OutlineMark("Results and scope", 1))
     results = results_story(m, ctx)
     last = max((k for k, f in enumerate(results) if isinstance(f, Table)), default=None)

@@ -35,7 +35,8 @@ NOT_CHECKED = (
     "ply-to-ply fastening of multi-ply and flitch beams (a joint between plies side by side is refused)",
     "the connection of the member to its supports and to other members",
     "deflection and camber, unless a check above states them; deflections are from bending only unless a "
-    "check above adds the webs' shear deformation — connector slip is not included",
+    "check above adds the webs' shear deformation — connector slip is not included unless a member's "
+    'section "Connector slip" gives it (γ-method, EN 1995-1-1:2004 Annex B)',
     "panel (through-thickness) shear of plywood webs, unless a check above states it",
     "long-term creep and shrinkage, and load-duration effects beyond the factors stated",
     "vibration and dynamic or impact loads",
