@@ -265,6 +265,6 @@ def test_bearing_of_the_plies_with_a_bearing_length_and_Fc_perp():
 
 
 def test_Fc_perp_without_a_ply_bearing_check_warns(write_job, cli):
-    text = three_ply_side().replace('G = 0.50\n', 'G = 0.50\nFc_perp = "625 psi"\n', 1)
+    text = three_ply_side().replace("G = 0.50\n", 'G = 0.50\nFc_perp = "625 psi"\n', 1)
     code, out, err = cli("check", write_job(text))
     assert code in (0, 1) and "Fc_perp" in err and "warning" in err and "bearing_length" in err
