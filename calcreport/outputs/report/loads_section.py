@@ -1,7 +1,5 @@
-"""Extension point for loads along the member: figures and schedule tables for one member.
-
-``member_figures(m, ctx)`` is called for every member after its results. It returns flowables
-(charts, tables). Today it renders generically:
+"""Loads along the member: figures and schedule tables for one member, placed by
+``member_story.py`` in the order of the work. Rendered generically:
 
 * each joint's ``schedule`` (``JointResult.schedule``) as a table of zones — start, end, spacing,
   count — read from ``schedule.zones`` whose items are ``(start, end, spacing, count)`` tuples or
@@ -21,76 +19,10 @@ from reportlab.platypus import Flowable, KeepTogether
 
 from ...solve.results import JointResult, MemberResult
 from ...units import Q_, Quantity
-from .common import Ctx, grid, heading, para
-from .loads_figures import demand_capacity_chart, loading_diagram, zone_elevation
+from .common import Ctx, grid, para
 from .plots import Series, line_chart, positions, series_values
 
-__all__ = ["member_figures", "beam_figures", "schedule_figures", "schedule_key", "zone_rows"]
-
-
-def member_figures(m: MemberResult, ctx: Ctx) -> list[Flowable]:
-    """Flowables for the analysis along the member and the joints' zoned schedules (may be empty)."""
-    out: list[Flowable] = []
-    load_fig = loading_diagram(
-        m.member, ctx.q, ctx.display.position, ctx.styles.fonts, ctx.width, ctx.display.system
-    )
-    if load_fig is not None:
-        out.append(
-            KeepTogether(
-                [
-                    load_fig,
-                    para(
-                        "Loads by case (downward positive) on the member, with its supports and spans.",
-                        ctx.styles.caption,
-                    ),
-                ]
-            )
-        )
-    if m.beam is not None:
-        out += combinations_table(m, ctx)
-        out += beam_figures(m, ctx)
-    for j in m.joints:
-        if j.schedule is not None:
-            out += schedule_figures(j, ctx, m.id)
-            mark = ctx.mark(schedule_key(m.id, j.id))  # revision triangle: the schedule changed
-            chart = demand_capacity_chart(j, ctx.display, ctx.styles.fonts, ctx.width)
-            elev = zone_elevation(j, m.member, ctx.q, ctx.display.position, ctx.styles.fonts, ctx.width)
-            if chart is not None:
-                out.append(
-                    KeepTogether(
-                        [
-                            *mark,
-                            chart,
-                            para(
-                                (
-                                    f"Shear flow q(x) = V(x)·Q/I at joint {j.id} from the envelope, against the capacity "
-                                    if j.Q is not None  # fastener lines between plies carry no V·Q/I
-                                    else f"Transfer demand t(x) between the plies at line {j.id}, from the loads that "
-                                    "enter one ply (share by E·I, C_D per combination), against the capacity "
-                                )
-                                + "n·F/s that each zone provides.",
-                                ctx.styles.caption,
-                            ),
-                        ]
-                    )
-                )
-            if elev is not None:
-                out.append(
-                    KeepTogether(
-                        [
-                            *mark,
-                            elev,
-                            para(
-                                f"Elevation of the member: connector rows of joint {j.id} by zone, with each zone's "
-                                "spacing (above) and length and number of rows (below).",
-                                ctx.styles.caption,
-                            ),
-                        ]
-                    )
-                )
-    if out:
-        out[0:0] = heading("Along the member", ctx.styles.h2, need=260)
-    return out
+__all__ = ["beam_figures", "schedule_figures", "schedule_key", "zone_rows"]
 
 
 def _get(obj: Any, name: str, index: int) -> Any:

@@ -74,8 +74,13 @@ def _schedule_figures(m: MemberResult, ctx: Ctx, jid: str, charts: bool = True) 
     chart = demand_capacity_chart(j, ctx.display, ctx.styles.fonts, ctx.width)
     out += _figure(
         chart,
-        f"Shear flow q(x) = V(x)·Q/I at joint {j.id} from the envelope, against the capacity n·F/s that "
-        "each zone provides.",
+        (
+            f"Shear flow q(x) = V(x)·Q/I at joint {j.id} from the envelope, against the capacity "
+            if j.Q is not None  # fastener lines between plies carry no V·Q/I
+            else f"Transfer demand t(x) between the plies at line {j.id}, from the loads that "
+            "enter one ply (share by E·I, C_D per combination), against the capacity "
+        )
+        + "n·F/s that each zone provides.",
         ctx,
         mark,
     )
