@@ -24,9 +24,14 @@ def not_checked_items(m: MemberResult) -> list[str]:
     return [f"{u.label} ({u.clause}): {u.reason}" for u in m.not_checked]
 
 
-def not_checked_line(m: MemberResult, with_reasons: bool = False) -> str:
-    """ "not checked (7): flexure (AISC 360-16 Chapter F), …" — or "not checked: none listed"."""
+def not_checked_line(m: MemberResult, with_reasons: bool = False, clauses: bool = True) -> str:
+    """ "not checked (7): flexure (AISC 360-16 Chapter F), …" — or "not checked: none listed".
+
+    ``clauses=False`` gives the labels only (the cover's summary; the results list the clauses)."""
     if not m.not_checked:
         return "not checked: none listed"
-    items = not_checked_items(m) if with_reasons else [f"{u.label} ({u.clause})" for u in m.not_checked]
+    if with_reasons:
+        items = not_checked_items(m)
+    else:
+        items = [f"{u.label} ({u.clause})" if clauses else u.label for u in m.not_checked]
     return f"not checked ({len(m.not_checked)}): " + "; ".join(items)

@@ -205,7 +205,10 @@ def cover_story(ctx: Ctx, info: PageInfo, sections: list[tuple[str, str]]) -> li
     w = ctx.width
     rows = [["Member", "Title", "Governing result and scope", "Status"]]
     for m in ctx.result.members:
-        scope = f"{governing_text(m, ctx)}. {_cap(checked_line(m))}. {_cap(not_checked_line(m))}."
+        # labels only: each member's results list every item with its clause and reason
+        scope = (
+            f"{governing_text(m, ctx)}. {_cap(checked_line(m))}. {_cap(not_checked_line(m, clauses=False))}."
+        )
         rows.append([m.id, m.member.title, scope, status_words(m)])
     story.append(grid(rows, [0.10 * w, 0.18 * w, 0.56 * w, 0.16 * w], st))
     n_out = sum(len(m.not_checked) for m in ctx.result.members)
@@ -218,6 +221,17 @@ def cover_story(ctx: Ctx, info: PageInfo, sections: list[tuple[str, str]]) -> li
                 st.small,
             )
         )
+
+    # the caution sits under the results it qualifies (at the foot of the cover it could be pushed
+    # alone onto a sheet of its own)
+    story.append(Spacer(1, 4))
+    story.append(
+        Paragraph(
+            "This report is not valid unless reviewed, signed and sealed by a licensed "
+            "professional engineer. Limitations and cautions are listed at the end.",
+            st.small,
+        )
+    )
 
     story.append(Paragraph("Revision history", st.h2))
     hist = [["Rev.", "Date", "By", "Description"]]
@@ -242,13 +256,5 @@ def cover_story(ctx: Ctx, info: PageInfo, sections: list[tuple[str, str]]) -> li
         toc.append([title, str(sheet) if sheet else "—"])
     story.append(
         grid(toc, [0.85 * w, 0.15 * w], st, zebra=False, extra=[("ALIGN", (1, 0), (1, -1), "RIGHT")])
-    )
-    story.append(Spacer(1, 6))
-    story.append(
-        Paragraph(
-            "This report is not valid unless reviewed, signed and sealed by a licensed "
-            "professional engineer. Limitations and cautions are listed at the end.",
-            st.small,
-        )
     )
     return story
