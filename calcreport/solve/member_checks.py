@@ -157,6 +157,7 @@ def deflection_check(
         allow,
         source=SOURCE_DEFLECTION,
         note=note,
+        positions=("l",),  # the span: feet-inches as drawings give it
     )
     ratio = float((abs(delta) / allow).to("").magnitude)
     return Check(

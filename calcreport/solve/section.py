@@ -15,6 +15,7 @@ from ..model import Member, Part, Shape
 from ..steps import StepLog
 from ..units import Q_
 from .results import PartProps, SectionResult
+from .tolerance import difference
 
 __all__ = ["shape_properties", "ShapeProps", "section_properties", "first_moment", "first_moment_above"]
 
@@ -190,7 +191,9 @@ def section_properties(member: Member, log: StepLog) -> SectionResult:
     )
     contribs = []
     for p in props:
-        d = p.centroid_y - ybar
+        d = Q_(
+            difference(p.centroid_y.to("inch").magnitude, ybar.to("inch").magnitude), "inch"
+        )  # round-off is 0
         c = log.add(
             f"part.{p.id}.I",
             f"Contribution of part {p.id} to I",

@@ -11,6 +11,7 @@ from reportlab.platypus import Paragraph
 from ...solve.results import MemberResult
 from ...steps import Step
 from .common import GOVERNS_TINT, Ctx, cited, grid, heading, para
+from .fastcell import cell
 from .styles import esc
 
 __all__ = ["derivation_story", "group_steps", "step_rows"]
@@ -62,9 +63,9 @@ def step_rows(steps: list[Step], ctx: Ctx, number_prefix: str) -> tuple[list[lis
         sub, res = d.substituted(s), d.result(s)
         line = f"= <b>{esc(res)}</b>" if sub.strip() == res else f"= {esc(sub)}   = <b>{esc(res)}</b>"
         body = [
-            Paragraph(f"<b>{esc(s.label)}</b>{tag}", st.cell),
+            cell(f"<b>{esc(s.label)}</b>{tag}", st.cell),
             para(s.symbol, st.formula),
-            Paragraph(line, st.formula),
+            cell(line, st.formula),
         ]
         if s.note:
             body.append(para(cited(s.note), st.caption))

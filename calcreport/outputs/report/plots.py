@@ -40,7 +40,10 @@ class Series:
 
 
 def series_values(display: Display, values: Sequence[Quantity] | Quantity) -> tuple[list[float], str]:
-    """Quantities (a sequence or an array quantity) in the job's display unit, and that unit's symbol."""
+    """Quantities (a sequence or an array quantity) in the job's display unit, and that unit's
+    symbol; an array quantity is converted once, not element by element."""
+    if isinstance(values, Quantity) and getattr(values.magnitude, "shape", None):
+        return display.convert_array(values)
     items = (
         list(values)
         if not isinstance(values, Quantity) or getattr(values.magnitude, "shape", None)
