@@ -230,11 +230,16 @@ class LineCell(Flowable):
         x = 0.0 if align == 0 else (self.width - self._line_width) * (0.5 if align == 1 else 1.0)
         offset = self._size if rl_config.paraFontSizeHeightOffset else self._ascent()
         c.saveState()
-        t = c.beginText(x, self.height - offset)
+        t = c.beginText(0, self.height - offset)
+        if x:  # moved to the line's start as a paragraph moves there (readers see the same)
+            t.setXPos(x)
         for text, font, colour in self._runs:
             t.setFont(font, self._size, self._leading)
             t.setFillColor(colour)
             t.textOut(text)
+        t.textLine("")  # end the line as a paragraph does (T*): readers see the same line breaks
+        if x:
+            t.setXPos(-x)
         c.drawText(t)
         c.restoreState()
 
