@@ -14,7 +14,7 @@ from ...model import Member
 from ...solve.results import JointResult
 from ...units import Q_
 from ..fmt import fmt_number
-from .plots import PALETTE, Series, line_chart, positions, series_values
+from .plots import PALETTE, LineChart, Series, line_chart, positions, series_values
 from .styles import plain
 
 __all__ = ["loading_diagram", "demand_capacity_chart", "zone_elevation"]
@@ -212,7 +212,7 @@ def loading_diagram(
     return dr
 
 
-def demand_capacity_chart(j: JointResult, display, fonts, width: float) -> Drawing | None:
+def demand_capacity_chart(j: JointResult, display, fonts, width: float) -> LineChart | None:
     """q(x) from the envelope against the provided capacity n·F/s of each zone (a stepped line)."""
     sch = j.schedule
     if sch is None or not getattr(sch, "feasible", False) or not sch.zones:
