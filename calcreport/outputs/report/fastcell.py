@@ -216,26 +216,41 @@ class LineCell(Flowable):
         return [] if availHeight < self._leading else [self]
 
     def drawOn(self, canvas, x: float, y: float, _sW: float = 0) -> None:  # noqa: N802, N803
+        """Draw at (x, y): the paragraph when the line did not fit, else the runs straight on the
+        canvas at their absolute position (one saved graphics state, no translation)."""
         if not self._fits:
             self._paragraph().drawOn(canvas, x, y, _sW)
             return
-        super().drawOn(canvas, x, y, _sW)
+        x = self._hAlignAdjust(x, _sW)
+        self.canv = canvas
+        try:
+            self._draw_at(x, y)
+        finally:
+            del self.canv
+
+    def draw(self) -> None:
+        self._draw_at(0.0, 0.0)
 
     def _ascent(self) -> float:
         return getAscentDescent(self._runs[0][1], self._size)[0]
 
-    def draw(self) -> None:
+    def _draw_at(self, x0: float, y0: float) -> None:
         c = self.canv
         align = _ALIGN[self.style.alignment]
         x = 0.0 if align == 0 else (self.width - self._line_width) * (0.5 if align == 1 else 1.0)
         offset = self._size if rl_config.paraFontSizeHeightOffset else self._ascent()
         c.saveState()
-        t = c.beginText(0, self.height - offset)
+        t = c.beginText(x0, y0 + self.height - offset)
         if x:  # moved to the line's start as a paragraph moves there (readers see the same)
             t.setXPos(x)
-        for text, font, colour in self._runs:
-            t.setFont(font, self._size, self._leading)
-            t.setFillColor(colour)
+        font = colour = None
+        for text, run_font, run_colour in self._runs:
+            if run_font != font:
+                t.setFont(run_font, self._size, self._leading)
+                font = run_font
+            if run_colour != colour:
+                t.setFillColor(run_colour)
+                colour = run_colour
             t.textOut(text)
         t.textLine("")  # end the line as a paragraph does (T*): readers see the same line breaks
         if x:

@@ -11,10 +11,13 @@ Values are converted to display units by :func:`series_values`; the chart never 
 
 from __future__ import annotations
 
+import functools
 import math
-from collections.abc import Sequence
+from collections.abc import Callable, Sequence
 from dataclasses import dataclass
+from typing import ParamSpec, TypeVar
 
+from reportlab import rl_config
 from reportlab.lib import colors
 from reportlab.platypus import Flowable
 
@@ -22,7 +25,19 @@ from ...units import Quantity
 from ..fmt import Display, fmt_number
 from .styles import Fonts, draw_text, plain, text_width
 
-__all__ = ["Series", "LineChart", "line_chart", "series_values", "positions", "nice_ticks", "PALETTE"]
+__all__ = [
+    "Series",
+    "LineChart",
+    "line_chart",
+    "unchecked_shapes",
+    "series_values",
+    "positions",
+    "nice_ticks",
+    "PALETTE",
+]
+
+P = ParamSpec("P")
+R = TypeVar("R")
 
 PALETTE = ("#1f3a93", "#b3261e", "#2e7d32", "#8d6a33", "#6a1b9a", "#00838f")
 
@@ -36,6 +51,24 @@ class Series:
     y: Sequence[float]
     colour: str = ""
     dashed: bool = False
+
+
+def unchecked_shapes(build: Callable[P, R]) -> Callable[P, R]:
+    """``build`` (a function that makes a reportlab Drawing of plain shapes) run without
+    reportlab's per-attribute validation of every shape (``rl_config.shapeChecking``, a
+    development aid by reportlab's own description): the shapes and what is drawn are the same,
+    without a validator call for each attribute of each arrow, line and label."""
+
+    @functools.wraps(build)
+    def run(*args: P.args, **kwargs: P.kwargs) -> R:
+        old = rl_config.shapeChecking
+        rl_config.shapeChecking = 0
+        try:
+            return build(*args, **kwargs)
+        finally:
+            rl_config.shapeChecking = old
+
+    return run
 
 
 def series_values(display: Display, values: Sequence[Quantity] | Quantity) -> tuple[list[float], str]:
