@@ -244,15 +244,16 @@ class LineCell(Flowable):
         if x:  # moved to the line's start as a paragraph moves there (readers see the same)
             t.setXPos(x)
         font = colour = None
-        for text, run_font, run_colour in self._runs:
+        last = len(self._runs) - 1
+        for k, (text, run_font, run_colour) in enumerate(self._runs):
             if run_font != font:
                 t.setFont(run_font, self._size, self._leading)
                 font = run_font
             if run_colour != colour:
                 t.setFillColor(run_colour)
                 colour = run_colour
-            t.textOut(text)
-        t.textLine("")  # end the line as a paragraph does (T*): readers see the same line breaks
+            # the last run ends the line as a paragraph ends it (T*): readers see the same breaks
+            (t.textLine if k == last else t.textOut)(text)
         if x:
             t.setXPos(-x)
         c.drawText(t)
