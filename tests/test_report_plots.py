@@ -29,7 +29,7 @@ def test_series_values_convert_to_display_units():
 
 
 def test_line_chart_draws_labelled_axes(tmp_path):
-    from reportlab.graphics import renderPDF
+    from reportlab.pdfgen.canvas import Canvas
 
     fonts = register_fonts()
     chart = line_chart(
@@ -45,7 +45,10 @@ def test_line_chart_draws_labelled_axes(tmp_path):
         title="Shear V envelope",
     )
     out = tmp_path / "c.pdf"
-    renderPDF.drawToFile(chart, str(out))
+    c = Canvas(str(out), pagesize=(400, 160))
+    chart.wrapOn(c, 400, 160)
+    chart.drawOn(c, 0, 0)
+    c.save()
     text = pypdf.PdfReader(str(out)).pages[0].extract_text()
     for s in ("x along the member (ft)", "V (kip)", "Shear V envelope", "maximum", "minimum"):
         assert s in text

@@ -8,12 +8,13 @@ from __future__ import annotations
 
 import math
 import string
+from functools import cache
 from typing import Any
 
 from ..steps import Step
-from ..units import Q_, Quantity, dimension_name
+from ..units import Q_, Quantity, dimension_name, ureg
 
-__all__ = ["Display", "fmt_number", "json_number", "feet_inches"]
+__all__ = ["Display", "fmt_number", "json_number", "feet_inches", "kind_of"]
 
 #: dimension → (pint unit, printed symbol, JSON unit text) for each unit system.
 _SYSTEMS: dict[str, dict[str, tuple[str, str, str]]] = {
@@ -42,6 +43,31 @@ _SYSTEMS: dict[str, dict[str, tuple[str, str, str]]] = {
         "mass_density": ("kg/m**3", "kg/m³", "kg/m^3"),
     },
 }
+
+#: Derived kinds the solver produces beyond the job-file dimensions, by dimensionality, with their
+#: trade unit per system (common practice, no source): flexural stiffness E·I in kip·in² / kN·m²,
+#: warping constant in in⁶ / mm⁶, the load-slip coefficient of NDS 2018 §11.3.6 (γ = c·D^1.5)
+#: in lbf/in^2.5 / N/mm^2.5.
+_DERIVED: dict[str, tuple[str, dict[str, tuple[str, str, str]]]] = {
+    "flexural_stiffness": (
+        "[force] * [length] ** 2",
+        {"US": ("kip*inch**2", "kip·in²", "kip*in^2"), "SI": ("kN*m**2", "kN·m²", "kN*m^2")},
+    ),
+    "warping_constant": (
+        "[length] ** 6",
+        {"US": ("inch**6", "in⁶", "in^6"), "SI": ("mm**6", "mm⁶", "mm^6")},
+    ),
+    "slip_coefficient": (
+        "[force] / [length] ** 2.5",
+        {"US": ("lbf/inch**2.5", "lbf/in²·⁵", "lbf/in^2.5"), "SI": ("N/mm**2.5", "N/mm²·⁵", "N/mm^2.5")},
+    ),
+}
+for _name, (_dim, _units) in _DERIVED.items():
+    for _system, _unit in _units.items():
+        _SYSTEMS[_system][_name] = _unit
+
+#: force and length units of the generic trade unit of any other force·length kind (never base SI)
+_GENERIC = {"US": ("lbf", "inch", "lbf", "in"), "SI": ("N", "mm", "N", "mm")}
 
 #: user overrides (settings.display) by our key → dimension
 _OVERRIDE_DIM = {
@@ -82,6 +108,23 @@ def fmt_number(x: float, sig: int = 4) -> str:
 
 
 _SUPER = str.maketrans("-0123456789", "⁻⁰¹²³⁴⁵⁶⁷⁸⁹")
+_SUPER_EXP = str.maketrans("-0123456789.", "⁻⁰¹²³⁴⁵⁶⁷⁸⁹·")
+
+
+def kind_of(q: Quantity) -> str:
+    """Our name for the kind of ``q``: a job-file dimension (:func:`..units.dimension_name`) or a
+    derived kind of ``_DERIVED`` (``"flexural_stiffness"`` for E·I …)."""
+    name = dimension_name(q)
+    if name.startswith("["):
+        for kind, (dim, _) in _DERIVED.items():
+            if q.dimensionality == _derived_dim(dim):
+                return kind
+    return name
+
+
+@cache
+def _derived_dim(text: str):
+    return ureg.get_dimensionality(text)
 
 
 def json_number(x: float) -> float | int | None:
@@ -131,24 +174,55 @@ class Display:
         if plan is not None:  # a plain scale factor to the display unit (cached per unit)
             factor, pretty, js = plan
             return float(q.magnitude) * factor, pretty, js
-        dim = dimension_name(q)
+        dim = kind_of(q)
         if dim in self.units:
             unit, pretty, js = self.units[dim]
             return float(q.to(unit).magnitude), pretty, js
         if dim == "number":
             return float(q.to("").magnitude), "", ""
+        generic = self._generic(q)
+        if generic is not None:
+            unit, pretty, js = generic
+            return float(q.to(unit).magnitude), pretty, js
         base = q.to_base_units() if self.system == "SI" else q
         return float(base.magnitude), f"{base.units:~P}", f"{base.units:~C}"
 
+    def convert_array(self, q: Quantity) -> tuple[list[float], str]:
+        """An array quantity in the display unit, converted once (not element by element), and
+        the printed symbol of its unit."""
+        plan = self._plan(q.units)
+        if plan is not None:
+            factor, pretty, _ = plan
+            return (q.magnitude * factor).tolist(), pretty
+        _, pretty, _ = self.convert(q[0]) if len(q.magnitude) else (0.0, "", "")
+        return [self.convert(v)[0] for v in q], pretty
+
+    def _generic(self, q: Quantity) -> tuple[str, str, str] | None:
+        """Force^a·length^b in the system's force and length units for a kind without its own
+        trade unit (``lbf·in³`` rather than ``kg·m⁴/s²``); ``None`` when ``q`` is not made of
+        force and length."""
+        dims = {k: float(v) for k, v in dict(q.dimensionality).items()}  # type: ignore[arg-type]
+        mass, time_, length = dims.pop("[mass]", 0.0), dims.pop("[time]", 0.0), dims.pop("[length]", 0.0)
+        if dims or time_ != -2 * mass or not (mass or length):
+            return None
+        a, b = mass, length - mass
+        f_unit, l_unit, f_txt, l_txt = _GENERIC[self.system]
+        parts = [(f_unit, f_txt, a), (l_unit, l_txt, b)]
+        unit = "*".join(f"{u}**{e:g}" for u, _, e in parts if e)
+        pretty = "·".join(t + ("" if e == 1 else f"{e:g}".translate(_SUPER_EXP)) for _, t, e in parts if e)
+        js = "*".join(t + ("" if e == 1 else f"^{e:g}") for _, t, e in parts if e)
+        return unit, pretty, js
+
     def _plan(self, units) -> tuple[float, str, str] | None:
-        key = str(units)
+        key = units  # pint units hash by their container (no text formatting per value)
         cache = self.__dict__.setdefault("_plans", {})
         if key not in cache:
             one = Q_(1.0, units)
-            dim = dimension_name(one)
+            dim = kind_of(one)
             plan = None
-            if dim in self.units:
-                unit, pretty, js = self.units[dim]
+            target = self.units.get(dim) or (None if dim == "number" else self._generic(one))
+            if target is not None:
+                unit, pretty, js = target
                 try:
                     factor = float(one.to(unit).magnitude)
                     if abs(float(Q_(2.0, units).to(unit).magnitude) - 2 * factor) <= 1e-12 * abs(factor):

@@ -25,6 +25,7 @@ from ..units import Q_, Quantity
 from . import beam_fe as fe
 from . import placement as pl
 from .combinations import LIVE_TYPE
+from .tolerance import snap, snap_together
 
 __all__ = [
     "Segment",
@@ -357,8 +358,8 @@ def analyse(
         )
         extra_fields = {}
         if combination:
-            hv, lv = _combine(basis, factors, "V")
-            hm, lm = _combine(basis, factors, "M")
+            hv, lv = snap_together(*_combine(basis, factors, "V"))
+            hm, lm = snap_together(*_combine(basis, factors, "M"))
             extra_fields = {
                 "V_hi": Q_(hv, _LBF),
                 "V_lo": Q_(lv, _LBF),
@@ -370,8 +371,8 @@ def analyse(
             dict(factors),
             "as written",
             x_q,
-            Q_(V @ coef, _LBF),
-            Q_(M @ coef, "lbf*inch"),
+            Q_(snap(V @ coef), _LBF),
+            Q_(snap(M @ coef), "lbf*inch"),
             None if EIf is None else Q_((v @ coef) / EIf, _IN),
             reacts,
             source,
@@ -421,10 +422,14 @@ def _envelope(x_q, basis, combinations):
             np.zeros((S, 0)),
         )
     cols = {q: [_combine(basis, cb.factors, q) for cb in combinations] for q in ("V", "M")}
-    HV = np.stack([h for h, _ in cols["V"]], axis=1)
-    LV = np.stack([lo for _, lo in cols["V"]], axis=1)
-    HM = np.stack([h for h, _ in cols["M"]], axis=1)
-    LM = np.stack([lo for _, lo in cols["M"]], axis=1)
+    # round-off of the stiffness solution is 0 (relative to the largest value of the quantity
+    # over the whole envelope), so a value that is only noise never governs
+    HV, LV = snap_together(
+        np.stack([h for h, _ in cols["V"]], axis=1), np.stack([lo for _, lo in cols["V"]], axis=1)
+    )
+    HM, LM = snap_together(
+        np.stack([h for h, _ in cols["M"]], axis=1), np.stack([lo for _, lo in cols["M"]], axis=1)
+    )
     place = basis["place"]
 
     def label(q: str, j: int, s: int, high: bool) -> str:

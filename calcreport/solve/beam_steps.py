@@ -9,6 +9,7 @@ import numpy as np
 from ..steps import StepLog
 from ..units import Q_
 from .combinations import source_placement
+from .tolerance import negligible
 
 __all__ = ["log_analysis", "SOURCE_FE"]
 
@@ -123,7 +124,8 @@ def log_analysis(
         positions=("x",),
     )
     k = int(np.argmin(env.M_min.magnitude))
-    if env.M_min.magnitude[k] < 0:
+    M_scale = max(float(np.max(np.abs(env.M_max.magnitude))), float(np.max(np.abs(env.M_min.magnitude))))
+    if env.M_min.magnitude[k] < 0 and not negligible(float(env.M_min.magnitude[k]), M_scale):
         log.add(
             "envelope.M_neg",
             "Largest negative moment",

@@ -138,7 +138,8 @@ def flexure_strength(
 
 
 def _add(log, name, label, sym, tpl, vals, Mn, src) -> float:
-    log.add(name, label, sym, tpl, vals, _kin(Mn).to("kip*ft"), source=src)
+    lengths = tuple(k for k in ("Lb", "Lp", "Lr") if k in vals)  # along the member: feet-inches
+    log.add(name, label, sym, tpl, vals, _kin(Mn).to("kip*ft"), source=src, positions=lengths)
     return Mn
 
 
@@ -156,6 +157,7 @@ def _ltb_f2(p: GirderProps, Fy, E, Lb, Cb, log, Mp: float, Sx: float) -> float:
         {"ry": Q_(ry, "in"), "E": Q_(E, "ksi"), "Fy": Q_(Fy, "ksi")},
         Q_(Lp, "in").to("ft"),
         source=f"{SRC} Eq. F2-5",
+        positions=("result",),
     )
     log.add(
         "Lr",
@@ -165,6 +167,7 @@ def _ltb_f2(p: GirderProps, Fy, E, Lb, Cb, log, Mp: float, Sx: float) -> float:
         {"rts": Q_(p.rts, "in"), "J": Q_(p.J, "in**4"), "Sx": Q_(Sx, "in**3"), "ho": Q_(p.ho, "in")},
         Q_(Lr, "in").to("ft"),
         source=f"{SRC} Eq. F2-6",
+        positions=("result",),
     )
     if Lb <= Lp:
         Mn, eq = Mp, "Lb ≤ Lp: the limit state does not apply (Mn = Mp)"
@@ -253,12 +256,12 @@ def _f4(p, Fy, E, Lb, Cb, c, log):
             Q_(p.rt, "in"), source=f"{SRC} Eq. F4-11")  # fmt: skip
     log.add("Lp", "Limiting laterally unbraced length for yielding", "Lp = 1.1·rt·√(E/Fy)",
             "1.1 × {rt} × √({E} / {Fy})", {"rt": Q_(p.rt, "in"), "E": Q_(E, "ksi"), "Fy": Q_(Fy, "ksi")},
-            Q_(Lp, "in").to("ft"), source=f"{SRC} Eq. F4-7")  # fmt: skip
+            Q_(Lp, "in").to("ft"), source=f"{SRC} Eq. F4-7", positions=("result",))  # fmt: skip
     log.add("Lr", "Limiting unbraced length for inelastic lateral-torsional buckling",
             "Lr = 1.95·rt·(E/FL)·√(J/(Sxc·ho) + √((J/(Sxc·ho))² + 6.76(FL/E)²))",
             "J = {J}, Sxc = {S}, ho = {ho}, FL = {FL}",
             {"J": Q_(J, "in**4"), "S": Q_(p.Sxc, "in**3"), "ho": Q_(p.ho, "in"), "FL": Q_(FL, "ksi")},
-            Q_(Lr, "in").to("ft"), source=f"{SRC} Eq. F4-8")  # fmt: skip
+            Q_(Lr, "in").to("ft"), source=f"{SRC} Eq. F4-8", positions=("result",))  # fmt: skip
     if Lb <= Lp:
         Mn, eq = Rpc * Myc, "Lb ≤ Lp: the limit state does not apply"
     elif Lb <= Lr:

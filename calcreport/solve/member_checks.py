@@ -158,6 +158,7 @@ def deflection_check(
         allow,
         source=source,
         note=note,
+        positions=("l",),  # the span: feet-inches as drawings give it
     )
     ratio = float((abs(delta) / allow).to("").magnitude)
     return Check(

@@ -15,6 +15,7 @@ from ..model import Member, Part, Shape
 from ..steps import StepLog
 from ..units import Q_
 from .results import PartProps, SectionResult
+from .tolerance import difference
 
 __all__ = ["shape_properties", "ShapeProps", "section_properties", "first_moment", "first_moment_above"]
 
@@ -245,7 +246,9 @@ def section_properties(member: Member, log: StepLog) -> SectionResult:
             "d = y − ȳ",
             "{y} − {ybar}",
             {"y": p.centroid_y, "ybar": ybar},
-            (p.centroid_y - ybar).to("inch"),
+            Q_(
+                difference(p.centroid_y.to("inch").magnitude, ybar.to("inch").magnitude), "inch"
+            ),  # round-off is 0
             source=SOURCE_PARALLEL,
             column="d",
         )

@@ -8,10 +8,11 @@ from dataclasses import dataclass
 from typing import Any
 
 from reportlab.lib import colors
-from reportlab.platypus import CondPageBreak, Paragraph, Table, TableStyle
+from reportlab.platypus import CondPageBreak, Flowable, Table, TableStyle
 
 from ...solve.results import JobResult
 from ..fmt import Display
+from .fastcell import cell as fast_cell
 from .pages import RULE, MarginMark
 from .styles import Styles, esc
 from .template import Template
@@ -84,12 +85,13 @@ def cited(text: str) -> str:
     return out.strip()
 
 
-def para(text: object, style, markup: str = "") -> Paragraph:
-    """A paragraph of literal ``text`` (escaped); ``markup`` wraps it, e.g. ``"b"``."""
+def para(text: object, style, markup: str = "") -> Flowable:
+    """A paragraph of literal ``text`` (escaped); ``markup`` wraps it, e.g. ``"b"``. One line
+    that fits is drawn without a paragraph parse (:func:`.fastcell.cell`)."""
     body = esc(text)
     if markup:
         body = f"<{markup}>{body}</{markup}>"
-    return Paragraph(body, style)
+    return fast_cell(body, style)
 
 
 def heading(text: str, style, need: float = 110.0) -> list:
@@ -107,9 +109,9 @@ def marked_cell(ctx: Ctx, key: str, cell: Any, style=None) -> Any:
     return marks + [cell]
 
 
-def status_cell(status: str, st: Styles) -> Paragraph:
+def status_cell(status: str, st: Styles) -> Flowable:
     colour = {"OK": OK_COLOUR, "NG": NG_COLOUR}.get(status, colors.black)
-    return Paragraph(f'<font color="{colour.hexval()}"><b>{esc(status)}</b></font>', st.cell)
+    return fast_cell(f'<font color="{colour.hexval()}"><b>{esc(status)}</b></font>', st.cell)
 
 
 def _may_be_tall(data, widths, limit: float) -> bool:

@@ -22,6 +22,7 @@ from reportlab.platypus import Paragraph, Spacer
 from ...solve.results import MemberResult
 from ...steps import Step
 from .common import GOVERNS_TINT, Ctx, cited, grid, heading, para
+from .fastcell import cell
 from .flow import KeepTail
 from .folding import Fold, fold_groups
 from .styles import esc
@@ -144,9 +145,7 @@ def step_rows(
         tag = '  <font color="#7a5a00"><b>[governs]</b></font>' if s.governs else ""
         sub, res = d.substituted(s), d.result(s)
         line = f"= <b>{esc(res)}</b>" if sub.strip() == res else f"= {esc(sub)}   = <b>{esc(res)}</b>"
-        body = [
-            Paragraph(f"<b>{esc(s.label)}</b>{tag}&nbsp;&nbsp; {esc(s.symbol)}&nbsp;&nbsp; {line}", st.cell)
-        ]
+        body = [cell(f"<b>{esc(s.label)}</b>{tag}&nbsp;&nbsp; {esc(s.symbol)}&nbsp;&nbsp; {line}", st.cell)]
         if s.note:
             body.append(para(cited(s.note), st.caption))
         no = numbers[i - 1] if numbers is not None else i
@@ -250,11 +249,11 @@ def _table(steps: list[Step], ctx: Ctx, prefix: str, index: dict[str, int]) -> l
         for s in seq:
             if _lhs(s.symbol) not in heads[s.column]:
                 heads[s.column].append(_lhs(s.symbol))
-    cell = ParagraphStyle(
+    tstyle = ParagraphStyle(
         "tcell", parent=st.cell, fontSize=st.cell.fontSize - 0.5, leading=st.cell.leading - 0.6
     )
-    cell_r = ParagraphStyle("tcellr", parent=cell, alignment=2)
-    head_r = ParagraphStyle("theadr", parent=st.cell_bold, fontSize=cell.fontSize, alignment=2)
+    cell_r = ParagraphStyle("tcellr", parent=tstyle, alignment=2)
+    head_r = ParagraphStyle("theadr", parent=st.cell_bold, fontSize=tstyle.fontSize, alignment=2)
     head_style = head_r if group in _RESULT_ONLY else st.cell_bold
     data: list[list] = [
         [para(word.capitalize(), st.cell_bold)] + [para(" / ".join(heads[c]), head_style) for c in cols]
@@ -263,7 +262,7 @@ def _table(steps: list[Step], ctx: Ctx, prefix: str, index: dict[str, int]) -> l
     for rid, seq in rows.items():
         by = {s.column: s for s in seq}
         marks = [m for s in seq for m in ctx.mark(s.key)][:1]
-        line: list = [marks + [para(rid, cell)]]
+        line: list = [marks + [para(rid, tstyle)]]
         for k, c in enumerate(cols, 1):
             cs = by.get(c)
             if cs is None:
@@ -271,8 +270,8 @@ def _table(steps: list[Step], ctx: Ctx, prefix: str, index: dict[str, int]) -> l
             else:
                 text, sub = esc(d.result(cs)), d.substituted(cs)
                 if group not in _RESULT_ONLY and sub.strip() != d.result(cs):  # how it was found
-                    text += f'<br/><font size="{cell.fontSize - 1}" color="#444444">{esc(sub)}</font>'
-                line.append(Paragraph(text, cell_r if group in _RESULT_ONLY else cell))
+                    text += f'<br/><font size="{tstyle.fontSize - 1}" color="#444444">{esc(sub)}</font>'
+                line.append(cell(text, cell_r if group in _RESULT_ONLY else tstyle))
             if cs is not None and cs.governs:
                 extra.append(("BACKGROUND", (k, len(data)), (k, len(data)), GOVERNS_TINT))
         data.append(line)
@@ -280,7 +279,7 @@ def _table(steps: list[Step], ctx: Ctx, prefix: str, index: dict[str, int]) -> l
         line = [para("Σ", st.cell_bold)]
         for c in cols:
             ts = totals.get(c)
-            line.append(Paragraph(f"<b>{esc(d.result(ts))}</b>", cell_r) if ts is not None else "")
+            line.append(cell(f"<b>{esc(d.result(ts))}</b>", cell_r) if ts is not None else "")
         data.append(line)
         extra.append(("LINEABOVE", (0, len(data) - 1), (-1, len(data) - 1), 0.7, st.accent))
     first = 0.11 * w if group in _RESULT_ONLY else 0.22 * w

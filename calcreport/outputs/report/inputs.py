@@ -191,7 +191,7 @@ def _shear_and_settings(m: MemberResult, ctx: Ctx):
         ["Reference material (transformed section)", member.reference_material.id],
     ]
     if member.span is not None:
-        rows.append([marked_cell(ctx, f"member[{m.id}].span", "Span"), ctx.q(member.span)])
+        rows.append([marked_cell(ctx, f"member[{m.id}].span", "Span"), ctx.display.position(member.span)])
     return grid(rows, [0.40 * w, 0.60 * w], ctx.styles, zebra=False)
 
 

@@ -14,7 +14,7 @@ from ...model import Member
 from ...solve.results import JointResult
 from ...units import Q_
 from ..fmt import fmt_number
-from .plots import PALETTE, Series, line_chart, positions, series_values
+from .plots import PALETTE, LineChart, Series, line_chart, positions, series_values, unchecked_shapes
 from .styles import plain
 
 __all__ = ["loading_diagram", "demand_capacity_chart", "zone_elevation"]
@@ -89,6 +89,7 @@ def _dim(dr: Drawing, x0: float, x1: float, y: float, text: str, font: str, size
     )
 
 
+@unchecked_shapes
 def loading_diagram(
     member: Member, fmt_q, fmt_pos, fonts, width: float, system: str = "US"
 ) -> Drawing | None:
@@ -212,7 +213,7 @@ def loading_diagram(
     return dr
 
 
-def demand_capacity_chart(j: JointResult, display, fonts, width: float) -> Drawing | None:
+def demand_capacity_chart(j: JointResult, display, fonts, width: float) -> LineChart | None:
     """q(x) from the envelope against the provided capacity n·F/s of each zone (a stepped line)."""
     sch = j.schedule
     if sch is None or not getattr(sch, "feasible", False) or not sch.zones:
@@ -240,6 +241,7 @@ def demand_capacity_chart(j: JointResult, display, fonts, width: float) -> Drawi
     )
 
 
+@unchecked_shapes
 def zone_elevation(j: JointResult, member: Member, fmt_q, fmt_pos, fonts, width: float) -> Drawing | None:
     """Elevation of the member with a tick at every connector row and a dimension string per zone."""
     sch = j.schedule

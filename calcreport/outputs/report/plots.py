@@ -1,4 +1,4 @@
-"""x–y line charts for the report (reportlab.graphics), with labelled axes and units.
+"""x–y line charts for the report (drawn on the canvas), with labelled axes and units.
 
 Usage (e.g. a shear envelope along the member)::
 
@@ -11,19 +11,33 @@ Values are converted to display units by :func:`series_values`; the chart never 
 
 from __future__ import annotations
 
+import functools
 import math
-from collections.abc import Sequence
+from collections.abc import Callable, Sequence
 from dataclasses import dataclass
+from typing import ParamSpec, TypeVar
 
-from reportlab.graphics.charts.lineplots import LinePlot
-from reportlab.graphics.shapes import Drawing, Line, String
+from reportlab import rl_config
 from reportlab.lib import colors
+from reportlab.platypus import Flowable
 
 from ...units import Quantity
 from ..fmt import Display, fmt_number
-from .styles import Fonts, plain
+from .styles import Fonts, draw_text, plain, text_width
 
-__all__ = ["Series", "line_chart", "series_values", "positions", "nice_ticks", "PALETTE"]
+__all__ = [
+    "Series",
+    "LineChart",
+    "line_chart",
+    "unchecked_shapes",
+    "series_values",
+    "positions",
+    "nice_ticks",
+    "PALETTE",
+]
+
+P = ParamSpec("P")
+R = TypeVar("R")
 
 PALETTE = ("#1f3a93", "#b3261e", "#2e7d32", "#8d6a33", "#6a1b9a", "#00838f")
 
@@ -39,8 +53,29 @@ class Series:
     dashed: bool = False
 
 
+def unchecked_shapes(build: Callable[P, R]) -> Callable[P, R]:
+    """``build`` (a function that makes a reportlab Drawing of plain shapes) run without
+    reportlab's per-attribute validation of every shape (``rl_config.shapeChecking``, a
+    development aid by reportlab's own description): the shapes and what is drawn are the same,
+    without a validator call for each attribute of each arrow, line and label."""
+
+    @functools.wraps(build)
+    def run(*args: P.args, **kwargs: P.kwargs) -> R:
+        old = rl_config.shapeChecking
+        rl_config.shapeChecking = 0
+        try:
+            return build(*args, **kwargs)
+        finally:
+            rl_config.shapeChecking = old
+
+    return run
+
+
 def series_values(display: Display, values: Sequence[Quantity] | Quantity) -> tuple[list[float], str]:
-    """Quantities (a sequence or an array quantity) in the job's display unit, and that unit's symbol."""
+    """Quantities (a sequence or an array quantity) in the job's display unit, and that unit's
+    symbol; an array quantity is converted once, not element by element."""
+    if isinstance(values, Quantity) and getattr(values.magnitude, "shape", None):
+        return display.convert_array(values)
     items = (
         list(values)
         if not isinstance(values, Quantity) or getattr(values.magnitude, "shape", None)
@@ -98,82 +133,133 @@ def line_chart(
     height: float,
     fonts: Fonts,
     title: str = "",
-) -> Drawing:
+) -> LineChart:
     """A chart with axes, round ticks, a zero line, axis titles (give units) and a legend."""
-    dr = Drawing(width, height)
-    left, right, bottom, top = 52.0, 12.0, 30.0, 18.0 if title else 8.0
-    legend_h = 12.0 if len(series) > 1 or series and series[0].label else 0.0
-    lp = LinePlot()
-    lp.x, lp.y = left, bottom + legend_h
-    lp.width, lp.height = width - left - right, height - bottom - top - legend_h
-    data = [list(zip(map(float, s.x), map(float, s.y))) for s in series if len(s.x)]
-    if not data:
-        dr.add(
-            String(width / 2, height / 2, "no data", fontName=fonts.regular, fontSize=7, textAnchor="middle")
-        )
-        return dr
-    xs = [p[0] for d in data for p in d]
-    ys = [p[1] for d in data for p in d] + [0.0]
-    xt, yt = nice_ticks(min(xs), max(xs)), nice_ticks(min(ys), max(ys))
-    lp.data = data
-    # x spans exactly the data (the member), with round ticks inside it
-    x_lo, x_hi = min(xs), max(xs)
-    if x_hi > x_lo:
-        xt = [t for t in xt if x_lo - 1e-9 <= t <= x_hi + 1e-9] or [x_lo, x_hi]
-    lp.xValueAxis.valueMin, lp.xValueAxis.valueMax = x_lo, x_hi
-    lp.yValueAxis.valueMin, lp.yValueAxis.valueMax = yt[0], yt[-1]
-    lp.xValueAxis.valueSteps, lp.yValueAxis.valueSteps = xt, yt
-    for axis in (lp.xValueAxis, lp.yValueAxis):
-        axis.labels.fontName = fonts.regular
-        axis.labels.fontSize = 6.5
-        axis.labelTextFormat = _tick
-        axis.strokeWidth = 0.6
-    lp.yValueAxis.visibleGrid = 1
-    lp.yValueAxis.gridStrokeColor = colors.HexColor("#dddddd")
-    lp.yValueAxis.gridStrokeWidth = 0.3
-    for i, s in enumerate([s for s in series if len(s.x)]):
-        line = lp.lines[i]
-        line.strokeColor = colors.HexColor(s.colour or PALETTE[i % len(PALETTE)])
-        line.strokeWidth = 1.0
-        if s.dashed:
-            line.strokeDashArray = [3, 2]
-    dr.add(lp)
-    if yt[0] < 0 < yt[-1]:
-        y0 = lp.y + lp.height * (0 - yt[0]) / (yt[-1] - yt[0])
-        dr.add(Line(lp.x, y0, lp.x + lp.width, y0, strokeColor=colors.black, strokeWidth=0.5))
-    dr.add(
-        String(
-            lp.x + lp.width / 2,
-            lp.y - 22,
-            plain(x_label),
-            fontName=fonts.regular,
-            fontSize=7,
-            textAnchor="middle",
-        )
-    )
-    ylab = String(0, 0, plain(y_label), fontName=fonts.regular, fontSize=7, textAnchor="middle")
-    from reportlab.graphics.shapes import Group
+    return LineChart(series, x_label, y_label, width, height, fonts, title)
 
-    g = Group(ylab)
-    g.transform = (0, 1, -1, 0, 12, lp.y + lp.height / 2)
-    dr.add(g)
-    if title:
-        dr.add(String(left, height - 11, plain(title), fontName=fonts.bold, fontSize=7.5))
-    if legend_h:
-        x = left
-        for i, s in enumerate([s for s in series if len(s.x)]):
-            col = colors.HexColor(s.colour or PALETTE[i % len(PALETTE)])
-            dr.add(
-                Line(
-                    x,
-                    4,
-                    x + 14,
-                    4,
-                    strokeColor=col,
-                    strokeWidth=1.2,
-                    strokeDashArray=[3, 2] if s.dashed else None,
-                )
-            )
-            dr.add(String(x + 17, 1.5, plain(s.label), fontName=fonts.regular, fontSize=6.5))
-            x += 30 + len(plain(s.label)) * 3.6
-    return dr
+
+class LineChart(Flowable):
+    """An x–y chart drawn straight on the canvas: axes with round ticks, horizontal grid, a zero
+    line, axis titles, a title and a legend. Everything is placed once, when it is made (the
+    series scaled to the plot as flat lists of points); drawing is a few dozen canvas calls, not
+    a tree of graphics widgets validated and expanded on every page."""
+
+    _LEFT, _RIGHT, _BOTTOM = 52.0, 12.0, 30.0
+    _TICK, _LABEL_SIZE = 5.0, 6.5
+
+    def __init__(
+        self,
+        series: Sequence[Series],
+        x_label: str,
+        y_label: str,
+        width: float,
+        height: float,
+        fonts: Fonts,
+        title: str = "",
+    ):
+        super().__init__()
+        self.width, self.height = width, height
+        self.fonts = fonts
+        self.x_label, self.y_label, self.title = plain(x_label), plain(y_label), plain(title)
+        shown = [s for s in series if len(s.x)]
+        self._legend = bool(len(series) > 1 or (series and series[0].label))
+        top = 18.0 if title else 8.0
+        legend_h = 12.0 if self._legend else 0.0
+        self.px, self.py = self._LEFT, self._BOTTOM + legend_h
+        self.pw, self.ph = width - self._LEFT - self._RIGHT, height - self._BOTTOM - top - legend_h
+        self.lines: list[tuple[list[float], colors.Color, bool, str]] = []
+        self.x_ticks: list[tuple[float, str]] = []
+        self.y_ticks: list[tuple[float, str]] = []
+        self.zero: float | None = None
+        if not shown:
+            return
+        xs = [float(v) for s in shown for v in s.x]
+        ys = [float(v) for s in shown for v in s.y] + [0.0]
+        x_lo, x_hi = min(xs), max(xs)
+        xt, yt = nice_ticks(x_lo, x_hi), nice_ticks(min(ys), max(ys))
+        if x_hi > x_lo:  # x spans exactly the data (the member), with round ticks inside it
+            xt = [t for t in xt if x_lo - 1e-9 <= t <= x_hi + 1e-9] or [x_lo, x_hi]
+        else:
+            x_lo, x_hi = xt[0], xt[-1]
+        y_lo, y_hi = yt[0], yt[-1]
+        sx, sy = self.pw / (x_hi - x_lo), self.ph / (y_hi - y_lo)
+        self.x_ticks = [(self.px + (t - x_lo) * sx, _tick(t)) for t in xt]
+        self.y_ticks = [(self.py + (t - y_lo) * sy, _tick(t)) for t in yt]
+        if y_lo < 0 < y_hi:
+            self.zero = self.py + (0 - y_lo) * sy
+        for i, s in enumerate(shown):
+            pts: list[float] = []
+            for x, y in zip(s.x, s.y):
+                pts += [self.px + (float(x) - x_lo) * sx, self.py + (float(y) - y_lo) * sy]
+            colour = colors.HexColor(s.colour or PALETTE[i % len(PALETTE)])
+            self.lines.append((pts, colour, s.dashed, plain(s.label)))
+
+    def wrap(self, availWidth: float, availHeight: float) -> tuple[float, float]:  # noqa: N803
+        return self.width, self.height
+
+    def _text(self, x: float, y: float, text: str, font: str, size: float, anchor: str = "start") -> None:
+        if anchor != "start":
+            w = text_width(text, font, size)
+            x -= w / 2 if anchor == "middle" else w
+        draw_text(self.canv, x, y, text, font, size)
+
+    def draw(self) -> None:
+        c = self.canv
+        reg, bold = self.fonts.regular, self.fonts.bold
+        c.saveState()
+        c.setFillColor(colors.black)
+        if not self.lines:
+            self._text(self.width / 2, self.height / 2, "no data", reg, 7, "middle")
+            c.restoreState()
+            return
+        px, py, pw, ph, tick = self.px, self.py, self.pw, self.ph, self._TICK
+        c.setLineWidth(0.3)  # grid
+        c.setStrokeColor(_GRID)
+        for y, _ in self.y_ticks:
+            c.line(px, y, px + pw, y)
+        c.setStrokeColor(colors.black)  # axes, ticks and their labels
+        c.setLineWidth(0.6)
+        c.line(px, py, px + pw, py)
+        c.line(px, py, px, py + ph)
+        for x, label in self.x_ticks:
+            c.line(x, py, x, py - tick)
+            self._text(x, py - tick - self._LABEL_SIZE, label, reg, self._LABEL_SIZE, "middle")
+        for y, label in self.y_ticks:
+            c.line(px - tick, y, px, y)
+            self._text(px - tick, y - 0.35 * self._LABEL_SIZE, label, reg, self._LABEL_SIZE, "end")
+        c.setLineWidth(1.0)  # the series
+        for pts, colour, dashed, _ in self.lines:
+            c.setStrokeColor(colour)
+            c.setDash([3, 2] if dashed else [])
+            path = c.beginPath()
+            path.moveTo(pts[0], pts[1])
+            for k in range(2, len(pts), 2):
+                path.lineTo(pts[k], pts[k + 1])
+            c.drawPath(path, stroke=1, fill=0)
+        c.setDash([])
+        if self.zero is not None:
+            c.setStrokeColor(colors.black)
+            c.setLineWidth(0.5)
+            c.line(px, self.zero, px + pw, self.zero)
+        self._text(px + pw / 2, py - 22, self.x_label, reg, 7, "middle")
+        c.saveState()
+        c.translate(12, py + ph / 2)
+        c.rotate(90)
+        self._text(0, 0, self.y_label, reg, 7, "middle")
+        c.restoreState()
+        if self.title:
+            self._text(self._LEFT, self.height - 11, self.title, bold, 7.5)
+        if self._legend:
+            x = self._LEFT
+            c.setLineWidth(1.2)
+            for _, colour, dashed, label in self.lines:
+                c.setStrokeColor(colour)
+                c.setDash([3, 2] if dashed else [])
+                c.line(x, 4, x + 14, 4)
+                self._text(x + 17, 1.5, label, reg, 6.5)
+                x += 30 + len(label) * 3.6
+            c.setDash([])
+        c.restoreState()
+
+
+_GRID = colors.HexColor("#dddddd")

@@ -1,0 +1,270 @@
+"""One-line table cells without a full paragraph parse (issue 15 item 8).
+
+Most cells of the report's tables (derivation rows, input and result tables) are one short line:
+a label, a formula, a number with its unit. A reportlab ``Paragraph`` parses its markup with an
+HTML parser, then breaks lines on every ``wrap`` — and a table wraps each cell two or three times
+(row heights, splitting across pages, drawing). :func:`cell` is the one factory the table and
+derivation code calls instead of ``Paragraph(markup, style)``: it reads the small markup subset
+the report writes itself (``<b>``, ``<font color=…>``, ``<font name=…>``, the escapes of
+:func:`..styles.esc`), measures the line once, and returns a :class:`LineCell` that draws the
+runs as one line when they fit the width it is given. Anything else — other tags, a style with
+indents, borders or a background, text wider than the column — is a ``Paragraph`` as before
+(built only when needed), so the fast path never changes what is printed, only how fast.
+
+The line is laid out as the paragraph would lay it out: white space collapsed to single spaces
+and stripped at the ends, one line of ``style.leading`` whose baseline sits ``fontSize`` below its
+top (reportlab's ``paraFontSizeHeightOffset``), left, centred or right aligned.
+"""
+
+from __future__ import annotations
+
+import re
+from functools import lru_cache
+from html import unescape
+
+from reportlab import rl_config
+from reportlab.lib.colors import Color, toColor
+from reportlab.lib.enums import TA_CENTER, TA_JUSTIFY, TA_LEFT, TA_RIGHT
+from reportlab.lib.fonts import ps2tt, tt2ps
+from reportlab.lib.styles import ParagraphStyle
+from reportlab.pdfbase.pdfmetrics import getAscentDescent, stringWidth
+from reportlab.platypus import Flowable, Paragraph
+
+__all__ = ["cell", "LineCell", "OnceParagraph", "runs_of"]
+
+_TOKEN = re.compile(r"<(/?)([a-z]+)((?:\s+[a-z]+=\"[^\"<>]*\")*)\s*>|([^<]+)")
+_ATTR = re.compile(r'([a-z]+)="([^"]*)"')
+_SPACE = re.compile(r"\s+")
+#: escapes that ``styles.esc`` writes (html.escape) and that unescape exactly
+_ENTITY = re.compile(r"&(?:amp|lt|gt|quot|#x27|#39);")
+
+Run = tuple[str, str, Color]  # text, font name, colour
+
+
+def _bold(font: str) -> str | None:
+    """The bold face of ``font`` as the paragraph parser finds it (the registered family)."""
+    try:
+        family, _, italic = ps2tt(font)
+        return tt2ps(family, 1, italic)
+    except (KeyError, ValueError):
+        return None
+
+
+@lru_cache(maxsize=16384)
+def _runs(markup: str, font: str, colour: Color) -> tuple[Run, ...] | None:
+    """The runs of one line of markup, white space collapsed as a paragraph collapses it, or
+    ``None`` when the markup holds anything but the subset above (or an ``&`` that is not one
+    of its escapes)."""
+    stack: list[tuple[str, str, Color]] = [("", font, colour)]
+    runs: list[Run] = []
+    pos = 0
+    for m in _TOKEN.finditer(markup):
+        if m.start() != pos:
+            return None
+        pos = m.end()
+        closing, tag, attrs, text = m.groups()
+        if text is not None:
+            if "&" in _ENTITY.sub("", text):
+                return None
+            _, f, c = stack[-1]
+            runs.append((unescape(text), f, c))
+            continue
+        if closing:
+            if attrs or len(stack) == 1 or stack[-1][0] != tag:
+                return None
+            stack.pop()
+            continue
+        _, f, c = stack[-1]
+        if tag == "b" and not attrs:
+            bold = _bold(f)
+            if bold is None:
+                return None
+            stack.append(("b", bold, c))
+        elif tag == "font" and attrs:
+            for key, value in _ATTR.findall(attrs):
+                if key == "color":
+                    try:
+                        c = toColor(value)
+                    except ValueError:
+                        return None
+                elif key == "name":
+                    f = value
+                else:
+                    return None
+            stack.append(("font", f, c))
+        else:
+            return None
+    if pos != len(markup) or len(stack) != 1:
+        return None
+    return _collapse(runs)
+
+
+def _collapse(runs: list[Run]) -> tuple[Run, ...]:
+    """White space as a paragraph lays out one line: runs of it become one space (in the run
+    where they begin), none at the ends; empty runs dropped, neighbours of one face merged."""
+    out: list[Run] = []
+    space = True  # drop white space at the start
+    for text, font, colour in runs:
+        text = _SPACE.sub(" ", text)
+        if space:
+            text = text.lstrip(" ")
+        if not text:
+            continue
+        space = text.endswith(" ")
+        if out and out[-1][1] == font and out[-1][2] == colour:
+            out[-1] = (out[-1][0] + text, font, colour)
+        else:
+            out.append((text, font, colour))
+    while out and out[-1][0].endswith(" "):
+        text, font, colour = out[-1]
+        text = text.rstrip(" ")
+        if text:
+            out[-1] = (text, font, colour)
+        else:
+            out.pop()
+    return tuple(out)
+
+
+def runs_of(markup: str, style: ParagraphStyle) -> tuple[Run, ...] | None:
+    """The runs :func:`cell` would draw for ``markup`` in ``style`` (``None``: a paragraph)."""
+    return _runs(markup, style.fontName, toColor(style.textColor))
+
+
+_ALIGN = {TA_LEFT: 0, TA_JUSTIFY: 0, TA_CENTER: 1, TA_RIGHT: 2}
+
+
+def _plain_style(style: ParagraphStyle) -> bool:
+    """A style whose one-line layout is the plain one drawn here: no indents, border,
+    background, bullets, CJK/right-to-left wrapping, automatic leading or text transform."""
+    g = style.__dict__.get
+    return (
+        style.alignment in _ALIGN
+        and not (style.leftIndent or style.rightIndent or style.firstLineIndent)
+        and not style.backColor
+        and not (style.borderWidth and style.borderColor)
+        and style.wordWrap in (None, "", "LTR")
+        and getattr(style, "autoLeading", "") in ("", "off", None)
+        and not getattr(style, "textTransform", None)
+        and not g("underline")
+        and not g("strike")
+        and not getattr(style, "bulletText", None)
+    )
+
+
+class OnceParagraph(Paragraph):
+    """A paragraph that breaks its lines once per width: a table wraps each cell for its row
+    heights, again when it splits across pages and again to draw it; the second and third time
+    the same width gives the same lines (``availHeight`` plays no part in a paragraph's wrap)."""
+
+    _wrapped: tuple[float, tuple[float, float], object] | None = None
+
+    def wrap(self, availWidth: float, availHeight: float) -> tuple[float, float]:  # noqa: N803
+        done = self._wrapped
+        # the lines must still be the ones broken then (``split`` may drop them)
+        if done is not None and done[0] == availWidth and self.__dict__.get("blPara") is done[2]:
+            self.width, self.height = done[1]
+            return done[1]
+        size = super().wrap(availWidth, availHeight)
+        self._wrapped = (availWidth, size, self.blPara)
+        return size
+
+
+class LineCell(Flowable):
+    """One line of runs in one size, measured once; a paragraph takes over when the line does
+    not fit the width it is offered."""
+
+    def __init__(self, markup: str, style: ParagraphStyle, runs: tuple[Run, ...]):
+        super().__init__()
+        self.text = markup  # as a Paragraph's ``text``: the markup it was given
+        self.style = style
+        self._runs = runs
+        self._size = style.fontSize
+        self._leading = style.leading
+        self._line_width = sum(stringWidth(t, f, self._size) for t, f, _ in runs)
+        self._para: OnceParagraph | None = None
+        self._fits = True
+
+    # -- the paragraph it stands for -------------------------------------------------------
+    def _paragraph(self) -> OnceParagraph:
+        if self._para is None:
+            self._para = OnceParagraph(self.text, self.style)
+        return self._para
+
+    def getPlainText(self, identify=None) -> str:  # noqa: N802 - reportlab's name
+        return "".join(t for t, _, _ in self._runs)
+
+    def getSpaceBefore(self) -> float:  # noqa: N802
+        return self.style.spaceBefore
+
+    def getSpaceAfter(self) -> float:  # noqa: N802
+        return self.style.spaceAfter
+
+    def minWidth(self) -> float:  # noqa: N802
+        return self._paragraph().minWidth()
+
+    # -- layout ----------------------------------------------------------------------------
+    def wrap(self, availWidth: float, availHeight: float) -> tuple[float, float]:  # noqa: N803
+        self._fits = self._line_width <= availWidth
+        if not self._fits:
+            return self._paragraph().wrap(availWidth, availHeight)
+        self.width, self.height = availWidth, self._leading
+        return self.width, self.height
+
+    def split(self, availWidth: float, availHeight: float) -> list:  # noqa: N803
+        if self._line_width > availWidth:
+            return self._paragraph().split(availWidth, availHeight)
+        return [] if availHeight < self._leading else [self]
+
+    def drawOn(self, canvas, x: float, y: float, _sW: float = 0) -> None:  # noqa: N802, N803
+        """Draw at (x, y): the paragraph when the line did not fit, else the runs straight on the
+        canvas at their absolute position (one saved graphics state, no translation)."""
+        if not self._fits:
+            self._paragraph().drawOn(canvas, x, y, _sW)
+            return
+        x = self._hAlignAdjust(x, _sW)
+        self.canv = canvas
+        try:
+            self._draw_at(x, y)
+        finally:
+            del self.canv
+
+    def draw(self) -> None:
+        self._draw_at(0.0, 0.0)
+
+    def _ascent(self) -> float:
+        return getAscentDescent(self._runs[0][1], self._size)[0]
+
+    def _draw_at(self, x0: float, y0: float) -> None:
+        c = self.canv
+        align = _ALIGN[self.style.alignment]
+        x = 0.0 if align == 0 else (self.width - self._line_width) * (0.5 if align == 1 else 1.0)
+        offset = self._size if rl_config.paraFontSizeHeightOffset else self._ascent()
+        c.saveState()
+        t = c.beginText(x0, y0 + self.height - offset)
+        if x:  # moved to the line's start as a paragraph moves there (readers see the same)
+            t.setXPos(x)
+        font = colour = None
+        last = len(self._runs) - 1
+        for k, (text, run_font, run_colour) in enumerate(self._runs):
+            if run_font != font:
+                t.setFont(run_font, self._size, self._leading)
+                font = run_font
+            if run_colour != colour:
+                t.setFillColor(run_colour)
+                colour = run_colour
+            # the last run ends the line as a paragraph ends it (T*): readers see the same breaks
+            (t.textLine if k == last else t.textOut)(text)
+        if x:
+            t.setXPos(-x)
+        c.drawText(t)
+        c.restoreState()
+
+
+def cell(markup: str, style: ParagraphStyle) -> Flowable:
+    """A table cell of ``markup`` (the report's paragraph markup) in ``style``: a
+    :class:`LineCell` when the markup is the plain subset and the style a plain one, else a
+    ``Paragraph``. A ``LineCell`` still becomes a paragraph where its line does not fit."""
+    runs = runs_of(markup, style) if _plain_style(style) else None
+    if not runs:
+        return OnceParagraph(markup, style)
+    return LineCell(markup, style, runs)
