@@ -27,6 +27,7 @@ from ..outlines import contact_segments
 from ..steps import StepLog
 from ..units import Q_, Quantity
 from . import connectors
+from .callout import joint_callout
 from .combinations import SOURCE_DURATION, SOURCE_TIME_EFFECT, duration_factor, time_effect
 from .plies import PlyShare, TransferDemand
 from .results import Check, JointResult, worst
@@ -373,6 +374,8 @@ def solve_ply_lines(
             utilisation=res.utilisation, status=status, reasons=res.reasons, checks=tuple(checks),
             plane=tuple(segs), plane_width=b, steps=tuple(s for s in log.steps if s.key.startswith(log.prefix + ".")),
             schedule=sched,
+            callout=joint_callout(joint_record(line, f), member.parts, segs, cap.description, False,
+                                  res.provided, sched, b, member.span),
         ))  # fmt: skip
     return tuple(out)
 
