@@ -98,20 +98,23 @@ def joint_callout_text(callout, system: str = "US", spacing: Quantity | None = N
     if callout.continuous:
         return callout.name
     s = spacing if spacing is not None else callout.spacing
-    name = _short_name(callout)
+    name = _short_name(callout, system)
     rows = {p.rows for p in callout.planes}
     at = f"@ {shop_length(s, system)} o.c." if s is not None else "(no spacing)"
     if len(rows) == 1 and callout.planes:
         n = rows.pop()
-        across = plural_across(callout)
+        across = "through all plies" if getattr(callout, "through", False) else plural_across(callout)
         lead = f"{n} row{'s' if n != 1 else ''} {name} {at}"
         return f"{lead}, {across}" if across else lead
     return f"{callout.per_row} per row {name} {at}"
 
 
-def _short_name(callout) -> str:
+def _short_name(callout, system: str = "US") -> str:
     """The connector's name without the word its kind already says ("8d common nail" → "8d
-    common" when a size is given, as framers write it)."""
+    common" when a size is given, as framers write it); bolts by their diameter ("1/2 in bolt")."""
     if callout.size and callout.kind in ("nail", "wood_screw", "lag_screw"):
         return callout.size
+    d = getattr(callout, "diameter", None)
+    if d is not None and callout.kind in ("wood_bolt", "steel_bolt", "lag_screw"):
+        return f"{shop_length(d, system)} {'lag screw' if callout.kind == 'lag_screw' else 'bolt'}"
     return callout.name

@@ -62,6 +62,8 @@ class Callout:
     pieces_total: int | None = None  # connectors (or weld segments) along the member
     length: Quantity | None = None  # the member length the schedule covers (or its span)
     pieces_per_row: int = 1  # connectors (or weld segments) one row puts in
+    through: bool = False  # each connector passes through every plane (a through-bolt of plies)
+    diameter: Quantity | None = None  # bolts and lag screws: the shank diameter as given
 
 
 def _share(per_row: int, n: int) -> list[int]:
@@ -93,11 +95,13 @@ def joint_callout(
     schedule,
     plane_width: Quantity | None,
     span: Quantity | None = None,
+    through: bool = False,
 ) -> Callout:
-    """The callout record of one joint (see module docstring)."""
+    """The callout record of one joint (see module docstring). ``through``: every connector of a
+    row passes through all the planes (a through-bolted line of plies), so each plane has them all."""
     held = [p for p in parts if p.id in joint.holds]
     rest = [p for p in parts if p.id not in joint.holds]
-    shares = _share(joint.per_row, len(segments))
+    shares = [joint.per_row] * max(1, len(segments)) if through else _share(joint.per_row, len(segments))
     planes = []
     for seg, rows in zip(segments, shares):
         o = _across(seg, held, rest)
@@ -124,6 +128,8 @@ def joint_callout(
     length = schedule.length if schedule is not None else span
     return Callout(
         kind=joint.connector.kind,
+        through=through,
+        diameter=p.get("diameter") if isinstance(p.get("diameter"), Quantity) else None,
         name=description,
         size=size if isinstance(size, str) else "",
         continuous=continuous,

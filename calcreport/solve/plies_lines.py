@@ -375,7 +375,7 @@ def solve_ply_lines(
             plane=tuple(segs), plane_width=b, steps=tuple(s for s in log.steps if s.key.startswith(log.prefix + ".")),
             schedule=sched,
             callout=joint_callout(joint_record(line, f), member.parts, segs, cap.description, False,
-                                  res.provided, sched, b, member.span),
+                                  res.provided, sched, b, member.span, through=line.planes == 2),
         ))  # fmt: skip
     return tuple(out)
 
