@@ -211,7 +211,7 @@ def ply_checks(
                 out.append(
                     Unchecked(
                         f"{key}.plate_flexure.{sh.id}",
-                        f"flexure of the flitch plate {sh.id}",
+                        f"flexure of the flitch plate, ply {sh.id}",
                         f"{AISC} F11",
                         "no bolt schedule to brace the plate",
                     )
@@ -309,7 +309,7 @@ def ply_expectations(member: Member, has_moment: bool) -> list[Expectation]:
                 Expectation(
                     f"plate_flexure.{p.id}",
                     (f"plate_flexure:{p.id}",),
-                    f"flexure of the flitch plate {p.id}",
+                    f"flexure of the flitch plate, ply {p.id}",
                     f"{AISC} F11",
                     why,
                 )

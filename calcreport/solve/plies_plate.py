@@ -55,7 +55,7 @@ def steel_ply_checks(
         out.append(
             Unchecked(
                 f"{key}.plate_flexure.{pid}",
-                f"flexure of the flitch plate {pid}",
+                f"flexure of the flitch plate, ply {pid}",
                 f"{AISC} F11",
                 f"no Fy given for material {mat.id}",
             )
@@ -85,7 +85,7 @@ def steel_ply_checks(
     checks.append(
         Check(
             f"{key}.plate_flexure.{pid}",
-            f"Flexure of the flitch plate {pid} (F11)",
+            f"Flexure of the flitch plate, ply {pid} (F11)",
             Mi,
             Mc,
             r,
@@ -108,7 +108,7 @@ def steel_ply_checks(
     checks.append(
         Check(
             f"{key}.shear.{pid}",
-            f"Shear of the flitch plate {pid} (G2.1)",
+            f"Shear of the flitch plate, ply {pid} (G2.1)",
             Vi,
             Vc,
             r,
