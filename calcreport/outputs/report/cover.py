@@ -254,7 +254,14 @@ def cover_story(ctx: Ctx, info: PageInfo, sections: list[tuple[str, str]]) -> li
             continue
         sheet = info.sections.get(sid)
         toc.append([title, str(sheet) if sheet else "—"])
-    story.append(
-        grid(toc, [0.85 * w, 0.15 * w], st, zebra=False, extra=[("ALIGN", (1, 0), (1, -1), "RIGHT")])
-    )
+    if len(toc) > 5:  # two entries a row, so that the contents stay on the cover
+        half = (len(toc) - 1 + 1) // 2
+        left, right = toc[1 : 1 + half], toc[1 + half :]
+        right += [["", ""]] * (len(left) - len(right))
+        toc = [["Section", "Sheet", "Section", "Sheet"]] + [a + b for a, b in zip(left, right)]
+        widths = [0.40 * w, 0.10 * w, 0.40 * w, 0.10 * w]
+        align = [("ALIGN", (1, 0), (1, -1), "RIGHT"), ("ALIGN", (3, 0), (3, -1), "RIGHT")]
+    else:
+        widths, align = [0.85 * w, 0.15 * w], [("ALIGN", (1, 0), (1, -1), "RIGHT")]
+    story.append(grid(toc, widths, st, zebra=False, extra=align))
     return story
