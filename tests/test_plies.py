@@ -268,3 +268,13 @@ def test_Fc_perp_without_a_ply_bearing_check_warns(write_job, cli):
     text = three_ply_side().replace("G = 0.50\n", 'G = 0.50\nFc_perp = "625 psi"\n', 1)
     code, out, err = cli("check", write_job(text))
     assert code in (0, 1) and "Fc_perp" in err and "warning" in err and "bearing_length" in err
+
+
+def test_plies_under_the_en_1995_route_are_refused(write_job, cli):
+    """Members of plies are designed by NDS 2018 only: under method = "EC5" their fastener demand
+    would be weighted by NDS load-duration factors against a k_mod value — refused in one line."""
+    text = three_ply_side().replace('units = "US"\n', 'units = "US"\nmethod = "EC5"\nservice_class = 2\n', 1)
+    code, out, err = cli("check", write_job(text))
+    assert code == 2, (out, err)
+    lines = err.strip().splitlines()
+    assert "Traceback" not in err and any("NDS 2018" in ln and "ply" in ln for ln in lines), err

@@ -289,6 +289,12 @@ def _member(t: Table, materials: dict[str, Material], settings: Settings) -> Mem
                 "joint", "plies are joined by [member.ply_fastening], not [[member.joint]]; remove the joint"
             )
         plies = read_plies(t, ply_tables, materials)
+        if plies and settings.method == "EC5":
+            raise t.error(
+                "ply",
+                'members of plies are designed by NDS 2018 (settings.method = "ASD" or "LRFD"); '
+                "the EN 1995-1-1 route does not cover them yet",
+            )
         part_tables = []
     elif not part_tables:
         raise t.error(None, "missing required key 'part' (at least one [[member.part]])")

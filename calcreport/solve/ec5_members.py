@@ -375,4 +375,14 @@ def ec5_unchecked(
             reason = REASON
         label = EC5_LABELS.get(e.name, e.label)
         out.append(Unchecked(f"member[{member.id}].{e.name}", label, clause, reason))
+    if has_moment and any(p.material.family in ("wood", "glulam", "plywood") for p in member.parts):
+        # the deflection checks are instantaneous: a final-deflection limit needs the creep part too
+        out.append(
+            Unchecked(
+                f"member[{member.id}].deflection_final",
+                "final deflection with creep (w_fin = w_inst·(1 + k_def) for the quasi-permanent part)",
+                f"{_EC5} §2.2.3(5), Table 3.2",
+                "not implemented: the deflections checked are instantaneous (no k_def)",
+            )
+        )
     return tuple(out)

@@ -31,8 +31,10 @@ NOT_CHECKED = (
     "states them (welded plate girders: AISC 360-16 F2-F5 with the Lb and Cb stated)",
     "local buckling, web buckling, web crippling and web yielding under concentrated loads, unless a "
     "check above states them (welded plate girders at their supports: J10.2, J10.3)",
-    "bearing at supports and under point loads; stiffeners and tension-field action",
-    "ply-to-ply fastening of multi-ply and flitch beams (a joint between plies side by side is refused)",
+    "bearing at supports and under point loads, unless a check above states it (members of plies with "
+    "bearing lengths given: NDS 2018 §3.10); stiffeners and tension-field action",
+    "ply-to-ply fastening of multi-ply and flitch beams described as parts joined by shear flow (such a "
+    "joint is refused); members described by plies are designed with the sharing by E·I they state",
     "the connection of the member to its supports and to other members",
     "deflection and camber, unless a check above states them; deflections are from bending only unless a "
     "check above adds the webs' shear deformation — connector slip is not included unless a member's "
