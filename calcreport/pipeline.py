@@ -81,7 +81,7 @@ def solve(job: Job) -> JobResult:
         return solve_job(job)
     except (ConnectorError, SolveError) as exc:
         raise JobError(job.path, exc.key, str(exc)) from None
-    except (ArithmeticError, ValueError, TypeError, RecursionError) as exc:
+    except (ArithmeticError, LookupError, ValueError, TypeError, AttributeError, RecursionError) as exc:
         raise JobError(
             job.path,
             "",

@@ -264,6 +264,15 @@ def plies_assumed(member: Member) -> list[Assumed]:
                 "share_i = E_i·I_i / Σ E·I", "describe the plies as they are built; not adjustable",
                 "common practice, no source"),
     ]  # fmt: skip
+    seen: set[str] = set()
+    for pl in member.plies:
+        m = pl.part.material
+        if m.family in ("wood", "glulam") and m.id not in seen:
+            seen.add(m.id)
+            out.append(Assumed(f"material[{m.id}].Fb", f"Wet service and temperature factors of {m.id} in the ply checks",
+                               "CM = Ct = 1.0 (dry service, moisture content ≤ 19 %; temperature ≤ 100 °F)",
+                               "not a key yet: for wet service give Fb, Fv, Fc_perp and E of [[material]] already "
+                               "multiplied by CM", "NDS 2018 Table 4.3.1, §4.1.4; Supplement Table 4A footnotes"))  # fmt: skip
     for ld in member.loads:
         if ld.kind == "point" and ld.transfer_length is None:
             out.append(Assumed(f"{ld.key}.transfer_length", f"Length over which {ld.label or ld.key} passes between plies",

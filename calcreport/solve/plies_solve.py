@@ -40,6 +40,8 @@ def ply_assumed(
     for a in member_assumed(view, settings, joints, beam):
         if a.key.endswith((".planes", ".staggered")):
             continue  # set by the ply layout and ply_fastening.staggered
+        if a.key.startswith("material[") and a.key.endswith("].Fb"):
+            continue  # the ply checks apply C_D, CF, Cr, CL: their CM, Ct record is in plies_assumed
         a = replace(a, where=a.where.replace("[member.joint.connector]", "[member.ply_fastening.connector]"))
         if a.key.endswith((".angle_side", ".angle_main")) and f.connector.kind in ("wood_bolt", "lag_screw"):
             a = replace(
