@@ -261,6 +261,12 @@ def test_demo_connector_force_b5():
     assert sj.utilisation_rigid == pytest.approx(
         float((sj.force_rigid / j.capacity).to("").magnitude), rel=1e-9
     )
+    # γ·s saturates: the single spacing slip needs is the joint's largest spacing, flagged as such
+    # (not a strength limit — the report says so beside the value)
+    assert sj.spacing_capped == (
+        j.spacing_max is not None
+        and abs(float((sj.spacing_required_slip - j.spacing_max).to("mm").magnitude)) < 1e-6
+    )
 
 
 # --- NDS route, three layers (box beam), scope, applicability ---------------------------------

@@ -72,6 +72,7 @@ class SlipJoint:
     spacing_required_rigid: Quantity | None
     spacing_required_slip: Quantity | None
     governs: str  # "rigid" or "slip"
+    spacing_capped: bool = False  # the slip spacing is the joint's largest spacing, not a strength limit
 
 
 @dataclass(frozen=True)

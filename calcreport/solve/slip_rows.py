@@ -105,7 +105,8 @@ def joint_rows(member, groups: list[Group], moduli, spacing, joints, st: State, 
                         + ("; limited by the largest spacing" if s_it[jid] >= cap[jid] - 1e-9 else ""))  # fmt: skip
         gov = "slip" if u_slip > u_rigid + 1e-12 else "rigid"
         rows.append(SlipJoint(jid, moduli[jid].K_ser, moduli[jid].K_u, moduli[jid].source, spacing[jid][0], s, F_rigid, F,
-                              j.capacity, u_rigid, u_slip, j.spacing_required, sr, gov))  # fmt: skip
+                              j.capacity, u_rigid, u_slip, j.spacing_required, sr, gov,
+                              s_it[jid] >= cap[jid] - 1e-9))  # fmt: skip
         checks.append(Check(f"member[{member.id}].slip.connector.{jid}",
                             f"Connector force with slip, joint {jid}", F, j.capacity, u_slip,
                             _status(u_slip), f"{SRC}, B.5", scope="slip",

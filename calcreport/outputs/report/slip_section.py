@@ -65,7 +65,8 @@ def slip_story(m: MemberResult, ctx: Ctx) -> list:
                 "",
                 "single spacing required (strength)",
                 ctx.q(j.spacing_required_rigid),
-                ctx.q(j.spacing_required_slip),
+                ctx.q(j.spacing_required_slip)
+                + (" (the largest spacing: strength does not limit it)" if j.spacing_capped else ""),
                 "",
             ],
             [
