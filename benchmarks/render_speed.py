@@ -30,6 +30,8 @@ import tempfile
 import time
 from pathlib import Path
 
+from report_pages import PARTS  # the same stringer parts and joint (benchmarks/ is on sys.path)
+
 ROOT = Path(__file__).resolve().parent.parent
 FLOOR = "import numpy, pint, reportlab; pint.UnitRegistry(cache_folder=':auto:')"
 LARGEST = "pavilion-ridge-box-beam.toml"
@@ -77,31 +79,8 @@ kind = "point"
 P = "{p} lbf"
 at = "{at} ft"
 
-[[member.part]]
-id = "web"
-shape = "rect"
-width = "3.5 in"
-depth = "{d} in"
-material = "df"
-
-[[member.part]]
-id = "cap"
-shape = "rect"
-width = "7.25 in"
-depth = "1.5 in"
-material = "df"
-on = "web"
-
-[[member.joint]]
-id = "cap-web"
-holds = ["cap"]
-per_row = 2
-
-[member.joint.connector]
-type = "given"
-value = "120 lbf"
-source = "benchmark value"
 """
+MEMBER += PARTS
 
 
 def job_text(members: int) -> str:

@@ -39,7 +39,10 @@ id = "S{i}"
 title = "Stringer S{i}"
 shear = "{v} kip"
 
-[[member.part]]
+"""
+
+#: the parts and the joint every benchmark stringer has (also used by render_speed.py)
+PARTS = """[[member.part]]
 id = "web"
 shape = "rect"
 width = "3.5 in"
@@ -64,6 +67,7 @@ type = "given"
 value = "120 lbf"
 source = "benchmark value"
 """
+MEMBER += PARTS
 
 
 def job_text(members: int) -> str:
