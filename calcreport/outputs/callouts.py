@@ -11,7 +11,16 @@ import re
 
 from ..units import Quantity
 
-__all__ = ["shop_length", "fraction_inches", "dim_text", "joint_callout_text", "plural_across", "weld_text"]
+__all__ = [
+    "shop_length",
+    "fraction_inches",
+    "dim_text",
+    "joint_callout_text",
+    "plural_across",
+    "weld_text",
+    "stagger_words",
+    "stagger_note",
+]
 
 
 def shop_length(q: Quantity | None, system: str = "US") -> str:
@@ -101,12 +110,52 @@ def joint_callout_text(callout, system: str = "US", spacing: Quantity | None = N
     name = _short_name(callout, system)
     rows = {p.rows for p in callout.planes}
     at = f"@ {shop_length(s, system)} o.c." if s is not None else "(no spacing)"
+    stagger = stagger_words(callout)
     if len(rows) == 1 and callout.planes:
         n = rows.pop()
         across = "through all plies" if getattr(callout, "through", False) else plural_across(callout)
         lead = f"{n} row{'s' if n != 1 else ''} {name} {at}"
-        return f"{lead}, {across}" if across else lead
-    return f"{callout.per_row} per row {name} {at}"
+        return ", ".join(w for w in (lead, across, stagger) if w)
+    return ", ".join(w for w in (f"{callout.per_row} per row {name} {at}", stagger) if w)
+
+
+def stagger_words(callout) -> str:
+    """ "staggered" (rows from opposite faces offset half a spacing), for a line of plies also
+    the line it is staggered with; "" when not staggered."""
+    if not getattr(callout, "staggered", False):
+        return ""
+    other = getattr(callout, "stagger_with", "")
+    if not other:
+        return "staggered"
+    if callout.offset_planes:
+        return f"staggered, offset half a spacing from {other}"
+    return f"staggered with {other}"
+
+
+def stagger_note(callout, system: str = "US") -> str:
+    """The shop's sentence on staggered rows: which rows lie midway between which ("" when not
+    staggered)."""
+    if not getattr(callout, "staggered", False):
+        return ""
+    other = getattr(callout, "stagger_with", "")
+    if other and not callout.offset_planes:
+        return (
+            f"Staggered: the rows of line {other}, driven from the other face, lie midway between "
+            "these rows (offset half a spacing)."
+        )
+    if other:
+        return (
+            "Staggered: each row lies midway between two rows of the schedule (offset half a spacing), "
+            f"so that the points do not meet those of line {other}, driven from the other face; "
+            "no row at x = 0, one fewer row."
+        )
+    faces = [p.other for i, p in enumerate(callout.planes) if i in callout.offset_planes]
+    through = " and ".join(f for f in faces if f) or "the far face"
+    end = "; they have no row at x = 0, one fewer" if callout.zones else ""
+    return (
+        f"Staggered: the rows driven through {through} (dashed on the elevation) lie midway between "
+        f"the others, offset half a spacing{end}."
+    )
 
 
 def _short_name(callout, system: str = "US") -> str:

@@ -16,7 +16,7 @@ from reportlab.platypus import Flowable, KeepTogether, PageBreak, Paragraph, Tab
 
 from ..solve.results import JointResult, MemberResult
 from ..units import Quantity
-from .callouts import joint_callout_text, shop_length
+from .callouts import joint_callout_text, shop_length, stagger_note
 from .fabrication_draw import QR_SIZE, ShopQR, elevation
 from .report.common import Ctx, grid, para
 from .report.pages import SectionStart
@@ -64,6 +64,15 @@ def _pieces_table(m: MemberResult, ctx: Ctx) -> Table:
     )
 
 
+def _rows(rows, offset: int, c) -> str:
+    """Rows of a zone: "20 + 20" (the rows, then the offset rows midway between) when staggered."""
+    if not c.staggered or not c.offset_planes:
+        return str(rows)
+    if c.stagger_with:  # the whole line is offset: only its offset rows
+        return str(offset)
+    return f"{rows} + {offset}"
+
+
 def _zone_table(j: JointResult, ctx: Ctx) -> Table | None:
     c = j.callout
     sys_ = ctx.display.system
@@ -79,7 +88,7 @@ def _zone_table(j: JointResult, ctx: Ctx) -> Table | None:
                 shop_position(z.end, sys_),
                 shop_position(z.length, sys_),
                 joint_callout_text(c, sys_, spacing=z.spacing),
-                str(z.rows),
+                _rows(z.rows, z.rows_offset, c),
                 str(z.pieces),
             ]
         )
@@ -90,7 +99,7 @@ def _zone_table(j: JointResult, ctx: Ctx) -> Table | None:
             shop_position(c.length, sys_) if c.length is not None else "",
             "",
             "",
-            str(c.rows_total),
+            _rows(c.rows_total, len(c.offset_at), c),
             str(c.pieces_total),
         ]
     )
@@ -165,6 +174,9 @@ def _joint_story(j: JointResult, m: MemberResult, ctx: Ctx, earlier: list[JointR
         st.fonts.bold,
         ctx.width,
     )
+    note = stagger_note(c, sys_)
+    if note:
+        out.append(para(note, st.small))
     block: list[Flowable] = out + ([fig] if fig is not None else [])
     table = _zone_table(j, ctx)
     if table is not None:

@@ -96,21 +96,34 @@ def elevation(
                 strokeDashArray=dash,
             )
         )
+    # rows where the solver's callout puts them (``rows_at``; staggered: ``offset_at`` midway
+    # between, dashed when they are the far face's, solid when the whole line is offset)
+    seg = _inches(c.segment) * sx if weld and c.segment is not None else 0.0
+    whole = c.staggered and c.stagger_with != "" and bool(c.offset_planes)
+    near = () if whole else c.rows_at
+    far = c.offset_at if c.staggered else ()
+    for x in near:
+        px = left + x * sx
+        if seg:
+            x0, x1 = max(left, px - seg / 2), min(left + L * sx, px + seg / 2)
+            dr.add(Rect(x0, y0 + h / 2 - 2, max(x1 - x0, 0.8), 4, fillColor=ROW_INK, strokeColor=None))
+        else:
+            dr.add(Line(px, y0 + 3, px, y0 + h - 3, strokeColor=ROW_INK, strokeWidth=0.45))
+    for x in far:
+        px = left + x * sx
+        dr.add(
+            Line(
+                px,
+                y0 + 3,
+                px,
+                y0 + h - 3,
+                strokeColor=ROW_INK,
+                strokeWidth=0.45,
+                strokeDashArray=None if whole else [1.6, 1.2],
+            )
+        )
     for i, z in enumerate(zones):
-        a, b, s = _inches(z.start), _inches(z.end), _inches(z.spacing)
-        xs = [a] if i == 0 else []
-        k = 1
-        while a + (k - 1) * s < b - 1e-6 and len(xs) < 5000:
-            xs.append(min(a + k * s, b))
-            k += 1
-        seg = _inches(c.segment) * sx if weld and c.segment is not None else 0.0
-        for x in xs:
-            px = left + x * sx
-            if seg:
-                x0, x1 = max(left, px - seg / 2), min(left + L * sx, px + seg / 2)
-                dr.add(Rect(x0, y0 + h / 2 - 2, max(x1 - x0, 0.8), 4, fillColor=ROW_INK, strokeColor=None))
-            else:
-                dr.add(Line(px, y0 + 3, px, y0 + h - 3, strokeColor=ROW_INK, strokeWidth=0.45))
+        a = _inches(z.start)
         if i:
             dr.add(Line(left + a * sx, y0 - 2, left + a * sx, y0 + h + 10, strokeColor=INK, strokeWidth=0.5))
     # spacing and count per zone, above
@@ -138,6 +151,12 @@ def elevation(
         dr.add(g)
     dr.add(String(left - 4, y0 + h / 2 - 2.5, "0", fontName=bold, fontSize=SIZE, textAnchor="end"))
     legend = "spacing  ·  pieces per zone" if zones else ("continuous, full length" if c.continuous else "")
+    if zones and c.staggered and c.offset_at:
+        legend += (
+            "  ·  staggered: rows offset half a spacing"
+            if whole
+            else "  ·  staggered: dashed rows (far face) midway between"
+        )
     dr.add(String(left, height - SIZE - 1, legend, fontName=font, fontSize=SIZE, fillColor=INK))
     return dr
 

@@ -8,13 +8,13 @@ the schedule — nothing here computes an engineering value; the outputs only pu
 
 from __future__ import annotations
 
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 
 from ..model import Joint, Part
 from ..outlines import contact_segments
 from ..units import Quantity
 
-__all__ = ["PlaneCallout", "ShopZone", "Callout", "joint_callout"]
+__all__ = ["PlaneCallout", "ShopZone", "Callout", "joint_callout", "row_positions", "midway", "stagger_line"]
 
 
 @dataclass(frozen=True)
@@ -37,6 +37,9 @@ class ShopZone:
     spacing: Quantity
     rows: int  # connector rows in the zone (the first zone also holds the row at x = 0)
     pieces: int  # connectors in the zone: rows × per_row; welds: segments on all weld lines
+    # staggered: the offset rows in the zone (midway between the rows; a line staggered as a
+    # whole has only these, ``rows`` = 0); ``pieces`` counts the connectors of both
+    rows_offset: int = 0
 
 
 @dataclass(frozen=True)
@@ -64,6 +67,87 @@ class Callout:
     pieces_per_row: int = 1  # connectors (or weld segments) one row puts in
     through: bool = False  # each connector passes through every plane (a through-bolt of plies)
     diameter: Quantity | None = None  # bolts and lag screws: the shank diameter as given
+    # staggered rows (``staggered = true``): the rows on the planes ``offset_planes`` (or the whole
+    # line, when it is staggered against the line ``stagger_with``) lie midway between the
+    # schedule's rows — offset half the spacing; there is one fewer of them (none at x = 0)
+    staggered: bool = False
+    offset_planes: tuple[int, ...] = ()
+    stagger_with: str = ""
+    rows_at: tuple[float, ...] = ()  # inches from x = 0: the schedule's rows (x = 0, then each zone's)
+    offset_at: tuple[float, ...] = ()  # inches: the offset rows, midway between ``rows_at``
+
+
+def row_positions(zones) -> tuple[float, ...]:
+    """The schedule's rows along the member, in inches from x = 0: one at x = 0, then each zone's
+    rows at its spacing from the zone's start, the last at the zone's end — N = 1 + Σ ceil(ℓᵢ/sᵢ)
+    (:mod:`.schedule`). ``zones`` are schedule or shop zones (start, end, spacing)."""
+    xs = [0.0] if zones else []
+    for z in zones:
+        a, b = float(z.start.to("inch").magnitude), float(z.end.to("inch").magnitude)
+        s = float(z.spacing.to("inch").magnitude)
+        k = 1
+        while a + (k - 1) * s < b - 1e-6 and s > 0:
+            xs.append(min(a + k * s, b))
+            k += 1
+    return tuple(xs)
+
+
+def midway(xs: tuple[float, ...]) -> tuple[float, ...]:
+    """Staggered rows: midway between consecutive rows (offset half the spacing), inches.
+    Common practice, no source."""
+    return tuple((a + b) / 2 for a, b in zip(xs, xs[1:]))
+
+
+def _offset_counts(zones, offset: tuple[float, ...]) -> list[int]:
+    """Offset rows in each zone's (start, end] (the first zone's start included)."""
+    out = []
+    for i, z in enumerate(zones):
+        a, b = float(z.start.to("inch").magnitude), float(z.end.to("inch").magnitude)
+        out.append(sum(1 for x in offset if (a - 1e-6 if i == 0 else a + 1e-6) < x <= b + 1e-6))
+    return out
+
+
+def _staggered(c: Callout, planes: tuple[int, ...], whole: bool) -> Callout:
+    """``c`` with its offset rows: on the planes ``planes`` (or every connector of the row when
+    ``whole``), midway between the schedule's rows; counts per zone and in total follow."""
+    if whole:
+        moved = c.per_row
+    else:
+        moved = sum(p.rows for i, p in enumerate(c.planes) if i in planes)
+    rows = row_positions(c.zones)
+    off = midway(rows)
+    zones = c.zones
+    if zones:
+        n_off = _offset_counts(zones, off)
+        stay = c.per_row - moved
+        zones = tuple(
+            replace(
+                z,
+                rows=0 if whole else z.rows,
+                rows_offset=k,
+                pieces=(0 if whole else z.rows * stay) + k * moved,
+            )
+            for z, k in zip(zones, n_off)
+        )
+    return replace(
+        c,
+        staggered=True,
+        offset_planes=tuple(range(len(c.planes))) if whole else planes,
+        rows_at=rows,
+        offset_at=off,
+        zones=zones,
+        rows_total=len(off) if whole and zones else c.rows_total,
+        pieces_total=sum(z.pieces for z in zones) if zones else c.pieces_total,
+    )
+
+
+def stagger_line(c: Callout, other: str, offset: bool) -> Callout:
+    """A line of fasteners staggered against the line ``other`` (plies nailed from both faces):
+    with ``offset`` all its rows lie midway between its schedule's rows (``rows_total`` then
+    counts them: one fewer); else it keeps its rows and only names the line offset from it."""
+    if offset:
+        return replace(_staggered(c, (), whole=True), stagger_with=other)
+    return replace(c, staggered=True, stagger_with=other)
 
 
 def _share(per_row: int, n: int) -> list[int]:
@@ -96,9 +180,12 @@ def joint_callout(
     plane_width: Quantity | None,
     span: Quantity | None = None,
     through: bool = False,
+    staggered: bool = False,
 ) -> Callout:
     """The callout record of one joint (see module docstring). ``through``: every connector of a
-    row passes through all the planes (a through-bolted line of plies), so each plane has them all."""
+    row passes through all the planes (a through-bolted line of plies), so each plane has them all.
+    ``staggered``: rows from opposite faces offset along the member (the connector's
+    ``staggered = true``) — the rows on the second, fourth … plane lie midway between the rows."""
     held = [p for p in parts if p.id in joint.holds]
     rest = [p for p in parts if p.id not in joint.holds]
     shares = [joint.per_row] * max(1, len(segments)) if through else _share(joint.per_row, len(segments))
@@ -126,7 +213,7 @@ def joint_callout(
     )
     n_rows = int(schedule.count) if feasible and schedule.count is not None else None
     length = schedule.length if schedule is not None else span
-    return Callout(
+    out = Callout(
         kind=joint.connector.kind,
         through=through,
         diameter=p.get("diameter") if isinstance(p.get("diameter"), Quantity) else None,
@@ -148,4 +235,8 @@ def joint_callout(
         pieces_total=None if n_rows is None else n_rows * per,
         length=length,
         pieces_per_row=per,
+        rows_at=row_positions(shop),
     )
+    if staggered and not continuous and not weld and len(planes) > 1:
+        return _staggered(out, tuple(range(1, len(planes), 2)), whole=False)
+    return out

@@ -356,5 +356,6 @@ def solve_joint(
             schedule,
             b,
             member.span,
+            staggered=bool(joint.connector.params.get("staggered")),
         ),
     )

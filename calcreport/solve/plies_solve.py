@@ -10,6 +10,7 @@ from ..model import Member, Settings
 from ..steps import StepLog
 from ..units import Q_
 from .assumed import member_assumed
+from .callout import stagger_line
 from .plies import plies_assumed, ply_shares, transfer_demand
 from .plies_checks import plate_assumed
 from .plies_lines import SRC_PRACTICE, default_spacing_max, joint_record, ply_lines, solve_ply_lines
@@ -25,7 +26,22 @@ def ply_joints(member: Member, beam, settings: Settings, log: StepLog) -> tuple[
     plog = log.child("plies")
     shares = ply_shares(member, plog)
     demand = transfer_demand(member, beam, shares, plog.child("transfer"), beam.self_weight)
-    return solve_ply_lines(member, beam, shares, demand, settings, log)
+    joints = solve_ply_lines(member, beam, shares, demand, settings, log)
+    return _staggered_lines(joints, member.ply_fastening is not None and member.ply_fastening.staggered)
+
+
+def _staggered_lines(joints: tuple[JointResult, ...], staggered: bool) -> tuple[JointResult, ...]:
+    """Three plies nailed from both faces with ``staggered = true``: the second line's rows lie
+    midway between its schedule's rows, offset half a spacing from the first line's (common
+    practice, no source)."""
+    if not staggered or len(joints) != 2 or any(j.callout is None for j in joints):
+        return joints
+    a, b = joints
+    assert a.callout is not None and b.callout is not None
+    return (
+        replace(a, callout=stagger_line(a.callout, b.id, offset=False)),
+        replace(b, callout=stagger_line(b.callout, a.id, offset=True)),
+    )
 
 
 def ply_assumed(

@@ -348,6 +348,12 @@ def _legend(dr: Drawing, ctx: Ctx, families: list[str], k: float, font: str, m: 
         dr.add(Line(x, y + 1.5, x, y + 6.5, strokeColor=PLANE, strokeWidth=1.6))
         dr.add(String(x + 17, y + 1.5, "fastener, one per row", fontName=font, fontSize=6.5))
         x += 94
+        if any(j.callout is not None and j.callout.staggered and j.callout.offset_planes for j in m.joints):
+            dr.add(
+                Line(x, y + 4, x + 14, y + 4, strokeColor=PLANE, strokeWidth=1.1, strokeDashArray=[1.8, 1.2])
+            )
+            dr.add(String(x + 17, y + 1.5, "staggered, half a spacing away", fontName=font, fontSize=6.5))
+            x += 26 + stringWidth("staggered, half a spacing away", font, 6.5)
     if "glue" in kinds:
         dr.add(Line(x, y + 4, x + 14, y + 4, strokeColor=PLANE, strokeWidth=2.2, strokeDashArray=[2.5, 1.2]))
         dr.add(String(x + 17, y + 1.5, "glue line", fontName=font, fontSize=6.5))

@@ -84,8 +84,11 @@ def _weld_triangles(j: JointResult, P: ToPoint, k: float, polys: list[SPolygon])
 
 def _fasteners(dr: Drawing, j: JointResult, P: ToPoint, parts_pts: dict[str, tuple]) -> None:
     """One shank per connector of a row on each plane: from the far face of the part across the
-    plane, through the plane, with a head on that face."""
-    for pl in j.callout.planes:
+    plane, through the plane, with a head on that face. Staggered rows offset half a spacing
+    (``offset_planes``) lie outside the cut: drawn dashed."""
+    c = j.callout
+    for n_plane, pl in enumerate(c.planes):
+        dash = [1.8, 1.2] if c.staggered and n_plane in c.offset_planes else None
         a, b = P(*pl.segment[0]), P(*pl.segment[1])
         length = math.hypot(b[0] - a[0], b[1] - a[1])
         if length <= 0 or pl.rows <= 0:
@@ -105,7 +108,7 @@ def _fasteners(dr: Drawing, j: JointResult, P: ToPoint, parts_pts: dict[str, tup
             px, py = a[0] + (b[0] - a[0]) * t, a[1] + (b[1] - a[1]) * t
             hx, hy = px - nx * depth_other, py - ny * depth_other  # head on the far face
             tx, ty = px + nx * (reach - depth_other), py + ny * (reach - depth_other)
-            dr.add(Line(hx, hy, tx, ty, strokeColor=PLANE, strokeWidth=1.1))
+            dr.add(Line(hx, hy, tx, ty, strokeColor=PLANE, strokeWidth=1.1, strokeDashArray=dash))
             dr.add(
                 Line(
                     hx - ux * 2.4,

@@ -1,0 +1,123 @@
+"""Staggered rows drawn: a joint whose fasteners are driven from opposite faces with
+``staggered = true`` (the box beams' webs into a flange) and a ply fastening with
+``[member.ply_fastening] staggered = true`` (three plies nailed from both faces) show the offset
+rows on the fabrication elevation and the section detail, and the callout says "staggered".
+
+External references: the row positions are recomputed here from the schedule's zones by the rule
+the schedule states (one row at x = 0, then ceil(ℓᵢ/sᵢ) rows per zone at its spacing, the last at
+the zone's end); staggering the rows from the two faces by half the spacing, so that the points do
+not meet, is common practice, no source. The job files give which joints are staggered.
+"""
+
+from __future__ import annotations
+
+import io
+import math
+import re
+
+import pypdf
+import pytest
+from reportlab.graphics.shapes import Line
+
+from calcreport.outputs.callouts import joint_callout_text, shop_length
+from calcreport.outputs.fabrication import shop_position
+from calcreport.outputs.fabrication_draw import ROW_INK, elevation
+from calcreport.outputs.report.build import render_pdf
+from calcreport.pipeline import solve_file
+from tests.conftest import ROOT
+
+RIDGE = ROOT / "jobs" / "pavilion-ridge-box-beam.toml"
+HEADER = ROOT / "jobs" / "boathouse-door-header.toml"
+PLIES = ROOT / "jobs" / "boathouse-mezzanine-3-ply.toml"
+GIRDER = ROOT / "jobs" / "pavilion-plate-girder.toml"
+
+
+def _expected_rows(zones) -> list[float]:
+    """Independent of calcreport.solve.callout: N = 1 + Σ ceil(ℓ/s), row at x = 0 first."""
+    xs = [0.0]
+    for z in zones:
+        a, b, s = (float(q.to("inch").magnitude) for q in (z.start, z.end, z.spacing))
+        n = math.ceil((b - a) / s - 1e-9)
+        xs += [min(a + k * s, b) for k in range(1, n + 1)]
+    return xs
+
+
+@pytest.fixture(scope="module")
+def solved():
+    return {p: solve_file(str(p)) for p in (RIDGE, HEADER, PLIES, GIRDER)}
+
+
+def test_staggered_rows_follow_the_schedule(solved):
+    for j in solved[RIDGE].members[0].joints:
+        c = j.callout
+        assert c.staggered and c.offset_planes == (1,)  # web_e: the second face
+        rows = _expected_rows(j.schedule.zones)
+        assert len(rows) == j.schedule.count
+        assert c.rows_at == pytest.approx(rows)
+        mid = [(a + b) / 2 for a, b in zip(rows, rows[1:])]
+        assert c.offset_at == pytest.approx(mid)
+        # every offset row sits half the local spacing from its neighbours
+        for x, a, b in zip(c.offset_at, rows, rows[1:]):
+            assert x - a == pytest.approx((b - a) / 2) and b - x == pytest.approx((b - a) / 2)
+        # counts: 2 nails per row from web_w at every row, 2 from web_e at every offset row
+        assert c.pieces_total == 2 * len(rows) + 2 * (len(rows) - 1)
+        assert sum(z.rows_offset for z in c.zones) == len(rows) - 1
+        assert [z.rows for z in c.zones] == [z.count for z in j.schedule.zones]
+
+
+def test_a_ply_line_staggered_against_the_other(solved):
+    first, second = solved[PLIES].members[0].joints
+    assert first.callout.staggered and not first.callout.offset_planes
+    assert first.callout.stagger_with == second.id and second.callout.stagger_with == first.id
+    rows = _expected_rows(second.schedule.zones)
+    assert second.callout.offset_at == pytest.approx([(a + b) / 2 for a, b in zip(rows, rows[1:])])
+    assert second.callout.rows_total == len(rows) - 1  # no row at x = 0
+    assert second.callout.pieces_total == 2 * (len(rows) - 1)  # rows = 2 in the job
+    # the job: both lines at the same schedule, so the offset rows fall midway between the first's
+    assert first.callout.rows_at == pytest.approx(rows)
+    assert set(first.callout.rows_at).isdisjoint(second.callout.offset_at)
+
+
+def _row_lines(dr) -> tuple[list[float], list[float]]:
+    solid, dashed = [], []
+    for e in dr.contents:
+        if isinstance(e, Line) and e.strokeColor == ROW_INK and e.x1 == e.x2:
+            (dashed if e.strokeDashArray else solid).append(e.x1)
+    return sorted(solid), sorted(dashed)
+
+
+def test_elevation_draws_the_rows_where_the_schedule_puts_them(solved):
+    r = solved[RIDGE]
+    m = r.members[0]
+    j = m.joints[0]
+    width = 500.0
+    dr = elevation(j, m.member, lambda q: shop_position(q), lambda q: shop_length(q), "Helvetica",
+                   "Helvetica-Bold", width)  # fmt: skip
+    L = float(j.schedule.length.to("inch").magnitude)
+    sx = (width - 60.0) / L  # 30 pt margins each side (the drawing's layout)
+    rows = _expected_rows(j.schedule.zones)
+    solid, dashed = _row_lines(dr)
+    assert solid == pytest.approx([30.0 + x * sx for x in rows])
+    assert dashed == pytest.approx([30.0 + (a + b) / 2 * sx for a, b in zip(rows, rows[1:])])
+    # a joint that is not staggered draws no dashed rows
+    g = solved[GIRDER].members[0]
+    for gj in g.joints:
+        d2 = elevation(gj, g.member, shop_position, shop_length, "Helvetica", "Helvetica-Bold", width)
+        if d2 is not None:
+            assert _row_lines(d2)[1] == []
+
+
+def test_callouts_say_staggered(solved):
+    for path in (RIDGE, HEADER, PLIES):
+        r = solved[path]
+        pages = [p.extract_text() or "" for p in pypdf.PdfReader(io.BytesIO(render_pdf(r))).pages]
+        detail = re.sub(r"\s+", "", next(t for t in pages if "to scale" in t and "Section of" in t))
+        first = next(i for i, t in enumerate(pages) if i and "Fabrication sheet — member" in t)
+        fab = re.sub(r"\s+", "", "\n".join(pages[first:]))  # the sheets run to the end
+        for j in r.members[0].joints:
+            text = joint_callout_text(j.callout, r.job.settings.units)
+            assert "staggered" in text, (path.name, j.id, text)
+            assert re.sub(r"\s+", "", text) in detail and re.sub(r"\s+", "", text) in fab
+        assert "Staggered:" in fab
+    for j in solved[GIRDER].members[0].joints:
+        assert "staggered" not in joint_callout_text(j.callout)
