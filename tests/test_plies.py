@@ -278,3 +278,24 @@ def test_plies_under_the_en_1995_route_are_refused(write_job, cli):
     assert code == 2, (out, err)
     lines = err.strip().splitlines()
     assert "Traceback" not in err and any("NDS 2018" in ln and "ply" in ln for ln in lines), err
+
+
+def test_what_stability_rests_on_is_listed_never_none():
+    # Common practice of plan review, no source: a checker expects the lateral bracing the
+    # stability checks take for granted to be named. The flitch plate's F11 check takes Lb = the
+    # bolt spacing (braced by the timbers at each bolt); AISC 360-16 Appendix 6 covers the bracing
+    # of beams (from memory).
+    from calcreport.outputs.scope_text import not_checked_line
+    from tests.conftest import ROOT
+
+    for name in ("boardwalk-flitch-beam", "boathouse-mezzanine-3-ply"):
+        m = solve_bytes((ROOT / "jobs" / f"{name}.toml").read_bytes(), f"{name}.toml").members[0]
+        u = {u.key: u for u in m.not_checked}[f"member[{m.id}].bracing"]
+        assert "continuous_bracing" in u.reason and "engineer's to confirm" in u.reason
+        assert ("F11" in u.reason) == (name == "boardwalk-flitch-beam")
+        assert "Appendix 6" in u.clause if name == "boardwalk-flitch-beam" else "§3.3.3" in u.clause
+        assert "none listed" not in not_checked_line(m)
+    # without a bracing statement the reason says the whole span is taken as unbraced
+    m = solved(flitch().replace("continuous_bracing = true\n", ""))
+    u = {u.key: u for u in m.not_checked}[f"member[{m.id}].bracing"]
+    assert "whole span unbraced" in u.reason

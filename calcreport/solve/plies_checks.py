@@ -349,6 +349,39 @@ def ply_expectations(member: Member, has_moment: bool) -> list[Expectation]:
                 "no bearing_length in [member.design] or no Fc_perp on the wood materials",
             )
         )
+    out.append(_bracing_expectation(member, wood))
     out.append(Expectation("deflection", ("deflection",), "deflection of the plies together", "IBC 2021 Table 1604.3",
                            "no loads given" if not has_moment else "no deflection limit applies to the load cases given"))  # fmt: skip
     return out
+
+
+def _bracing_expectation(member: Member, wood: bool) -> Expectation:
+    """What the stability checks of a member of plies rest on and no check covers: the lateral
+    bracing of the assembly. The CL of the wood plies takes the edge braced as the job states (or
+    the whole span unbraced, with the ends held against rotation) and the plies acting together
+    laterally (b = their width together); a flitch plate's F11 check takes it braced by the timbers
+    at every bolt. The bracing members, their fastening and stiffness are never checked here: the
+    item is always listed (no check carries its tag). Common practice of plan review, no source."""
+    d = member.design
+    steel = any(p.part.material.family == "steel" for p in member.plies)
+    if d.get("continuous_bracing"):
+        edge = "the top edge braced continuously (continuous_bracing in [member.design])"
+    elif "unbraced_length" in d:
+        edge = "the top edge braced at the unbraced_length stated in [member.design]"
+    else:
+        edge = "the whole span unbraced, with the ends held against rotation at the supports"
+    rests = []
+    if wood:
+        rests.append(
+            f"the plies' CL takes {edge} and the fastened plies acting as one (b = their width together)"
+        )
+    if steel:
+        rests.append("the flitch plate's F11 check takes it braced laterally by the timbers at every bolt")
+    clause = f"{NDS} §3.3.3, §4.4.1" + (f"; {AISC} Appendix 6" if steel else "")
+    return Expectation(
+        "bracing",
+        ("bracing_of_assembly",),
+        "lateral bracing of the assembly: bracing members, their fastening and stiffness",
+        clause,
+        "; ".join(rests) + ": the bracing itself is the engineer's to confirm",
+    )

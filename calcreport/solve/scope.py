@@ -70,6 +70,7 @@ TAGS = {
     "bending:<ply>": "members of plies: bending of that ply under its share (NDS 2018 §3.3)",
     "shear:<ply>": "members of plies: shear of that ply under its share (NDS 2018 §3.4.2; AISC 360-16 G2.1)",
     "plate_flexure:<ply>": "flitch plate: flexure of a rectangular bar (AISC 360-16 F11)",
+    "bracing_of_assembly": "members of plies: the lateral bracing the stability checks rest on (never met: always listed)",
     "slip": "slip of mechanical connectors by the γ-method (EN 1995-1-1:2004 Annex B, solve/slip.py)",
 }
 
