@@ -299,3 +299,23 @@ def test_what_stability_rests_on_is_listed_never_none():
     m = solved(flitch().replace("continuous_bracing = true\n", ""))
     u = {u.key: u for u in m.not_checked}[f"member[{m.id}].bracing"]
     assert "whole span unbraced" in u.reason
+
+
+def test_bearing_zone_rows_are_labelled_ld_not_lt():
+    # The stretch within d of an end support clipped to the member is d itself; d = 11.25 in, the
+    # dressed depth of a 2x12 (NDS Supplement Table 1B, from memory). ℓt is a point load's transfer
+    # length only (common practice, no source: the two stretches have different origins).
+    from tests.conftest import ROOT
+
+    m = solve_bytes((ROOT / "jobs" / "boardwalk-flitch-beam.toml").read_bytes(), "f.toml").members[0]
+    j = m.joints[0]
+    bearing = [c for c in j.checks if ".bearing[" in c.key]
+    points = [c for c in j.checks if ".load[" in c.key and c.key.endswith(".fasteners")]
+    assert bearing and points
+    for c in bearing:
+        assert "ℓt" not in c.label + (c.note or "") and "ℓd" in c.note
+    for c in points:
+        assert "ℓt" in c.note and "ℓd" not in c.note
+    for i in (1, 2):
+        assert mag(step(j, f"bearings.support{i}.ld").result, "inch") == pytest.approx(11.25)
+        assert "ℓt" not in (step(j, f"bearings.support{i}.n_req").note or "")

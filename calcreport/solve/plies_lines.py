@@ -157,12 +157,13 @@ def _overlap_check(
 
 @dataclass(frozen=True)
 class PointNeed:
-    """Rows of fasteners a point load needs within its transfer length on one line."""
+    """Rows of fasteners a point load needs within its transfer length ℓt on one line (or a
+    flitch beam's bearing within d of the support: the stretch ℓd)."""
 
     index: int
     name: str
     tag: str
-    lo: float  # in, the stretch ℓt (clipped to the member)
+    lo: float  # in, the stretch ℓt or ℓd (clipped to the member)
     hi: float
     force: Quantity  # T, the part of the load this line passes (factored, with C_D/C_D,c)
     rows: int  # n_req = ⌈T / (n·F)⌉
@@ -243,8 +244,12 @@ def _bearing_needs(
         need = int(np.ceil(T / row - 1e-9))
         log.add(f"support{i}.n_req", f"Rows of bolts needed within d of support {i}", "n_req = ⌈T / (n·F)⌉", "⌈{T} / {nF}⌉",
                 {"T": Tq, "nF": nF}, need, source=SRC_PRACTICE + " (bolts at the bearings)",
-                note="the demand within d of the support is raised so that the schedule places them")  # fmt: skip
-        out.append(PointNeed(i, f"support {i}", f"support{i}", max(0.0, x - d), min(L, x + d), Tq, need))
+                note="the demand within d of the support (ℓd) is raised to n_req·n·F/ℓd so that the schedule places them")  # fmt: skip
+        lo, hi = max(0.0, x - d), min(L, x + d)
+        log.add(f"support{i}.ld", f"Stretch within d of support {i} holding these rows", "ℓd = min(x + d, L) − max(0, x − d)",
+                "min({x} + {d}, {L}) − max(0, {x} − {d})", {"x": Q_(x, _IN), "d": Q_(d, _IN), "L": Q_(L, _IN)},
+                Q_(hi - lo, _IN), source="geometry (d = depth of the plies)", positions=("x", "L"))  # fmt: skip
+        out.append(PointNeed(i, f"support {i}", f"support{i}", lo, hi, Tq, need))
     return out
 
 
@@ -260,8 +265,9 @@ def _raise_for_points(xs: np.ndarray, q: np.ndarray, needs: list[PointNeed], nF:
 
 
 def _point_checks(needs: list[PointNeed], sched) -> list[Check]:
-    """The schedule places at least ⌊ℓt / s⌋ rows within any stretch ℓt at spacing s (the largest
-    zone spacing met over ℓt is used): n_req ≤ ⌊ℓt / s⌋. Common practice, no source."""
+    """The schedule places at least ⌊ℓ / s⌋ rows within any stretch ℓ at spacing s (the largest
+    zone spacing met over ℓ is used): n_req ≤ ⌊ℓ / s⌋, ℓ = ℓt at a point load, ℓd within d of a
+    flitch beam's support. Common practice, no source."""
     out: list[Check] = []
     if not sched.zones:
         return out
@@ -272,18 +278,23 @@ def _point_checks(needs: list[PointNeed], sched) -> list[Check]:
             continue  # a stretch of no length on the member: nothing to place
         have = int(np.floor((nd.hi - nd.lo) / s + 1e-9))
         ok = have >= nd.rows
+        bearing = nd.tag.startswith("support")
+        # ℓt: a point load's transfer length; ℓd: the stretch within d of a support (clipped to the member)
+        sym = "ℓd" if bearing else "ℓt"
         what = (
-            f"the bearing at {nd.name} (rows within d of it)"
-            if nd.tag.startswith("support")
-            else f"point load {nd.name} (rows within its transfer length)"
+            f"the bearing at {nd.name} (rows within d of it, ℓd)"
+            if bearing
+            else f"point load {nd.name} (rows within its transfer length ℓt)"
         )
-        key = (
-            f"bearing[{nd.index}].fasteners" if nd.tag.startswith("support") else f"load[{nd.tag}].fasteners"
+        key = f"bearing[{nd.index}].fasteners" if bearing else f"load[{nd.tag}].fasteners"
+        fix = (
+            f"place at least {nd.rows} row(s) within d of {nd.name}: the plate's share of the reaction crosses to the timbers there"
+            if bearing
+            else f"place at least {nd.rows} row(s) within ℓt at the load, or state a longer transfer_length on the load if the hanger or post spreads it"
         )
         out.append(Check(key, f"Fasteners at {what}",
                          nd.rows, have, nd.rows / have if have else None, "OK" if ok else "NG", SRC_PRACTICE,
-                         note=f"⌊ℓt / s⌋ with s = {s:g} in" if ok else f"place at least {nd.rows} row(s) within ℓt at the load, "
-                         "or state a longer transfer_length on the load if the hanger or post spreads it"))  # fmt: skip
+                         note=f"⌊{sym} / s⌋ with s = {s:g} in" if ok else fix))  # fmt: skip
     return out
 
 
