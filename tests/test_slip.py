@@ -382,3 +382,39 @@ def test_rho_mean_without_slip_warns():
     text = DEMO.read_text().replace("slip = true ", "slip = false ")
     r = solve_bytes(text.encode(), str(DEMO))
     assert any(w.key.endswith("rho_mean") for w in r.job.warnings)
+
+
+def _demo_with(predrilled: str) -> str:
+    text = DEMO.read_text(encoding="utf-8")
+    return text.replace("CD = 1.0  ", predrilled + "CD = 1.0  ", 1)
+
+
+@pytest.mark.parametrize(
+    ("predrilled", "expect"),
+    [
+        # EN 1995-1-1:2004 Table 7.1 (from memory) by hand for the demo: ρ_m = √(530 × 500) =
+        # 514.78 kg/m³ (§7.1(2)), ρ_m^1.5 = 11679.8; 16d common d = 0.162 in = 4.1148 mm (NDS 2018
+        # Table L4, from memory), d^0.8 = 3.10084 → 11679.8 × 3.10084 / 30 = 1207.2 N/mm (no pre-drilling)
+        ("", 1207.2),
+        ("predrilled = false\n", 1207.2),
+        # pre-drilled: the row of screws, bolts and dowels, ρ_m^1.5·d/23 = 11679.8 × 4.1148 / 23 = 2089.6 N/mm
+        ("predrilled = true\n", 2089.6),
+    ],
+)
+def test_ec5_k_ser_honours_predrilled(predrilled, expect):
+    m = solve_bytes(_demo_with(predrilled).encode(), "tee.toml").members[0]
+    assert m.slip is not None and m.slip.route == "EN 1995-1-1"
+    assert float(m.slip.joints[0].K_ser.to("N/mm").magnitude) == pytest.approx(expect, abs=0.1)
+    assert float(m.slip.joints[0].K_u.to("N/mm").magnitude) == pytest.approx(2 / 3 * expect, abs=0.1)
+    yes = "true" in predrilled
+    assert ec5_k_ser("nail", 514.7815, 4.1148, predrilled=yes) == pytest.approx(expect, abs=0.1)
+    step = next(s for s in m.steps if s.key.endswith(".K_ser"))
+    assert ("pre-drilled nails" in step.note) == yes and ("d^0.8" in step.symbol) != yes
+
+
+def test_predrilled_without_the_ec5_slip_moduli_is_refused(write_job, cli):
+    # an ASD job whose slip is not asked for (or takes the NDS 2018 moduli) reads no predrilled
+    for instead in ("slip = false  ", 'slip_moduli = "NDS 2018"\nslip = true  '):
+        text = _demo_with("predrilled = true\n").replace("slip = true  ", instead, 1)
+        code, out, err = cli("check", write_job(text))
+        assert code == 2 and "predrilled" in err and "Table 7.1" in err, err

@@ -23,6 +23,7 @@ __all__ = [
     "read_ec5_settings",
     "read_ec5_material",
     "ec5_connector_keys",
+    "slip_ec5",
     "NDS_ONLY_KEYS",
     "EC5_REFUSED_KINDS",
     "unused_ec5_settings",
@@ -111,9 +112,22 @@ def read_ec5_material(t: Table, family: str, method: str = "EC5") -> dict[str, A
     return out
 
 
-def ec5_connector_keys(ct: Table, kind: str, method: str) -> None:
+def slip_ec5(design: dict, settings: Settings) -> bool:
+    """The slip moduli come from EN 1995-1-1 Table 7.1 (as ``solve.slip_moduli.route_for``
+    chooses them): slip = true, and slip_moduli "EN 1995-1-1", or "auto" in an SI or EC5 job."""
+    if not design.get("slip"):
+        return False
+    choice = design.get("slip_moduli", "auto")
+    return choice == "EN 1995-1-1" or (
+        choice == "auto" and (settings.method == "EC5" or settings.units == "SI")
+    )
+
+
+def ec5_connector_keys(ct: Table, kind: str, method: str, slip_ec5: bool = False) -> None:
     """Errors for connector keys the job's method makes inert, and connector types without an
-    EC5 route (refused under EC5 rather than designed to another standard)."""
+    EC5 route (refused under EC5 rather than designed to another standard). ``slip_ec5``: the
+    member's slip moduli come from EN 1995-1-1 Table 7.1, which reads a nail's ``predrilled``
+    under any method."""
     if method == "EC5":
         if kind in EC5_REFUSED_KINDS:
             raise ct.error("type", f'type = "{kind}" has no EC5 route: {EC5_REFUSED_KINDS[kind]}')
@@ -127,8 +141,15 @@ def ec5_connector_keys(ct: Table, kind: str, method: str) -> None:
                     )
         return
     for name in EC5_KEYS.get(kind, ()):
+        if name == "predrilled" and kind == "nail" and slip_ec5:
+            continue  # K_ser of EN 1995-1-1 Table 7.1 (solve/slip_moduli.py)
         if ct.has(name):
-            raise ct.error(name, f'{name} applies to method = "EC5" only; this job is {method}')
+            also = (
+                " (or to the slip moduli of EN 1995-1-1 Table 7.1: slip = true in [member.design])"
+                if name == "predrilled" and kind == "nail"
+                else ""
+            )
+            raise ct.error(name, f'{name} applies to method = "EC5" only{also}; this job is {method}')
 
 
 def unused_ec5_settings(t: Table, settings: Settings, members: list[Member]) -> None:

@@ -24,6 +24,7 @@ from .ec5_keys import (
     ec5_member_keys,
     read_ec5_material,
     read_ec5_settings,
+    slip_ec5,
     unused_ec5_settings,
 )
 from .lines import LineIndex
@@ -322,7 +323,7 @@ def _member(t: Table, materials: dict[str, Material], settings: Settings) -> Mem
         )
     shear = t.quantity("shear", "force", allow_zero=True)
     design = read_design(t)
-    joints = tuple(_joints(t, placed, settings.method, bool(design.get("slip"))))
+    joints = tuple(_joints(t, placed, settings.method, bool(design.get("slip")), slip_ec5(design, settings)))
     ec5_member_keys(t, settings.method)
     member = Member(
         id=mid,
@@ -365,7 +366,7 @@ def _loads_hook(t: Table, member: Member, settings: Settings) -> Member:
     return loads_reader.read_loads(t, member, settings)
 
 
-def _joints(t: Table, parts: dict[str, Part], method: str, slip: bool = False):
+def _joints(t: Table, parts: dict[str, Part], method: str, slip: bool = False, slip_ec5: bool = False):
     for jt, jid in t.id_tables("joint", MAX_JOINTS, "joint"):
         jt.expect(decl.names(decl.JOINT))
         holds = jt.raw("holds", True, "the list of part ids held on one side of the shear plane")
@@ -395,7 +396,7 @@ def _joints(t: Table, parts: dict[str, Part], method: str, slip: bool = False):
         if ct.has("slip_modulus") and not slip:
             ct.warn("slip_modulus", "has no effect without [member.design] slip = true")
         ct.done()
-        ec5_connector_keys(ct, kind, method)
+        ec5_connector_keys(ct, kind, method, slip_ec5)
         connector_keys(ct, kind, params, method)
         if is_continuous(kind, params):
             for key in ("per_row", "spacing_max", "spacing_min"):

@@ -3,7 +3,9 @@
 Two routes, chosen by ``[member.design] slip_moduli`` (see :func:`route_for`):
 
 * **EN 1995-1-1:2004 Table 7.1** — K_ser = ρ_m^1.5·d^0.8/30 for nails driven without pre-drilling,
-  K_ser = ρ_m^1.5·d/23 for screws, bolts, dowels (and pre-drilled nails), in N/mm with ρ_m in kg/m³
+  K_ser = ρ_m^1.5·d/23 for screws, bolts, dowels and pre-drilled nails (the connector's
+  ``predrilled = true``; a job under ASD or LRFD cannot state it: nails there are taken as driven
+  without pre-drilling, said in the step), in N/mm with ρ_m in kg/m³
   and d in mm; ρ_m = √(ρ_m,1·ρ_m,2) for two members of different density (§7.1(2)); doubled for
   steel-to-timber (§7.1(3), with ρ_m of the timber); K_u = 2/3·K_ser for the ultimate limit state
   (§2.2.2(2)).
@@ -79,13 +81,14 @@ def diameter_of(spec: ConnectorSpec, key: str) -> float:
     return float(p["diameter"].to("inch").magnitude)
 
 
-def ec5_k_ser(kind: str, rho_m: float, d_mm: float) -> float:
+def ec5_k_ser(kind: str, rho_m: float, d_mm: float, predrilled: bool = False) -> float:
     """K_ser (N/mm) of one fastener per shear plane, timber-to-timber.
 
     EN 1995-1-1:2004 Table 7.1: nails without pre-drilling ρ_m^1.5·d^0.8/30; screws, bolts, dowels
-    and pre-drilled nails ρ_m^1.5·d/23 (ρ_m in kg/m³, d in mm).
+    and pre-drilled nails ρ_m^1.5·d/23 (ρ_m in kg/m³, d in mm). ``predrilled``: the connector's
+    ``predrilled`` key (nails only; the other types take the second row either way).
     """
-    if kind == "nail":
+    if kind == "nail" and not predrilled:
         return rho_m**1.5 * d_mm**0.8 / 30.0
     return rho_m**1.5 * d_mm / 23.0
 
@@ -160,8 +163,17 @@ def slip_modulus(
             source="EN 1995-1-1:2004 §7.1(2)",
         )
     d_mm = D * 25.4
-    nail = spec.kind == "nail"
-    k = ec5_k_ser(spec.kind, rho, d_mm) * (2.0 if steel else 1.0)
+    predrilled = bool(spec.params.get("predrilled"))
+    nail = spec.kind == "nail" and not predrilled  # the first row of Table 7.1
+    k = ec5_k_ser(spec.kind, rho, d_mm, predrilled) * (2.0 if steel else 1.0)
+    if spec.kind == "nail":
+        why = (
+            "pre-drilled nails (predrilled = true): the row of screws, bolts and dowels"
+            if predrilled
+            else "nails driven without pre-drilling (predrilled = false)"
+        )
+    else:
+        why = "screws, bolts and dowels"
     K_ser = log.add(
         "K_ser",
         "Slip modulus of one fastener per shear plane, serviceability",
@@ -170,7 +182,7 @@ def slip_modulus(
         {"rho": Q_(rho, "kg/m**3"), "d": Q_(d_mm, "mm")},
         Q_(k, "N/mm").to("lbf/inch"),
         source=SRC_EC5 + (", doubled for steel-to-timber §7.1(3)" if steel else ""),
-        note=("nails driven without pre-drilling" if nail else "") + "; ρ_m in kg/m³ and d in mm give N/mm",
+        note=why + "; ρ_m in kg/m³ and d in mm give N/mm",
     )
     K_u = log.add(
         "K_u",
