@@ -2,7 +2,7 @@
 comparable pages (the same embedded DejaVu fonts, a title block drawn on every page, headings,
 paragraphs and ruled tables of paragraph cells of similar density). Both in this process, after imports. Target: ≤ 2×.
 
-Run:  PYTHONPATH=$PWD python benchmarks/report_pages.py [MEMBERS]
+Run:  PYTHONPATH=$PWD python benchmarks/report_pages.py [MEMBERS]   (--help for the usage)
 """
 
 from __future__ import annotations
@@ -147,5 +147,38 @@ def main(members: int = 200) -> None:
     print(f"ratio {ours / bare:.2f} (target ≤ 2.00); report alone {(t2 - t1) / bare:.2f}")
 
 
+def _members(text: str) -> int:
+    """A count of members: a whole number of at least 1."""
+    import argparse
+
+    try:
+        n = int(text)
+    except ValueError:
+        raise argparse.ArgumentTypeError(f"expected a whole number of members, got {text!r}") from None
+    if n < 1:
+        raise argparse.ArgumentTypeError(f"expected at least 1 member, got {n}")
+    return n
+
+
+def parse_args(argv: list[str] | None = None):
+    """The command line: ``[MEMBERS]`` (default 200)."""
+    import argparse
+
+    ap = argparse.ArgumentParser(
+        prog="report_pages.py",
+        description="Build a generated job of MEMBERS members to PDF and time it against bare reportlab "
+        "laying out the same number of comparable pages (target: at most 2x).",
+    )
+    ap.add_argument(
+        "members",
+        nargs="?",
+        type=_members,
+        default=200,
+        metavar="MEMBERS",
+        help="members in the job (default 200)",
+    )
+    return ap.parse_args(argv)
+
+
 if __name__ == "__main__":
-    main(int(sys.argv[1]) if len(sys.argv) > 1 else 200)
+    main(parse_args().members)
