@@ -34,6 +34,9 @@ from dataclasses import dataclass, field
 import numpy as np
 
 from .beam_fe import Mesh, hermite, stiffness
+from .influence_roots import cuts as _cuts
+from .influence_roots import poly as _poly
+from .influence_roots import quad_roots as _quad_roots
 
 __all__ = [
     "Rows",
@@ -49,7 +52,6 @@ __all__ = [
 
 _GAUSS_T = np.array([-np.sqrt(0.6), 0.0, np.sqrt(0.6)])
 _GAUSS_W = np.array([5.0, 8.0, 5.0]) / 9.0
-_BISECT = 48  # bisection steps for a root inside a monotonic piece (2⁻⁴⁸ of an element)
 #: Inverse Vandermonde matrix for cubic fits through u = 0, 1/3, 2/3, 1.
 _U4 = np.array([0.0, 1 / 3, 2 / 3, 1.0])
 _VINV = np.linalg.inv(np.vander(_U4, 4, increasing=True))
@@ -223,54 +225,6 @@ def build(mesh: Mesh, rows: Rows) -> Influence:
         s = np.nonzero(has)[0]
         C[s, rows.loc_e[s], :] += rows.loc_sign[s, None] * H[rows.loc_e[s], rows.loc_r[s], :]
     return Influence(x, h, C, rows.A)
-
-
-def _poly(c: np.ndarray, t: np.ndarray) -> np.ndarray:
-    return c[..., 0] + t * (c[..., 1] + t * (c[..., 2] + t * c[..., 3]))
-
-
-def _quad_roots(a: np.ndarray, b: np.ndarray, c: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
-    """Real roots of a·t² + b·t + c in (0, 1); 0 where there is none (a harmless extra cut)."""
-    scale = np.maximum(np.maximum(np.abs(a), np.abs(b)), np.abs(c))
-    scale = np.where(scale > 0, scale, 1.0)
-    a, b, c = a / scale, b / scale, c / scale
-    quad = np.abs(a) > 1e-13
-    disc = b * b - 4 * a * c
-    sq = np.sqrt(np.where(disc > 0, disc, 0.0))
-    with np.errstate(divide="ignore", invalid="ignore"):
-        q = -0.5 * (b + np.where(b >= 0, sq, -sq))
-        r1 = np.where(quad, np.where(q != 0, c / q, 0.0), np.where(b != 0, -c / b, 0.0))
-        r2 = np.where(quad & (disc > 0), q / a, 0.0)
-    ok1 = np.isfinite(r1) & (r1 > 0) & (r1 < 1) & (quad & (disc >= 0) | ~quad)
-    ok2 = np.isfinite(r2) & (r2 > 0) & (r2 < 1)
-    return np.where(ok1, r1, 0.0), np.where(ok2, r2, 0.0)
-
-
-def _cuts(c: np.ndarray, w0: np.ndarray, w1: np.ndarray) -> np.ndarray:
-    """Sorted cut points in [0, 1] of each cubic c (…, 4) times the line w0 + w1·t: the ends, the
-    roots of η′, the root of w and the roots of η (one per monotonic piece, by bisection)."""
-    d1, d2 = _quad_roots(3 * c[..., 3], 2 * c[..., 2], c[..., 1])
-    with np.errstate(divide="ignore", invalid="ignore"):
-        tw = np.where(w1 != 0, -w0 / w1, 0.0)
-    tw = np.where((tw > 0) & (tw < 1), tw, 0.0)
-    tw = np.broadcast_to(tw, d1.shape)
-    zero, one = np.zeros_like(d1), np.ones_like(d1)
-    T = np.sort(np.stack([zero, d1, d2, one], axis=-1), axis=-1)
-    lo, hi = T[..., :-1], T[..., 1:]
-    cc = c[..., None, :]
-    flo, fhi = _poly(cc, lo), _poly(cc, hi)
-    change = (flo * fhi) < 0
-    roots = np.zeros(lo.shape)
-    if change.any():
-        k = np.nonzero(change)
-        cs, a, b, fa = c[k[:-1]], lo[k], hi[k], flo[k]
-        for _ in range(_BISECT):
-            mid = 0.5 * (a + b)
-            left = (fa * _poly(cs, mid)) <= 0
-            b = np.where(left, mid, b)
-            a = np.where(left, a, mid)
-        roots[k] = 0.5 * (a + b)
-    return np.sort(np.concatenate([T, roots, tw[..., None]], axis=-1), axis=-1)
 
 
 def integrate_whole(inf: Influence, wa: np.ndarray, wb: np.ndarray) -> np.ndarray:

@@ -22,7 +22,7 @@ from .member_wood import beam_stability, effective_length
 from .plies import PlyShare
 from .plies_plate import plate_flexure, steel_ply_checks
 from .results import Assumed, Check, Unchecked
-from .scope import Expectation
+from .scope_expect import Expectation
 
 __all__ = ["ply_checks", "ply_expectations", "plate_flexure", "plate_assumed"]
 
