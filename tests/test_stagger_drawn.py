@@ -121,3 +121,55 @@ def test_callouts_say_staggered(solved):
         assert "Staggered:" in fab
     for j in solved[GIRDER].members[0].joints:
         assert "staggered" not in joint_callout_text(j.callout)
+
+
+class _Z:
+    """A zone as the schedule gives it (start, end, spacing)."""
+
+    def __init__(self, a: float, b: float, s: float):
+        from calcreport.units import Q_
+
+        self.start, self.end, self.spacing = Q_(a, "inch"), Q_(b, "inch"), Q_(s, "inch")
+
+
+def test_midway_within_the_other_lines_rows_by_hand():
+    from calcreport.solve.callout import midway_within
+
+    # the other line at 12 in over 120 in, this line allowed 12 in: every midpoint, 6 … 114 in
+    ref = tuple(12.0 * k for k in range(11))
+    assert midway_within(ref, [_Z(0, 120, 12)]) == pytest.approx([6.0 + 12 * k for k in range(10)])
+    # the other line at 7.75 in (rows 0, 7.75, …, 116.25, 120), this line allowed 12 in: by hand the
+    # fewest midpoints keeping every gap ≤ 12 in are 11.625 + 7.75·k, k = 0 … 13 (120 − 112.375 ≤ 12)
+    ref = tuple(7.75 * k for k in range(16)) + (120.0,)
+    got = midway_within(ref, [_Z(0, 120, 12)])
+    assert got == pytest.approx([11.625 + 7.75 * k for k in range(14)])
+    # the other line sparser than this line needs somewhere: no placement midway between its rows
+    assert midway_within(tuple(12.0 * k for k in range(11)), [_Z(0, 60, 12), _Z(60, 120, 5)]) is None
+
+
+def test_the_denser_ply_line_keeps_its_rows_and_the_other_goes_midway():
+    import sys
+
+    from calcreport.pipeline import solve_bytes
+
+    sys.path.insert(0, str(ROOT / "tests"))
+    from ply_jobs import three_ply_side
+
+    # loads entering the right face: the line from that face (p3-p2) carries more and is denser
+    text = three_ply_side("150 plf", "500 plf").replace('"left_face"', '"right_face"')
+    a, b = solve_bytes(text.encode(), "j.toml").members[0].joints
+    sa, sb = (float(j.schedule.zones[0].spacing.to("inch").magnitude) for j in (a, b))
+    assert sb < sa  # the premise: p3-p2 is the denser line
+    assert b.callout.stagger_met and not b.callout.offset_planes  # keeps its rows
+    rows = _expected_rows(b.schedule.zones)
+    mids = {round((x + y) / 2, 6) for x, y in zip(rows, rows[1:])}
+    got = a.callout.offset_at
+    assert {round(x, 6) for x in got} <= mids  # every row of p1-p2 midway between two of p3-p2
+    gaps = (
+        [got[0]]
+        + [y - x for x, y in zip(got, got[1:])]
+        + [float(a.schedule.length.to("inch").magnitude) - got[-1]]
+    )
+    assert max(gaps) <= sa + 1e-9  # and p1-p2's own schedule still met
+    assert a.callout.rows_total == len(got) and a.callout.pieces_total == 2 * len(got)
+    assert "midway between the rows of p3-p2" in joint_callout_text(a.callout)

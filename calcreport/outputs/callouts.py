@@ -111,12 +111,24 @@ def joint_callout_text(callout, system: str = "US", spacing: Quantity | None = N
     rows = {p.rows for p in callout.planes}
     at = f"@ {shop_length(s, system)} o.c." if s is not None else "(no spacing)"
     stagger = stagger_words(callout)
+    if _midway_line(callout):  # rows placed midway between the other line's: the spacing is a limit
+        at, stagger = "", f"{stagger}, gaps ≤ {shop_length(s, system)}" if s is not None else stagger
     if len(rows) == 1 and callout.planes:
         n = rows.pop()
         across = "through all plies" if getattr(callout, "through", False) else plural_across(callout)
-        lead = f"{n} row{'s' if n != 1 else ''} {name} {at}"
+        lead = f"{n} row{'s' if n != 1 else ''} {name} {at}".rstrip()
         return ", ".join(w for w in (lead, across, stagger) if w)
-    return ", ".join(w for w in (f"{callout.per_row} per row {name} {at}", stagger) if w)
+    return ", ".join(w for w in (f"{callout.per_row} per row {name} {at}".rstrip(), stagger) if w)
+
+
+def _midway_line(callout) -> bool:
+    """A ply line staggered as a whole against another, its rows midway between that line's."""
+    return bool(
+        getattr(callout, "staggered", False)
+        and getattr(callout, "stagger_with", "")
+        and callout.offset_planes
+        and getattr(callout, "stagger_met", True)
+    )
 
 
 def stagger_words(callout) -> str:
@@ -128,7 +140,7 @@ def stagger_words(callout) -> str:
     if not other:
         return "staggered"
     if callout.offset_planes:
-        return f"staggered, offset half a spacing from {other}"
+        return f"staggered, midway between the rows of {other}"
     return f"staggered with {other}"
 
 
@@ -138,16 +150,21 @@ def stagger_note(callout, system: str = "US") -> str:
     if not getattr(callout, "staggered", False):
         return ""
     other = getattr(callout, "stagger_with", "")
+    if other and not getattr(callout, "stagger_met", True):
+        return (
+            f"Staggered as the job states, but the rows of this line and of line {other} cannot both "
+            "follow their schedules midway between each other's: they are not shown clear of each other "
+            "(see the check of the points from the two faces)."
+        )
     if other and not callout.offset_planes:
         return (
-            f"Staggered: the rows of line {other}, driven from the other face, lie midway between "
-            "these rows (offset half a spacing)."
+            f"Staggered: each row of line {other}, driven from the other face, lies midway between two "
+            "consecutive rows of this line."
         )
     if other:
         return (
-            "Staggered: each row lies midway between two rows of the schedule (offset half a spacing), "
-            f"so that the points do not meet those of line {other}, driven from the other face; "
-            "no row at x = 0, one fewer row."
+            f"Staggered: each row lies midway between two rows of line {other}, driven from the other "
+            "face, with no gap wider than this line's schedule allows; no row at x = 0."
         )
     faces = [p.other for i, p in enumerate(callout.planes) if i in callout.offset_planes]
     through = " and ".join(f for f in faces if f) or "the far face"

@@ -62,9 +62,11 @@ def elevation(
     sx = (width - left - right) / L
     zones = c.zones
     labels = []
+    whole = c.staggered and c.stagger_with != "" and bool(c.offset_planes)
+    midway_of = whole and c.stagger_met  # rows midway between another line's: the spacing is a limit
     for z in zones:
         a, b = left + _inches(z.start) * sx, left + _inches(z.end) * sx
-        text = f"@ {fmt_len(z.spacing)}  ·  {z.pieces}"
+        text = f"{'gaps ≤' if midway_of else '@'} {fmt_len(z.spacing)}  ·  {z.pieces}"
         labels.append(((a + b) / 2, stringWidth(text, font, SIZE), a, b, text))
     rows_up = _rows_above([(x, w, a, b) for x, w, a, b, _ in labels])
     n_up = max(rows_up, default=0) + 1
@@ -99,7 +101,6 @@ def elevation(
     # rows where the solver's callout puts them (``rows_at``; staggered: ``offset_at`` midway
     # between, dashed when they are the far face's, solid when the whole line is offset)
     seg = _inches(c.segment) * sx if weld and c.segment is not None else 0.0
-    whole = c.staggered and c.stagger_with != "" and bool(c.offset_planes)
     near = () if whole else c.rows_at
     far = c.offset_at if c.staggered else ()
     for x in near:
@@ -153,7 +154,9 @@ def elevation(
     legend = "spacing  ·  pieces per zone" if zones else ("continuous, full length" if c.continuous else "")
     if zones and c.staggered and c.offset_at:
         legend += (
-            "  ·  staggered: rows offset half a spacing"
+            f"  ·  staggered: rows midway between those of {c.stagger_with}"
+            if midway_of
+            else "  ·  staggered as stated: rows midway between this line's own"
             if whole
             else "  ·  staggered: dashed rows (far face) midway between"
         )

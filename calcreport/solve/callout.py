@@ -14,7 +14,16 @@ from ..model import Joint, Part
 from ..outlines import contact_segments
 from ..units import Quantity
 
-__all__ = ["PlaneCallout", "ShopZone", "Callout", "joint_callout", "row_positions", "midway", "stagger_line"]
+__all__ = [
+    "PlaneCallout",
+    "ShopZone",
+    "Callout",
+    "joint_callout",
+    "row_positions",
+    "midway",
+    "midway_within",
+    "stagger_line",
+]
 
 
 @dataclass(frozen=True)
@@ -75,6 +84,7 @@ class Callout:
     stagger_with: str = ""
     rows_at: tuple[float, ...] = ()  # inches from x = 0: the schedule's rows (x = 0, then each zone's)
     offset_at: tuple[float, ...] = ()  # inches: the offset rows, midway between ``rows_at``
+    stagger_met: bool = True  # False: a staggered line's rows are not shown clear of the other line's
 
 
 def row_positions(zones) -> tuple[float, ...]:
@@ -107,15 +117,50 @@ def _offset_counts(zones, offset: tuple[float, ...]) -> list[int]:
     return out
 
 
-def _staggered(c: Callout, planes: tuple[int, ...], whole: bool) -> Callout:
+def midway_within(ref: tuple[float, ...], zones) -> tuple[float, ...] | None:
+    """A line staggered against another whose rows are ``ref`` (inches): its rows taken among the
+    points midway between consecutive rows of ``ref``, as few as keep every gap — from x = 0, between
+    rows, to the end — within the smallest spacing of this line's zones the gap crosses (so the
+    line's own schedule is met everywhere). ``None`` when some gap of ``ref`` is too wide for that.
+    Common practice, no source (staggered rows midway between those of the other face)."""
+    if not zones or len(ref) < 2:
+        return None
+    span = [(float(z.start.to("inch").magnitude), float(z.end.to("inch").magnitude),
+             float(z.spacing.to("inch").magnitude)) for z in zones]  # fmt: skip
+    end = span[-1][1]
+
+    def allowed(a: float, b: float) -> float:
+        return min((s for z0, z1, s in span if z0 < b + 1e-9 and z1 > a - 1e-9), default=0.0)
+
+    mids = midway(ref)
+    picks: list[float] = []
+    prev, i = 0.0, 0
+    while end - prev > allowed(prev, end) + 1e-6:
+        best = None
+        while i < len(mids) and mids[i] - prev <= allowed(prev, mids[i]) + 1e-6:
+            if mids[i] > prev + 1e-9:
+                best = i
+            i += 1
+        if best is None:
+            return None
+        picks.append(mids[best])
+        prev, i = mids[best], best + 1
+    return tuple(picks) if picks else None
+
+
+def _staggered(
+    c: Callout, planes: tuple[int, ...], whole: bool, off: tuple[float, ...] | None = None
+) -> Callout:
     """``c`` with its offset rows: on the planes ``planes`` (or every connector of the row when
-    ``whole``), midway between the schedule's rows; counts per zone and in total follow."""
+    ``whole``), midway between the schedule's rows (or at ``off``, inches); counts per zone and in
+    total follow."""
     if whole:
         moved = c.per_row
     else:
         moved = sum(p.rows for i, p in enumerate(c.planes) if i in planes)
     rows = row_positions(c.zones)
-    off = midway(rows)
+    if off is None:
+        off = midway(rows)
     zones = c.zones
     if zones:
         n_off = _offset_counts(zones, off)
@@ -141,13 +186,18 @@ def _staggered(c: Callout, planes: tuple[int, ...], whole: bool) -> Callout:
     )
 
 
-def stagger_line(c: Callout, other: str, offset: bool) -> Callout:
-    """A line of fasteners staggered against the line ``other`` (plies nailed from both faces):
-    with ``offset`` all its rows lie midway between its schedule's rows (``rows_total`` then
-    counts them: one fewer); else it keeps its rows and only names the line offset from it."""
-    if offset:
-        return replace(_staggered(c, (), whole=True), stagger_with=other)
-    return replace(c, staggered=True, stagger_with=other)
+def stagger_line(c: Callout, other: str, ref: tuple[float, ...] | None = None) -> Callout:
+    """A line of fasteners staggered against the line ``other`` (plies nailed from both faces).
+    Without ``ref`` it keeps its rows and only names the line offset from it. With ``ref`` (the
+    other line's rows, inches) its rows lie midway between those (:func:`midway_within`);
+    ``rows_total`` and the counts are of those rows. When the other line's rows are too far apart
+    for this line's schedule, its rows lie midway between its own and are not shown clear of the
+    other's: ``stagger_met`` is then False."""
+    if ref is None:
+        return replace(c, staggered=True, stagger_with=other)
+    off = midway_within(ref, c.zones)
+    out = replace(_staggered(c, (), whole=True, off=off), stagger_with=other)
+    return replace(out, stagger_met=off is not None or not c.zones)
 
 
 def _share(per_row: int, n: int) -> list[int]:

@@ -8,13 +8,13 @@ from dataclasses import replace
 
 from ..model import Member, Settings
 from ..steps import StepLog
-from ..units import Q_
+from ..units import Q_, Quantity
 from .assumed import member_assumed
 from .callout import stagger_line
 from .plies import plies_assumed, ply_shares, transfer_demand
 from .plies_checks import plate_assumed
 from .plies_lines import SRC_PRACTICE, default_spacing_max, joint_record, ply_lines, solve_ply_lines
-from .results import Assumed, JointResult, SolveError
+from .results import Assumed, Check, JointResult, SolveError, worst
 
 __all__ = ["ply_joints", "ply_assumed"]
 
@@ -32,16 +32,31 @@ def ply_joints(member: Member, beam, settings: Settings, log: StepLog) -> tuple[
 
 def _staggered_lines(joints: tuple[JointResult, ...], staggered: bool) -> tuple[JointResult, ...]:
     """Three plies nailed from both faces with ``staggered = true``: the second line's rows lie
-    midway between its schedule's rows, offset half a spacing from the first line's (common
-    practice, no source)."""
+    midway between the first line's rows, no gap wider than its own schedule allows
+    (:func:`.callout.stagger_line`; common practice, no source). When the first line's rows are
+    too far apart for that, the second keeps rows midway between its own; where they meet the
+    first line's, its check of the points from the two faces is NG, as without stagger."""
     if not staggered or len(joints) != 2 or any(j.callout is None for j in joints):
         return joints
     a, b = joints
     assert a.callout is not None and b.callout is not None
-    return (
-        replace(a, callout=stagger_line(a.callout, b.id, offset=False)),
-        replace(b, callout=stagger_line(b.callout, a.id, offset=True)),
-    )
+    cb = stagger_line(b.callout, a.id, ref=a.callout.rows_at)
+    if cb.stagger_met:  # b's rows midway between a's
+        return (replace(a, callout=stagger_line(a.callout, b.id)), replace(b, callout=cb))
+    ca = stagger_line(a.callout, b.id, ref=b.callout.rows_at)
+    if ca.stagger_met:  # b is the denser line: a's rows midway between b's
+        return (replace(a, callout=ca), replace(b, callout=stagger_line(b.callout, a.id)))
+    # neither fits midway between the other's rows under the two schedules: b keeps rows midway
+    # between its own, not shown clear of a's; where they fall on a row of a, the points meet
+    meet = {round(x, 6) for x in cb.offset_at} & {round(x, 6) for x in a.callout.rows_at}
+    note = (
+        f"staggered = true, but neither line's rows fit midway between the other's under the two schedules: "
+        f"the rows of {b.id} " + ("fall at rows of " + a.id + " at some x, where the points meet" if meet
+                                  else "are not shown clear of those of " + a.id) + "; place them clear of each other"
+    )  # fmt: skip
+    checks = tuple(_unstaggered(c, note, bool(meet)) for c in b.checks)
+    b = replace(b, checks=checks, status=worst([b.status] + [c.status for c in checks]), callout=cb)
+    return (replace(a, callout=replace(stagger_line(a.callout, b.id), stagger_met=False)), b)
 
 
 def ply_assumed(
@@ -71,3 +86,16 @@ def ply_assumed(
     out += plate_assumed(member, joints)
     _ = Q_
     return tuple(out)
+
+
+def _unstaggered(c: Check, note: str, meet: bool) -> Check:
+    """The overlap check of a line whose stated stagger the schedules do not keep: its note says
+    so; NG, as without stagger, where rows of the two lines fall at the same x (``_overlap_check``
+    in :mod:`.plies_lines`; common practice, no source)."""
+    over = c.demand
+    if not c.key.endswith(".faces") or c.status != "INFO" or not isinstance(over, Quantity):
+        return c
+    x = float(over.to("inch").magnitude)
+    if x <= 0:
+        return c
+    return replace(c, status="NG", ratio=1.0 + x, note=note) if meet else replace(c, note=note)
