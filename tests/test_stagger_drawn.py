@@ -173,3 +173,37 @@ def test_the_denser_ply_line_keeps_its_rows_and_the_other_goes_midway():
     assert max(gaps) <= sa + 1e-9  # and p1-p2's own schedule still met
     assert a.callout.rows_total == len(got) and a.callout.pieces_total == 2 * len(got)
     assert "midway between the rows of p3-p2" in joint_callout_text(a.callout)
+
+
+def test_lines_each_denser_somewhere_are_not_shown_clear(solved):
+    # Two ply lines whose schedules cross over (one denser in each half) cannot be placed midway
+    # between each other's rows; the second keeps rows midway between its own, which here fall on
+    # rows of the first (6 in, 18 in … by hand): the check of the points from both faces goes NG.
+    from dataclasses import replace
+
+    from calcreport.solve.callout import ShopZone
+    from calcreport.solve.plies_solve import _staggered_lines
+    from calcreport.units import Q_
+
+    def zones(s1: float, s2: float) -> tuple:
+        q = lambda v: Q_(v, "inch")  # noqa: E731
+        return (ShopZone(q(0), q(66), q(66), q(s1), 1, 2), ShopZone(q(66), q(132), q(66), q(s2), 1, 2))
+
+    a, b = solved[PLIES].members[0].joints
+
+    def plain(j, z):
+        c = replace(j.callout, staggered=False, offset_planes=(), offset_at=(), zones=z)
+        return replace(j, callout=replace(c, rows_at=tuple(_expected_rows(z))))
+
+    a2, b2 = _staggered_lines((plain(a, zones(6, 12)), plain(b, zones(12, 6))), True)
+    assert not a2.callout.stagger_met and not b2.callout.stagger_met
+    assert 6.0 in b2.callout.offset_at and 6.0 in a2.callout.rows_at
+    faces = next(c for c in b2.checks if c.key.endswith(".faces"))
+    assert faces.status == "NG" and "place them clear" in faces.note and b2.status == "NG"
+    assert "not shown clear" in stagger_note_of(b2)
+
+
+def stagger_note_of(j) -> str:
+    from calcreport.outputs.callouts import stagger_note
+
+    return stagger_note(j.callout)
