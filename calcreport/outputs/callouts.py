@@ -90,9 +90,12 @@ def weld_text(callout, system: str = "US") -> str:
     return f"{size} fillet weld, {pitch} intermittent, {sides}"
 
 
-def joint_callout_text(callout, system: str = "US", spacing: Quantity | None = None) -> str:
+def joint_callout_text(
+    callout, system: str = "US", spacing: Quantity | None = None, stagger: bool = True
+) -> str:
     """The callout of a joint in words. ``spacing`` overrides the governing one (a zone's spacing
-    on the shop sheet)."""
+    on the shop sheet); ``stagger=False`` leaves out the words on staggered rows (a zone row of
+    the shop sheet, whose joint heading states them)."""
     if callout is None:
         return ""
     if callout.kind == "fillet_weld":
@@ -110,15 +113,16 @@ def joint_callout_text(callout, system: str = "US", spacing: Quantity | None = N
     name = _short_name(callout, system)
     rows = {p.rows for p in callout.planes}
     at = f"@ {shop_length(s, system)} o.c." if s is not None else "(no spacing)"
-    stagger = stagger_words(callout)
-    if _midway_line(callout):  # rows placed midway between the other line's: the spacing is a limit
-        at, stagger = "", f"{stagger}, gaps ≤ {shop_length(s, system)}" if s is not None else stagger
+    words = stagger_words(callout) if stagger else ""
+    if _midway_line(callout) and s is not None:  # rows midway between the other line's: a limit
+        at, limit = "", f"gaps ≤ {shop_length(s, system)}"
+        words = f"{words}, {limit}" if words else limit
     if len(rows) == 1 and callout.planes:
         n = rows.pop()
         across = "through all plies" if getattr(callout, "through", False) else plural_across(callout)
         lead = f"{n} row{'s' if n != 1 else ''} {name} {at}".rstrip()
-        return ", ".join(w for w in (lead, across, stagger) if w)
-    return ", ".join(w for w in (f"{callout.per_row} per row {name} {at}".rstrip(), stagger) if w)
+        return ", ".join(w for w in (lead, across, words) if w)
+    return ", ".join(w for w in (f"{callout.per_row} per row {name} {at}".rstrip(), words) if w)
 
 
 def _midway_line(callout) -> bool:
@@ -168,11 +172,8 @@ def stagger_note(callout, system: str = "US") -> str:
         )
     faces = [p.other for i, p in enumerate(callout.planes) if i in callout.offset_planes]
     through = " and ".join(f for f in faces if f) or "the far face"
-    end = "; they have no row at x = 0, one fewer" if callout.zones else ""
-    return (
-        f"Staggered: the rows driven through {through} (dashed on the elevation) lie midway between "
-        f"the others, offset half a spacing{end}."
-    )
+    end = "; none at x = 0" if callout.zones else ""
+    return f"Staggered: the rows through {through} (dashed) lie midway between the others{end}."
 
 
 def _short_name(callout, system: str = "US") -> str:

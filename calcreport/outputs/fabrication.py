@@ -87,7 +87,7 @@ def _zone_table(j: JointResult, ctx: Ctx) -> Table | None:
                 shop_position(z.start, sys_),
                 shop_position(z.end, sys_),
                 shop_position(z.length, sys_),
-                joint_callout_text(c, sys_, spacing=z.spacing),
+                joint_callout_text(c, sys_, spacing=z.spacing, stagger=False),  # the Rows column shows it
                 _rows(z.rows, z.rows_offset, c),
                 str(z.pieces),
             ]
@@ -147,24 +147,22 @@ def _joint_story(j: JointResult, m: MemberResult, ctx: Ctx, earlier: list[JointR
         )
         out.append(para(f"Same fastening, zones and counts as joint {twin.id}{total}.", st.small))
         return [KeepTogether(out)]
+    words = ""
     if c.zones:
-        out.append(
-            para(
-                f"Zoned along the member: closest spacing {shop_length(c.spacing, sys_)}, widest "
-                f"{shop_length(c.spacing_widest, sys_)}; {c.pieces_per_row} {_what(j)} per row.",
-                st.small,
-            )
+        words = (
+            f"Zoned along the member: closest spacing {shop_length(c.spacing, sys_)}, widest "
+            f"{shop_length(c.spacing_widest, sys_)}; {c.pieces_per_row} {_what(j)} per row."
         )
     elif c.continuous and c.length is not None:
-        out.append(para(f"Full length, {shop_position(c.length, sys_)}.", st.small))
+        words = f"Full length, {shop_position(c.length, sys_)}."
     elif not c.continuous:
-        out.append(
-            para(
-                f"One spacing over the full length; {c.pieces_per_row} {_what(j)} per row. The job gives "
-                "no length along the member, so no count is stated.",
-                st.small,
-            )
+        words = (
+            f"One spacing over the full length; {c.pieces_per_row} {_what(j)} per row. The job gives "
+            "no length along the member, so no count is stated."
         )
+    words = " ".join(w for w in (words, stagger_note(c, sys_)) if w)  # one paragraph
+    if words:
+        out.append(para(words, st.small))
     fig = elevation(
         j,
         m.member,
@@ -174,9 +172,6 @@ def _joint_story(j: JointResult, m: MemberResult, ctx: Ctx, earlier: list[JointR
         st.fonts.bold,
         ctx.width,
     )
-    note = stagger_note(c, sys_)
-    if note:
-        out.append(para(note, st.small))
     block: list[Flowable] = out + ([fig] if fig is not None else [])
     table = _zone_table(j, ctx)
     if table is not None:

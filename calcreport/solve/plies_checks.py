@@ -365,23 +365,19 @@ def _bracing_expectation(member: Member, wood: bool) -> Expectation:
     d = member.design
     steel = any(p.part.material.family == "steel" for p in member.plies)
     if d.get("continuous_bracing"):
-        edge = "the top edge braced continuously (continuous_bracing in [member.design])"
+        edge = "the top edge braced continuously (continuous_bracing)"
     elif "unbraced_length" in d:
-        edge = "the top edge braced at the unbraced_length stated in [member.design]"
+        edge = "the top edge braced at the stated unbraced_length"
     else:
-        edge = "the whole span unbraced, with the ends held against rotation at the supports"
-    rests = []
-    if wood:
-        rests.append(
-            f"the plies' CL takes {edge} and the fastened plies acting as one (b = their width together)"
-        )
+        edge = "the whole span unbraced, ends held against rotation"
+    rests = [f"CL takes {edge} and the plies acting as one"] if wood else []
     if steel:
-        rests.append("the flitch plate's F11 check takes it braced laterally by the timbers at every bolt")
+        rests.append("F11 takes the plate braced by the timbers at each bolt")
     clause = f"{NDS} §3.3.3, §4.4.1" + (f"; {AISC} Appendix 6" if steel else "")
     return Expectation(
         "bracing",
         ("bracing_of_assembly",),
-        "lateral bracing of the assembly: bracing members, their fastening and stiffness",
+        "lateral bracing of the assembly (members, fastening, stiffness)",
         clause,
-        "; ".join(rests) + ": the bracing itself is the engineer's to confirm",
+        "; ".join(rests) + ": the bracing is the engineer's to confirm",
     )
