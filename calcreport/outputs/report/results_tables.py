@@ -1,28 +1,56 @@
-"""Results of a member: per joint demand, capacity, spacing, utilisation and status; every Check."""
+"""Results of a member: per joint demand, capacity, spacing, utilisation and status; every Check.
+
+Joints whose rows print alike (the folded top and bottom joints of a symmetric section) share one
+row naming them all; nothing is compared but the printed text. A check that names the step
+stating its limit or working (``Check.step``) refers to that step's number instead of repeating
+its numbers, so each number is printed once, in the job's units, by :class:`..fmt.Display`.
+"""
 
 from __future__ import annotations
 
+import re
+
 from reportlab.platypus import Paragraph
 
-from ...solve.results import Check, MemberResult
+from ...solve.results import Check, JointResult, MemberResult
 from ..scope_text import checked_line, status_words
 from .common import Ctx, cited, grid, heading, para
+from .dense import dense
+from .derivations import member_groups
+from .fastcell import cell
 from .styles import esc
 
-__all__ = ["results_story", "checks_rows", "scope_story"]
+__all__ = ["results_story", "checks_rows", "scope_story", "step_numbers", "folded_checks"]
+
+_JOINT_KEY = re.compile(r"\.joint\[([^\]]+)\]")
+
+
+def step_numbers(m: MemberResult, ctx: Ctx) -> dict[str, str]:
+    """Step key → the number the derivation prints for it ("1.3.42"), numbered as the member's
+    story numbers its headings (member n, heading k, step i within the heading; the steps a folded
+    joint does not show keep their numbers, see :mod:`.folding`)."""
+    ids = [x.id for x in ctx.result.members]
+    number = ids.index(m.id) + 1 if m.id in ids else 1
+    out: dict[str, str] = {}
+    for k, g in enumerate(member_groups(m), 1):
+        for i, s in enumerate(g.steps, 1):
+            out[s.key] = f"{number}.{k}.{i}"
+    return out
 
 
 def scope_story(m: MemberResult, ctx: Ctx) -> list:
     """What was not checked for this member, with clause and reason (never silent)."""
     st, w = ctx.styles, ctx.width
-    out: list = [*heading(f"Not checked ({len(m.not_checked)})", st.h3)]
+    out: list = [*heading(f"Not checked ({len(m.not_checked)})", st.h3, need=80)]
     if not m.not_checked:
         out.append(para("Every check listed for this kind of member ran.", st.body))
         return out
-    rows = [["Not checked", "Governing clause", "Why"]]
+    rows: list[list] = [["Not checked (governing clause)", "Why"]]
     for u in m.not_checked:
-        rows.append([u.label[0].upper() + u.label[1:], cited(u.clause), cited(u.reason)])
-    out.append(grid(rows, [0.36 * w, 0.26 * w, 0.38 * w], st))
+        label = esc(u.label[0].upper() + u.label[1:])
+        clause = f' <font size="{st.caption.fontSize:g}" color="#444444">({esc(cited(u.clause))})</font>'
+        rows.append([Paragraph(label + clause, st.cell), cited(u.reason)])
+    out.append(grid(rows, [0.46 * w, 0.54 * w], st, frame_height=ctx.frame_height))
     out.append(
         para(
             "These are not part of the status above; check them by hand or give the job what they need.",
@@ -32,8 +60,32 @@ def scope_story(m: MemberResult, ctx: Ctx) -> list:
     return out
 
 
+def _joint_cells(j: JointResult, ctx: Ctx) -> list[str]:
+    if j.continuous:
+        cap = f"{ctx.q(j.capacity_row)} (continuous)"
+        req = prov = "continuous"
+    else:
+        cap = f"n·F = {j.per_row} × {ctx.q(j.capacity)} = {ctx.q(j.capacity_row)}"
+        req, prov = ctx.q(j.spacing_required), ctx.q(j.spacing_provided, 3)
+    limits = f"{ctx.q(j.spacing_min)} / {ctx.q(j.spacing_max)}"
+    return [ctx.q(j.shear_flow), cap, req, prov, limits, ctx.q(j.utilisation, 3), j.status]
+
+
+def _fold(items: list[tuple[str, tuple]]) -> list[tuple[list[str], tuple]]:
+    """Items (name, printed signature) gathered by equal signature, in order of first appearance."""
+    out: list[tuple[list[str], tuple]] = []
+    for name, sig in items:
+        for names, seen in out:
+            if seen == sig:
+                names.append(name)
+                break
+        else:
+            out.append(([name], sig))
+    return out
+
+
 def _joint_rows(m: MemberResult, ctx: Ctx) -> list[list]:
-    rows = [
+    rows: list[list] = [
         [
             "Joint",
             "Demand q",
@@ -45,34 +97,76 @@ def _joint_rows(m: MemberResult, ctx: Ctx) -> list[list]:
             "Status",
         ]
     ]
-    for j in m.joints:
-        if j.continuous:
-            cap = f"{ctx.q(j.capacity_row)} (continuous)"
-            req = prov = "continuous"
-        else:
-            cap = f"n·F = {j.per_row} × {ctx.q(j.capacity)} = {ctx.q(j.capacity_row)}"
-            req, prov = ctx.q(j.spacing_required), ctx.q(j.spacing_provided, 3)
-        limits = f"{ctx.q(j.spacing_min)} / {ctx.q(j.spacing_max)}"
-        rows.append([j.id, ctx.q(j.shear_flow), cap, req, prov, limits, ctx.q(j.utilisation, 3), j.status])
+    for names, cells in _fold([(j.id, tuple(_joint_cells(j, ctx))) for j in m.joints]):
+        rows.append([", ".join(names), *cells])
     return rows
 
 
-def checks_rows(checks: list[tuple[str, Check]], ctx: Ctx) -> list[list]:
-    rows = [["Where", "Check", "Demand", "Capacity", "Ratio", "Status", "Source"]]
-    for where, c in checks:
-        label = c.label + (f" ({cited(c.note)})" if c.note else "")
-        rows.append(
-            [
-                where,
-                label,
-                ctx.q(c.demand),
-                ctx.q(c.capacity),
-                ctx.q(c.ratio, 3),
-                c.status,
-                cited(c.source) or "—",
-            ]
-        )
-    return rows
+def _check_sig(jid: str, c: Check, ctx: Ctx) -> tuple:
+    """What a check row prints, with its joint written generically (so equal joints compare equal)."""
+
+    def generic(text: str) -> str:
+        return _JOINT_KEY.sub(".joint[*]", text).replace(f".joint.{jid}.", ".joint.*.")
+
+    return (
+        generic(c.key),
+        c.label,
+        ctx.q(c.demand),
+        ctx.q(c.capacity),
+        ctx.q(c.ratio, 3),
+        c.status,
+        cited(c.source),
+        cited(c.note),
+        generic(c.step),
+    )
+
+
+def folded_checks(m: MemberResult, ctx: Ctx) -> list[tuple[str, list[tuple[Check, list[str]]]]]:
+    """(where, [(check, the step keys it refers to in each joint named)]) — joints whose check
+    rows print alike are one entry naming them all; the member's own checks come last."""
+    joints = {j.id: j for j in m.joints}
+    items = [(j.id, tuple(_check_sig(j.id, c, ctx) for c in j.checks)) for j in m.joints if j.checks]
+    out: list[tuple[str, list[tuple[Check, list[str]]]]] = []
+    for names, _sig in _fold(items):
+        first = joints[names[0]]
+        rows = []
+        for k, c in enumerate(first.checks):
+            steps = [joints[n].checks[k].step for n in names if joints[n].checks[k].step]
+            rows.append((c, steps))
+        word = "Joint" if len(names) == 1 else "Joints"
+        out.append((f"{word} {', '.join(names)}", rows))
+    if m.checks:
+        out.append(("Member", [(c, [c.step] if c.step else []) for c in m.checks]))
+    return out
+
+
+def checks_rows(
+    groups: list[tuple[str, list[tuple[Check, list[str]]]]], ctx: Ctx, numbers: dict[str, str]
+) -> tuple[list[list], list[tuple]]:
+    """Rows of the checks table (a spanning row per joint group) and the style commands they need."""
+    st = ctx.styles
+    rows: list[list] = [["Check (note; source)", "Demand", "Capacity", "Ratio", "Status", "Step"]]
+    extra: list[tuple] = []
+    for where, checks in groups:
+        r = len(rows)
+        rows.append([para(where, st.cell_bold), "", "", "", "", ""])
+        extra += [("SPAN", (0, r), (-1, r)), ("BACKGROUND", (0, r), (-1, r), st.tint)]
+        for c, steps in checks:
+            note = esc(cited(c.note)) + "; " if c.note else ""
+            source = f"<i>{esc(cited(c.source) or '—')}</i>"
+            label = [para(c.label, st.cell), cell(note + source, dense(st).note)]
+            refs = [numbers[s] for s in steps if s in numbers]
+            rows.append(
+                [
+                    label,
+                    ctx.q(c.demand),
+                    ctx.q(c.capacity),
+                    ctx.q(c.ratio, 3),
+                    c.status,
+                    ", ".join(refs) or "—",
+                ]
+            )
+    return rows, extra
 
 
 def results_story(m: MemberResult, ctx: Ctx) -> list:
@@ -82,7 +176,7 @@ def results_story(m: MemberResult, ctx: Ctx) -> list:
         out.append(
             grid(
                 _joint_rows(m, ctx),
-                [0.11 * w, 0.12 * w, 0.20 * w, 0.11 * w, 0.11 * w, 0.14 * w, 0.12 * w, 0.09 * w],
+                [0.16 * w, 0.11 * w, 0.22 * w, 0.10 * w, 0.10 * w, 0.12 * w, 0.11 * w, 0.08 * w],
                 st,
             )
         )
@@ -99,14 +193,30 @@ def results_story(m: MemberResult, ctx: Ctx) -> list:
                 out.append(para(f"Joint {j.id}: {reason}", st.small))
     else:
         out.append(Paragraph("This member has no fastened joints.", st.body))
-    checks = [(f"joint {j.id}", c) for j in m.joints for c in j.checks] + [("member", c) for c in m.checks]
-    if checks:
-        out.extend(heading("Checks", st.h3))
+    groups = folded_checks(m, ctx)
+    if groups:
+        out.extend(heading("Checks", st.h3, need=80))
+        rows, extra = checks_rows(groups, ctx, step_numbers(m, ctx))
         out.append(
             grid(
-                checks_rows(checks, ctx),
-                [0.11 * w, 0.27 * w, 0.12 * w, 0.12 * w, 0.08 * w, 0.08 * w, 0.22 * w],
+                rows,
+                [0.52 * w, 0.10 * w, 0.10 * w, 0.07 * w, 0.07 * w, 0.14 * w],
                 st,
+                extra=extra,
+                zebra=False,
+                frame_height=ctx.frame_height,
+            )
+        )
+        out.append(
+            para(
+                "Under each check: its note and, in italics, its source. Step: the derivation step that "
+                "states the limit or the working, one per joint named"
+                + (
+                    "; joints named together have the same checks, values and status."
+                    if any("," in g[0] for g in groups)
+                    else "."
+                ),
+                st.caption,
             )
         )
     out.extend(scope_story(m, ctx))

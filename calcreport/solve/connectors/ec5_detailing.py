@@ -50,8 +50,10 @@ def detailing(
     c,
     per_row: int,
     rho_of: Callable[[Part], float],
+    log=None,
 ) -> tuple[Quantity, str]:
-    """Detailing checks appended to ``checks``; returns (minimum spacing a1, its source)."""
+    """Detailing checks appended to ``checks``; returns (minimum spacing a1, its source). With
+    ``log``, the width a row across the contact needs is a step (``W_across``)."""
     timber = [(m, t) for m, t in zip(members, thicknesses) if m.material.family != "plywood"]
     rho = max((rho_of(m) for m, _ in timber), default=0.0)
     if rule == "nail":
@@ -102,6 +104,7 @@ def detailing(
                 src,
                 "edge distance a4,c (unloaded edge), load parallel to the grain",
                 "spacing a2 perpendicular to the grain",
+                log=log,
             )
         )
     checks.append(

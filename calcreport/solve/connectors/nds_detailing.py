@@ -170,6 +170,7 @@ def _large(log, checks, key, D, c, l_bear, theta, lines, ply):
             "INFO",
             source=f"{NDS} Table 12.5.1A",
             note=end_note,
+            step=f"{log.prefix}.e_end",
         )
     )
     checks.append(
@@ -182,6 +183,7 @@ def _large(log, checks, key, D, c, l_bear, theta, lines, ply):
             "INFO",
             source=f"{NDS} Table 12.5.1D",
             note=rows_note + ("" if perp else "; rows not over 5 in apart on one splice plate"),
+            step=f"{log.prefix}.s_rows",
         )
     )
     return (
@@ -244,6 +246,7 @@ def _small(log, checks, key, D, c, theta, lines):
             "INFO",
             source=NAIL_SRC,
             note="15D without pre-boring (10D pre-bored)",
+            step=f"{log.prefix}.e_end",
         )
     )
     return Q_(s_min, "in"), None, NAIL_SRC + ": 10D along the grain"
