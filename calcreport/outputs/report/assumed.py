@@ -12,11 +12,11 @@ from __future__ import annotations
 
 import re
 
-from reportlab.platypus import Paragraph
+from reportlab.platypus import CondPageBreak, Paragraph
 
 from ...solve.results import Assumed
-from .common import Ctx, cited, grid, heading, para
-from .dense import dense
+from .common import Ctx, cited, grid, para
+from .dense import TIGHT, dense
 
 __all__ = ["assumed_story", "assumed_rows", "assumed_groups"]
 
@@ -128,7 +128,14 @@ def assumed_story(ctx: Ctx) -> list:
     if not count:
         out.append(para("None: the job states every value the calculation uses.", st.body))
         return out
-    out.extend(heading(f"{count} values assumed", st.h3, need=60))
+    out += [CondPageBreak(110.0), Paragraph(f"{count} values assumed", st.h3)]
+    out.append(  # a lead line: kept with the table by the page discipline
+        Paragraph(
+            "Each heading row names a table of keys (and where they are stated); each row below it the "
+            "key within it. A row is a tool default unless a basis is given under it.",
+            st.caption,
+        )
+    )
     rows: list[list] = [["Key", "What (basis; how to state it)", "Value used"]]
     extra: list[tuple] = []
     for owner, table, items in groups:
@@ -148,16 +155,9 @@ def assumed_story(ctx: Ctx) -> list:
             rows,
             [0.21 * w, 0.55 * w, 0.24 * w],
             st,
-            extra=extra,
+            extra=[*TIGHT, *extra],
             zebra=False,
             frame_height=ctx.frame_height,
-        )
-    )
-    out.append(
-        para(
-            "Each row is a tool default unless a basis is given under it; the key is its table's "
-            "key (the heading row) followed by the name in the first column.",
-            st.caption,
         )
     )
     return out

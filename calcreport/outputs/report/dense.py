@@ -12,7 +12,13 @@ from reportlab.lib.styles import ParagraphStyle
 
 from .styles import Styles
 
-__all__ = ["Dense", "dense"]
+__all__ = ["Dense", "dense", "TIGHT"]
+
+#: cell padding of the closing tables (the report's grid pads 2 / 2.5 pt): rows a little closer
+TIGHT: tuple[tuple, ...] = (
+    ("TOPPADDING", (0, 1), (-1, -1), 1.5),
+    ("BOTTOMPADDING", (0, 1), (-1, -1), 1.5),
+)
 
 
 @dataclass(frozen=True)

@@ -10,19 +10,39 @@ from __future__ import annotations
 
 import re
 
-from reportlab.platypus import Paragraph
+from reportlab.lib import colors
+from reportlab.platypus import CondPageBreak, Paragraph, Table
 
 from ...solve.results import Check, JointResult, MemberResult
 from ..scope_text import checked_line, status_words
-from .common import Ctx, cited, grid, heading, para
-from .dense import dense
+from .common import Ctx, cited, grid, para
+from .dense import TIGHT, dense
 from .derivations import member_groups
 from .fastcell import cell
+from .flow import MIN_ROWS
 from .styles import esc
 
 __all__ = ["results_story", "checks_rows", "scope_story", "step_numbers", "folded_checks"]
 
 _JOINT_KEY = re.compile(r"\.joint\[([^\]]+)\]")
+
+
+class WholeTable(Table):
+    """A table too short to split evenly: it moves whole to the next sheet rather than split
+    (split only on a fresh sheet, where nothing better can be waited for)."""
+
+    frame_height: float = 0.0
+
+    def split(self, availWidth, availHeight):
+        if self.frame_height and availHeight < 0.95 * self.frame_height:
+            return []
+        return super().split(availWidth, availHeight)
+
+
+def _heading(text: str, style, need: float = 110.0) -> list:
+    """A heading as a real ``Paragraph`` (so page discipline keeps it with the table after it),
+    on a new sheet when less than ``need`` points remain."""
+    return [CondPageBreak(need), Paragraph(esc(text), style)]
 
 
 def step_numbers(m: MemberResult, ctx: Ctx) -> dict[str, str]:
@@ -41,23 +61,43 @@ def step_numbers(m: MemberResult, ctx: Ctx) -> dict[str, str]:
 def scope_story(m: MemberResult, ctx: Ctx) -> list:
     """What was not checked for this member, with clause and reason (never silent)."""
     st, w = ctx.styles, ctx.width
-    out: list = [*heading(f"Not checked ({len(m.not_checked)})", st.h3, need=80)]
+    title = f"Not checked ({len(m.not_checked)})"
     if not m.not_checked:
-        out.append(para("Every check listed for this kind of member ran.", st.body))
-        return out
-    rows: list[list] = [["Not checked (governing clause)", "Why"]]
+        return [
+            *_heading(title, st.h3),
+            Paragraph("Every check listed for this kind of member ran.", st.body),
+        ]
+    # the title is the table's first header row: it goes (and repeats) with the rows
+    rows: list[list] = [
+        [Paragraph(esc(title), st.h3), ""],
+        ["Not checked (governing clause)", "Why"],
+    ]
     for u in m.not_checked:
         label = esc(u.label[0].upper() + u.label[1:])
         clause = f' <font size="{st.caption.fontSize:g}" color="#444444">({esc(cited(u.clause))})</font>'
         rows.append([Paragraph(label + clause, st.cell), cited(u.reason)])
-    out.append(grid(rows, [0.46 * w, 0.54 * w], st, frame_height=ctx.frame_height))
-    out.append(
-        para(
-            "These are not part of the status above; check them by hand or give the job what they need.",
-            st.small,
-        )
+    title_row = [
+        ("SPAN", (0, 0), (-1, 0)),
+        ("BACKGROUND", (0, 0), (-1, 0), colors.white),
+        ("LINEABOVE", (0, 0), (-1, 0), 0.6, colors.white),
+        ("TOPPADDING", (0, 0), (-1, 0), 6),
+    ]
+    table = grid(
+        rows,
+        [0.46 * w, 0.54 * w],
+        st,
+        header_rows=2,
+        extra=[*TIGHT, *title_row],
+        frame_height=ctx.frame_height,
     )
-    return out
+    note = Paragraph(
+        "These are not part of the status above; check them by hand or give the job what they need.",
+        st.small,
+    )
+    if len(m.not_checked) < 2 * MIN_ROWS:  # too few rows to split evenly: the table moves whole
+        table.__class__ = WholeTable
+        table.frame_height = ctx.frame_height
+    return [CondPageBreak(110.0), table, note]
 
 
 def _joint_cells(j: JointResult, ctx: Ctx) -> list[str]:
@@ -171,7 +211,7 @@ def checks_rows(
 
 def results_story(m: MemberResult, ctx: Ctx) -> list:
     st, w = ctx.styles, ctx.width
-    out: list = [*heading("Results", st.h2)]
+    out: list = [*_heading("Results", st.h2)]
     if m.joints:
         out.append(
             grid(
@@ -195,28 +235,25 @@ def results_story(m: MemberResult, ctx: Ctx) -> list:
         out.append(Paragraph("This member has no fastened joints.", st.body))
     groups = folded_checks(m, ctx)
     if groups:
-        out.extend(heading("Checks", st.h3, need=80))
         rows, extra = checks_rows(groups, ctx, step_numbers(m, ctx))
+        several = any("," in g[0] for g in groups)
+        out += _heading("Checks", st.h3)
+        out.append(  # a lead line: kept with the table by the page discipline
+            Paragraph(
+                "Under each check: its note and, in italics, its source. Step: the derivation step that "
+                "states the limit or the working, one per joint named"
+                + ("; joints named together have the same checks, values and status." if several else "."),
+                st.caption,
+            )
+        )
         out.append(
             grid(
                 rows,
                 [0.52 * w, 0.10 * w, 0.10 * w, 0.07 * w, 0.07 * w, 0.14 * w],
                 st,
-                extra=extra,
+                extra=[*TIGHT, *extra],
                 zebra=False,
                 frame_height=ctx.frame_height,
-            )
-        )
-        out.append(
-            para(
-                "Under each check: its note and, in italics, its source. Step: the derivation step that "
-                "states the limit or the working, one per joint named"
-                + (
-                    "; joints named together have the same checks, values and status."
-                    if any("," in g[0] for g in groups)
-                    else "."
-                ),
-                st.caption,
             )
         )
     out.extend(scope_story(m, ctx))

@@ -335,8 +335,9 @@ def across_check(
         need / width,
         "OK" if width >= need - 1e-9 else "NG",
         source=source,
-        # e and s are values of the step W_across (formatted by the outputs); without a step
-        # the note names the rules behind them, never their numbers (the solver does not format)
+        # e and s are values of the step W_across (formatted by the outputs); the note names the
+        # rules, never their numbers (the solver does not format)
+        # (callers that log W_across log e and s as steps too, each with its rule)
         note="" if step else f"W = 2·e + (n − 1)·s; e: {note}; s between lines: {across_note}",
         step=step,
     )
