@@ -169,8 +169,7 @@ def _large(log, checks, key, D, c, l_bear, theta, lines, ply):
             None,
             "INFO",
             source=f"{NDS} Table 12.5.1A",
-            note=end_note,
-            step=f"{log.prefix}.e_end",
+            step=f"{log.prefix}.e_end",  # the step notes the rule (end_note)
         )
     )
     checks.append(
@@ -245,8 +244,7 @@ def _small(log, checks, key, D, c, theta, lines):
             None,
             "INFO",
             source=NAIL_SRC,
-            note="15D without pre-boring (10D pre-bored)",
-            step=f"{log.prefix}.e_end",
+            step=f"{log.prefix}.e_end",  # the step notes the rule: 15D without pre-boring (10D pre-bored)
         )
     )
     return Q_(s_min, "in"), None, NAIL_SRC + ": 10D along the grain"
