@@ -12,7 +12,7 @@ from __future__ import annotations
 
 import re
 
-from reportlab.platypus import CondPageBreak, Paragraph
+from reportlab.platypus import Paragraph
 
 from ...solve.results import Assumed
 from .common import Ctx, cited, grid, para
@@ -116,24 +116,18 @@ def assumed_groups(ctx: Ctx) -> list[tuple[str, str, list[list]]]:
 def assumed_story(ctx: Ctx) -> list:
     st, w = ctx.styles, ctx.width
     out: list = [Paragraph("Assumed values", st.h1)]
-    out.append(
-        para(
-            "The job file did not state the values below; the tool used them. Each is a choice the "
-            "engineer of record should confirm or state in the job file with the key shown.",
-            st.body,
-        )
-    )
     groups = assumed_groups(ctx)
     count = sum(len(rows) for _, _, rows in groups)
     if not count:
         out.append(para("None: the job states every value the calculation uses.", st.body))
         return out
-    out += [CondPageBreak(110.0), Paragraph(f"{count} values assumed", st.h3)]
-    out.append(  # a lead line: kept with the table by the page discipline
+    out.append(  # a lead: kept with the table by the page discipline
         Paragraph(
-            "Each heading row names a table of keys (and where they are stated); each row below it the "
-            "key within it. A row is a tool default unless a basis is given under it.",
-            st.caption,
+            f"<b>{count} values assumed.</b> The job file did not state the values below; the tool used "
+            "them. Each is a choice the engineer of record should confirm or state in the job file with "
+            "the key shown: a heading row names a table of keys (and where they are stated), each row "
+            "below it a key within it. A row is a tool default unless a basis is given under it.",
+            st.small,
         )
     )
     rows: list[list] = [["Key", "What (basis; how to state it)", "Value used"]]
@@ -153,7 +147,7 @@ def assumed_story(ctx: Ctx) -> list:
     out.append(
         grid(
             rows,
-            [0.21 * w, 0.55 * w, 0.24 * w],
+            [0.20 * w, 0.52 * w, 0.28 * w],
             st,
             extra=[*TIGHT, *extra],
             zebra=False,

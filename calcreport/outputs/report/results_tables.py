@@ -79,7 +79,12 @@ def scope_story(m: MemberResult, ctx: Ctx) -> list:
     title_row = [
         ("SPAN", (0, 0), (-1, 0)),
         ("BACKGROUND", (0, 0), (-1, 0), colors.white),
-        ("LINEABOVE", (0, 0), (-1, 0), 0.6, colors.white),
+        # the title row stands above the ruled table: white over the box's edges beside it
+        ("LINEABOVE", (0, 0), (-1, 0), 1.2, colors.white),
+        ("LINEBEFORE", (0, 0), (0, 0), 1.2, colors.white),
+        ("LINEAFTER", (-1, 0), (-1, 0), 1.2, colors.white),
+        ("LINEBELOW", (0, 0), (-1, 0), 0.6, colors.black),
+        ("LEFTPADDING", (0, 0), (0, 0), 0),
         ("TOPPADDING", (0, 0), (-1, 0), 6),
     ]
     table = grid(
@@ -240,9 +245,9 @@ def results_story(m: MemberResult, ctx: Ctx) -> list:
         out += _heading("Checks", st.h3)
         out.append(  # a lead line: kept with the table by the page discipline
             Paragraph(
-                "Under each check: its note and, in italics, its source. Step: the derivation step that "
-                "states the limit or the working, one per joint named"
-                + ("; joints named together have the same checks, values and status." if several else "."),
+                "Under each check: its note; its source in italics. Step: the step stating the limit or "
+                "working, one per joint named"
+                + ("; joints named together: the same checks, values and status." if several else "."),
                 st.caption,
             )
         )
