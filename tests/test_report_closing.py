@@ -70,7 +70,10 @@ def test_identical_joints_share_their_check_rows(built):
     result, pages = built[DOOR.stem]
     m = result.members[0]
     groups = folded_checks(m, _ctx(result))
-    assert [where for where, _ in groups] == ["Joints top-webs, bot-webs", "Member"]
+    assert [where for where, _ in groups] == [
+        "Joints top-webs, bot-webs — the same checks, values and status at each",
+        "Member",
+    ]
     rows = groups[0][1]
     assert len(rows) == len(m.joints[0].checks) == len(m.joints[1].checks)
     for k, (check, steps) in enumerate(rows):  # one row stands for both joints' records, equal as printed

@@ -17,6 +17,7 @@ from reportlab.platypus import Paragraph
 from ...solve.results import Assumed
 from .common import Ctx, cited, grid, para
 from .dense import TIGHT, dense
+from .styles import esc
 
 __all__ = ["assumed_story", "assumed_rows", "assumed_groups"]
 
@@ -126,16 +127,16 @@ def assumed_story(ctx: Ctx) -> list:
             f"<b>{count} values assumed.</b> The job file did not state the values below; the tool used "
             "them. Each is a choice the engineer of record should confirm or state in the job file with "
             "the key shown: a heading row names a table of keys (and where they are stated), each row "
-            "below it a key within it. A row is a tool default unless a basis is given under it.",
+            "below it a key within it and the value used. A row is a tool default unless a basis is given under it.",
             st.small,
         )
     )
-    rows: list[list] = [["Key", "What (basis; how to state it)", "Value used"]]
+    rows: list[list] = [["Key = value used", "What (basis; how to state it)"]]
     extra: list[tuple] = []
     for owner, table, items in groups:
         r = len(rows)
         text = owner + (f" — state in {table}" if table else "")
-        rows.append([para(text, st.cell_bold), "", ""])
+        rows.append([para(text, st.cell_bold), ""])
         extra += [("SPAN", (0, r), (-1, r)), ("BACKGROUND", (0, r), (-1, r), st.tint)]
         for name, what, value, state, basis in items:
             cell: list = [para(what, st.cell)]
@@ -143,11 +144,11 @@ def assumed_story(ctx: Ctx) -> list:
                 cell.append(para(f"Basis: {basis}", dense(st).note))
             if state:
                 cell.append(para(f"To state it: {state}", dense(st).note))
-            rows.append([name, cell, value])
+            rows.append([Paragraph(f"{esc(name)} = <b>{esc(value)}</b>", st.cell), cell])
     out.append(
         grid(
             rows,
-            [0.20 * w, 0.52 * w, 0.28 * w],
+            [0.30 * w, 0.70 * w],
             st,
             extra=[*TIGHT, *extra],
             zebra=False,

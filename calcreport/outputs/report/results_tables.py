@@ -178,8 +178,10 @@ def folded_checks(m: MemberResult, ctx: Ctx) -> list[tuple[str, list[tuple[Check
         for k, c in enumerate(first.checks):
             steps = [joints[n].checks[k].step for n in names if joints[n].checks[k].step]
             rows.append((c, steps))
-        word = "Joint" if len(names) == 1 else "Joints"
-        out.append((f"{word} {', '.join(names)}", rows))
+        where = f"Joint {names[0]}" if len(names) == 1 else f"Joints {', '.join(names)}"
+        if len(names) > 1:
+            where += " — the same checks, values and status at each"
+        out.append((where, rows))
     if m.checks:
         out.append(("Member", [(c, [c.step] if c.step else []) for c in m.checks]))
     return out
@@ -241,13 +243,11 @@ def results_story(m: MemberResult, ctx: Ctx) -> list:
     groups = folded_checks(m, ctx)
     if groups:
         rows, extra = checks_rows(groups, ctx, step_numbers(m, ctx))
-        several = any("," in g[0] for g in groups)
         out += _heading("Checks", st.h3)
         out.append(  # a lead line: kept with the table by the page discipline
             Paragraph(
-                "Under each check: its note; its source in italics. Step: the step stating the limit or "
-                "working, one per joint named"
-                + ("; joints named together: the same checks, values and status." if several else "."),
+                "Under each check: its note; its source in italics. Step: the derivation step stating the "
+                "limit or working, one per joint named.",
                 st.caption,
             )
         )
