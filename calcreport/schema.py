@@ -205,6 +205,7 @@ def results_schema() -> dict[str, Any]:
             "status": {"type": "string"},
             "source": {"type": "string"},
             "note": {"type": "string"},
+            "step": {"type": "string", "description": "key of the step stating the check's limit or working"},
         },
         "required": ["key", "label", "status", "source"],
     }

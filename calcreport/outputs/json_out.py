@@ -71,6 +71,7 @@ def _check_fields(c: Check, d: Display) -> dict[str, Any]:
         "status": c.status,
         "source": c.source,
         "note": c.note,
+        **({"step": c.step} if c.step else {}),
     }
 
 

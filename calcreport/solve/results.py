@@ -50,6 +50,9 @@ class Check:
     source: str = ""
     note: str = ""
     scope: str = ""  # space-separated scope tags this check covers (see solve/scope.py); optional
+    #: key of the step that states the check's limit or working (``member.H1.joint.top.connector.
+    #: detail.W_across``), when there is one; outputs refer to it instead of repeating its numbers
+    step: str = ""
 
 
 @dataclass(frozen=True)

@@ -1,7 +1,11 @@
 """The assumed-values page: every value the tool chose because the job did not state it.
 
 Reads the :class:`calcreport.solve.results.Assumed` records of the job and of each member; rows
-that differ only by the joint they belong to are shown once with the joints named.
+that differ only by the joint they belong to are shown once with the joints named. Rows are
+grouped by the table they belong to (``member[H1].joint[top, bot].connector``), written once as a
+heading row; each row then names its key within that table. "To state it" is printed only where
+it says more than the key and its table (``[member.joint.connector] CD or [settings]
+load_duration``).
 """
 
 from __future__ import annotations
@@ -11,21 +15,30 @@ import re
 from reportlab.platypus import Paragraph
 
 from ...solve.results import Assumed
-from .common import Ctx, cited, grid, heading, para
+from .common import Ctx, cited, grid, para
+from .dense import TIGHT, dense
+from .styles import esc
 
-__all__ = ["assumed_story", "assumed_rows"]
+__all__ = ["assumed_story", "assumed_rows", "assumed_groups"]
 
 _JOINT = re.compile(r"\.joint\[([^\]]+)\]")
+TOOL_DEFAULT = "tool default"
+_WHERE = re.compile(r"^(\[\[?[^\]]+\]\]?)\s+(.+)$")
 
 
-def assumed_rows(ctx: Ctx) -> list[list[str]]:
-    """Rows (key, what, value, how to state it, source) over the job and its members."""
+def _records(ctx: Ctx) -> list[Assumed]:
     records: list[Assumed] = list(ctx.result.assumed)
     for m in ctx.result.members:
         records += list(m.assumed)
+    return records
+
+
+def assumed_rows(ctx: Ctx) -> list[list[str]]:
+    """Rows (key, what, value, how to state it, source) over the job and its members; the key
+    names every joint the row stands for."""
     groups: dict[tuple, list[str]] = {}
     order: list[tuple] = []
-    for a in records:
+    for a in _records(ctx):
         value = ctx.q(a.value)
         generic = _JOINT.sub(".joint[*]", a.key)
         g = (generic, a.label, value, a.where, a.source)
@@ -46,26 +59,100 @@ def assumed_rows(ctx: Ctx) -> list[list[str]]:
                 label[0].upper() + label[1:] if label else "",
                 value,
                 where,
-                cited(source) or "tool default",
+                cited(source) or TOOL_DEFAULT,
             ]
         )
     return rows
 
 
+def _split_key(key: str) -> tuple[str, str]:
+    """(owner, name): a joint's key splits at its last segment (``member[H1].joint[a, b].connector.CD``
+    → ``member[H1].joint[a, b].connector``, ``CD``); any other at its first (``member[F2].load[L].enters``
+    → ``member[F2]``, ``load[L].enters``; ``settings.spacing_max`` → ``settings``, ``spacing_max``).
+    A key of one segment is its own owner."""
+    if ".joint[" in key:
+        head, dot, tail = key.rpartition(".")
+        if dot and "]" not in tail:
+            return head, tail
+        return key, ""
+    depth = 0
+    for i, ch in enumerate(key):
+        depth += (ch == "[") - (ch == "]")
+        if ch == "." and depth == 0:
+            return key[:i], key[i + 1 :]
+    return key, ""
+
+
+def _state(where: str, name: str) -> tuple[str, str]:
+    """(table, extra): the job-file table of ``where`` and what it says beyond ``table name``."""
+    found = _WHERE.match(where or "")
+    if not found:
+        return "", where or ""
+    table, rest = found.groups()
+    return table, "" if rest.strip() == name else where
+
+
+def assumed_groups(ctx: Ctx) -> list[tuple[str, str, list[list]]]:
+    """(owner, the job-file table most of its rows are stated in or "", rows [name, what, value,
+    to state it or "", basis]); a row stated elsewhere, or with more to say, keeps its own "to
+    state it"."""
+    out: dict[str, list[tuple[str, list]]] = {}
+    for key, what, value, where, basis in assumed_rows(ctx)[1:]:
+        owner, name = _split_key(key)
+        table, extra = _state(where, name.rpartition(".")[2] if name else "")
+        out.setdefault(owner, []).append((table, [name or key, what, value, extra, basis, where]))
+    result: list[tuple[str, str, list[list]]] = []
+    for owner, rows in out.items():
+        tables = [t for t, _ in rows if t]
+        shared = max(sorted(set(tables)), key=tables.count) if tables else ""
+        if len(rows) > 1 and tables.count(shared) < 2:  # a table of one row among several: no heading
+            shared = ""
+        for table, r in rows:
+            if table != shared and not r[3]:
+                r[3] = r[5]
+        result.append((owner, shared, [r[:5] for _, r in rows]))
+    return result
+
+
 def assumed_story(ctx: Ctx) -> list:
     st, w = ctx.styles, ctx.width
     out: list = [Paragraph("Assumed values", st.h1)]
-    out.append(
-        para(
-            "The job file did not state the values below; the tool used them. Each is a choice the "
-            "engineer of record should confirm or state in the job file with the key shown.",
-            st.body,
-        )
-    )
-    rows = assumed_rows(ctx)
-    if len(rows) == 1:
+    groups = assumed_groups(ctx)
+    count = sum(len(rows) for _, _, rows in groups)
+    if not count:
         out.append(para("None: the job states every value the calculation uses.", st.body))
         return out
-    out.extend(heading(f"{len(rows) - 1} values assumed", st.h3, need=60))
-    out.append(grid(rows, [0.25 * w, 0.27 * w, 0.14 * w, 0.20 * w, 0.14 * w], st))
+    out.append(  # a lead: kept with the table by the page discipline
+        Paragraph(
+            f"<b>{count} values assumed.</b> The job file did not state the values below; the tool used "
+            "them. Each is a choice the engineer of record should confirm or state in the job file with "
+            "the key shown: a heading row names a table of keys (and where they are stated), each row "
+            "below it a key within it and the value used. A row is a tool default unless a basis is given under it.",
+            st.small,
+        )
+    )
+    rows: list[list] = [["Key = value used", "What (basis; how to state it)"]]
+    extra: list[tuple] = []
+    for owner, table, items in groups:
+        r = len(rows)
+        text = owner + (f" — state in {table}" if table else "")
+        rows.append([para(text, st.cell_bold), ""])
+        extra += [("SPAN", (0, r), (-1, r)), ("BACKGROUND", (0, r), (-1, r), st.tint)]
+        for name, what, value, state, basis in items:
+            cell: list = [para(what, st.cell)]
+            if basis != TOOL_DEFAULT:
+                cell.append(para(f"Basis: {basis}", dense(st).note))
+            if state:
+                cell.append(para(f"To state it: {state}", dense(st).note))
+            rows.append([Paragraph(f"{esc(name)} = <b>{esc(value)}</b>", st.cell), cell])
+    out.append(
+        grid(
+            rows,
+            [0.30 * w, 0.70 * w],
+            st,
+            extra=[*TIGHT, *extra],
+            zebra=False,
+            frame_height=ctx.frame_height,
+        )
+    )
     return out

@@ -1,39 +1,136 @@
-"""Results of a member: per joint demand, capacity, spacing, utilisation and status; every Check."""
+"""Results of a member: per joint demand, capacity, spacing, utilisation and status; every Check.
+
+Joints whose rows print alike (the folded top and bottom joints of a symmetric section) share one
+row naming them all; nothing is compared but the printed text. A check that names the step
+stating its limit or working (``Check.step``) refers to that step's number instead of repeating
+its numbers, so each number is printed once, in the job's units, by :class:`..fmt.Display`.
+"""
 
 from __future__ import annotations
 
-from reportlab.platypus import Paragraph
+import re
 
-from ...solve.results import Check, MemberResult
+from reportlab.lib import colors
+from reportlab.platypus import CondPageBreak, Paragraph, Table
+
+from ...solve.results import Check, JointResult, MemberResult
 from ..scope_text import checked_line, status_words
-from .common import Ctx, cited, grid, heading, para
+from .common import Ctx, cited, grid, para
+from .dense import TIGHT, dense
+from .derivations import member_groups
+from .fastcell import cell
+from .flow import MIN_ROWS
 from .styles import esc
 
-__all__ = ["results_story", "checks_rows", "scope_story"]
+__all__ = ["results_story", "checks_rows", "scope_story", "step_numbers", "folded_checks"]
+
+_JOINT_KEY = re.compile(r"\.joint\[([^\]]+)\]")
+
+
+class WholeTable(Table):
+    """A table too short to split evenly: it moves whole to the next sheet rather than split
+    (split only on a fresh sheet, where nothing better can be waited for)."""
+
+    frame_height: float = 0.0
+
+    def split(self, availWidth, availHeight):
+        if self.frame_height and availHeight < 0.95 * self.frame_height:
+            return []
+        return super().split(availWidth, availHeight)
+
+
+def _heading(text: str, style, need: float = 110.0) -> list:
+    """A heading as a real ``Paragraph`` (so page discipline keeps it with the table after it),
+    on a new sheet when less than ``need`` points remain."""
+    return [CondPageBreak(need), Paragraph(esc(text), style)]
+
+
+def step_numbers(m: MemberResult, ctx: Ctx) -> dict[str, str]:
+    """Step key → the number the derivation prints for it ("1.3.42"), numbered as the member's
+    story numbers its headings (member n, heading k, step i within the heading; the steps a folded
+    joint does not show keep their numbers, see :mod:`.folding`)."""
+    ids = [x.id for x in ctx.result.members]
+    number = ids.index(m.id) + 1 if m.id in ids else 1
+    out: dict[str, str] = {}
+    for k, g in enumerate(member_groups(m), 1):
+        for i, s in enumerate(g.steps, 1):
+            out[s.key] = f"{number}.{k}.{i}"
+    return out
 
 
 def scope_story(m: MemberResult, ctx: Ctx) -> list:
     """What was not checked for this member, with clause and reason (never silent)."""
     st, w = ctx.styles, ctx.width
-    out: list = [*heading(f"Not checked ({len(m.not_checked)})", st.h3)]
+    title = f"Not checked ({len(m.not_checked)})"
     if not m.not_checked:
-        out.append(para("Every check listed for this kind of member ran.", st.body))
-        return out
-    rows = [["Not checked", "Governing clause", "Why"]]
+        return [
+            *_heading(title, st.h3),
+            Paragraph("Every check listed for this kind of member ran.", st.body),
+        ]
+    # the title is the table's first header row: it goes (and repeats) with the rows
+    rows: list[list] = [
+        [Paragraph(esc(title), st.h3), ""],
+        ["Not checked (governing clause)", "Why"],
+    ]
     for u in m.not_checked:
-        rows.append([u.label[0].upper() + u.label[1:], cited(u.clause), cited(u.reason)])
-    out.append(grid(rows, [0.36 * w, 0.26 * w, 0.38 * w], st))
-    out.append(
-        para(
-            "These are not part of the status above; check them by hand or give the job what they need.",
-            st.small,
-        )
+        label = esc(u.label[0].upper() + u.label[1:])
+        clause = f' <font size="{st.caption.fontSize:g}" color="#444444">({esc(cited(u.clause))})</font>'
+        rows.append([Paragraph(label + clause, st.cell), cited(u.reason)])
+    title_row = [
+        ("SPAN", (0, 0), (-1, 0)),
+        ("BACKGROUND", (0, 0), (-1, 0), colors.white),
+        # the title row stands above the ruled table: white over the box's edges beside it
+        ("LINEABOVE", (0, 0), (-1, 0), 1.2, colors.white),
+        ("LINEBEFORE", (0, 0), (0, 0), 1.2, colors.white),
+        ("LINEAFTER", (-1, 0), (-1, 0), 1.2, colors.white),
+        ("LINEBELOW", (0, 0), (-1, 0), 0.6, colors.black),
+        ("LEFTPADDING", (0, 0), (0, 0), 0),
+        ("TOPPADDING", (0, 0), (-1, 0), 6),
+    ]
+    table = grid(
+        rows,
+        [0.46 * w, 0.54 * w],
+        st,
+        header_rows=2,
+        extra=[*TIGHT, *title_row],
+        frame_height=ctx.frame_height,
     )
+    note = Paragraph(
+        "These are not part of the status above; check them by hand or give the job what they need.",
+        st.small,
+    )
+    if len(m.not_checked) < 2 * MIN_ROWS:  # too few rows to split evenly: the table moves whole
+        table.__class__ = WholeTable
+        table.frame_height = ctx.frame_height
+    return [CondPageBreak(110.0), table, note]
+
+
+def _joint_cells(j: JointResult, ctx: Ctx) -> list[str]:
+    if j.continuous:
+        cap = f"{ctx.q(j.capacity_row)} (continuous)"
+        req = prov = "continuous"
+    else:
+        cap = f"n·F = {j.per_row} × {ctx.q(j.capacity)} = {ctx.q(j.capacity_row)}"
+        req, prov = ctx.q(j.spacing_required), ctx.q(j.spacing_provided, 3)
+    limits = f"{ctx.q(j.spacing_min)} / {ctx.q(j.spacing_max)}"
+    return [ctx.q(j.shear_flow), cap, req, prov, limits, ctx.q(j.utilisation, 3), j.status]
+
+
+def _fold(items: list[tuple[str, tuple]]) -> list[tuple[list[str], tuple]]:
+    """Items (name, printed signature) gathered by equal signature, in order of first appearance."""
+    out: list[tuple[list[str], tuple]] = []
+    for name, sig in items:
+        for names, seen in out:
+            if seen == sig:
+                names.append(name)
+                break
+        else:
+            out.append(([name], sig))
     return out
 
 
 def _joint_rows(m: MemberResult, ctx: Ctx) -> list[list]:
-    rows = [
+    rows: list[list] = [
         [
             "Joint",
             "Demand q",
@@ -45,44 +142,88 @@ def _joint_rows(m: MemberResult, ctx: Ctx) -> list[list]:
             "Status",
         ]
     ]
-    for j in m.joints:
-        if j.continuous:
-            cap = f"{ctx.q(j.capacity_row)} (continuous)"
-            req = prov = "continuous"
-        else:
-            cap = f"n·F = {j.per_row} × {ctx.q(j.capacity)} = {ctx.q(j.capacity_row)}"
-            req, prov = ctx.q(j.spacing_required), ctx.q(j.spacing_provided, 3)
-        limits = f"{ctx.q(j.spacing_min)} / {ctx.q(j.spacing_max)}"
-        rows.append([j.id, ctx.q(j.shear_flow), cap, req, prov, limits, ctx.q(j.utilisation, 3), j.status])
+    for names, cells in _fold([(j.id, tuple(_joint_cells(j, ctx))) for j in m.joints]):
+        rows.append([", ".join(names), *cells])
     return rows
 
 
-def checks_rows(checks: list[tuple[str, Check]], ctx: Ctx) -> list[list]:
-    rows = [["Where", "Check", "Demand", "Capacity", "Ratio", "Status", "Source"]]
-    for where, c in checks:
-        label = c.label + (f" ({cited(c.note)})" if c.note else "")
-        rows.append(
-            [
-                where,
-                label,
-                ctx.q(c.demand),
-                ctx.q(c.capacity),
-                ctx.q(c.ratio, 3),
-                c.status,
-                cited(c.source) or "—",
-            ]
-        )
-    return rows
+def _check_sig(jid: str, c: Check, ctx: Ctx) -> tuple:
+    """What a check row prints, with its joint written generically (so equal joints compare equal)."""
+
+    def generic(text: str) -> str:
+        return _JOINT_KEY.sub(".joint[*]", text).replace(f".joint.{jid}.", ".joint.*.")
+
+    return (
+        generic(c.key),
+        c.label,
+        ctx.q(c.demand),
+        ctx.q(c.capacity),
+        ctx.q(c.ratio, 3),
+        c.status,
+        cited(c.source),
+        cited(c.note),
+        generic(c.step),
+    )
+
+
+def folded_checks(m: MemberResult, ctx: Ctx) -> list[tuple[str, list[tuple[Check, list[str]]]]]:
+    """(where, [(check, the step keys it refers to in each joint named)]) — joints whose check
+    rows print alike are one entry naming them all; the member's own checks come last."""
+    joints = {j.id: j for j in m.joints}
+    items = [(j.id, tuple(_check_sig(j.id, c, ctx) for c in j.checks)) for j in m.joints if j.checks]
+    out: list[tuple[str, list[tuple[Check, list[str]]]]] = []
+    for names, _sig in _fold(items):
+        first = joints[names[0]]
+        rows = []
+        for k, c in enumerate(first.checks):
+            steps = [joints[n].checks[k].step for n in names if joints[n].checks[k].step]
+            rows.append((c, steps))
+        where = f"Joint {names[0]}" if len(names) == 1 else f"Joints {', '.join(names)}"
+        if len(names) > 1:
+            where += " — the same checks, values and status at each"
+        out.append((where, rows))
+    if m.checks:
+        out.append(("Member", [(c, [c.step] if c.step else []) for c in m.checks]))
+    return out
+
+
+def checks_rows(
+    groups: list[tuple[str, list[tuple[Check, list[str]]]]], ctx: Ctx, numbers: dict[str, str]
+) -> tuple[list[list], list[tuple]]:
+    """Rows of the checks table (a spanning row per joint group) and the style commands they need."""
+    st = ctx.styles
+    rows: list[list] = [["Check (note; source)", "Demand", "Capacity", "Ratio", "Status", "Step"]]
+    extra: list[tuple] = []
+    for where, checks in groups:
+        r = len(rows)
+        rows.append([para(where, st.cell_bold), "", "", "", "", ""])
+        extra += [("SPAN", (0, r), (-1, r)), ("BACKGROUND", (0, r), (-1, r), st.tint)]
+        for c, steps in checks:
+            note = esc(cited(c.note)) + "; " if c.note else ""
+            source = f"<i>{esc(cited(c.source) or '—')}</i>"
+            label = [para(c.label, st.cell), cell(note + source, dense(st).note)]
+            refs = [numbers[s] for s in steps if s in numbers]
+            rows.append(
+                [
+                    label,
+                    ctx.q(c.demand),
+                    ctx.q(c.capacity),
+                    ctx.q(c.ratio, 3),
+                    c.status,
+                    ", ".join(refs) or "—",
+                ]
+            )
+    return rows, extra
 
 
 def results_story(m: MemberResult, ctx: Ctx) -> list:
     st, w = ctx.styles, ctx.width
-    out: list = [*heading("Results", st.h2)]
+    out: list = [*_heading("Results", st.h2)]
     if m.joints:
         out.append(
             grid(
                 _joint_rows(m, ctx),
-                [0.11 * w, 0.12 * w, 0.20 * w, 0.11 * w, 0.11 * w, 0.14 * w, 0.12 * w, 0.09 * w],
+                [0.16 * w, 0.11 * w, 0.22 * w, 0.10 * w, 0.10 * w, 0.12 * w, 0.11 * w, 0.08 * w],
                 st,
             )
         )
@@ -99,14 +240,25 @@ def results_story(m: MemberResult, ctx: Ctx) -> list:
                 out.append(para(f"Joint {j.id}: {reason}", st.small))
     else:
         out.append(Paragraph("This member has no fastened joints.", st.body))
-    checks = [(f"joint {j.id}", c) for j in m.joints for c in j.checks] + [("member", c) for c in m.checks]
-    if checks:
-        out.extend(heading("Checks", st.h3))
+    groups = folded_checks(m, ctx)
+    if groups:
+        rows, extra = checks_rows(groups, ctx, step_numbers(m, ctx))
+        out += _heading("Checks", st.h3)
+        out.append(  # a lead line: kept with the table by the page discipline
+            Paragraph(
+                "Under each check: its note; its source in italics. Step: the derivation step stating the "
+                "limit or working, one per joint named.",
+                st.caption,
+            )
+        )
         out.append(
             grid(
-                checks_rows(checks, ctx),
-                [0.11 * w, 0.27 * w, 0.12 * w, 0.12 * w, 0.08 * w, 0.08 * w, 0.22 * w],
+                rows,
+                [0.52 * w, 0.10 * w, 0.10 * w, 0.07 * w, 0.07 * w, 0.14 * w],
                 st,
+                extra=[*TIGHT, *extra],
+                zebra=False,
+                frame_height=ctx.frame_height,
             )
         )
     out.extend(scope_story(m, ctx))

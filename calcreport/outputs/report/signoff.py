@@ -6,10 +6,15 @@ from reportlab.lib import colors
 from reportlab.platypus import KeepTogether, Paragraph, Spacer, Table, TableStyle
 
 from .common import Ctx, heading, para
+from .dense import dense
 from .pages import RULE
 from .styles import esc
 
-__all__ = ["signoff_story", "limitations_story", "NOT_CHECKED", "CAUTIONS"]
+__all__ = ["signoff_story", "limitations_story", "NOT_CHECKED", "CAUTIONS", "COMMENT_LINES"]
+
+#: ruled lines for the checker's comments
+COMMENT_LINES = 4
+COMMENT_LINE_HEIGHT = 17.0
 
 CAUTIONS = (
     "This report is a design aid. It is not valid until a licensed professional engineer has reviewed "
@@ -72,7 +77,7 @@ def _signature_table(ctx: Ctx) -> Table:
     ):
         rows.append([para(role, st.cell), para(name or "", st.cell), "", para(date or "", st.cell)])
     t = Table(
-        rows, colWidths=[0.17 * w, 0.30 * w, 0.33 * w, 0.20 * w], rowHeights=[None, 30, 30, 30], hAlign="LEFT"
+        rows, colWidths=[0.17 * w, 0.30 * w, 0.33 * w, 0.20 * w], rowHeights=[None, 22, 22, 22], hAlign="LEFT"
     )
     t.setStyle(
         TableStyle(
@@ -92,9 +97,9 @@ def _signature_table(ctx: Ctx) -> Table:
 def signoff_story(ctx: Ctx) -> list:
     st, w = ctx.styles, ctx.width
     comments = Table(
-        [[para("Checker's comments", st.cell_bold)]] + [[""] for _ in range(7)],
+        [[para("Checker's comments", st.cell_bold)]] + [[""] for _ in range(COMMENT_LINES)],
         colWidths=[w],
-        rowHeights=[None] + [20] * 7,
+        rowHeights=[None] + [COMMENT_LINE_HEIGHT] * COMMENT_LINES,
         hAlign="LEFT",
     )
     comments.setStyle(
@@ -111,22 +116,75 @@ def signoff_story(ctx: Ctx) -> list:
         Paragraph(
             "By signing, the checker confirms that the inputs match the drawings and the brief, the "
             "assumptions are appropriate, and the results have been reviewed.",
-            st.body,
+            st.small,
         ),
-        KeepTogether([_signature_table(ctx), Spacer(1, 10), comments]),
-        Spacer(1, 8),
+        KeepTogether([_signature_table(ctx), Spacer(1, 6), comments]),
+        Spacer(1, 4),
         Paragraph(
             f'Job file SHA-256: <font name="{st.fonts.mono}">{esc(ctx.result.job.sha256)}</font>', st.small
         ),
     ]
 
 
+def _cautions(ctx: Ctx) -> Table:
+    """The numbered cautions in a ruled box with an accent bar: kept prominent (bold numbers,
+    table text size, the full width)."""
+    st, w = ctx.styles, ctx.width
+    rows = [[para(f"{i}.", st.cell_bold), para(c, st.cell)] for i, c in enumerate(CAUTIONS, 1)]
+    t = Table(rows, colWidths=[20, w - 20], hAlign="LEFT")
+    t.setStyle(
+        TableStyle(
+            [
+                ("VALIGN", (0, 0), (-1, -1), "TOP"),
+                ("LEFTPADDING", (0, 0), (-1, -1), 4),
+                ("RIGHTPADDING", (0, 0), (-1, -1), 4),
+                ("TOPPADDING", (0, 0), (-1, -1), 1),
+                ("BOTTOMPADDING", (0, 0), (-1, -1), 1),
+                ("TOPPADDING", (0, 0), (-1, 0), 3),
+                ("BOTTOMPADDING", (0, -1), (-1, -1), 3),
+                ("BOX", (0, 0), (-1, -1), 0.9, colors.black),
+                ("LINEBEFORE", (0, 0), (0, -1), 3, st.accent),
+            ]
+        )
+    )
+    return t
+
+
+def _balanced(items: list, weights: list[int]) -> int:
+    """Where to cut ``items`` so the two columns carry about the same amount of text."""
+    total, run = sum(weights), 0
+    for i, wgt in enumerate(weights):
+        if run + wgt / 2 > total / 2:
+            return max(i, 1)
+        run += wgt
+    return len(items)
+
+
+def _not_checked_columns(ctx: Ctx) -> Table:
+    """The list in two columns, read down the left column then the right; every item kept."""
+    st, w = ctx.styles, ctx.width
+    items = [Paragraph("• " + esc(item), dense(st).item) for item in NOT_CHECKED]
+    cut = _balanced(items, [len(item) + 60 for item in NOT_CHECKED])  # + a line's end per item
+    t = Table([[items[:cut], items[cut:]]], colWidths=[w / 2, w / 2], hAlign="LEFT")
+    t.setStyle(
+        TableStyle(
+            [
+                ("VALIGN", (0, 0), (-1, -1), "TOP"),
+                ("LEFTPADDING", (0, 0), (-1, -1), 0),
+                ("RIGHTPADDING", (0, 0), (-1, -1), 8),
+                ("TOPPADDING", (0, 0), (-1, -1), 0),
+                ("BOTTOMPADDING", (0, 0), (-1, -1), 0),
+            ]
+        )
+    )
+    return t
+
+
 def limitations_story(ctx: Ctx) -> list:
     st = ctx.styles
     out: list = [*heading("Limitations and cautions", st.h2)]
-    for i, c in enumerate(CAUTIONS, 1):
-        out.append(para(f"{i}. {c}", st.body))
-    out.extend(heading("This tool does not check:", st.h3))
-    for item in NOT_CHECKED:
-        out.append(Paragraph("• " + esc(item), st.body))
+    out.append(_cautions(ctx))
+    # the list is set whole with its heading (a third of a sheet at most)
+    head = dense(st).head
+    out.append(KeepTogether([para("This tool does not check:", head), _not_checked_columns(ctx)]))
     return out

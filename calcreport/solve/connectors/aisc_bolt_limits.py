@@ -137,6 +137,7 @@ def bolt_limits(
             None,
             "INFO",
             source=f"{SRC} §J3.3",
+            step=f"{log.prefix}.s_pref",
         ),
         Check(
             f"{key}.end",
@@ -147,6 +148,7 @@ def bolt_limits(
             "INFO",
             source=f"{SRC} §J3.10 (lc = le − dh/2) and Table J3.4",
             note="and not less than the Table J3.4 edge distance",
+            step=f"{log.prefix}.le_tearout",
         ),
         Check(
             f"{key}.edge_max",
@@ -156,6 +158,7 @@ def bolt_limits(
             None,
             "INFO",
             source=f"{SRC} §J3.5",
+            step=f"{log.prefix}.e_max",
         ),
     ]
     if c is not None:

@@ -50,8 +50,10 @@ def detailing(
     c,
     per_row: int,
     rho_of: Callable[[Part], float],
+    log=None,
 ) -> tuple[Quantity, str]:
-    """Detailing checks appended to ``checks``; returns (minimum spacing a1, its source)."""
+    """Detailing checks appended to ``checks``; returns (minimum spacing a1, its source). With
+    ``log``, the width a row across the contact needs is a step (``W_across``)."""
     timber = [(m, t) for m, t in zip(members, thicknesses) if m.material.family != "plywood"]
     rho = max((rho_of(m) for m, _ in timber), default=0.0)
     if rule == "nail":
@@ -92,6 +94,26 @@ def detailing(
         src = f"{EC5} §8.5.1.1, Table 8.4" + (" (screws: §8.7.1)" if kind == "wood_screw" else "")
         dist = bolt_distances(d)
     if c is not None:
+        if log is not None:  # the limits the width across rests on, each a step (EN 1995-1-1 Tables 8.2/8.4)
+            for name, label, which, rule in (
+                ("e_edge", "Edge distance a4,c (unloaded edge)", "a4c", "α = 0, load parallel to the grain"),
+                (
+                    "s_rows",
+                    "Spacing a2 between lines across the grain",
+                    "a2",
+                    "α = 0, load parallel to the grain",
+                ),
+            ):
+                log.add(
+                    name,
+                    label,
+                    f"{'a4,c' if which == 'a4c' else 'a2'} = k·d",
+                    "{k} × {d}",
+                    {"k": round(dist[which] / d, 6), "d": Q_(d, "mm")},
+                    Q_(dist[which], "mm"),
+                    source=src,
+                    note=rule,
+                )
         checks.append(
             across_check(
                 key,
@@ -102,6 +124,7 @@ def detailing(
                 src,
                 "edge distance a4,c (unloaded edge), load parallel to the grain",
                 "spacing a2 perpendicular to the grain",
+                log=log,
             )
         )
     checks.append(

@@ -321,7 +321,18 @@ def design_ec5(spec: ConnectorSpec, ctx, log: StepLog, kind: str) -> Capacity:
         governs=True,
     )
     smin, lsrc = detailing(
-        checks, key, kind, rule, d, predrilled, (m1, m2), (t_1, t_2), c, getattr(ctx, "per_row", 1), rho_k
+        checks,
+        key,
+        kind,
+        rule,
+        d,
+        predrilled,
+        (m1, m2),
+        (t_1, t_2),
+        c,
+        getattr(ctx, "per_row", 1),
+        rho_k,
+        log=log.child("detail"),
     )
     return Capacity(
         value=Fd,

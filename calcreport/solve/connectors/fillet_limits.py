@@ -94,6 +94,7 @@ def weld_limits(
             wmin / w,
             "OK" if w >= wmin - 1e-9 else "NG",
             source=f"{SRC} Table J2.4",
+            step=f"{log.prefix}.w_min",
         )
     ]
     if form == "lap":
@@ -115,6 +116,7 @@ def weld_limits(
                 w / wmax,
                 "OK" if w <= wmax + 1e-9 else "NG",
                 source=f"{SRC} §J2.2b(b)",
+                step=f"{log.prefix}.w_max",
             )
         )
     else:
@@ -148,6 +150,7 @@ def weld_limits(
                 None,
                 "INFO",
                 source=f"{SRC} §J2.2b(c)",
+                step=f"{log.prefix}.L_min",
             )
         )
         return checks, None
@@ -170,6 +173,7 @@ def weld_limits(
             lmin / L,
             "OK" if L >= lmin - 1e-9 else "NG",
             source=f"{SRC} §J2.2b(c), (e)",
+            step=f"{log.prefix}.L_seg_min",
         )
     )
     pitch_max = None

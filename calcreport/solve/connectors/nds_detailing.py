@@ -169,7 +169,7 @@ def _large(log, checks, key, D, c, l_bear, theta, lines, ply):
             None,
             "INFO",
             source=f"{NDS} Table 12.5.1A",
-            note=end_note,
+            step=f"{log.prefix}.e_end",  # the step notes the rule (end_note)
         )
     )
     checks.append(
@@ -182,6 +182,7 @@ def _large(log, checks, key, D, c, l_bear, theta, lines, ply):
             "INFO",
             source=f"{NDS} Table 12.5.1D",
             note=rows_note + ("" if perp else "; rows not over 5 in apart on one splice plate"),
+            step=f"{log.prefix}.s_rows",
         )
     )
     return (
@@ -243,7 +244,7 @@ def _small(log, checks, key, D, c, theta, lines):
             None,
             "INFO",
             source=NAIL_SRC,
-            note="15D without pre-boring (10D pre-bored)",
+            step=f"{log.prefix}.e_end",  # the step notes the rule: 15D without pre-boring (10D pre-bored)
         )
     )
     return Q_(s_min, "in"), None, NAIL_SRC + ": 10D along the grain"

@@ -229,6 +229,7 @@ def design_dowel(
                 "OK" if pen >= pmin - 1e-9 else "NG",
                 source=f"{NDS} Chapter 12 minimum penetration {'6D' if f.min_pen == 6 else '4D'}",
                 note="lateral values may not be used with less penetration",
+                step=f"{log.prefix}.p_min",
             )
         )
         if planes == 1:

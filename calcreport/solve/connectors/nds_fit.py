@@ -112,16 +112,17 @@ def fastener_fit(
             "equations for it: give planes = 2 (held part as the middle member) for a through nail "
             "in double shear, or a nail that stays inside the assembly",
         )
+    # L against t_a is the check's demand and capacity (the outputs format them): no number in the note
     if clinched:
-        status, note = "OK", f"passes through by {out:.3g} in and is clinched (stated); double shear"
+        status, note = "OK", "passes through and is clinched (stated); double shear"
     elif out > 1e-9:
         status = "NG"
         note = (
-            f"the point exits the far face of {layers[-1].part.id if layers else main.id} by "
-            f"{out:.3g} in: use a shorter fastener, or a through nail clinched in double shear"
+            f"the point exits the far face of {layers[-1].part.id if layers else main.id}: "
+            "use a shorter fastener, or a through nail clinched in double shear"
         )
     else:
-        status, note = "OK", f"the point stays {-out:.3g} in inside the far face"
+        status, note = "OK", "the point stays inside the far face"
     checks.append(
         Check(
             f"{key}.fit",
@@ -132,6 +133,7 @@ def fastener_fit(
             status,
             NDS_FIT,
             note=note,
+            step=f"{log.prefix}.t_assembly",
         )
     )
     opposite = opposite_faces(main, c, tuple(ctx.other)) if planes == 1 and main in ctx.held else []
@@ -159,26 +161,24 @@ def fastener_fit(
             status, note = "OK", "the points do not meet"
         elif staggered:
             status = "INFO"
-            note = (
-                f"staggered as stated: at one row the points would overlap by {overlap:.3g} in; "
-                "rows from the two faces must be offset along the member"
-            )
+            note = "staggered as stated: rows from the two faces must be offset along the member"
         else:
             status = "NG"
             note = (
-                f"the points overlap by {overlap:.3g} in in {main.id}: stagger the rows from the two "
+                f"the points overlap in {main.id}: stagger the rows from the two "
                 "faces (staggered = true) or use shorter fasteners"
             )
         checks.append(
             Check(
                 f"{key}.opposite_faces.{o.id}",
-                f"Fasteners from opposite faces ({side.id}, {o.id}) do not meet in {main.id}",
+                "Points from opposite faces do not meet",  # the parts: in the label of step p_both
                 Q_(p1 + p2, "in"),
                 Q_(tm, "in"),
                 None if status == "INFO" else (p1 + p2) / tm,
                 status,
                 SRC_BOTH_FACES,
                 note=note,
+                step=f"{log.prefix}.p_both.{o.id}",
             )
         )
     return 2 if opposite else 1

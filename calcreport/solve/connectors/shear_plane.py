@@ -301,7 +301,9 @@ def across_check(
     from ..results import Check
 
     width = c.hi - c.lo
+    step = ""
     if log is not None and n > 1:
+        step = f"{log.prefix}.W_across"
         log.add(
             "W_across",
             f"Contact width needed for {n} fasteners across",
@@ -327,11 +329,15 @@ def across_check(
     need = width_for_lines(n, edge, spacing)
     return Check(
         f"{key}.edge",
-        f"Width for {n} fasteners across: 2·e + {n - 1}·s ≤ contact width",
+        f"Contact width for {n} fasteners across",
         Q_(need, "in"),
         Q_(width, "in"),
         need / width,
         "OK" if width >= need - 1e-9 else "NG",
         source=source,
-        note=f"e = {edge:.3g} in ({note}); s = {spacing:.3g} in between lines ({across_note})",
+        # e and s are values of the step W_across (formatted by the outputs); the note names the
+        # rules, never their numbers (the solver does not format)
+        # (callers that log W_across log e and s as steps too, each with its rule)
+        note="" if step else f"W = 2·e + (n − 1)·s; e: {note}; s between lines: {across_note}",
+        step=step,
     )
