@@ -22,7 +22,6 @@ from __future__ import annotations
 
 import argparse
 import io
-import os
 import statistics
 import subprocess
 import sys
@@ -30,6 +29,7 @@ import tempfile
 import time
 from pathlib import Path
 
+from footing import footing_env  # the cold processes' footing (benchmarks/ is on sys.path)
 from report_pages import PARTS  # the same stringer parts and joint (benchmarks/ is on sys.path)
 
 ROOT = Path(__file__).resolve().parent.parent
@@ -103,9 +103,7 @@ def job_text(members: int) -> str:
 
 
 def _env(src: Path) -> dict:
-    env = dict(os.environ, PYTHONPATH=str(src) + os.pathsep + os.environ.get("PYTHONPATH", ""))
-    env["OPENBLAS_NUM_THREADS"] = env["OMP_NUM_THREADS"] = env["MKL_NUM_THREADS"] = "1"
-    return env
+    return footing_env(src)  # one BLAS thread, bytecode compiled and read (benchmarks/footing.py)
 
 
 def _wall(cmd: list[str], env: dict) -> float:
