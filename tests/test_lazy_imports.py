@@ -55,7 +55,13 @@ def test_build_leaves_out_modules_a_report_never_uses(tmp_path):
     # start-up time of `build` (issue 15 item 8; common practice, no source): no network stack
     # (xml.sax.saxutils pulled in urllib.request and ssl), no barcode widgets besides the QR
     # encoder, no Japanese codecs (reportlab's QR data modes try Shift-JIS first)
-    unused = ("ssl", "http.client", "urllib.request", "reportlab.graphics.barcode.widgets", "encodings.shift_jis")
+    unused = (
+        "ssl",
+        "http.client",
+        "urllib.request",
+        "reportlab.graphics.barcode.widgets",
+        "encodings.shift_jis",
+    )
     report = f"sorted(m for m in sys.modules if m in {unused!r})"
     out = run_fresh(["build", "jobs/boathouse-door-header.toml", "-o", str(tmp_path) + "/"], report)
     assert out == "0 []", out
