@@ -34,9 +34,16 @@ __all__ = ["cell", "LineCell", "OnceParagraph", "runs_of"]
 
 _TOKEN = re.compile(r"<(/?)([a-z]+)((?:\s+[a-z]+=\"[^\"<>]*\")*)\s*>|([^<]+)")
 _ATTR = re.compile(r'([a-z]+)="([^"]*)"')
-_SPACE = re.compile(r"\s+")
-#: escapes that ``styles.esc`` writes (html.escape) and that unescape exactly
-_ENTITY = re.compile(r"&(?:amp|lt|gt|quot|#x27|#39);")
+#: the white space a paragraph splits words on (reportlab's list: every Unicode space but the
+#: no-break space U+00A0, which stays inside its word — ``\s`` would collapse it)
+_WHITE = (
+    "\u0009\u000a\u000b\u000c\u000d\u001c\u001d\u001e\u001f\u0020\u0085\u1680\u2000\u2001\u2002\u2003"
+    "\u2004\u2005\u2006\u2007\u2008\u2009\u200a\u200b\u2028\u2029\u202f\u205f\u3000"
+)
+_SPACE = re.compile(f"[{re.escape(_WHITE)}]+")
+#: escapes that ``styles.esc`` writes (html.escape) and the no-break spaces the derivation rows
+#: put between label, symbol and numbers; each unescapes exactly
+_ENTITY = re.compile(r"&(?:amp|lt|gt|quot|#x27|#39|nbsp);")
 
 Run = tuple[str, str, Color]  # text, font name, colour
 
