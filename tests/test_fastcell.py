@@ -177,3 +177,17 @@ def test_table_rows_split_across_pages_keep_every_cell():
     text = _text(_doc(rows, [80, 400]))
     for i in range(150):
         assert f"row {i}\n" in text + "\n"
+
+
+def test_repeated_markup_is_parsed_once_and_lays_out_as_a_fresh_paragraph(monkeypatch):
+    from reportlab.platypus import paraparser
+
+    text = esc("mechanics of materials (q = V·Q/I; spacing s = n·F/q), repeated for every step " * 2)
+    style = ParagraphStyle("repeat", parent=ST.caption)
+    parses = []
+    real = paraparser.ParaParser.parse
+    monkeypatch.setattr(paraparser.ParaParser, "parse", lambda self, *a: parses.append(1) or real(self, *a))
+    cells = [[OnceParagraph(text, style)] for _ in range(6)]
+    assert len(parses) == 1
+    fresh = [[Paragraph(text, style)] for _ in range(6)]
+    assert _doc(cells, [140]) == _doc(fresh, [140])  # the same bytes as paragraphs parsed one by one

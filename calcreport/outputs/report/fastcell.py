@@ -158,12 +158,41 @@ def _plain_style(style: ParagraphStyle) -> bool:
     )
 
 
+#: parsed markup by (markup, style): (style, parsed style, text, fragments, bullet text)
+_PARSED: dict[tuple[str, int], tuple[ParagraphStyle, ParagraphStyle, str, list, object]] = {}
+_PARSED_MAX = 8192
+
+
 class OnceParagraph(Paragraph):
-    """A paragraph that breaks its lines once per width: a table wraps each cell for its row
-    heights, again when it splits across pages and again to draw it; the second and third time
-    the same width gives the same lines (``availHeight`` plays no part in a paragraph's wrap)."""
+    """A paragraph that parses its markup once per text and style and breaks its lines once per
+    width.
+
+    A table wraps each cell for its row heights, again when it splits across pages and again to
+    draw it; the second and third time the same width gives the same lines (``availHeight`` plays
+    no part in a paragraph's wrap). And the report repeats the same text in the same style many
+    times (the source of a kind of step, a caption, a column heading): the parser's fragments
+    of the first are handed to the next (``Paragraph``'s own ``frags`` argument; a paragraph
+    never changes the fragments it is given — line breaking and splitting work on clones), so
+    the HTML parser runs once per distinct text. The cache holds its styles, so a key's style
+    id cannot be reused while cached; it is emptied when full."""
 
     _wrapped: tuple[float, tuple[float, float], object] | None = None
+
+    def __init__(self, text, style=None, bulletText=None, frags=None, **kw):  # noqa: N803
+        if frags is not None or bulletText is not None or kw or style is None or not isinstance(text, str):
+            super().__init__(text, style, bulletText, frags, **kw)  # split parts, anything unusual
+            return
+        key = (text, id(style))
+        hit = _PARSED.get(key)
+        if hit is not None and hit[0] is style:
+            self.caseSensitive, self.encoding = 1, "utf8"
+            _, parsed, clean, frags, bullet = hit
+            self._setup(clean, parsed, bullet, list(frags), None)
+            return
+        super().__init__(text, style)
+        if len(_PARSED) >= _PARSED_MAX:
+            _PARSED.clear()
+        _PARSED[key] = (style, self.style, self.text, list(self.frags), self.bulletText)
 
     def wrap(self, availWidth: float, availHeight: float) -> tuple[float, float]:  # noqa: N803
         done = self._wrapped
