@@ -191,3 +191,39 @@ def test_repeated_markup_is_parsed_once_and_lays_out_as_a_fresh_paragraph(monkey
     assert len(parses) == 1
     fresh = [[Paragraph(text, style)] for _ in range(6)]
     assert _doc(cells, [140]) == _doc(fresh, [140])  # the same bytes as paragraphs parsed one by one
+
+
+LONG = [
+    esc("mechanics of materials (q = V·Q/I; spacing s = n·F/q) for the joint of the top flange"),
+    esc("ASCE 7-22 §2.4.1 (basic combinations, allowable stress design), with variable loads placed"),
+    esc("common practice, no source (spacing rounded down to the increment)"),
+    esc("Träger 梁 über Stütze, a line long enough to wrap in every column it is given here"),
+]
+
+
+@pytest.mark.parametrize("width", [70, 110, 160])
+@pytest.mark.parametrize("align", [None, TA_CENTER, TA_RIGHT])
+def test_text_of_one_run_wraps_on_the_lines_a_paragraph_breaks(width, align):
+    style = ST.caption if align is None else ParagraphStyle("a", parent=ST.caption, alignment=align)
+    fast = [[cell(m, style)] for m in LONG]
+    for c in fast:
+        c[0].wrap(width - 12, 1000)  # the table's padding: 6 each side
+    assert any(isinstance(c[0], LineCell) and c[0]._lines for c in fast)  # drawn as lines of our own
+    slow = [[Paragraph(m, style)] for m in LONG]
+    a, b = _doc(fast, [width]), _doc(slow, [width])
+    assert _text(a) == _text(b)
+    ga, gb = _glyphs(a), _glyphs(b)
+    first = lambda g: sorted({y: x for _, x, y in reversed(g)}.items())  # noqa: E731
+    fa, fb = first(ga), first(gb)
+    assert len(fa) == len(fb)
+    for (ya, xa), (yb, xb) in zip(fa, fb):
+        assert ya == pytest.approx(yb, abs=0.02) and xa == pytest.approx(xb, abs=0.05)
+    for m in LONG:  # the same height in the table as the paragraph
+        assert cell(m, style).wrap(width - 12, 1000) == Paragraph(m, style).wrap(width - 12, 1000)
+
+
+def test_a_word_wider_than_its_line_is_split_by_the_paragraph():
+    word = esc("x" * 80)
+    c = cell(word, ST.caption)
+    assert c.wrap(60, 1000) == Paragraph(word, ST.caption).wrap(60, 1000)
+    assert c._lines is None and not c._fits  # the paragraph splits the long word
