@@ -1,7 +1,8 @@
 """Report rendering speed (issue 15 item 8), every figure printed side by side in one run:
 
 1. cold ``calcreport build`` of the largest demo job against the import floor, on the same footing
-   (pint's registry from its cache, one BLAS thread, bytecode compiled by a warm-up run), pair by
+   (pint's registry from its cache, one BLAS thread, bytecode written by a warm-up run and read by
+   the timed ones: benchmarks/footing.py), pair by
    pair — target ≤ 1.5 ×;
 2. a generated job of 200 members with loads along the member (span, supports, uniform and point
    loads: beam analysis, envelopes, plots and zoned schedules in every member) solved and rendered
