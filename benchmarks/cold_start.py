@@ -4,7 +4,8 @@ The floor is what any tool on this stack pays before doing anything: starting Py
 numpy, pint and reportlab, and building a pint UnitRegistry. It is measured on the same footing as
 the tool: pint's registry from its cache (``cache_folder=":auto:"``, as calcreport/units.py
 builds it), one BLAS thread (calcreport sets ``OPENBLAS_NUM_THREADS=1`` itself; the floor gets it
-in its environment) and bytecode compiled (a warm-up run of every command first). Ratios are taken
+in its environment) and bytecode compiled and read back (a warm-up run of every command first,
+with a bytecode cache of the run: benchmarks/footing.py). Ratios are taken
 pair by pair — floor, check, floor, build in each round — and min and median are printed over the
 rounds. The development machine is shared: compare the min. Target: build ≤ 1.5 × floor (issue 7).
 
@@ -20,6 +21,8 @@ import sys
 import tempfile
 import time
 from pathlib import Path
+
+from footing import footing_env  # the cold processes' footing (benchmarks/ is on sys.path)
 
 ROOT = Path(__file__).resolve().parent.parent
 JOB = ROOT / "jobs" / "pavilion-ridge-box-beam.toml"
@@ -41,8 +44,7 @@ CPU: list[float] = []
 
 
 def main(rounds: int = 7) -> None:
-    env = dict(os.environ, PYTHONPATH=str(ROOT) + os.pathsep + os.environ.get("PYTHONPATH", ""))
-    env["OPENBLAS_NUM_THREADS"] = env["OMP_NUM_THREADS"] = env["MKL_NUM_THREADS"] = "1"
+    env = footing_env(ROOT)  # one BLAS thread, bytecode compiled and read (benchmarks/footing.py)
     with tempfile.TemporaryDirectory() as out:
         build = [sys.executable, "-m", "calcreport", "build", str(JOB), "-o", out + "/"]
         check = [sys.executable, "-m", "calcreport", "check", str(JOB)]

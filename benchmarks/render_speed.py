@@ -1,7 +1,8 @@
 """Report rendering speed (issue 15 item 8), every figure printed side by side in one run:
 
 1. cold ``calcreport build`` of the largest demo job against the import floor, on the same footing
-   (pint's registry from its cache, one BLAS thread, bytecode compiled by a warm-up run), pair by
+   (pint's registry from its cache, one BLAS thread, bytecode written by a warm-up run and read by
+   the timed ones: benchmarks/footing.py), pair by
    pair — target ≤ 1.5 ×;
 2. a generated job of 200 members with loads along the member (span, supports, uniform and point
    loads: beam analysis, envelopes, plots and zoned schedules in every member) solved and rendered
@@ -22,7 +23,6 @@ from __future__ import annotations
 
 import argparse
 import io
-import os
 import statistics
 import subprocess
 import sys
@@ -30,6 +30,7 @@ import tempfile
 import time
 from pathlib import Path
 
+from footing import footing_env  # the cold processes' footing (benchmarks/ is on sys.path)
 from report_pages import PARTS  # the same stringer parts and joint (benchmarks/ is on sys.path)
 
 ROOT = Path(__file__).resolve().parent.parent
@@ -103,9 +104,7 @@ def job_text(members: int) -> str:
 
 
 def _env(src: Path) -> dict:
-    env = dict(os.environ, PYTHONPATH=str(src) + os.pathsep + os.environ.get("PYTHONPATH", ""))
-    env["OPENBLAS_NUM_THREADS"] = env["OMP_NUM_THREADS"] = env["MKL_NUM_THREADS"] = "1"
-    return env
+    return footing_env(src)  # one BLAS thread, bytecode compiled and read (benchmarks/footing.py)
 
 
 def _wall(cmd: list[str], env: dict) -> float:

@@ -29,6 +29,8 @@ import tempfile
 import time
 from pathlib import Path
 
+from footing import footing_env  # the cold processes' footing (benchmarks/ is on sys.path)
+
 ROOT = Path(__file__).resolve().parent.parent
 sys.path.insert(0, str(ROOT))
 FLOOR = "import numpy, pint, reportlab; pint.UnitRegistry(cache_folder=':auto:')"
@@ -239,8 +241,7 @@ def per_joint_ms(repeats: int = 15, point: bool = True) -> tuple[float, float]:
 
 
 def main(rounds: int = 7) -> None:
-    env = dict(os.environ, PYTHONPATH=str(ROOT) + os.pathsep + os.environ.get("PYTHONPATH", ""))
-    env["OPENBLAS_NUM_THREADS"] = env["OMP_NUM_THREADS"] = env["MKL_NUM_THREADS"] = "1"
+    env = footing_env(ROOT)  # one BLAS thread, bytecode compiled and read (benchmarks/footing.py)
     py = sys.executable
     with tempfile.TemporaryDirectory() as tmp:
         worst = Path(tmp) / "worst-grid.toml"

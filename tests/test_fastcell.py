@@ -37,6 +37,9 @@ SAMPLES = [
     esc("Träger 梁 über Stütze"),
     '<font color="#1d6b35"><b>OK</b></font>',
     esc("12'-0\" — n·(I₀ + A·d²)"),
+    # a derivation row: label, symbol and numbers held apart by no-break spaces
+    f"<b>{esc('Shear flow')}</b>&nbsp;&nbsp; {esc('q = V·Q / I')}&nbsp;&nbsp; = <b>{esc('80.85 lbf/in')}</b>",
+    esc("x\u00a0\u00a0 y"),  # no-break spaces are not collapsed
 ]
 
 
@@ -105,6 +108,9 @@ def test_whitespace_collapses_as_in_a_paragraph():
     assert runs is not None and "".join(t for t, _, _ in runs) == "a b"
     assert runs_of("<b>x</b>  <b> y</b>", ST.cell) is not None
     assert "".join(t for t, _, _ in runs_of("<b>x</b>  <b> y</b>", ST.cell)) == "x y"
+    # reportlab splits words on its own list of spaces, which leaves out the no-break space
+    nb = runs_of("a&nbsp;&nbsp;  b\u2009\u2009c", ST.cell)
+    assert nb is not None and "".join(t for t, _, _ in nb) == "a\u00a0\u00a0 b c"
 
 
 @pytest.mark.parametrize(
@@ -113,7 +119,7 @@ def test_whitespace_collapses_as_in_a_paragraph():
         "x<super>2</super>",  # tags the fast path does not draw
         "<i>italic</i>",
         "a<br/>b",
-        "a &nbsp; b",  # an entity that is not one of esc()'s escapes
+        "a &copy; b",  # an entity that is not one of esc()'s escapes (nor &nbsp;)
         '<font size="12">big</font>',
         "",
     ],
@@ -171,3 +177,53 @@ def test_table_rows_split_across_pages_keep_every_cell():
     text = _text(_doc(rows, [80, 400]))
     for i in range(150):
         assert f"row {i}\n" in text + "\n"
+
+
+def test_repeated_markup_is_parsed_once_and_lays_out_as_a_fresh_paragraph(monkeypatch):
+    from reportlab.platypus import paraparser
+
+    text = esc("mechanics of materials (q = V·Q/I; spacing s = n·F/q), repeated for every step " * 2)
+    style = ParagraphStyle("repeat", parent=ST.caption)
+    parses = []
+    real = paraparser.ParaParser.parse
+    monkeypatch.setattr(paraparser.ParaParser, "parse", lambda self, *a: parses.append(1) or real(self, *a))
+    cells = [[OnceParagraph(text, style)] for _ in range(6)]
+    assert len(parses) == 1
+    fresh = [[Paragraph(text, style)] for _ in range(6)]
+    assert _doc(cells, [140]) == _doc(fresh, [140])  # the same bytes as paragraphs parsed one by one
+
+
+LONG = [
+    esc("mechanics of materials (q = V·Q/I; spacing s = n·F/q) for the joint of the top flange"),
+    esc("ASCE 7-22 §2.4.1 (basic combinations, allowable stress design), with variable loads placed"),
+    esc("common practice, no source (spacing rounded down to the increment)"),
+    esc("Träger 梁 über Stütze, a line long enough to wrap in every column it is given here"),
+]
+
+
+@pytest.mark.parametrize("width", [70, 110, 160])
+@pytest.mark.parametrize("align", [None, TA_CENTER, TA_RIGHT])
+def test_text_of_one_run_wraps_on_the_lines_a_paragraph_breaks(width, align):
+    style = ST.caption if align is None else ParagraphStyle("a", parent=ST.caption, alignment=align)
+    fast = [[cell(m, style)] for m in LONG]
+    for c in fast:
+        c[0].wrap(width - 12, 1000)  # the table's padding: 6 each side
+    assert any(isinstance(c[0], LineCell) and c[0]._lines for c in fast)  # drawn as lines of our own
+    slow = [[Paragraph(m, style)] for m in LONG]
+    a, b = _doc(fast, [width]), _doc(slow, [width])
+    assert _text(a) == _text(b)
+    ga, gb = _glyphs(a), _glyphs(b)
+    first = lambda g: sorted({y: x for _, x, y in reversed(g)}.items())  # noqa: E731
+    fa, fb = first(ga), first(gb)
+    assert len(fa) == len(fb)
+    for (ya, xa), (yb, xb) in zip(fa, fb):
+        assert ya == pytest.approx(yb, abs=0.02) and xa == pytest.approx(xb, abs=0.05)
+    for m in LONG:  # the same height in the table as the paragraph
+        assert cell(m, style).wrap(width - 12, 1000) == Paragraph(m, style).wrap(width - 12, 1000)
+
+
+def test_a_word_wider_than_its_line_is_split_by_the_paragraph():
+    word = esc("x" * 80)
+    c = cell(word, ST.caption)
+    assert c.wrap(60, 1000) == Paragraph(word, ST.caption).wrap(60, 1000)
+    assert c._lines is None and not c._fits  # the paragraph splits the long word

@@ -49,3 +49,37 @@ def test_cli_limits_blas_threads_unless_the_environment_says_otherwise():
 def test_check_of_a_rectangular_section_does_not_import_shapely():
     # rectangles (plates, lumber, rolled shapes by their box) are handled directly (start-up time)
     assert run_fresh(["check", "jobs/boathouse-door-header.toml"], "'shapely' in sys.modules") == "0 False"
+
+
+def test_build_leaves_out_modules_a_report_never_uses(tmp_path):
+    # start-up time of `build` (issue 15 item 8; common practice, no source): no network stack
+    # (xml.sax.saxutils pulled in urllib.request and ssl), no barcode widgets besides the QR
+    # encoder, no Japanese codecs (reportlab's QR data modes try Shift-JIS first)
+    unused = (
+        "ssl",
+        "http.client",
+        "urllib.request",
+        "reportlab.graphics.barcode.widgets",
+        "encodings.shift_jis",
+    )
+    report = f"sorted(m for m in sys.modules if m in {unused!r})"
+    out = run_fresh(["build", "jobs/boathouse-door-header.toml", "-o", str(tmp_path) + "/"], report)
+    assert out == "0 []", out
+
+
+def test_patterns_compiled_on_first_use_match_as_compiled_ones():
+    # the URL pattern of reportlab's paragraph module is compiled on first use (rl_import): the
+    # same matches as the pattern compiled by re itself, and reportlab's own URL splitting works
+    import re
+
+    from reportlab.platypus import paragraph
+
+    from calcreport.outputs.report.rl_import import LazyPattern
+
+    pat = paragraph.uri_pat
+    source = pat._pattern if isinstance(pat, LazyPattern) else pat.pattern
+    compiled = re.compile(source, re.IGNORECASE)
+    for uri in ("https://example.org/a/b?c=1", "ftp://10.0.0.1:21/x", "not a link", "www.example.org/x"):
+        a, b = pat.match(uri), compiled.match(uri)
+        assert (a and a.groups()) == (b and b.groups())
+    assert paragraph._uri_split_pairs("https://example.org/a/b")[-1] == ("https://", "example.org/a/b")

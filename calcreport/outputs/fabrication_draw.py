@@ -1,6 +1,6 @@
 """Drawings of the fabrication sheet: the member's elevation with one joint's zones (rows drawn
 where they go, spacing and count per zone above, running dimensions from the left end below) and
-the QR code tying the shop copy to the calculation (reportlab's own barcode module).
+the QR code tying the shop copy to the calculation (reportlab's own QR encoder, :mod:`.qr_draw`).
 
 Reads the solver's callout record (``JointResult.callout``); places and prints, never computes.
 """
@@ -9,8 +9,6 @@ from __future__ import annotations
 
 from collections.abc import Callable
 
-from reportlab.graphics import renderPDF
-from reportlab.graphics.barcode.qr import QrCodeWidget
 from reportlab.graphics.shapes import Drawing, Group, Line, Polygon, Rect, String
 from reportlab.lib import colors
 from reportlab.pdfbase.pdfmetrics import stringWidth
@@ -19,6 +17,7 @@ from reportlab.platypus import Flowable
 from ..model import Member
 from ..solve.results import JointResult
 from ..units import Q_
+from .qr_draw import draw_qr
 
 __all__ = ["elevation", "ShopQR", "qr_payload", "QR_SIZE"]
 
@@ -202,11 +201,7 @@ class ShopQR(Flowable):
         text = qr_payload(self.number, self.revision, sheet, self.member, self.sha256)
         if self.payloads is not None:
             self.payloads[self.member] = text
-        w = QrCodeWidget(text, barLevel="M", barBorder=2)
-        x0, y0, x1, y1 = w.getBounds()
-        d = Drawing(QR_SIZE, QR_SIZE, transform=[QR_SIZE / (x1 - x0), 0, 0, QR_SIZE / (y1 - y0), 0, 0])
-        d.add(w)
-        renderPDF.draw(d, self.canv, self.width - QR_SIZE, self.height - QR_SIZE)
+        draw_qr(self.canv, text, self.width - QR_SIZE, self.height - QR_SIZE, QR_SIZE, border=2, level="M")
         lines = text.split("\n")
         sha = lines.pop()  # the hash on two lines of 32 characters
         lines += [sha[: len("job file SHA-256 ")].strip(), sha[17:49], sha[49:]]

@@ -34,9 +34,16 @@ __all__ = ["cell", "LineCell", "OnceParagraph", "runs_of"]
 
 _TOKEN = re.compile(r"<(/?)([a-z]+)((?:\s+[a-z]+=\"[^\"<>]*\")*)\s*>|([^<]+)")
 _ATTR = re.compile(r'([a-z]+)="([^"]*)"')
-_SPACE = re.compile(r"\s+")
-#: escapes that ``styles.esc`` writes (html.escape) and that unescape exactly
-_ENTITY = re.compile(r"&(?:amp|lt|gt|quot|#x27|#39);")
+#: the white space a paragraph splits words on (reportlab's list: every Unicode space but the
+#: no-break space U+00A0, which stays inside its word — ``\s`` would collapse it)
+_WHITE = (
+    "\u0009\u000a\u000b\u000c\u000d\u001c\u001d\u001e\u001f\u0020\u0085\u1680\u2000\u2001\u2002\u2003"
+    "\u2004\u2005\u2006\u2007\u2008\u2009\u200a\u200b\u2028\u2029\u202f\u205f\u3000"
+)
+_SPACE = re.compile(f"[{re.escape(_WHITE)}]+")
+#: escapes that ``styles.esc`` writes (html.escape) and the no-break spaces the derivation rows
+#: put between label, symbol and numbers; each unescapes exactly
+_ENTITY = re.compile(r"&(?:amp|lt|gt|quot|#x27|#39|nbsp);")
 
 Run = tuple[str, str, Color]  # text, font name, colour
 
@@ -151,12 +158,41 @@ def _plain_style(style: ParagraphStyle) -> bool:
     )
 
 
+#: parsed markup by (markup, style): (style, parsed style, text, fragments, bullet text)
+_PARSED: dict[tuple[str, int], tuple[ParagraphStyle, ParagraphStyle, str, list, object]] = {}
+_PARSED_MAX = 8192
+
+
 class OnceParagraph(Paragraph):
-    """A paragraph that breaks its lines once per width: a table wraps each cell for its row
-    heights, again when it splits across pages and again to draw it; the second and third time
-    the same width gives the same lines (``availHeight`` plays no part in a paragraph's wrap)."""
+    """A paragraph that parses its markup once per text and style and breaks its lines once per
+    width.
+
+    A table wraps each cell for its row heights, again when it splits across pages and again to
+    draw it; the second and third time the same width gives the same lines (``availHeight`` plays
+    no part in a paragraph's wrap). And the report repeats the same text in the same style many
+    times (the source of a kind of step, a caption, a column heading): the parser's fragments
+    of the first are handed to the next (``Paragraph``'s own ``frags`` argument; a paragraph
+    never changes the fragments it is given — line breaking and splitting work on clones), so
+    the HTML parser runs once per distinct text. The cache holds its styles, so a key's style
+    id cannot be reused while cached; it is emptied when full."""
 
     _wrapped: tuple[float, tuple[float, float], object] | None = None
+
+    def __init__(self, text, style=None, bulletText=None, frags=None, **kw):  # noqa: N803
+        if frags is not None or bulletText is not None or kw or style is None or not isinstance(text, str):
+            super().__init__(text, style, bulletText, frags, **kw)  # split parts, anything unusual
+            return
+        key = (text, id(style))
+        hit = _PARSED.get(key)
+        if hit is not None and hit[0] is style:
+            self.caseSensitive, self.encoding = 1, "utf8"
+            _, parsed, clean, frags, bullet = hit
+            self._setup(clean, parsed, bullet, list(frags), None)
+            return
+        super().__init__(text, style)
+        if len(_PARSED) >= _PARSED_MAX:
+            _PARSED.clear()
+        _PARSED[key] = (style, self.style, self.text, list(self.frags), self.bulletText)
 
     def wrap(self, availWidth: float, availHeight: float) -> tuple[float, float]:  # noqa: N803
         done = self._wrapped
@@ -169,9 +205,55 @@ class OnceParagraph(Paragraph):
         return size
 
 
+def _breakable(style: ParagraphStyle) -> bool:
+    """A style whose lines break by the plain greedy rule of a paragraph of one fragment: no
+    hyphenation of any kind, no shaping, no justified lines."""
+    return (
+        style.alignment != TA_JUSTIFY
+        and not getattr(style, "hyphenationLang", "")
+        and not getattr(style, "uriWasteReduce", 0)
+        and not getattr(style, "embeddedHyphenation", 0)
+        and not getattr(style, "shaping", 0)
+    )
+
+
+def break_lines(text: str, font: str, size: float, width: float, shrink: float, split_long: bool):
+    """The lines of one run of text, as reportlab's paragraph breaks a single fragment: words
+    added greedily while the line, its spaces allowed to shrink by ``shrink`` × the space width
+    each, stays within ``width``; a word alone on its line even when wider. Returns
+    [(width − line width, words)], or ``None`` where the paragraph would do something else —
+    split a word wider than the line (``splitLongWords``), break at a soft hyphen, or squeeze a
+    line's spaces — so that a paragraph takes over."""
+    if "\u00ad" in text:
+        return None
+    space = stringWidth(" ", font, size)
+    d_shrink = shrink * space
+    lines: list[tuple[float, list[str]]] = []
+    line: list[str] = []
+    current = -space
+    for word in text.split(" "):
+        ww = stringWidth(word, font, size)
+        new = current + space + ww
+        limit = width + d_shrink * len(line)
+        if new > limit and split_long and ww > width:
+            return None
+        if new <= limit or not line:
+            line.append(word)
+            current = new
+        else:
+            lines.append((width - current, line))
+            line, current = [word], ww
+    if line:
+        lines.append((width - current, line))
+    if any(extra < -1e-8 and len(words) > 1 for extra, words in lines):
+        return None
+    return lines
+
+
 class LineCell(Flowable):
-    """One line of runs in one size, measured once; a paragraph takes over when the line does
-    not fit the width it is offered."""
+    """Runs of text in one size, measured once, drawn straight on the canvas: one line when they
+    fit the width offered; several lines when the text is one run (one font, one colour), broken
+    as a paragraph breaks it (:func:`break_lines`); a paragraph takes over otherwise."""
 
     def __init__(self, markup: str, style: ParagraphStyle, runs: tuple[Run, ...]):
         super().__init__()
@@ -183,6 +265,9 @@ class LineCell(Flowable):
         self._line_width = sum(stringWidth(t, f, self._size) for t, f, _ in runs)
         self._para: OnceParagraph | None = None
         self._fits = True
+        self._lines: list[tuple[float, list[str]]] | None = None  # several lines, else None
+        self._broken: tuple[float, list | None] | None = None  # (width, lines) last broken
+        self._multi = len(runs) == 1 and _breakable(style)
 
     # -- the paragraph it stands for -------------------------------------------------------
     def _paragraph(self) -> OnceParagraph:
@@ -203,20 +288,36 @@ class LineCell(Flowable):
         return self._paragraph().minWidth()
 
     # -- layout ----------------------------------------------------------------------------
+    def _broken_at(self, width: float) -> list | None:
+        if self._broken is None or self._broken[0] != width:
+            text, font, _ = self._runs[0]
+            shrink = getattr(self.style, "spaceShrinkage", 0) or 0
+            lines = break_lines(text, font, self._size, width, shrink, bool(self.style.splitLongWords))
+            self._broken = (width, lines)
+        return self._broken[1]
+
     def wrap(self, availWidth: float, availHeight: float) -> tuple[float, float]:  # noqa: N803
+        self._lines = None
         self._fits = self._line_width <= availWidth
+        if not self._fits and self._multi and availWidth >= 1e-6:
+            self._lines = self._broken_at(availWidth)
+            self._fits = self._lines is not None
         if not self._fits:
             return self._paragraph().wrap(availWidth, availHeight)
-        self.width, self.height = availWidth, self._leading
+        self.width = availWidth
+        self.height = self._leading * (len(self._lines) if self._lines is not None else 1)
         return self.width, self.height
 
     def split(self, availWidth: float, availHeight: float) -> list:  # noqa: N803
-        if self._line_width > availWidth:
-            return self._paragraph().split(availWidth, availHeight)
-        return [] if availHeight < self._leading else [self]
+        if self._line_width <= availWidth:
+            return [] if availHeight < self._leading else [self]
+        lines = self._broken_at(availWidth) if self._multi else None
+        if lines is not None and len(lines) * self._leading <= availHeight:
+            return [self]
+        return self._paragraph().split(availWidth, availHeight)
 
     def drawOn(self, canvas, x: float, y: float, _sW: float = 0) -> None:  # noqa: N802, N803
-        """Draw at (x, y): the paragraph when the line did not fit, else the runs straight on the
+        """Draw at (x, y): the paragraph when the text did not fit, else the runs straight on the
         canvas at their absolute position (one saved graphics state, no translation)."""
         if not self._fits:
             self._paragraph().drawOn(canvas, x, y, _sW)
@@ -224,15 +325,43 @@ class LineCell(Flowable):
         x = self._hAlignAdjust(x, _sW)
         self.canv = canvas
         try:
-            self._draw_at(x, y)
+            if self._lines is not None:
+                self._draw_lines(x, y)
+            else:
+                self._draw_at(x, y)
         finally:
             del self.canv
 
     def draw(self) -> None:
-        self._draw_at(0.0, 0.0)
+        if self._lines is not None:
+            self._draw_lines(0.0, 0.0)
+        else:
+            self._draw_at(0.0, 0.0)
 
     def _ascent(self) -> float:
         return getAscentDescent(self._runs[0][1], self._size)[0]
+
+    def _draw_lines(self, x0: float, y0: float) -> None:
+        """The lines of one run as a paragraph sets them: one text object, the first baseline
+        ``fontSize`` below the top, each line started by its alignment and ended by T*."""
+        assert self._lines is not None
+        c = self.canv
+        align = _ALIGN[self.style.alignment]
+        text, font, colour = self._runs[0]
+        offset = self._size if rl_config.paraFontSizeHeightOffset else self._ascent()
+        c.saveState()
+        t = c.beginText(x0, y0 + self.height - offset)
+        t.setFont(font, self._size, self._leading)
+        t.setFillColor(colour)
+        for extra, words in self._lines:
+            dx = 0.0 if align == 0 else extra * (0.5 if align == 1 else 1.0)
+            if dx:
+                t.setXPos(dx)
+            t.textLine(" ".join(words))
+            if dx:
+                t.setXPos(-dx)
+        c.drawText(t)
+        c.restoreState()
 
     def _draw_at(self, x0: float, y0: float) -> None:
         c = self.canv
