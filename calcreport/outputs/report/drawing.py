@@ -47,7 +47,7 @@ FAMILY_STYLE = {
 }
 NA_INK = colors.HexColor("#1f3a93")
 NICE = (1, 1.5, 2, 2.5, 3, 4, 5, 6, 8, 10, 12, 15, 16, 20, 24, 25, 30, 40, 48, 50, 60, 75, 80, 96, 100)
-MAX_H = 330.0
+MAX_H = 280.0
 LEFT, GAP_R, COL_W, BOTTOM, TOP = 96.0, 30.0, 176.0, 74.0, 16.0
 LINE = TEXT_SIZE + 1.6
 

@@ -1,0 +1,302 @@
+"""Tables of grouped steps (``Step.group``/``row``/``column``, set by the solver).
+
+Two layouts, chosen from the steps themselves:
+
+* **parallel-axis table** — the rows share their formulas column by column (the section's parts):
+  one row worked in full step by step, then the table of every row with the symbols once in the
+  header, the column totals (Σ) and the steps of the group without a column below;
+* **itemised table** — every row has its own formula (the yield modes, the adjustment factors,
+  the detailing limits): one row per item with its formula and numbers in a small line and each
+  column's result, a note or source column only where they differ from row to row (else stated
+  once under the table).
+
+Every number in either is one step's result or substituted formula, printed through ``Display``
+— nothing is computed here. Every step stays in the results JSON one by one.
+"""
+
+from __future__ import annotations
+
+from reportlab.lib.styles import ParagraphStyle
+from reportlab.pdfbase.pdfmetrics import stringWidth
+from reportlab.platypus import Spacer
+
+from ...steps import Step
+from .common import GOVERNS_TINT, Ctx, cited, grid, para
+from .fastcell import cell
+from .flow import KeepTail
+from .step_list import GOVERNS_TAG, TIGHT, steps_table
+from .styles import esc
+
+__all__ = ["group_table", "is_itemised", "ROW_WORDS"]
+
+#: what a row of a table is, by the table's group id (the first dotted segment)
+ROW_WORDS = {
+    "section": "part",
+    "zones": "zone",
+    "combinations": "combination",
+    "cases": "case",
+    "yield": "mode",
+    "factors": "factor",
+    "limits": "limit",
+}
+#: tables whose cells give the result only (their formulas are in the worked row and the header)
+_RESULT_ONLY = frozenset({"section"})
+
+
+def _lhs(symbol: str) -> str:
+    return symbol.split(" = ", 1)[0].strip() if " = " in symbol else symbol.strip()
+
+
+def _columns(rows: dict[str, list[Step]]) -> list[str]:
+    """Column ids in order: rows with fewer columns first, each new column before the next one
+    already placed (so a row's extra columns sit where that row computes them)."""
+    cols: list[str] = []
+    for seq in sorted(rows.values(), key=len):
+        names = [s.column for s in seq]
+        for k, c in enumerate(names):
+            if c in cols:
+                continue
+            after = next((cols.index(x) for x in names[k + 1 :] if x in cols), len(cols))
+            cols.insert(after, c)
+    return cols
+
+
+def _split(steps: list[Step]) -> tuple[dict[str, list[Step]], dict[str, Step], list[Step]]:
+    rows: dict[str, list[Step]] = {}
+    totals: dict[str, Step] = {}
+    stated: list[Step] = []
+    for s in steps:
+        if s.column and s.row:
+            rows.setdefault(s.row, []).append(s)
+        elif s.column:
+            totals[s.column] = s
+        else:
+            stated.append(s)
+    return rows, totals, stated
+
+
+def is_itemised(rows: dict[str, list[Step]]) -> bool:
+    """True when two or more rows each use a formula of their own in every column (no two rows
+    share a symbol in a column): the table lists items, it does not repeat one formula."""
+    if len(rows) < 2:
+        return False
+    seen: set[tuple[str, str]] = set()
+    for seq in rows.values():
+        for s in seq:
+            if (s.column, s.symbol) in seen:
+                return False
+            seen.add((s.column, s.symbol))
+    return True
+
+
+def _styles(ctx: Ctx) -> tuple[ParagraphStyle, ParagraphStyle, ParagraphStyle]:
+    st = ctx.styles
+    small = ParagraphStyle(
+        "tcell", parent=st.cell, fontSize=st.cell.fontSize - 0.5, leading=st.cell.leading - 0.6
+    )
+    right = ParagraphStyle("tcellr", parent=small, alignment=2)
+    head_r = ParagraphStyle("theadr", parent=st.cell_bold, fontSize=small.fontSize, alignment=2)
+    return small, right, head_r
+
+
+def _formula_text(s: Step, ctx: Ctx) -> str:
+    """``symbol = numbers`` (the symbol alone when the numbers are the result)."""
+    d = ctx.display
+    sub, res = d.substituted(s), d.result(s)
+    return s.symbol if sub.strip() == res else f"{s.symbol} = {sub}"
+
+
+def _title(rows: dict[str, list[Step]], word: str) -> str:
+    """The rows' shared label with the row id taken out ("Yield mode (single shear)"), else the
+    row word."""
+    titles = set()
+    for rid, seq in rows.items():
+        label = seq[-1].label
+        titles.add(" ".join(t for t in label.split() if t != rid))
+    return titles.pop() if len(titles) == 1 else word.capitalize()
+
+
+def _itemised(steps: list[Step], ctx: Ctx, prefix: str, index: dict[str, int]) -> list:
+    st, d, w = ctx.styles, ctx.display, ctx.width
+    rows, totals, stated = _split(steps)
+    group = steps[0].group
+    word = ROW_WORDS.get(group.split(".", 1)[0], "item")
+    small, right, head_r = _styles(ctx)
+    cols = _columns(rows)
+    single = all(len(seq) == 1 for seq in rows.values())
+    tabled = [s for seq in rows.values() for s in seq]
+    notes = {s.note for s in tabled if s.note}
+    sources = {s.source for s in tabled}
+    note_col, source_col = len(notes) > 1, len(sources) > 1
+    heads: dict[str, list[str]] = {c: [] for c in cols}
+    for s in tabled:
+        if _lhs(s.symbol) not in heads[s.column]:
+            heads[s.column].append(_lhs(s.symbol))
+    font, size = small.fontName, small.fontSize
+
+    def natural(texts: list[str], bold: bool = False) -> float:
+        f, k = (st.cell_bold.fontName, st.cell_bold.fontSize) if bold else (font, size)
+        return max((stringWidth(t, f, k) for t in texts), default=0.0) + 9.0
+
+    items = {rid: (seq[0].label if single else rid) for rid, seq in rows.items()}
+    formulas = {rid: [_formula_text(s, ctx) for s in seq] for rid, seq in rows.items()}
+    first = word.capitalize()
+    col_heads = {c: " / ".join(heads[c]) if len(heads[c]) <= 3 else c.capitalize() for c in cols}
+    w_no = 0.075 * w
+    w_vals = [
+        max(natural([col_heads[c]], bold=True), natural([d.result(s) for s in tabled if s.column == c], True))
+        for c in cols
+    ]
+    w_src = (
+        min(
+            max(stringWidth(cited(x), st.caption.fontName, st.caption.fontSize) for x in sources) + 9,
+            0.24 * w,
+        )
+        if source_col
+        else 0.0
+    )
+    w_item = max(
+        natural([first], bold=True),
+        min(natural(list(items.values()), bold=True), (0.28 if single else 0.12) * w),
+    )
+    rest = w - w_no - w_item - sum(w_vals) - w_src
+    w_formula = min(
+        max(natural([t for ts in formulas.values() for t in ts]), natural(["Formula"], bold=True)),
+        rest * (0.55 if note_col else 1.0),
+    )
+    w_note = rest - w_formula if note_col else 0.0
+    if not note_col:
+        w_formula = rest
+    header = [para("No.", st.cell_bold), para(first, st.cell_bold), para("Formula", st.cell_bold)]
+    header += [para(col_heads[c], head_r) for c in cols]
+    header += [para("Note", st.cell_bold)] if note_col else []
+    header += [para("Source", st.cell_bold)] if source_col else []
+    data: list[list] = [header]
+    extra: list[tuple] = [*TIGHT]
+    for rid, seq in rows.items():
+        r = len(data)
+        by = {s.column: s for s in seq}
+        gov = any(s.governs for s in seq)
+        marks = [m for s in seq for m in ctx.mark(s.key)][:1]
+        line: list = [marks + [cell("<br/>".join(f"{prefix}{index[s.key]}" for s in seq), small)]]
+        line.append(cell(f"<b>{esc(items[rid])}</b>", small))
+        line.append(cell("<br/>".join(esc(t) for t in formulas[rid]) + (GOVERNS_TAG if gov else ""), small))
+        for c in cols:
+            cs = by.get(c)
+            line.append(para("—", right) if cs is None else cell(f"<b>{esc(d.result(cs))}</b>", right))
+        if note_col:
+            line.append(para("; ".join(cited(s.note) for s in seq if s.note) or "—", st.caption))
+        if source_col:
+            line.append(para("; ".join(dict.fromkeys(cited(s.source) for s in seq)), st.caption))
+        data.append(line)
+        if gov:
+            extra.append(("BACKGROUND", (0, r), (-1, r), GOVERNS_TINT))
+            extra.append(("LINEBEFORE", (0, r), (0, r), 2.0, st.accent))
+    widths = [w_no, w_item, w_formula, *w_vals] + ([w_note] if note_col else [])
+    widths += [w_src] if source_col else []
+    lo, hi = min(index[s.key] for s in tabled), max(index[s.key] for s in tabled)
+    title = _title(rows, word)
+    said = [
+        (f"{title}: steps" if title != word.capitalize() else "Steps")
+        + f" {prefix}{lo}–{prefix}{hi}, one {word} a row, each value one step's result"
+    ]
+    if len(notes) == 1:
+        said.append(cited(next(iter(notes))))
+    if not source_col:
+        said.append(f"source: {cited(next(iter(sources))) or '—'}")
+    caption = para("; ".join(said) + ".", st.caption)
+    table = grid(data, widths, st, extra=extra, zebra=False, frame_height=ctx.frame_height)
+    out: list = [KeepTail(table, [caption])]
+    if totals:  # an itemised table has no sums row: its totals are stated in full
+        stated = list(totals.values()) + stated
+    return out + steps_table(stated, ctx, prefix, [index[s.key] for s in stated], header=False)
+
+
+def _parallel(steps: list[Step], ctx: Ctx, prefix: str, index: dict[str, int], headed: bool) -> list:
+    """The parallel-axis layout (module docstring)."""
+    st, d, w = ctx.styles, ctx.display, ctx.width
+    group = steps[0].group
+    word = ROW_WORDS.get(group.split(".", 1)[0], "item")
+    rows, totals, stated = _split(steps)
+    out: list = []
+    cols = _columns(rows)
+    worked_id = next(iter(rows))
+    worked = rows[worked_id]
+    seen = {(s.column, s.symbol, s.note) for s in worked}
+    differ = []
+    for rid, seq in rows.items():
+        for s in seq:
+            if rid != worked_id and (s.column, s.symbol, s.note) not in seen:
+                differ.append(s)
+                seen.add((s.column, s.symbol, s.note))
+    out.append(
+        para(
+            f"Worked in full for {word} {worked_id}; the table below gives every {word}, each value the "
+            f"result of the step of that formula for that {word}.",
+            st.small,
+        )
+    )
+    out += steps_table(worked, ctx, prefix, [index[s.key] for s in worked], header=not headed)
+    if differ:
+        out += [Spacer(1, 3), para(f"Where a {word} uses another formula, that step in full:", st.small)]
+        out += steps_table(differ, ctx, prefix, [index[s.key] for s in differ], header=False)
+    heads: dict[str, list[str]] = {c: [] for c in cols}
+    for seq in rows.values():
+        for s in seq:
+            if _lhs(s.symbol) not in heads[s.column]:
+                heads[s.column].append(_lhs(s.symbol))
+    tstyle, cell_r, head_r = _styles(ctx)
+    head_style = head_r if group in _RESULT_ONLY else st.cell_bold
+    data: list[list] = [
+        [para(word.capitalize(), st.cell_bold)] + [para(" / ".join(heads[c]), head_style) for c in cols]
+    ]
+    extra: list[tuple] = []
+    for rid, seq in rows.items():
+        by = {s.column: s for s in seq}
+        marks = [m for s in seq for m in ctx.mark(s.key)][:1]
+        line: list = [marks + [para(rid, tstyle)]]
+        for k, c in enumerate(cols, 1):
+            cs = by.get(c)
+            if cs is None:
+                line.append(para("—", cell_r))
+            else:
+                text, sub = esc(d.result(cs)), d.substituted(cs)
+                if group not in _RESULT_ONLY and sub.strip() != d.result(cs):  # how it was found
+                    text += f'<br/><font size="{tstyle.fontSize - 1}" color="#444444">{esc(sub)}</font>'
+                line.append(cell(text, cell_r if group in _RESULT_ONLY else tstyle))
+            if cs is not None and cs.governs:
+                extra.append(("BACKGROUND", (k, len(data)), (k, len(data)), GOVERNS_TINT))
+        data.append(line)
+    if totals:
+        line = [para("Σ", st.cell_bold)]
+        for c in cols:
+            ts = totals.get(c)
+            line.append(cell(f"<b>{esc(d.result(ts))}</b>", cell_r) if ts is not None else "")
+        data.append(line)
+        extra.append(("LINEABOVE", (0, len(data) - 1), (-1, len(data) - 1), 0.7, st.accent))
+    first = 0.11 * w if group in _RESULT_ONLY else 0.22 * w
+    widths = [first] + [(w - first) / len(cols)] * len(cols)
+    lo, hi = min(index[s.key] for s in steps), max(index[s.key] for s in steps)
+    caption = para(
+        f"Steps {prefix}{lo}–{prefix}{hi}: each value is the result of one step, listed one by one in "
+        f"the results JSON with its table, {word} and column"
+        + ("; Σ: the totals, each its own step." if totals else "."),
+        st.caption,
+    )
+    table = grid(data, widths, st, extra=[*TIGHT, *extra], zebra=True, frame_height=ctx.frame_height)
+    out.append(KeepTail(table, [caption]))  # the caption stays with the table's last rows
+    out += steps_table(stated, ctx, prefix, [index[s.key] for s in stated], header=False)
+    return out
+
+
+def group_table(
+    steps: list[Step], ctx: Ctx, prefix: str, index: dict[str, int], headed: bool = False
+) -> list:
+    """The flowables of one table of grouped steps (its steps numbered by ``index``); ``headed``:
+    the step rows' column heads are already printed under this heading."""
+    rows, _, _ = _split(steps)
+    if not rows:  # nothing tabulated: every step in full
+        return steps_table(steps, ctx, prefix, [index[s.key] for s in steps], header=not headed)
+    if is_itemised(rows):
+        return _itemised(steps, ctx, prefix, index)
+    return _parallel(steps, ctx, prefix, index, headed)
