@@ -156,11 +156,11 @@ def _group_body(g: Group, ctx: Ctx, fold: Fold | None) -> list:
         marks = [m for s in hidden for m in ctx.mark(s.key)][:1]
         text = (
             f"Same connector and derivation as {esc(fold.base_title)} ({fold.base_number}), step for step"
-            f"{esc(subs)}: the {len(hidden)} steps not shown have the formulas, numbers and results of the "
-            f"steps of {fold.base_number} with the same last number."
+            f"{esc(subs)}: its {len(hidden)} other steps are those of {fold.base_number} with the same last "
+            "number (formulas, numbers and results)."
         )
         text += " The steps that differ:" if shown else " No step differs."
-        out: list = [*marks, Paragraph(text, st.body)]
+        out: list = [*marks, Paragraph(text, st.small)]
         return out + steps_table(shown, ctx, prefix, [index[s.key] for s in shown])
     out = []
     headed = False  # the column heads of the step rows are printed once per heading

@@ -291,9 +291,8 @@ def section_drawing(m: MemberResult, ctx: Ctx) -> tuple[Drawing, str]:
     _legend(dr, ctx, families, k, font, m)
     units = "millimetres" if system == "SI" else "inches"
     caption = (
-        f"Section of {m.id} to {scale_words(ratio, words)} when printed at 100 %. Dimensions in {units}; "
-        "parts are tinted by material family and labelled with width × depth; ȳ locates the neutral "
-        "axis from the bottom of the section; each joint is called out with its connector."
+        f"Section of {m.id}, {scale_words(ratio, words)} printed at 100 %; dimensions in {units}; parts "
+        "tinted by material, labelled width × depth; ȳ from the bottom; joints called out with their connector."
     )
     if any(p.shape.kind == "properties" for p in parts):
         caption += " Dashed outlines are parts given by their properties (only the bounding box is known)."

@@ -24,7 +24,8 @@ from ...steps import Step
 from .common import GOVERNS_TINT, Ctx, cited, grid, para
 from .fastcell import cell
 from .flow import KeepTail
-from .step_list import GOVERNS_TAG, TIGHT, steps_table
+from .step_cell import GAP, StepCell
+from .step_list import GOVERNS_TAG, TIGHT, dense_styles, steps_table
 from .styles import esc
 
 __all__ = ["group_table", "is_itemised", "ROW_WORDS"]
@@ -99,6 +100,10 @@ def _styles(ctx: Ctx) -> tuple[ParagraphStyle, ParagraphStyle, ParagraphStyle]:
     return small, right, head_r
 
 
+def _dense_small(ctx: Ctx) -> tuple[ParagraphStyle, ParagraphStyle]:
+    return dense_styles(ctx.styles.cell, ctx.styles.caption)
+
+
 def _formula_text(s: Step, ctx: Ctx) -> str:
     """``symbol = numbers`` (the symbol alone when the numbers are the result)."""
     d = ctx.display
@@ -114,6 +119,50 @@ def _title(rows: dict[str, list[Step]], word: str) -> str:
         label = seq[-1].label
         titles.add(" ".join(t for t in label.split() if t != rid))
     return titles.pop() if len(titles) == 1 else word.capitalize()
+
+
+def _last_text_width(seq: list[Step], style: ParagraphStyle, notes: bool, sources: bool) -> float:
+    """Width of a row's note and source written on one line (what the last column must hold)."""
+    text = "; ".join(cited(s.note) for s in seq if s.note) if notes else ""
+    src = "; ".join(dict.fromkeys(cited(s.source) for s in seq)) if sources else ""
+    return stringWidth(text, style.fontName, style.fontSize) + (
+        GAP + stringWidth(src, style.fontName, style.fontSize) if src else 0.0
+    )
+
+
+def _lines(width: float, room: float) -> int:
+    return max(1, -int(-(1.12 * width) // max(room - 6.0, 1.0)))  # ceil, padding off, words break early
+
+
+def _balance(
+    rows: list[tuple[float, list[float], float]], free: float, item_min: float, formula_min: float, last: bool
+) -> tuple[float, float]:
+    """Widths of the item and formula columns (the last column takes what is left) that make the
+    table shortest: rows are (item width, formula line widths, note-and-source width); the count
+    of lines each row needs is the most any of its cells needs. Layout only, no engineering."""
+    best: tuple[float, float, float] = (float("inf"), 0.0, 0.0)
+    steps = 14
+    for i in range(steps + 1):
+        w_item = item_min + (0.34 * free - item_min) * i / steps
+        for f in range(1, steps + 1):
+            w_formula = max(formula_min, (free - w_item - (36.0 if last else 0.0)) * f / steps)
+            w_last = free - w_item - w_formula
+            if last and w_last < 36.0:
+                continue
+            lines = sum(
+                max(
+                    _lines(item, w_item),
+                    sum(_lines(x, w_formula) for x in formula),
+                    _lines(note, w_last) if last else 1,
+                )
+                for item, formula, note in rows
+            )
+            key = (lines, -w_formula, w_item)
+            if key < best:
+                best = key
+    if best[0] == float("inf"):  # no room for a last column: the least widths
+        return item_min, formula_min
+    return best[2], -best[1]
 
 
 def _itemised(steps: list[Step], ctx: Ctx, prefix: str, index: dict[str, int]) -> list:
@@ -147,30 +196,34 @@ def _itemised(steps: list[Step], ctx: Ctx, prefix: str, index: dict[str, int]) -
         max(natural([col_heads[c]], bold=True), natural([d.result(s) for s in tabled if s.column == c], True))
         for c in cols
     ]
-    w_src = (
-        min(
-            max(stringWidth(cited(x), st.caption.fontName, st.caption.fontSize) for x in sources) + 9,
-            0.24 * w,
-        )
-        if source_col
-        else 0.0
-    )
-    w_item = max(
+    last_col = note_col or source_col  # notes, with each row's source flush right (StepCell)
+    _, note_style = _dense_small(ctx)
+    free = w - w_no - sum(w_vals)
+    w_item, w_formula = _balance(
+        [
+            (
+                stringWidth(items[rid], st.cell_bold.fontName, size),
+                [stringWidth(t, font, size) for t in formulas[rid]],
+                _last_text_width(seq, note_style, note_col, source_col) if last_col else 0.0,
+            )
+            for rid, seq in rows.items()
+        ],
+        free,
         natural([first], bold=True),
-        min(natural(list(items.values()), bold=True), (0.28 if single else 0.12) * w),
+        natural(["Formula"], bold=True),
+        last_col,
     )
-    rest = w - w_no - w_item - sum(w_vals) - w_src
-    w_formula = min(
-        max(natural([t for ts in formulas.values() for t in ts]), natural(["Formula"], bold=True)),
-        rest * (0.55 if note_col else 1.0),
-    )
-    w_note = rest - w_formula if note_col else 0.0
-    if not note_col:
-        w_formula = rest
+    w_last = free - w_item - w_formula
+    _, note_style = _dense_small(ctx)
+    head_src = ParagraphStyle("item_head_src", parent=st.cell_bold)
     header = [para("No.", st.cell_bold), para(first, st.cell_bold), para("Formula", st.cell_bold)]
     header += [para(col_heads[c], head_r) for c in cols]
-    header += [para("Note", st.cell_bold)] if note_col else []
-    header += [para("Source", st.cell_bold)] if source_col else []
+    if last_col:
+        header.append(
+            StepCell(
+                [para("Note", st.cell_bold)] if note_col else [], "Source" if source_col else "", head_src
+            )
+        )
     data: list[list] = [header]
     extra: list[tuple] = [*TIGHT]
     for rid, seq in rows.items():
@@ -184,21 +237,22 @@ def _itemised(steps: list[Step], ctx: Ctx, prefix: str, index: dict[str, int]) -
         for c in cols:
             cs = by.get(c)
             line.append(para("—", right) if cs is None else cell(f"<b>{esc(d.result(cs))}</b>", right))
-        if note_col:
-            line.append(para("; ".join(cited(s.note) for s in seq if s.note) or "—", st.caption))
-        if source_col:
-            line.append(para("; ".join(dict.fromkeys(cited(s.source) for s in seq)), st.caption))
+        if last_col:
+            note = "; ".join(cited(s.note) for s in seq if s.note) if note_col else ""
+            source = "; ".join(dict.fromkeys(cited(s.source) for s in seq)) if source_col else ""
+            line.append(StepCell([para(note or "—", note_style)] if note_col else [], source, note_style))
         data.append(line)
         if gov:
             extra.append(("BACKGROUND", (0, r), (-1, r), GOVERNS_TINT))
             extra.append(("LINEBEFORE", (0, r), (0, r), 2.0, st.accent))
-    widths = [w_no, w_item, w_formula, *w_vals] + ([w_note] if note_col else [])
-    widths += [w_src] if source_col else []
+    widths = [w_no, w_item, w_formula, *w_vals] + ([w_last] if last_col else [])
+    if not last_col:
+        widths[2] += w_last
     lo, hi = min(index[s.key] for s in tabled), max(index[s.key] for s in tabled)
     title = _title(rows, word)
     said = [
         (f"{title}: steps" if title != word.capitalize() else "Steps")
-        + f" {prefix}{lo}–{prefix}{hi}, one {word} a row, each value one step's result"
+        + f" {prefix}{lo}–{prefix}{hi}, each value a step's result"
     ]
     if len(notes) == 1:
         said.append(cited(next(iter(notes))))

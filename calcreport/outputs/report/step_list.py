@@ -1,22 +1,28 @@
 """The numbered list of steps: one row per step with its formula, numbers, result and source.
 
-A row is the step's label, symbol, the formula with the numbers substituted and the result on one
-line (wrapping when long), its note in a small line under it, and its source in a narrow column;
-steps that govern are tinted and carry ``[governs]``. Nothing here computes: every text is the
-step's own, written through ``Display``.
+A row is the step's number and one cell (:class:`.step_cell.StepCell`): the label, symbol, the
+formula with the numbers substituted and the result on one line (wrapping when long), its note in
+a small line under it, and its source flush right on the last line (or a line of its own); steps
+that govern are tinted and carry ``[governs]``. Nothing here computes: every text is the step's
+own, written through ``Display``.
 """
 
 from __future__ import annotations
 
+from functools import lru_cache
+
+from reportlab.lib.styles import ParagraphStyle
+
 from ...steps import Step
 from .common import GOVERNS_TINT, Ctx, cited, grid, para
 from .fastcell import cell
+from .step_cell import StepCell
 from .styles import esc
 
-__all__ = ["step_rows", "steps_table", "STEP_WIDTHS", "GOVERNS_TAG", "TIGHT"]
+__all__ = ["step_rows", "steps_table", "dense_styles", "STEP_WIDTHS", "GOVERNS_TAG", "TIGHT"]
 
-#: shares of the frame width: number, step, source
-STEP_WIDTHS = (0.065, 0.71, 0.225)
+#: shares of the frame width: number, step (with its source flush right)
+STEP_WIDTHS = (0.065, 0.935)
 GOVERNS_TAG = '  <font color="#7a5a00"><b>[governs]</b></font>'
 #: the padding of derivation rows (points): rows are dense, the rules between them keep them apart
 TIGHT = (
@@ -28,8 +34,18 @@ TIGHT = (
 
 
 #: a source this long (characters) that repeats the row above prints as :data:`DITTO`
-LONG_SOURCE = 34
+LONG_SOURCE = 60
 DITTO = "as above"
+
+
+@lru_cache(maxsize=8)
+def dense_styles(
+    cell_style: ParagraphStyle, caption: ParagraphStyle
+) -> tuple[ParagraphStyle, ParagraphStyle]:
+    """The step line and its small lines (note, source) at a tighter leading than other tables."""
+    line = ParagraphStyle("step", parent=cell_style, leading=cell_style.fontSize * 1.17)
+    small = ParagraphStyle("step_small", parent=caption, leading=caption.fontSize * 1.16)
+    return line, small
 
 
 def step_rows(
@@ -41,7 +57,11 @@ def step_rows(
     source equal to the row above's prints as "as above". ``header``: the column heads first.
     """
     st, d = ctx.styles, ctx.display
-    rows: list[list] = [["No.", "Step", "Source"]] if header else []
+    line_style, small = dense_styles(st.cell, st.caption)
+    bold_small = ParagraphStyle("step_head_src", parent=st.cell_bold, textColor=st.cell_bold.textColor)
+    rows: list[list] = (
+        [["No.", StepCell([para("Step", st.cell_bold)], "Source", bold_small)]] if header else []
+    )
     extra: list[tuple] = []
     above = ""
     for i, s in enumerate(steps, 1):
@@ -49,15 +69,17 @@ def step_rows(
         tag = GOVERNS_TAG if s.governs else ""
         sub, res = d.substituted(s), d.result(s)
         line = f"= <b>{esc(res)}</b>" if sub.strip() == res else f"= {esc(sub)}   = <b>{esc(res)}</b>"
-        body = [cell(f"<b>{esc(s.label)}</b>{tag}&nbsp;&nbsp; {esc(s.symbol)}&nbsp;&nbsp; {line}", st.cell)]
+        body = [
+            cell(f"<b>{esc(s.label)}</b>{tag}&nbsp;&nbsp; {esc(s.symbol)}&nbsp;&nbsp; {line}", line_style)
+        ]
         if s.note:
-            body.append(para(cited(s.note), st.caption))
+            body.append(para(cited(s.note), small))
         no = numbers[i - 1] if numbers is not None else i
-        num = ctx.mark(s.key) + [para(f"{number_prefix}{no}", st.cell)]
+        num = ctx.mark(s.key) + [para(f"{number_prefix}{no}", line_style)]
         source = cited(s.source) or "—"
         shown = DITTO if source == above and len(source) >= LONG_SOURCE else source
         above = source
-        rows.append([num, body, para(shown, st.caption)])
+        rows.append([num, StepCell(body, shown, small)])
         if s.governs:
             extra.append(("BACKGROUND", (0, r), (-1, r), GOVERNS_TINT))
             extra.append(("LINEBEFORE", (0, r), (0, r), 2.0, ctx.styles.accent))

@@ -24,7 +24,7 @@ from .shear_plane import across_check
 
 __all__ = ["row_spacing_perpendicular", "detailing"]
 
-NAIL_SRC = "common practice, no source (NDS-2018 asks for spacing that prevents splitting)"
+NAIL_SRC = "common practice, no source (NDS 2018: spacing that prevents splitting)"
 
 
 def row_spacing_perpendicular(l_over_d: float) -> float:
