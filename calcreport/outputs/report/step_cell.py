@@ -59,6 +59,7 @@ class StepCell(Flowable):
         room = [
             k for k in range(len(self.parts) - 1, -1, -1) if _last_width(self.parts[k], aw) + GAP + sw <= aw
         ]
+        mode: str | int | tuple[str, Paragraph]
         if not self.source:
             mode, extra = "none", 0.0
         elif room:  # on the last line of the last part that leaves room (the note, else the step)
