@@ -134,13 +134,18 @@ def _lines(width: float, room: float) -> int:
     return max(1, -int(-(1.12 * width) // max(room - 6.0, 1.0)))  # ceil, padding off, words break early
 
 
+def _fill(width: float, room: float) -> float:
+    """Lines a text needs, as a fraction (to tell two layouts of equal line counts apart)."""
+    return 1.12 * width / max(room - 6.0, 1.0)
+
+
 def _balance(
     rows: list[tuple[float, list[float], float]], free: float, item_min: float, formula_min: float, last: bool
 ) -> tuple[float, float]:
     """Widths of the item and formula columns (the last column takes what is left) that make the
     table shortest: rows are (item width, formula line widths, note-and-source width); the count
     of lines each row needs is the most any of its cells needs. Layout only, no engineering."""
-    best: tuple[float, float, float] = (float("inf"), 0.0, 0.0)
+    best: tuple[float, float, float, float] = (float("inf"), 0.0, 0.0, 0.0)
     steps = 14
     for i in range(steps + 1):
         w_item = item_min + (0.34 * free - item_min) * i / steps
@@ -149,20 +154,22 @@ def _balance(
             w_last = free - w_item - w_formula
             if last and w_last < 36.0:
                 continue
-            lines = sum(
-                max(
+            need = [
+                (
                     _lines(item, w_item),
                     sum(_lines(x, w_formula) for x in formula),
                     _lines(note, w_last) if last else 1,
+                    max(_fill(item, w_item), sum(_fill(x, w_formula) for x in formula), _fill(note, w_last)),
                 )
                 for item, formula, note in rows
-            )
-            key = (lines, -w_formula, w_item)
+            ]
+            lines = sum(max(a, b, c) for a, b, c, _ in need)
+            key = (lines, round(sum(x for *_, x in need), 1), -w_formula, w_item)
             if key < best:
                 best = key
     if best[0] == float("inf"):  # no room for a last column: the least widths
         return item_min, formula_min
-    return best[2], -best[1]
+    return best[3], -best[2]
 
 
 def _itemised(steps: list[Step], ctx: Ctx, prefix: str, index: dict[str, int]) -> list:

@@ -4,7 +4,7 @@ A step row is its label, formula, numbers and result (one line or a few), the no
 the source — the clause a checker looks for at the right edge. A separate source column wastes the
 width the formula needs and wraps a long clause over three or four lines; here the source sits at
 the right end of the row's last line when that line leaves room for it, else on a line of its own
-(flush right), else — a clause longer than most of the width — as a right-aligned small paragraph
+(flush right), else — a clause longer than the width — as a right-aligned small paragraph
 under the step. The texts are the step's own; nothing is computed.
 """
 
@@ -64,11 +64,11 @@ class StepCell(Flowable):
             mode, extra = "none", 0.0
         elif room:  # on the last line of the last part that leaves room (the note, else the step)
             mode, extra = room[0], 0.0
-        elif sw <= 0.8 * aw:
+        elif sw <= aw:
             mode, extra = "line", st.leading
         else:
             para = Paragraph(esc(self.source), ParagraphStyle("src_r", parent=st, alignment=TA_RIGHT))
-            extra = para.wrap(0.8 * aw, availHeight)[1]
+            extra = para.wrap(aw, availHeight)[1]
             mode = ("para", para)
         self._layout = (aw, heights, mode)
         self.width, self.height = aw, body + extra
@@ -86,7 +86,7 @@ class StepCell(Flowable):
         if mode == "none":
             return
         if isinstance(mode, tuple):
-            mode[1].drawOn(c, 0.2 * aw, 0)
+            mode[1].drawOn(c, 0, 0)
             return
         if isinstance(mode, int):  # the baseline of that part's last line
             ls = self.parts[mode].style
