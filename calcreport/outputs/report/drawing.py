@@ -291,7 +291,7 @@ def section_drawing(m: MemberResult, ctx: Ctx) -> tuple[Drawing, str]:
     _legend(dr, ctx, families, k, font, m)
     units = "millimetres" if system == "SI" else "inches"
     caption = (
-        f"Section of {m.id}, {scale_words(ratio, words)} printed at 100 %; dimensions in {units}; parts "
+        f"Section of {m.id} to {scale_words(ratio, words)} at 100 %. Dimensions in {units}; parts "
         "tinted by material, labelled width × depth; ȳ from the bottom; joints called out with their connector."
     )
     if any(p.shape.kind == "properties" for p in parts):

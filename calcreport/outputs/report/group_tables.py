@@ -111,14 +111,13 @@ def _formula_text(s: Step, ctx: Ctx) -> str:
     return s.symbol if sub.strip() == res else f"{s.symbol} = {sub}"
 
 
-def _title(rows: dict[str, list[Step]], word: str) -> str:
-    """The rows' shared label with the row id taken out ("Yield mode (single shear)"), else the
-    row word."""
+def _shared_title(rows: dict[str, list[Step]]) -> str:
+    """The rows' shared label with the row id taken out ("Yield mode (single shear)"), or ""."""
     titles = set()
     for rid, seq in rows.items():
         label = seq[-1].label
-        titles.add(" ".join(t for t in label.split() if t != rid))
-    return titles.pop() if len(titles) == 1 else word.capitalize()
+        titles.add(" ".join(t for t in label.split() if t.strip("()") != rid))
+    return titles.pop() if len(titles) == 1 else ""
 
 
 def _last_text_width(seq: list[Step], style: ParagraphStyle, notes: bool, sources: bool) -> float:
@@ -194,7 +193,8 @@ def _itemised(steps: list[Step], ctx: Ctx, prefix: str, index: dict[str, int]) -
         f, k = (st.cell_bold.fontName, st.cell_bold.fontSize) if bold else (font, size)
         return max((stringWidth(t, f, k) for t in texts), default=0.0) + 9.0
 
-    items = {rid: (seq[0].label if single else rid) for rid, seq in rows.items()}
+    shared = _shared_title(rows)
+    items = {rid: (seq[0].label if single and not shared else rid) for rid, seq in rows.items()}
     formulas = {rid: [_formula_text(s, ctx) for s in seq] for rid, seq in rows.items()}
     first = word.capitalize()
     col_heads = {c: " / ".join(heads[c]) if len(heads[c]) <= 3 else c.capitalize() for c in cols}
@@ -256,9 +256,8 @@ def _itemised(steps: list[Step], ctx: Ctx, prefix: str, index: dict[str, int]) -
     if not last_col:
         widths[2] += w_last
     lo, hi = min(index[s.key] for s in tabled), max(index[s.key] for s in tabled)
-    title = _title(rows, word)
     said = [
-        (f"{title}: steps" if title != word.capitalize() else "Steps")
+        (f"{shared}: steps" if shared else "Steps")
         + f" {prefix}{lo}–{prefix}{hi}, each value a step's result"
     ]
     if len(notes) == 1:
