@@ -18,6 +18,9 @@ A :class:`Step` is data, never text ready to print. It holds
   ``"nA"``). A step of the group with a ``column`` and no ``row`` is that column's total (the sums
   row); one with neither is a result stated under the table (ȳ). The solver sets them; the report
   lays out the table from them without computing anything, the JSON carries them only when set.
+  A group whose rows each use formulas of their own (``yield`` rows Im…IV, ``factors`` rows CD…,
+  ``limits``) is set as an itemised table, one whose rows share them (``section``) as a
+  parallel-axis table with one worked row; a group name is unique within its heading.
 
 The solver appends steps as it computes; the PDF typesets them, the JSON serialises them and the
 diff compares them.
