@@ -130,7 +130,10 @@ def _last_text_width(seq: list[Step], style: ParagraphStyle, notes: bool, source
 
 
 def _lines(width: float, room: float) -> int:
-    return max(1, -int(-(1.12 * width) // max(room - 6.0, 1.0)))  # ceil, padding off, words break early
+    inner = max(room - 6.0, 1.0)  # padding off
+    if width <= inner:
+        return 1
+    return max(2, -int(-(1.12 * width) // inner))  # ceil; words break before the edge
 
 
 def _fill(width: float, room: float) -> float:
@@ -145,7 +148,7 @@ def _balance(
     table shortest: rows are (item width, formula line widths, note-and-source width); the count
     of lines each row needs is the most any of its cells needs. Layout only, no engineering."""
     best: tuple[float, float, float, float] = (float("inf"), 0.0, 0.0, 0.0)
-    steps = 14
+    steps = 24
     for i in range(steps + 1):
         w_item = item_min + (0.34 * free - item_min) * i / steps
         for f in range(1, steps + 1):
