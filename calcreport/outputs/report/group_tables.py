@@ -267,9 +267,11 @@ def _itemised(steps: list[Step], ctx: Ctx, prefix: str, index: dict[str, int]) -
         said.append(cited(next(iter(notes))))
     if not source_col:
         said.append(f"source: {cited(next(iter(sources))) or '—'}")
-    caption = para("; ".join(said) + ".", st.caption)
     table = grid(data, widths, st, extra=extra, zebra=False, frame_height=ctx.frame_height)
-    out: list = [KeepTail(table, [caption])]
+    # the caption names the table and says once what every row shares; the numbers say the rest
+    out: list = [
+        KeepTail(table, [para("; ".join(said) + ".", st.caption)] if len(said) > 1 or shared else [])
+    ]
     if totals:  # an itemised table has no sums row: its totals are stated in full
         stated = list(totals.values()) + stated
     return out + steps_table(stated, ctx, prefix, [index[s.key] for s in stated], header=False)
@@ -341,9 +343,8 @@ def _parallel(steps: list[Step], ctx: Ctx, prefix: str, index: dict[str, int], h
     widths = [first] + [(w - first) / len(cols)] * len(cols)
     lo, hi = min(index[s.key] for s in steps), max(index[s.key] for s in steps)
     caption = para(
-        f"Steps {prefix}{lo}–{prefix}{hi}: each value is the result of one step, listed one by one in "
-        f"the results JSON with its table, {word} and column"
-        + ("; Σ: the totals, each its own step." if totals else "."),
+        f"Steps {prefix}{lo}–{prefix}{hi}, each value a step's result (one by one in the results JSON)"
+        + ("; Σ: the totals, each a step." if totals else "."),
         st.caption,
     )
     table = grid(data, widths, st, extra=[*TIGHT, *extra], zebra=True, frame_height=ctx.frame_height)
