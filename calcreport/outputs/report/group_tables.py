@@ -146,32 +146,36 @@ def _balance(
 ) -> tuple[float, float]:
     """Widths of the item and formula columns (the last column takes what is left) that make the
     table shortest: rows are (item width, formula line widths, note-and-source width); the count
-    of lines each row needs is the most any of its cells needs. Layout only, no engineering."""
-    best: tuple[float, float, float, float] = (float("inf"), 0.0, 0.0, 0.0)
-    steps = 24
-    for i in range(steps + 1):
-        w_item = item_min + (0.34 * free - item_min) * i / steps
-        for f in range(1, steps + 1):
-            w_formula = max(formula_min, (free - w_item - (36.0 if last else 0.0)) * f / steps)
-            w_last = free - w_item - w_formula
-            if last and w_last < 36.0:
-                continue
-            need = [
-                (
-                    _lines(item, w_item),
-                    sum(_lines(x, w_formula) for x in formula),
-                    _lines(note, w_last) if last else 1,
-                    max(_fill(item, w_item), sum(_fill(x, w_formula) for x in formula), _fill(note, w_last)),
-                )
-                for item, formula, note in rows
-            ]
-            lines = sum(max(a, b, c) for a, b, c, _ in need)
-            key = (lines, round(sum(x for *_, x in need), 1), -w_formula, w_item)
+    of lines each row needs is the most any of its cells needs, ties go to the finer estimate.
+    Widths are searched on a grid of ``free``/48 (lines per width looked up once). Layout only."""
+    grid_n = 48
+    unit = free / grid_n
+    widths = [u * unit for u in range(grid_n + 1)]
+    item_l = [[_lines(item, x) for x in widths] for item, _, _ in rows]
+    item_f = [[_fill(item, x) for x in widths] for item, _, _ in rows]
+    form_l = [[sum(_lines(f, x) for f in fs) for x in widths] for _, fs, _ in rows]
+    form_f = [[sum(_fill(f, x) for f in fs) for x in widths] for _, fs, _ in rows]
+    note_l = [[_lines(n, x) if last else 1 for x in widths] for _, _, n in rows]
+    note_f = [[_fill(n, x) if last else 0.0 for x in widths] for _, _, n in rows]
+    lo_item = min(grid_n, int(-(-item_min // unit)))
+    hi_item = max(lo_item, int(0.34 * grid_n))
+    lo_form = min(grid_n, int(-(-formula_min // unit)))
+    least_last = int(-(-36.0 // unit)) if last else 0
+    best: tuple[float, float, float, int, int] = (float("inf"), 0.0, 0.0, 0, 0)
+    for i in range(lo_item, hi_item + 1):
+        for f in range(lo_form, grid_n - i - least_last + 1):
+            c = grid_n - i - f
+            lines = 0
+            fill = 0.0
+            for r in range(len(rows)):
+                lines += max(item_l[r][i], form_l[r][f], note_l[r][c])
+                fill += max(item_f[r][i], form_f[r][f], note_f[r][c])
+            key = (lines, round(fill, 1), -f, i, f)
             if key < best:
                 best = key
     if best[0] == float("inf"):  # no room for a last column: the least widths
         return item_min, formula_min
-    return best[3], -best[2]
+    return best[3] * unit, best[4] * unit
 
 
 def _itemised(steps: list[Step], ctx: Ctx, prefix: str, index: dict[str, int]) -> list:

@@ -45,6 +45,7 @@ class StepCell(Flowable):
         super().__init__()
         self.parts, self.source, self.style = list(parts), source, style
         self._layout: tuple = ()
+        self._size: tuple[float, float] = (0.0, 0.0)
 
     def getPlainText(self, identify=None) -> str:  # noqa: N802 - reportlab's name
         texts = [p.getPlainText() for p in self.parts if hasattr(p, "getPlainText")]
@@ -52,6 +53,8 @@ class StepCell(Flowable):
 
     def wrap(self, availWidth: float, availHeight: float) -> tuple[float, float]:  # noqa: N803
         aw = availWidth
+        if self._layout and self._layout[0] == aw:  # a table wraps each cell more than once
+            return self._size
         heights = [p.wrap(aw, availHeight)[1] for p in self.parts]
         body = sum(heights)
         st = self.style
@@ -72,7 +75,8 @@ class StepCell(Flowable):
             mode = ("para", para)
         self._layout = (aw, heights, mode)
         self.width, self.height = aw, body + extra
-        return self.width, self.height
+        self._size = (aw, body + extra)
+        return self._size
 
     def draw(self) -> None:
         aw, heights, mode = self._layout
