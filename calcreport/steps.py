@@ -18,6 +18,9 @@ A :class:`Step` is data, never text ready to print. It holds
   ``"nA"``). A step of the group with a ``column`` and no ``row`` is that column's total (the sums
   row); one with neither is a result stated under the table (ȳ). The solver sets them; the report
   lays out the table from them without computing anything, the JSON carries them only when set.
+  A group whose rows each use formulas of their own (``yield`` rows Im…IV, ``factors`` rows CD…,
+  ``limits``) is set as an itemised table, one whose rows share them (``section``) as a
+  parallel-axis table with one worked row; a group name is unique within its heading.
 
 The solver appends steps as it computes; the PDF typesets them, the JSON serialises them and the
 diff compares them.
@@ -113,6 +116,7 @@ class StepLog:
     #: the table a step joins when the call names no ``group`` (see :meth:`table`)
     group: str = ""
     row: str = ""
+    column: str = ""
 
     def add(
         self,
@@ -135,7 +139,7 @@ class StepLog:
         ``group``/``row``/``column`` place the step in a table of repeated formulas (module
         docstring); a call naming no ``group`` joins this log's table (see :meth:`table`)."""
         if self.group and not group:
-            group, row = self.group, row or self.row
+            group, row, column = self.group, row or self.row, column or self.column
         self.steps.append(
             step(
                 f"{self.prefix}.{name}",
@@ -157,14 +161,14 @@ class StepLog:
 
     def child(self, name: str) -> StepLog:
         """A log whose keys are nested under ``prefix.name`` and whose steps land here too."""
-        return _ChildLog(f"{self.prefix}.{name}", self.steps, self.group, self.row)
+        return _ChildLog(f"{self.prefix}.{name}", self.steps, self.group, self.row, self.column)
 
-    def table(self, group: str, row: str = "") -> StepLog:
+    def table(self, group: str, row: str = "", column: str = "") -> StepLog:
         """The same log, whose steps go in table ``group``, row ``row`` (with the ``column`` each
-        call names; a step without one is stated under the table)."""
-        return _ChildLog(self.prefix, self.steps, group, row)
+        call names, else ``column``; a step without one is stated under the table)."""
+        return _ChildLog(self.prefix, self.steps, group, row, column)
 
 
 class _ChildLog(StepLog):
-    def __init__(self, prefix: str, steps: list[Step], group: str = "", row: str = ""):
-        super().__init__(prefix, steps, group, row)
+    def __init__(self, prefix: str, steps: list[Step], group: str = "", row: str = "", column: str = ""):
+        super().__init__(prefix, steps, group, row, column)

@@ -105,7 +105,8 @@ def _shown(m, d):
         fold = folds.get(g.gid)
         for i, s in enumerate(g.steps):
             if fold is not None and s.key not in fold.differ:
-                yield "follows", by_gid[fold.base_gid].steps[i]
+                base = by_gid[fold.base_gid].steps[i]
+                yield ("cell" if base.group and base.column else "follows"), base
             elif s.group and s.column:
                 yield "cell", s
             else:

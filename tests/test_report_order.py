@@ -109,41 +109,52 @@ def test_bookmarks_follow_the_report(built):
     ]
 
 
-def test_section_table_cells_are_step_values(built):
-    """Every number in the parallel-axis table is the result of one step of its group, and every
-    tabulated step's result is in the table (nothing computed by the report)."""
-    from calcreport.outputs.report.common import Ctx
+def _text(cell) -> str:
+    """The plain text of a table cell (a flowable, a list of them, or a string)."""
+    if isinstance(cell, (list, tuple)):
+        return " ".join(_text(c) for c in cell if hasattr(c, "getPlainText"))
+    return cell.getPlainText() if hasattr(cell, "getPlainText") else str(cell)
 
-    result, _, _ = built[DOOR.stem]
-    m = result.members[0]
-    d = Display(result.job.settings.units, result.job.settings.display)
+
+def _door_ctx(result):
+    from calcreport.outputs.report.common import Ctx
     from calcreport.outputs.report.styles import make_styles, register_fonts
     from calcreport.outputs.report.template import load_template
 
+    d = Display(result.job.settings.units, result.job.settings.display)
     tpl = load_template(result.job.settings.template, result.job.path)
     styles = make_styles(
         register_fonts(tpl.font, tpl.font_bold, tpl.font_mono), tpl.accent_color, tpl.font_size
     )
-    ctx = Ctx(result, d, styles, tpl, 540.0)
+    return d, Ctx(result, d, styles, tpl, 540.0)
+
+
+def _tables(story: list) -> list:
+    return [t for t in (getattr(f, "table", f) for f in story) if isinstance(t, Table)]
+
+
+def test_section_table_cells_are_step_values(built):
+    """Every number in the parallel-axis table is the result of one step of its group, and every
+    tabulated step's result is in the table (nothing computed by the report)."""
+    result, _, _ = built[DOOR.stem]
+    m = result.members[0]
+    d, ctx = _door_ctx(result)
     (section,) = [g for g in member_groups(m) if g.gid == "section"]
     section.number = "1.1"
-    story = [getattr(f, "table", f) for f in stage_story([section], ctx)]
-    tables = [t for t in story if isinstance(t, Table) and t._cellvalues[0][0].getPlainText() == "Part"]
+    tables = [t for t in _tables(stage_story([section], ctx)) if _text(t._cellvalues[0][0]) == "Part"]
     assert len(tables) == 1
     rows = tables[0]._cellvalues
     values = {d.result(s) for s in section.steps if s.column}
     seen = set()
     for row in rows[1:]:
         for cell in row[1:]:
-            text = cell.getPlainText() if hasattr(cell, "getPlainText") else str(cell)
+            text = _text(cell)
             if text in ("", "—"):
                 continue
             assert text in values, text
             seen.add(text)
     assert seen == values
-    assert [
-        r[0].getPlainText() if hasattr(r[0], "getPlainText") else r[0][-1].getPlainText() for r in rows[1:]
-    ] == [
+    assert [_text(r[0]) for r in rows[1:]] == [
         "web_w",
         "bot",
         "top",
@@ -163,8 +174,58 @@ def test_grouped_steps_stay_one_by_one_in_the_json():
     assert rows == {"web_w", "bot", "top", "web_e"}
     totals = {s["column"] for s in section if "row" not in s and "column" in s}
     assert totals == {"nA", "nAy", "I"}
+    assert len(steps) == len(result.members[0].steps)  # every step, tabulated or folded, one by one
     others = [s for s in steps if not s["key"].startswith("member.H1.section.")]
-    assert others and not any({"group", "row", "column"} & set(s) for s in others)
+    assert {s.get("group") for s in others} == {None, "yield", "factors", "limits"}
+    for jid in ("top-webs", "bot-webs"):  # the folded joint keeps its steps in the JSON too
+        mine = [s for s in others if s["key"].startswith(f"member.H1.joint.{jid}.")]
+        modes = [(s["row"], s["column"]) for s in mine if s.get("group") == "yield"]
+        # NDS 2018 Table 12.3.1A, single shear: Im, Is, II (k1), IIIm (k2), IIIs (k3), IV
+        assert modes == [
+            ("Im", "Z"), ("Is", "Z"), ("II", "k"), ("II", "Z"), ("IIIm", "k"), ("IIIm", "Z"),
+            ("IIIs", "k"), ("IIIs", "Z"), ("IV", "Z"),
+        ]  # fmt: skip
+        assert all(s["column"] == "value" for s in mine if s.get("group") in ("factors", "limits"))
+
+
+def test_itemised_tables_are_step_values(built):
+    """The yield-mode, factor and limit tables of the top joint: every value cell is the result of
+    one step of its group, every step of the group is in its table (its result and, where the
+    numbers are not the result, its substituted formula), and the row numbers are the steps'."""
+    result, _, _ = built[DOOR.stem]
+    m = result.members[0]
+    d, ctx = _door_ctx(result)
+    groups = member_groups(m)
+    (joint,) = [g for g in groups if g.gid == "joint.top-webs"]
+    joint.number = "1.3"
+    index = {s.key: i for i, s in enumerate(joint.steps, 1)}
+    heads = {"Mode": "yield", "Factor": "factors", "Limit": "limits"}
+    found = {}
+    for t in _tables(stage_story([joint], ctx)):
+        head = [_text(c) for c in t._cellvalues[0]]
+        if len(head) > 1 and head[1] in heads:
+            found[heads[head[1]]] = t
+    assert set(found) == set(heads.values())
+    for group, t in found.items():
+        steps = [s for s in joint.steps if s.group == group]
+        cols = list(dict.fromkeys(s.column for s in steps))
+        results = {d.result(s) for s in steps}
+        seen: set[str] = set()
+        for row in t._cellvalues[1:]:
+            texts = [_text(c) for c in row]
+            numbers = row[0][-1].text.replace("<br/>", " ").split()  # one number a line
+            mine = [s for s in steps if f"1.3.{index[s.key]}" in numbers]
+            assert mine and len(mine) == len(numbers)
+            for cell in texts[3 : 3 + len(cols)]:
+                assert cell == "—" or cell in results, cell
+                seen.add(cell)
+            for s in mine:
+                assert d.result(s) in texts[3 : 3 + len(cols)]
+                if d.substituted(s).strip() != d.result(s):
+                    assert squash(d.substituted(s)) in squash(texts[2])
+        assert results <= seen
+    gov = [s for s in joint.steps if s.group == "yield" and s.governs]
+    assert [s.row for s in gov] == ["IIIs"]  # the least Z of the six modes (values in the table)
 
 
 def test_identical_joints_are_stated_once(built):
@@ -233,10 +294,10 @@ def test_no_sheet_carries_only_a_closing_line(built, stem):
 
 
 def test_the_door_header_got_shorter(built):
-    """Issue 15: 19 sheets before this work, 13 before the closing tables were compacted (measured);
+    """Issue 15: 19 sheets before this work, 13 before the tabulated connector steps and the compacted closing tables (measured);
     the stated target is 8."""
     _, _, pages = built[DOOR.stem]
-    assert len(pages) <= 11
+    assert len(pages) <= 10
 
 
 def _table(n: int, row_h: float = 20.0) -> EvenTable:

@@ -21,7 +21,7 @@ __all__ = ["shape_properties", "ShapeProps", "section_properties", "first_moment
 
 SOURCE_CENTROID = "mechanics of materials: centroid of a transformed section"
 SOURCE_PARALLEL = "mechanics of materials: parallel-axis theorem"
-SOURCE_TRANSFORM = "mechanics of materials: transformed section, n = E/E_ref"
+SOURCE_TRANSFORM = "mechanics of materials: transformed section"
 #: the table (``Step.group``) of the per-part steps: rows are part ids, columns A, n, nA, y, nAy,
 #: I0, d, I (panels add A_g and f); the sums carry a column and no row, ȳ neither
 GROUP = "section"

@@ -81,7 +81,7 @@ def discrete_spacing(
         "{n} × {F}",
         {"n": n, "F": F},
         (n * F).to("lbf"),
-        source="connectors in a row share equally (assumption)",
+        source="assumption: a row shares equally",
     )
     q_mag = float(q.to("lbf/in").magnitude)
     cap = _grid_limit(s_max, step, log)
@@ -132,7 +132,7 @@ def discrete_spacing(
         "⌊{s_req} / {step}⌋ × {step}",
         {"s_req": req, "step": step},
         round_down(req, step),
-        source="common practice, no source (round down, never up)",
+        source="common practice, no source",
     )
     prov = rounded
     if s_max is not None and prov > cap:

@@ -16,15 +16,14 @@ from __future__ import annotations
 
 from dataclasses import dataclass, field
 
-from reportlab.lib.styles import ParagraphStyle
-from reportlab.platypus import Paragraph, Spacer
+from reportlab.platypus import Paragraph
 
 from ...solve.results import MemberResult
 from ...steps import Step
-from .common import GOVERNS_TINT, Ctx, cited, grid, heading, para
-from .fastcell import cell
-from .flow import KeepTail
+from .common import Ctx, heading
 from .folding import Fold, fold_groups
+from .group_tables import group_table
+from .step_list import step_rows, steps_table
 from .styles import esc
 
 __all__ = [
@@ -57,11 +56,7 @@ _TITLES = {
     "member": "Member checks",
     "beam_checks": "Deflection",
 }
-#: what a row of a table is, by the table's group id (the first dotted segment)
-_ROW_WORDS = {"section": "part", "zones": "zone", "combinations": "combination", "cases": "case"}
 _LOAD_STEPS = ("self_weight", "combinations")
-#: tables whose cells give the result only (their formulas are in the worked row and the header)
-_RESULT_ONLY = frozenset({"section"})
 
 
 @dataclass
@@ -130,43 +125,6 @@ def group_steps(m: MemberResult) -> list[tuple[str, str, list[Step]]]:
     return [(g.gid, g.title, g.steps) for g in member_groups(m)]
 
 
-def step_rows(
-    steps: list[Step], ctx: Ctx, number_prefix: str, numbers=None
-) -> tuple[list[list], list[tuple]]:
-    """Table rows for the steps and style commands that tint the governing ones.
-
-    ``numbers`` (optional) gives each step's number within its heading; else 1, 2, 3…
-    """
-    st, d = ctx.styles, ctx.display
-    rows: list[list] = [["No.", "Step", "Source"]]
-    extra: list[tuple] = []
-    for i, s in enumerate(steps, 1):
-        r = len(rows)
-        tag = '  <font color="#7a5a00"><b>[governs]</b></font>' if s.governs else ""
-        sub, res = d.substituted(s), d.result(s)
-        line = f"= <b>{esc(res)}</b>" if sub.strip() == res else f"= {esc(sub)}   = <b>{esc(res)}</b>"
-        body = [cell(f"<b>{esc(s.label)}</b>{tag}&nbsp;&nbsp; {esc(s.symbol)}&nbsp;&nbsp; {line}", st.cell)]
-        if s.note:
-            body.append(para(cited(s.note), st.caption))
-        no = numbers[i - 1] if numbers is not None else i
-        num = ctx.mark(s.key) + [para(f"{number_prefix}{no}", st.cell)]
-        rows.append([num, body, para(cited(s.source) or "—", st.caption)])
-        if s.governs:
-            extra.append(("BACKGROUND", (0, r), (-1, r), GOVERNS_TINT))
-            extra.append(("LINEBEFORE", (0, r), (0, r), 2.0, ctx.styles.accent))
-    return rows, extra
-
-
-def _steps_table(steps: list[Step], ctx: Ctx, prefix: str, numbers: list[int]) -> list:
-    if not steps:
-        return []
-    w = ctx.width
-    rows, extra = step_rows(steps, ctx, prefix, numbers)
-    extra = [("TOPPADDING", (0, 1), (-1, -1), 1.5), ("BOTTOMPADDING", (0, 1), (-1, -1), 1.5), *extra]
-    widths = [0.08 * w, 0.67 * w, 0.25 * w]
-    return [grid(rows, widths, ctx.styles, extra=extra, zebra=False, frame_height=ctx.frame_height)]
-
-
 def table_blocks(steps: list[Step]) -> list[tuple[str, list[Step]]]:
     """The steps of one heading as blocks in order: ("steps", run) or ("table:<group>", steps).
 
@@ -187,116 +145,6 @@ def table_blocks(steps: list[Step]) -> list[tuple[str, list[Step]]]:
     return blocks
 
 
-def _lhs(symbol: str) -> str:
-    return symbol.split(" = ", 1)[0].strip() if " = " in symbol else symbol.strip()
-
-
-def _columns(rows: dict[str, list[Step]]) -> list[str]:
-    """Column ids in order: rows with fewer columns first, each new column before the next one
-    already placed (so a row's extra columns sit where that row computes them)."""
-    cols: list[str] = []
-    for seq in sorted(rows.values(), key=len):
-        names = [s.column for s in seq]
-        for k, c in enumerate(names):
-            if c in cols:
-                continue
-            after = next((cols.index(x) for x in names[k + 1 :] if x in cols), len(cols))
-            cols.insert(after, c)
-    return cols
-
-
-def _table(steps: list[Step], ctx: Ctx, prefix: str, index: dict[str, int]) -> list:
-    """One table of repeated formulas (see module docstring)."""
-    st, d, w = ctx.styles, ctx.display, ctx.width
-    group = steps[0].group
-    word = _ROW_WORDS.get(group.split(".", 1)[0], "item")
-    rows: dict[str, list[Step]] = {}
-    totals: dict[str, Step] = {}
-    stated: list[Step] = []
-    for s in steps:
-        if s.column and s.row:
-            rows.setdefault(s.row, []).append(s)
-        elif s.column:
-            totals[s.column] = s
-        else:
-            stated.append(s)
-    out: list = []
-    if not rows:  # nothing tabulated: every step in full
-        return _steps_table(steps, ctx, prefix, [index[s.key] for s in steps])
-    cols = _columns(rows)
-    worked_id = next(iter(rows))
-    worked = rows[worked_id]
-    seen = {(s.column, s.symbol, s.note) for s in worked}
-    differ = []
-    for rid, seq in rows.items():
-        for s in seq:
-            if rid != worked_id and (s.column, s.symbol, s.note) not in seen:
-                differ.append(s)
-                seen.add((s.column, s.symbol, s.note))
-    out.append(
-        para(
-            f"Worked in full for {word} {worked_id}; the table below gives every {word}, each value the "
-            f"result of the step of that formula for that {word}.",
-            st.small,
-        )
-    )
-    out += _steps_table(worked, ctx, prefix, [index[s.key] for s in worked])
-    if differ:
-        out += [Spacer(1, 4), para(f"Where a {word} uses another formula, that step in full:", st.small)]
-        out += _steps_table(differ, ctx, prefix, [index[s.key] for s in differ])
-    heads: dict[str, list[str]] = {c: [] for c in cols}
-    for seq in rows.values():
-        for s in seq:
-            if _lhs(s.symbol) not in heads[s.column]:
-                heads[s.column].append(_lhs(s.symbol))
-    tstyle = ParagraphStyle(
-        "tcell", parent=st.cell, fontSize=st.cell.fontSize - 0.5, leading=st.cell.leading - 0.6
-    )
-    cell_r = ParagraphStyle("tcellr", parent=tstyle, alignment=2)
-    head_r = ParagraphStyle("theadr", parent=st.cell_bold, fontSize=tstyle.fontSize, alignment=2)
-    head_style = head_r if group in _RESULT_ONLY else st.cell_bold
-    data: list[list] = [
-        [para(word.capitalize(), st.cell_bold)] + [para(" / ".join(heads[c]), head_style) for c in cols]
-    ]
-    extra: list[tuple] = []
-    for rid, seq in rows.items():
-        by = {s.column: s for s in seq}
-        marks = [m for s in seq for m in ctx.mark(s.key)][:1]
-        line: list = [marks + [para(rid, tstyle)]]
-        for k, c in enumerate(cols, 1):
-            cs = by.get(c)
-            if cs is None:
-                line.append(para("—", cell_r))
-            else:
-                text, sub = esc(d.result(cs)), d.substituted(cs)
-                if group not in _RESULT_ONLY and sub.strip() != d.result(cs):  # how it was found
-                    text += f'<br/><font size="{tstyle.fontSize - 1}" color="#444444">{esc(sub)}</font>'
-                line.append(cell(text, cell_r if group in _RESULT_ONLY else tstyle))
-            if cs is not None and cs.governs:
-                extra.append(("BACKGROUND", (k, len(data)), (k, len(data)), GOVERNS_TINT))
-        data.append(line)
-    if totals:
-        line = [para("Σ", st.cell_bold)]
-        for c in cols:
-            ts = totals.get(c)
-            line.append(cell(f"<b>{esc(d.result(ts))}</b>", cell_r) if ts is not None else "")
-        data.append(line)
-        extra.append(("LINEABOVE", (0, len(data) - 1), (-1, len(data) - 1), 0.7, st.accent))
-    first = 0.11 * w if group in _RESULT_ONLY else 0.22 * w
-    widths = [first] + [(w - first) / len(cols)] * len(cols)
-    lo, hi = min(index[s.key] for s in steps), max(index[s.key] for s in steps)
-    caption = para(
-        f"Steps {prefix}{lo}–{prefix}{hi}: each value is the result of one step, listed one by one in "
-        f"the results JSON with its table, {word} and column"
-        + ("; Σ: the totals, each its own step." if totals else "."),
-        st.caption,
-    )
-    table = grid(data, widths, st, extra=extra, zebra=True, frame_height=ctx.frame_height)
-    out.append(KeepTail(table, [caption]))  # the caption stays with the table's last rows
-    out += _steps_table(stated, ctx, prefix, [index[s.key] for s in stated])
-    return out
-
-
 def _group_body(g: Group, ctx: Ctx, fold: Fold | None) -> list:
     prefix = f"{g.number}."
     index = {s.key: i for i, s in enumerate(g.steps, 1)}
@@ -308,18 +156,20 @@ def _group_body(g: Group, ctx: Ctx, fold: Fold | None) -> list:
         marks = [m for s in hidden for m in ctx.mark(s.key)][:1]
         text = (
             f"Same connector and derivation as {esc(fold.base_title)} ({fold.base_number}), step for step"
-            f"{esc(subs)}: the {len(hidden)} steps not shown have the formulas, numbers and results of the "
-            f"steps of {fold.base_number} with the same last number."
+            f"{esc(subs)}: its {len(hidden)} other steps are those of {fold.base_number} with the same last "
+            "number (formulas, numbers and results)."
         )
         text += " The steps that differ:" if shown else " No step differs."
-        out: list = [*marks, Paragraph(text, st.body)]
-        return out + _steps_table(shown, ctx, prefix, [index[s.key] for s in shown])
+        out: list = [*marks, Paragraph(text, st.small)]
+        return out + steps_table(shown, ctx, prefix, [index[s.key] for s in shown])
     out = []
+    headed = False  # the column heads of the step rows are printed once per heading
     for kind, steps in table_blocks(g.steps):
         if kind == "steps":
-            out += _steps_table(steps, ctx, prefix, [index[s.key] for s in steps])
+            out += steps_table(steps, ctx, prefix, [index[s.key] for s in steps], header=not headed)
         else:
-            out += _table(steps, ctx, prefix, index)
+            out += group_table(steps, ctx, prefix, index, headed)
+        headed = True
     return out
 
 

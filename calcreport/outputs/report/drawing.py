@@ -47,7 +47,7 @@ FAMILY_STYLE = {
 }
 NA_INK = colors.HexColor("#1f3a93")
 NICE = (1, 1.5, 2, 2.5, 3, 4, 5, 6, 8, 10, 12, 15, 16, 20, 24, 25, 30, 40, 48, 50, 60, 75, 80, 96, 100)
-MAX_H = 330.0
+MAX_H = 280.0
 LEFT, GAP_R, COL_W, BOTTOM, TOP = 96.0, 30.0, 176.0, 74.0, 16.0
 LINE = TEXT_SIZE + 1.6
 
@@ -291,9 +291,8 @@ def section_drawing(m: MemberResult, ctx: Ctx) -> tuple[Drawing, str]:
     _legend(dr, ctx, families, k, font, m)
     units = "millimetres" if system == "SI" else "inches"
     caption = (
-        f"Section of {m.id} to {scale_words(ratio, words)} when printed at 100 %. Dimensions in {units}; "
-        "parts are tinted by material family and labelled with width × depth; ȳ locates the neutral "
-        "axis from the bottom of the section; each joint is called out with its connector."
+        f"Section of {m.id} to {scale_words(ratio, words)} at 100 %. Dimensions in {units}; parts "
+        "tinted by material, labelled width × depth; ȳ from the bottom; joints called out with their connector."
     )
     if any(p.shape.kind == "properties" for p in parts):
         caption += " Dashed outlines are parts given by their properties (only the bounding box is known)."

@@ -14,6 +14,7 @@ from __future__ import annotations
 
 from reportlab.platypus import CondPageBreak, Flowable, KeepTogether, Paragraph, Table
 
+from .fastcell import LineCell
 from .pages import MarginMark, OutlineMark, SectionStart
 
 __all__ = ["EvenTable", "KeepHead", "KeepTail", "disciplined", "MIN_ROWS"]
@@ -138,13 +139,18 @@ def _even(t: Table, frame_height: float) -> Table:
     return t
 
 
+def _is_line(f: Flowable) -> bool:
+    """A paragraph, or one line drawn without a paragraph parse (:class:`.fastcell.LineCell`)."""
+    return isinstance(f, (Paragraph, LineCell))
+
+
 def _is_heading(f: Flowable) -> bool:
-    return isinstance(f, Paragraph) and getattr(f.style, "name", "") in _HEADINGS
+    return _is_line(f) and getattr(f.style, "name", "") in _HEADINGS
 
 
 def _is_lead(f: Flowable) -> bool:
     """A short line introducing what follows (small print, a CondPageBreak, a zero-size mark)."""
-    if isinstance(f, Paragraph):
+    if _is_line(f):
         return getattr(f.style, "name", "") in ("small", "caption") and len(f.getPlainText()) < 400
     return isinstance(f, (CondPageBreak, OutlineMark, SectionStart, MarginMark))
 
@@ -183,7 +189,7 @@ def disciplined(story: list, frame_height: float) -> list:
                 done.append(KeepTogether([f, *nxt._content]))
                 i += 2
                 continue
-            if _is_heading(f) and isinstance(nxt, Paragraph):
+            if _is_heading(f) and nxt is not None and _is_line(nxt):
                 f.keepWithNext = 1
         done.append(f)
         i += 1

@@ -182,17 +182,22 @@ def _shear_and_settings(m: MemberResult, ctx: Ctx):
         shear = f"V = {ctx.q(member.shear)} (given in the job file)"
     else:
         shear = f"from the loads along the member: V = {ctx.q(m.shear)} (see the derivation)"
-    rows = [
-        ["Item", "Value"],
+    left = [
         [marked_cell(ctx, f"member[{m.id}].shear", "Design shear"), shear],
-        [marked_cell(ctx, "settings", "Design method"), s.method],
-        ["Spacing increment (rounding down)", ctx.q(s.spacing_step)],
         ["Spacing limits (job-wide)", f"min {ctx.q(s.spacing_min)}, max {ctx.q(s.spacing_max)}"],
-        ["Reference material (transformed section)", member.reference_material.id],
+        ["Reference material", f"{member.reference_material.id} (transformed section)"],
+    ]
+    right = [
+        [marked_cell(ctx, "settings", "Design method"), s.method],
+        ["Spacing increment", f"{ctx.q(s.spacing_step)} (round down)"],
     ]
     if member.span is not None:
-        rows.append([marked_cell(ctx, f"member[{m.id}].span", "Span"), ctx.display.position(member.span)])
-    return grid(rows, [0.40 * w, 0.60 * w], ctx.styles, zebra=False)
+        right.append([marked_cell(ctx, f"member[{m.id}].span", "Span"), ctx.display.position(member.span)])
+    # two items a row: the design shear's long text gets the wide left pair
+    rows = [["Item", "Value", "Item", "Value"]]
+    for k, pair in enumerate(left):
+        rows.append([*pair, *(right[k] if k < len(right) else ["", ""])])
+    return grid(rows, [0.21 * w, 0.33 * w, 0.20 * w, 0.26 * w], ctx.styles, zebra=False)
 
 
 def _written_table(m: MemberResult, ctx: Ctx) -> list:

@@ -110,8 +110,8 @@ def member_story(m: MemberResult, ctx: Ctx, number: int) -> list:
     for g in groups:
         by_stage.setdefault(g.stage, []).append(g)
     intro: Paragraph | None = para(
-        "Each step gives the formula, the formula with the numbers substituted, the result and its source; "
-        "steps that govern are tinted. Headings are numbered in the order of the work.",
+        "Each step: its formula, the numbers substituted, the result (bold) and its source (right); "
+        "governing steps tinted; headings numbered in the order of the work.",
         st.small,
     )
     done_schedules: set[str] = set()

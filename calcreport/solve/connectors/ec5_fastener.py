@@ -268,7 +268,7 @@ def design_ec5(spec: ConnectorSpec, ctx, log: StepLog, kind: str) -> Capacity:
     for m in modes:
         sym, tmpl = MODE_TEXT[m.mode]
         rope = m.mode not in ("a", "b", "g", "h")
-        log.add(
+        log.table("yield", m.mode, "F").add(  # one row of table "yield" per failure mode
             f"mode.{m.mode}",
             f"Failure mode ({m.mode})" + (" with the rope effect" if rope and m.rope else ""),
             f"F_{m.mode} = {sym}" + (" + F_rope" if rope else ""),

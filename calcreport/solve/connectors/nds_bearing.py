@@ -181,10 +181,7 @@ def bearing(
         )
     G = specific_gravity(log, p, part, which, key)
     src = f"{NDS} Table 12.3.3 footnote 2"
-    note = (
-        "NDS tables tabulate Fe rounded (to 50 psi for D < 1/4 in, e.g. 4650 psi at G = 0.50); "
-        "the equation is used here unrounded"
-    )
+    note = "the equation unrounded (NDS tables round Fe, e.g. 4650 psi at G = 0.50 for D < 1/4 in)"
     if D < 0.25:
         return (
             log.add(

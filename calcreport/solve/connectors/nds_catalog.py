@@ -279,10 +279,10 @@ FYB_BOLT = 45_000.0
 
 #: Fastener kind → default Fyb by diameter D (in) and the clause the step cites.
 _FYB_DEFAULTS = {
-    "nail": (fyb_nail, "NDS-2018 nail tables (12N-12R) footnote, Fyb by diameter"),
-    "wood_screw": (fyb_wood_screw, "NDS-2018 Table 12L footnote, Fyb by diameter"),
-    "lag_screw": (fyb_lag_screw, "NDS-2018 Tables 12J/12K footnote, Fyb by diameter"),
-    "wood_bolt": (lambda D: FYB_BOLT, "NDS-2018 bolt tables (12A-12I) footnote, Fyb = 45,000 psi"),
+    "nail": (fyb_nail, "NDS 2018 Tables 12N-12R footnote"),
+    "wood_screw": (fyb_wood_screw, "NDS 2018 Table 12L footnote"),
+    "lag_screw": (fyb_lag_screw, "NDS 2018 Tables 12J/12K footnote"),
+    "wood_bolt": (lambda D: FYB_BOLT, "NDS 2018 Tables 12A-12I footnote"),
 }
 
 

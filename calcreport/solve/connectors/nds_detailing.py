@@ -24,7 +24,7 @@ from .shear_plane import across_check
 
 __all__ = ["row_spacing_perpendicular", "detailing"]
 
-NAIL_SRC = "common practice, no source (NDS-2018 asks for spacing that prevents splitting)"
+NAIL_SRC = "common practice, no source (NDS 2018: spacing that prevents splitting)"
 
 
 def row_spacing_perpendicular(l_over_d: float) -> float:
@@ -37,10 +37,14 @@ def row_spacing_perpendicular(l_over_d: float) -> float:
     return 5.0
 
 
+#: the table the detailing limits form (``Step.group``): one row per limit, column ``value``
+LIMIT_GROUP = "limits"
+
+
 def _limit(log: StepLog, name: str, label: str, k: float, D: float, source: str, note: str = "") -> float:
-    """Write a limit k·D as a step and return it (in)."""
+    """Write a limit k·D as a step (a row of table ``limits``) and return it (in)."""
     kk = round(k, 6)
-    log.add(
+    log.table(LIMIT_GROUP, name, "value").add(
         name,
         label,
         f"{name} = {kk:g}·D",
@@ -157,7 +161,7 @@ def _large(log, checks, key, D, c, l_bear, theta, lines, ply):
                 f"{NDS} Table 12.5.1C",
                 why,
                 f"Table 12.5.1D: {k_rows:.3g}D between rows, load {direction}",
-                log=log,
+                log=log.table(LIMIT_GROUP, "W_across", "value"),
             )
         )
     checks.append(
@@ -232,7 +236,7 @@ def _small(log, checks, key, D, c, theta, lines):
                 NAIL_SRC,
                 "5D (2.5D with pre-bored holes) to avoid splitting",
                 "5D across the grain, as for the edge distance; common practice, no source",
-                log=log,
+                log=log.table(LIMIT_GROUP, "W_across", "value"),
             )
         )
     checks.append(

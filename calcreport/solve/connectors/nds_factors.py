@@ -19,7 +19,7 @@ from . import ConnectorError
 
 __all__ = ["COMMON_FIELDS", "group_action", "part_area", "adjust"]
 
-SRC = "ANSI/AWC NDS-2018"
+SRC = "NDS 2018"  # ANSI/AWC NDS-2018
 
 COMMON_FIELDS = NDS_COMMON
 
@@ -66,8 +66,12 @@ def group_action(n: int, EmAm: float, EsAs: float, s: float, gamma: float) -> di
 _SYMBOLS = {"C_delta": "CΔ", "phi_z": "φz", "lambda": "λ"}
 
 
+#: the table the adjustment factors form (``Step.group``): one row per factor, column ``value``
+FACTOR_GROUP = "factors"
+
+
 def _factor(log: StepLog, name: str, label: str, value: float, note: str, clause: str) -> float:
-    log.add(
+    log.table(FACTOR_GROUP, name, "value").add(
         name, label, _SYMBOLS.get(name, name), "{v}", {"v": value}, value, source=f"{SRC} {clause}", note=note
     )
     return value

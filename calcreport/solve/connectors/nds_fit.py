@@ -36,7 +36,7 @@ from .shear_plane import Contact, opposite_faces, stack_beyond, thickness_normal
 
 __all__ = ["STAGGERED", "CLINCHED", "fastener_fit", "NDS_FIT"]
 
-NDS_FIT = "ANSI/AWC NDS-2018 §12.1, §12.3.5"
+NDS_FIT = "NDS 2018 §12.1, §12.3.5"
 SRC_BOTH_FACES = "common practice, no source (fasteners driven from both faces)"
 
 

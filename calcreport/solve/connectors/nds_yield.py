@@ -39,7 +39,9 @@ __all__ = [
     "NDS",
 ]
 
-NDS = "ANSI/AWC NDS-2018"
+NDS = "NDS 2018"  # ANSI/AWC NDS-2018, the short form the report cites throughout
+#: the table the yield modes form (``Step.group``): one row per mode, columns ``k`` and ``Z``
+YIELD_GROUP = "yield"
 
 
 def fe_small(G: float) -> float:
@@ -261,7 +263,8 @@ def _q(name: str, v):
 
 
 def log_yield_modes(log: StepLog, modes: list[ModeResult], planes: int) -> ModeResult:
-    """Write Re, Rt, k-factors, every mode (governing one flagged) and Z; return the governing mode."""
+    """Write Re, Rt, then every mode (governing one flagged) with the coefficient k it uses, as one
+    row of table ``yield`` per mode (columns ``k`` and ``Z``); return the governing mode."""
     v = modes[0].values
     src = f"{NDS} Table 12.3.1A"
     log.add(
@@ -305,27 +308,34 @@ def log_yield_modes(log: StepLog, modes: list[ModeResult], planes: int) -> ModeR
         "lm": _q("lm", v["lm"]),
         "ls": _q("ls", v["ls"]),
     }
+    gov = min(modes, key=lambda m: m.Z)
     done: set[str] = set()
-    for m in modes:
+    for m in modes:  # one row of table "yield" per mode: its coefficient k (if any), then Z
+        row = log.table(YIELD_GROUP, m.mode)
         for k in ("k1", "k2", "k3"):
             if k in m.values and k not in done:
                 done.add(k)
-                log.add(
-                    k, f"Yield-mode coefficient {k}", syms[k][0], syms[k][1], vals, m.values[k], source=src
+                row.add(
+                    k,
+                    f"Yield-mode coefficient {k}",
+                    syms[k][0],
+                    syms[k][1],
+                    vals,
+                    m.values[k],
+                    source=src,
+                    column="k",
                 )
-    gov = min(modes, key=lambda m: m.Z)
-    for m in modes:
         slots = {n for _, n, _, _ in string.Formatter().parse(m.template) if n}
-        vals = {n: _q(n, m.values[n]) for n in slots}
-        log.add(
+        row.add(
             f"Z_{m.mode}",
             f"Yield mode {m.mode} ({'double' if planes == 2 else 'single'} shear)",
             m.symbol,
             m.template,
-            vals,
+            {n: _q(n, m.values[n]) for n in slots},
             Q_(m.Z, "lbf"),
             source=src,
             note=f"Rd = {m.rd_expr} (NDS-2018 Table 12.3.1B)",
             governs=m is gov,
+            column="Z",
         )
     return gov
