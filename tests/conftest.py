@@ -96,3 +96,21 @@ def run_cli(*args: str) -> tuple[int, str, str]:
 @pytest.fixture
 def cli():
     return run_cli
+
+
+@pytest.fixture(scope="session")
+def demo_reports(tmp_path_factory):
+    """Every demo job in jobs/, solved and built once for the session: {stem: (result, pdf path, page
+    texts read back with pypdf)}. Shared by the report-order and closing-table tests."""
+    pypdf = pytest.importorskip("pypdf")
+    from calcreport.outputs.report.build import build_pdf
+    from calcreport.pipeline import solve_file
+
+    out = {}
+    folder = tmp_path_factory.mktemp("demos")
+    for job in sorted((Path(__file__).resolve().parent.parent / "jobs").glob("*.toml")):
+        result = solve_file(str(job))
+        pdf = folder / f"{job.stem}.pdf"
+        build_pdf(result, pdf)
+        out[job.stem] = (result, pdf, [p.extract_text() or "" for p in pypdf.PdfReader(str(pdf)).pages])
+    return out

@@ -20,13 +20,11 @@ pypdf = pytest.importorskip("pypdf")
 from calcreport.outputs.fmt import Display  # noqa: E402
 from calcreport.outputs.json_out import to_dict  # noqa: E402
 from calcreport.outputs.report.assumed import assumed_groups  # noqa: E402
-from calcreport.outputs.report.build import build_pdf  # noqa: E402
 from calcreport.outputs.report.common import Ctx  # noqa: E402
 from calcreport.outputs.report.results_tables import folded_checks, step_numbers  # noqa: E402
 from calcreport.outputs.report.signoff import CAUTIONS, NOT_CHECKED  # noqa: E402
 from calcreport.outputs.report.styles import make_styles, register_fonts  # noqa: E402
 from calcreport.outputs.report.template import load_template  # noqa: E402
-from calcreport.pipeline import solve_file  # noqa: E402
 
 ROOT = Path(__file__).resolve().parent.parent
 JOBS = sorted((ROOT / "jobs").glob("*.toml"))
@@ -39,16 +37,9 @@ def squash(text: str) -> str:
 
 
 @pytest.fixture(scope="module")
-def built(tmp_path_factory):
+def built(demo_reports):
     """Every demo job: (result, page texts)."""
-    out = {}
-    folder = tmp_path_factory.mktemp("closing")
-    for job in JOBS:
-        result = solve_file(str(job))
-        pdf = folder / f"{job.stem}.pdf"
-        build_pdf(result, pdf)
-        out[job.stem] = (result, [p.extract_text() or "" for p in pypdf.PdfReader(str(pdf)).pages])
-    return out
+    return {stem: (result, pages) for stem, (result, _, pages) in demo_reports.items()}
 
 
 def _ctx(result) -> Ctx:

@@ -20,7 +20,6 @@ from reportlab.platypus import Table  # noqa: E402
 
 from calcreport.outputs.fmt import Display  # noqa: E402
 from calcreport.outputs.json_out import dumps, to_dict  # noqa: E402
-from calcreport.outputs.report.build import build_pdf  # noqa: E402
 from calcreport.outputs.report.derivations import member_groups, stage_story  # noqa: E402
 from calcreport.outputs.report.flow import MIN_ROWS, EvenTable  # noqa: E402
 from calcreport.outputs.report.folding import fold_groups  # noqa: E402
@@ -37,16 +36,9 @@ def squash(text: str) -> str:
 
 
 @pytest.fixture(scope="module")
-def built(tmp_path_factory):
+def built(demo_reports):
     """Every demo job: (result, pdf path, page texts)."""
-    out = {}
-    folder = tmp_path_factory.mktemp("order")
-    for job in JOBS:
-        result = solve_file(str(job))
-        pdf = folder / f"{job.stem}.pdf"
-        build_pdf(result, pdf)
-        out[job.stem] = (result, pdf, [p.extract_text() or "" for p in pypdf.PdfReader(str(pdf)).pages])
-    return out
+    return demo_reports
 
 
 ORDER = (
