@@ -286,10 +286,11 @@ def test_no_sheet_carries_only_a_closing_line(built, stem):
 
 
 def test_the_door_header_got_shorter(built):
-    """Issue 15: 19 sheets before this work, 13 before the tabulated connector steps and the compacted closing tables (measured);
+    """Issue 15: 19 sheets before this work, 13 before the tabulated connector steps and the compacted
+    closing tables, 10 before the condensed face and the closing lists in two columns (measured);
     the stated target is 8."""
     _, _, pages = built[DOOR.stem]
-    assert len(pages) <= 10
+    assert len(pages) <= 9
 
 
 def _table(n: int, row_h: float = 20.0) -> EvenTable:

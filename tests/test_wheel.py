@@ -44,7 +44,7 @@ def installed(tmp_path_factory):
     for needed in (
         "calcreport/py.typed",
         "calcreport/data/job.schema.json",
-        "calcreport/data/fonts/DejaVuSans.ttf",
+        "calcreport/data/fonts/DejaVuSansCondensed.ttf",
     ):
         assert needed in names
     assert {f"calcreport/data/templates/{s}" for s in STARTERS.values()} <= set(names)

@@ -12,11 +12,13 @@ from __future__ import annotations
 
 import re
 
+from reportlab.lib.styles import ParagraphStyle
 from reportlab.platypus import Paragraph
 
 from ...solve.results import Assumed
-from .common import Ctx, cited, grid, para
-from .dense import TIGHT, dense
+from .columns import Columns
+from .common import Ctx, cited, para
+from .dense import dense
 from .styles import esc
 
 __all__ = ["assumed_story", "assumed_rows", "assumed_groups"]
@@ -114,45 +116,62 @@ def assumed_groups(ctx: Ctx) -> list[tuple[str, str, list[list]]]:
     return result
 
 
+def _entry_styles(ctx: Ctx) -> tuple[ParagraphStyle, ParagraphStyle, ParagraphStyle]:
+    """(owner heading, entry, note under an entry): an entry hangs its later lines under its key."""
+    st = ctx.styles
+    head = ParagraphStyle(
+        "assumed_owner",
+        parent=st.cell_bold,
+        backColor=st.tint,
+        borderPadding=(1.5, 2, 1.5, 2),
+        spaceBefore=4,
+        spaceAfter=2.5,
+        keepWithNext=1,
+    )
+    entry = ParagraphStyle("assumed_entry", parent=st.cell, leftIndent=9, firstLineIndent=-9, spaceAfter=0.5)
+    note = ParagraphStyle("assumed_note", parent=dense(st).note, leftIndent=9, spaceAfter=1.5)
+    return head, entry, note
+
+
+def _entries(ctx: Ctx, groups: list[tuple[str, str, list[list]]]) -> list[list]:
+    """The groups as units of :class:`.columns.Columns`: an owner's heading with its first key, then
+    each key with its notes."""
+    head, entry, note = _entry_styles(ctx)
+    out: list[list] = []
+    for owner, table, items in groups:
+        text = owner + (f" — state in {table}" if table else "")
+        block: list[list] = [[Paragraph(esc(text), head)]]
+        for name, what, value, state, basis in items:
+            lines = [Paragraph(f"<b>{esc(name)} = {esc(value)}</b>  {esc(what)}", entry)]
+            if basis != TOOL_DEFAULT:
+                lines.append(Paragraph(f"Basis: {esc(basis)}", note))
+            if state:
+                lines.append(Paragraph(f"To state it: {esc(state)}", note))
+            if len(lines) == 1:
+                lines[0].style = ParagraphStyle("assumed_last", parent=entry, spaceAfter=2.0)
+            block.append(lines)
+        out.append(block[0] + (block[1] if len(block) > 1 else []))
+        out += block[2:]
+    return out
+
+
 def assumed_story(ctx: Ctx) -> list:
-    st, w = ctx.styles, ctx.width
+    st = ctx.styles
     out: list = [Paragraph("Assumed values", st.h1)]
     groups = assumed_groups(ctx)
     count = sum(len(rows) for _, _, rows in groups)
     if not count:
         out.append(para("None: the job states every value the calculation uses.", st.body))
         return out
-    out.append(  # a lead: kept with the table by the page discipline
+    out.append(  # a lead: kept with the columns by the page discipline
         Paragraph(
             f"<b>{count} values assumed.</b> The job file did not state the values below; the tool used "
             "them. Each is a choice the engineer of record should confirm or state in the job file with "
-            "the key shown: a heading row names a table of keys (and where they are stated), each row "
-            "below it a key within it and the value used. A row is a tool default unless a basis is given under it.",
+            "the key shown: a shaded heading names a table of keys (and where they are stated), each entry "
+            "below it a key within it, the value used and what it is. An entry is a tool default unless a "
+            "basis is given under it. Read down the left column, then the right.",
             st.small,
         )
     )
-    rows: list[list] = [["Key = value used", "What (basis; how to state it)"]]
-    extra: list[tuple] = []
-    for owner, table, items in groups:
-        r = len(rows)
-        text = owner + (f" — state in {table}" if table else "")
-        rows.append([para(text, st.cell_bold), ""])
-        extra += [("SPAN", (0, r), (-1, r)), ("BACKGROUND", (0, r), (-1, r), st.tint)]
-        for name, what, value, state, basis in items:
-            cell: list = [para(what, st.cell)]
-            if basis != TOOL_DEFAULT:
-                cell.append(para(f"Basis: {basis}", dense(st).note))
-            if state:
-                cell.append(para(f"To state it: {state}", dense(st).note))
-            rows.append([Paragraph(f"{esc(name)} = <b>{esc(value)}</b>", st.cell), cell])
-    out.append(
-        grid(
-            rows,
-            [0.30 * w, 0.70 * w],
-            st,
-            extra=[*TIGHT, *extra],
-            zebra=False,
-            frame_height=ctx.frame_height,
-        )
-    )
+    out.append(Columns(_entries(ctx, groups)))
     return out

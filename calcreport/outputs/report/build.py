@@ -70,8 +70,8 @@ def report_sections(result: JobResult) -> list[tuple[str, str]]:
         out.append((f"member:{m.id}", f"{i}  Member {m.id} — {m.member.title}"))
     out += [
         ("assumed", "Assumed values"),
-        ("signoff", "Review and sign-off"),
         ("limits", "Limitations and cautions"),
+        ("signoff", "Review and sign-off"),
     ]
     out += fabrication_sections(result)  # fabrication sheets close the report (outputs/fabrication.py)
     return out
@@ -92,13 +92,13 @@ def _story(
     story.append(CondPageBreak(0.45 * ctx.frame_height))
     story.append(SectionStart("assumed", "Assumed values", "Assumed values"))
     story += assumed_story(ctx)
-    # the sign-off block is set whole: on the assumed values' last sheet when it fits there
+    story.append(SectionStart("limits", "Limitations and cautions", "Limitations and cautions"))
+    story += limitations_story(ctx)
+    # the sign-off block is set whole, last: signed once everything above it has been read
     block: list = [SectionStart("signoff", "Review and sign-off", "Review and sign-off")]
     for f in signoff_story(ctx):  # flattened: a KeepTogether inside another always measures as too tall
         block += f._content if isinstance(f, KeepTogether) else [f]
     story.append(KeepTogether(block))
-    story.append(SectionStart("limits", "Limitations and cautions", "Limitations and cautions"))
-    story += limitations_story(ctx)
     story += fabrication_story(ctx, record=fab_sheets)  # one sheet per member, each on a new page
     return story
 

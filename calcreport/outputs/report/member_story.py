@@ -14,13 +14,12 @@ without content are left out. Nothing here computes: it orders what the solver r
 from __future__ import annotations
 
 from reportlab.graphics.shapes import Drawing
-from reportlab.platypus import Flowable, KeepTogether, Paragraph, Table
+from reportlab.platypus import Flowable, KeepTogether, Paragraph
 
 from ...solve.results import MemberResult
 from .common import Ctx, heading, para
 from .derivations import STAGES, Group, member_groups, stage_story
 from .drawing import section_drawing
-from .flow import KeepTail
 from .folding import fold_groups
 from .inputs import assumptions_story, description_story, inputs_story
 from .loads_figures import demand_capacity_chart, loading_diagram, zone_elevation
@@ -156,11 +155,7 @@ def member_story(m: MemberResult, ctx: Ctx, number: int) -> list:
     if slip:
         out += [OutlineMark("Connector slip", 1), *slip]
     out.append(OutlineMark("Results and scope", 1))
-    results = results_story(m, ctx)
-    last = max((k for k, f in enumerate(results) if isinstance(f, Table)), default=None)
-    if last is not None:  # the closing status line stays with the last rows above it
-        results[last:] = [KeepTail(results[last], results[last + 1 :])]
-    out += results
+    out += results_story(m, ctx)  # the status line kept with the checks' last rows there
     return out
 
 

@@ -11,32 +11,22 @@ from __future__ import annotations
 import re
 
 from reportlab.lib import colors
+from reportlab.lib.styles import ParagraphStyle
 from reportlab.platypus import CondPageBreak, Paragraph, Table
 
 from ...solve.results import Check, JointResult, MemberResult
 from ..scope_text import checked_line, status_words
+from .columns import Columns
 from .common import Ctx, cited, grid, para
 from .dense import TIGHT, dense
 from .derivations import member_groups
 from .fastcell import cell
-from .flow import MIN_ROWS
+from .flow import KeepTail
 from .styles import esc
 
 __all__ = ["results_story", "checks_rows", "scope_story", "step_numbers", "folded_checks"]
 
 _JOINT_KEY = re.compile(r"\.joint\[([^\]]+)\]")
-
-
-class WholeTable(Table):
-    """A table too short to split evenly: it moves whole to the next sheet rather than split
-    (split only on a fresh sheet, where nothing better can be waited for)."""
-
-    frame_height: float = 0.0
-
-    def split(self, availWidth, availHeight):
-        if self.frame_height and availHeight < 0.95 * self.frame_height:
-            return []
-        return super().split(availWidth, availHeight)
 
 
 def _heading(text: str, style, need: float = 110.0) -> list:
@@ -60,49 +50,28 @@ def step_numbers(m: MemberResult, ctx: Ctx) -> dict[str, str]:
 
 def scope_story(m: MemberResult, ctx: Ctx) -> list:
     """What was not checked for this member, with clause and reason (never silent)."""
-    st, w = ctx.styles, ctx.width
+    st = ctx.styles
     title = f"Not checked ({len(m.not_checked)})"
     if not m.not_checked:
         return [
             *_heading(title, st.h3),
             Paragraph("Every check listed for this kind of member ran.", st.body),
         ]
-    # the title is the table's first header row: it goes (and repeats) with the rows
-    rows: list[list] = [
-        [Paragraph(esc(title), st.h3), ""],
-        ["Not checked (governing clause)", "Why"],
-    ]
+    # two columns of entries read down the left, then the right, the title kept with the first
+    head = ParagraphStyle("not_checked_title", parent=st.h3, keepWithNext=1)
+    entry = ParagraphStyle(
+        "not_checked_entry", parent=st.cell, leftIndent=9, firstLineIndent=-9, spaceAfter=2.2
+    )
+    units: list[list] = []
     for u in m.not_checked:
         label = esc(u.label[0].upper() + u.label[1:])
         clause = f' <font size="{st.caption.fontSize:g}" color="#444444">({esc(cited(u.clause))})</font>'
-        rows.append([Paragraph(label + clause, st.cell), cited(u.reason)])
-    title_row = [
-        ("SPAN", (0, 0), (-1, 0)),
-        ("BACKGROUND", (0, 0), (-1, 0), colors.white),
-        # the title row stands above the ruled table: white over the box's edges beside it
-        ("LINEABOVE", (0, 0), (-1, 0), 1.2, colors.white),
-        ("LINEBEFORE", (0, 0), (0, 0), 1.2, colors.white),
-        ("LINEAFTER", (-1, 0), (-1, 0), 1.2, colors.white),
-        ("LINEBELOW", (0, 0), (-1, 0), 0.6, colors.black),
-        ("LEFTPADDING", (0, 0), (0, 0), 0),
-        ("TOPPADDING", (0, 0), (-1, 0), 6),
-    ]
-    table = grid(
-        rows,
-        [0.46 * w, 0.54 * w],
-        st,
-        header_rows=2,
-        extra=[*TIGHT, *title_row],
-        frame_height=ctx.frame_height,
-    )
+        units.append([Paragraph(f"<b>{label}</b>{clause} — {esc(cited(u.reason))}", entry)])
     note = Paragraph(
         "These are not part of the status above; check them by hand or give the job what they need.",
         st.small,
     )
-    if len(m.not_checked) < 2 * MIN_ROWS:  # too few rows to split evenly: the table moves whole
-        table.__class__ = WholeTable
-        table.frame_height = ctx.frame_height
-    return [CondPageBreak(110.0), table, note]
+    return [CondPageBreak(110.0), Paragraph(esc(title), head), Columns(units), note]
 
 
 def _joint_cells(j: JointResult, ctx: Ctx) -> list[str]:
@@ -198,14 +167,16 @@ def checks_rows(
         r = len(rows)
         rows.append([para(where, st.cell_bold), "", "", "", "", ""])
         extra += [("SPAN", (0, r), (-1, r)), ("BACKGROUND", (0, r), (-1, r), st.tint)]
+        if checks:  # the group's heading row stays with its first check
+            extra.append(("NOSPLIT", (0, r), (-1, r + 2)))
         for c, steps in checks:
             note = esc(cited(c.note)) + "; " if c.note else ""
             source = f"<i>{esc(cited(c.source) or '—')}</i>"
-            label = [para(c.label, st.cell), cell(note + source, dense(st).note)]
             refs = [numbers[s] for s in steps if s in numbers]
+            r = len(rows)
             rows.append(
                 [
-                    label,
+                    para(c.label, st.cell),
                     ctx.q(c.demand),
                     ctx.q(c.capacity),
                     ctx.q(c.ratio, 3),
@@ -213,6 +184,16 @@ def checks_rows(
                     ", ".join(refs) or "—",
                 ]
             )
+            # the note and source under the check, across the table; the two rows stay together
+            rows.append([cell(note + source, dense(st).note), "", "", "", "", ""])
+            extra += [
+                ("SPAN", (0, r + 1), (-1, r + 1)),
+                ("NOSPLIT", (0, r), (-1, r + 1)),
+                ("LINEBELOW", (0, r), (-1, r), 0.45, colors.white),
+                ("TOPPADDING", (0, r + 1), (-1, r + 1), 0),
+                ("BOTTOMPADDING", (0, r), (-1, r), 0.5),
+                ("LEFTPADDING", (0, r + 1), (0, r + 1), 9),
+            ]
     return rows, extra
 
 
@@ -261,8 +242,7 @@ def results_story(m: MemberResult, ctx: Ctx) -> list:
                 frame_height=ctx.frame_height,
             )
         )
-    out.extend(scope_story(m, ctx))
-    out.append(
+    status = (
         Paragraph(f"Member {esc(m.id)}: <b>{esc(status_words(m))}</b> ({esc(checked_line(m))})", st.body)
         if m.status == "OK"
         else Paragraph(
@@ -271,4 +251,11 @@ def results_story(m: MemberResult, ctx: Ctx) -> list:
             st.body,
         )
     )
+    # the status line closes the checks (kept with their last rows); what was not checked follows it
+    last = max((k for k, f in enumerate(out) if isinstance(f, Table)), default=None)
+    if last is not None and last == len(out) - 1:
+        out[last] = KeepTail(out[last], [status])
+    else:
+        out.append(status)
+    out.extend(scope_story(m, ctx))
     return out

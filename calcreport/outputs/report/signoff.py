@@ -1,16 +1,25 @@
-"""End of the report: reviewer sign-off with room for comments, then limitations and cautions."""
+"""End of the report: limitations and cautions with what the tool does not check, then the
+reviewer's sign-off with room for comments (last: signed once everything above it has been read)."""
 
 from __future__ import annotations
 
 from reportlab.lib import colors
-from reportlab.platypus import KeepTogether, Paragraph, Spacer, Table, TableStyle
+from reportlab.lib.styles import ParagraphStyle
+from reportlab.platypus import CondPageBreak, KeepTogether, Paragraph, Spacer, Table, TableStyle
 
+from .columns import Columns
 from .common import Ctx, heading, para
 from .dense import dense
 from .pages import RULE
 from .styles import esc
 
-__all__ = ["signoff_story", "limitations_story", "NOT_CHECKED", "CAUTIONS", "COMMENT_LINES"]
+__all__ = [
+    "signoff_story",
+    "limitations_story",
+    "NOT_CHECKED",
+    "CAUTIONS",
+    "COMMENT_LINES",
+]
 
 #: ruled lines for the checker's comments
 COMMENT_LINES = 4
@@ -150,41 +159,16 @@ def _cautions(ctx: Ctx) -> Table:
     return t
 
 
-def _balanced(items: list, weights: list[int]) -> int:
-    """Where to cut ``items`` so the two columns carry about the same amount of text."""
-    total, run = sum(weights), 0
-    for i, wgt in enumerate(weights):
-        if run + wgt / 2 > total / 2:
-            return max(i, 1)
-        run += wgt
-    return len(items)
-
-
-def _not_checked_columns(ctx: Ctx) -> Table:
-    """The list in two columns, read down the left column then the right; every item kept."""
-    st, w = ctx.styles, ctx.width
-    items = [Paragraph("• " + esc(item), dense(st).item) for item in NOT_CHECKED]
-    cut = _balanced(items, [len(item) + 60 for item in NOT_CHECKED])  # + a line's end per item
-    t = Table([[items[:cut], items[cut:]]], colWidths=[w / 2, w / 2], hAlign="LEFT")
-    t.setStyle(
-        TableStyle(
-            [
-                ("VALIGN", (0, 0), (-1, -1), "TOP"),
-                ("LEFTPADDING", (0, 0), (-1, -1), 0),
-                ("RIGHTPADDING", (0, 0), (-1, -1), 8),
-                ("TOPPADDING", (0, 0), (-1, -1), 0),
-                ("BOTTOMPADDING", (0, 0), (-1, -1), 0),
-            ]
-        )
-    )
-    return t
-
-
 def limitations_story(ctx: Ctx) -> list:
+    """The numbered cautions, then what the tool does not check for any member, in two columns
+    that may run on to the next sheet (each item kept whole, the heading with the first)."""
     st = ctx.styles
-    out: list = [*heading("Limitations and cautions", st.h2)]
-    out.append(_cautions(ctx))
-    # the list is set whole with its heading (a third of a sheet at most)
-    head = dense(st).head
-    out.append(KeepTogether([para("This tool does not check:", head), _not_checked_columns(ctx)]))
-    return out
+    head = ParagraphStyle("not_checked_head", parent=dense(st).head, keepWithNext=1)
+    items = [[Paragraph("• " + esc(item), dense(st).item)] for item in NOT_CHECKED]
+    return [
+        *heading("Limitations and cautions", st.h2),
+        _cautions(ctx),
+        CondPageBreak(80.0),
+        Paragraph("This tool does not check:", head),
+        Columns(items),
+    ]

@@ -60,8 +60,8 @@ class Fonts:
 def register_fonts(regular: Path | None = None, bold: Path | None = None, mono: Path | None = None) -> Fonts:
     """Register the TrueType fonts (bundled DejaVu unless a template gives others); idempotent."""
     files = {
-        "regular": regular or FONT_DIR / "DejaVuSans.ttf",
-        "bold": bold or FONT_DIR / "DejaVuSans-Bold.ttf",
+        "regular": regular or FONT_DIR / "DejaVuSansCondensed.ttf",
+        "bold": bold or FONT_DIR / "DejaVuSansCondensed-Bold.ttf",
         "mono": mono or FONT_DIR / "DejaVuSansMono.ttf",
     }
     names = {}
@@ -109,7 +109,7 @@ def _clean(text: object) -> str:
     )
 
 
-_BODY = ["CR-DejaVuSans"]
+_BODY = ["CR-DejaVuSansCondensed"]
 
 
 def esc(text: object) -> str:

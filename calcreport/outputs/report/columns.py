@@ -1,0 +1,134 @@
+"""Two text columns that run down the left column, then the right, and on across sheets.
+
+A :class:`Columns` flowable holds *units* — short lists of flowables set together (a heading and
+its first entry, an entry and its notes) — and never splits one. On a sheet it cannot finish it
+fills the left column, then the right, to the foot of the frame and carries the rest to the next
+sheet; on its last sheet it balances the two columns (the shortest height that holds every unit
+in reading order). Heights are those the units' own ``wrap`` gives at the column width, measured
+once per width; the flowable draws nothing of its own.
+"""
+
+from __future__ import annotations
+
+from collections.abc import Sequence
+
+from reportlab.platypus import Flowable
+
+__all__ = ["Columns", "MIN_UNITS"]
+
+#: units carried to the next sheet at least (as a split table carries rows: :data:`.flow.MIN_ROWS`)
+MIN_UNITS = 3
+
+
+def _space(f: Flowable, first: bool) -> tuple[float, float]:
+    before = 0.0 if first else float(f.getSpaceBefore())
+    return before, float(f.getSpaceAfter())
+
+
+class Columns(Flowable):
+    """Units set in two columns (see module docstring); ``gap`` between the columns in points."""
+
+    def __init__(self, units: Sequence[Sequence[Flowable]], gap: float = 14.0):
+        super().__init__()
+        self.units = [list(u) for u in units if u]
+        self.gap = gap
+        self._measured: tuple[float, list[float]] | None = None
+        self._cols: tuple[list[int], list[int]] = ([], [])
+        self._fixed = False  # set by split(): this part fills its sheet's columns as laid out
+        self.width = self.height = 0.0
+
+    # -- measuring -------------------------------------------------------------------------
+    def _col_width(self, aw: float) -> float:
+        return (aw - self.gap) / 2.0
+
+    def _heights(self, aw: float) -> list[float]:
+        """Each unit's height inside a column, its space before included (the first unit of a
+        column drops it: :meth:`_lead`)."""
+        cw = self._col_width(aw)
+        if self._measured is None or self._measured[0] != cw:
+            out = []
+            for unit in self.units:
+                h = 0.0
+                for f in unit:
+                    _, fh = f.wrap(cw, 1e9)
+                    before, after = _space(f, False)
+                    h += before + fh + after
+                out.append(h)
+            self._measured = (cw, out)
+        return self._measured[1]
+
+    def _lead(self, k: int) -> float:
+        """The space before the first flowable of unit ``k`` (dropped at a column's top)."""
+        return float(self.units[k][0].getSpaceBefore())
+
+    def _fill(self, heights: list[float], start: int, limit: float) -> int:
+        """The index after the last unit from ``start`` that fits in ``limit`` points."""
+        used, k = 0.0, start
+        while k < len(heights):
+            h = heights[k] - (self._lead(k) if k == start else 0.0)
+            if used + h > limit + 1e-6:
+                break
+            used += h
+            k += 1
+        return k
+
+    def _column_height(self, heights: list[float], a: int, b: int) -> float:
+        return sum(heights[a:b]) - (self._lead(a) if b > a else 0.0)
+
+    def _balanced(self, heights: list[float]) -> tuple[int, float]:
+        """(cut, height): the left column takes units [0, cut); the taller column is the least tall."""
+        n = len(heights)
+        best = (n, self._column_height(heights, 0, n))
+        for cut in range(1, n):
+            h = max(self._column_height(heights, 0, cut), self._column_height(heights, cut, n))
+            if h < best[1] - 1e-6:
+                best = (cut, h)
+        return best
+
+    # -- flowable protocol -----------------------------------------------------------------
+    def wrap(self, aw: float, ah: float) -> tuple[float, float]:
+        if self._fixed:
+            return self.width, self.height
+        heights = self._heights(aw)
+        n = len(heights)
+        cut, h = self._balanced(heights)
+        if h <= ah + 1e-6:
+            self._cols = (list(range(0, cut)), list(range(cut, n)))
+            self.width, self.height = aw, h
+        else:  # more than this sheet holds: split() carries the rest on
+            self._cols = (list(range(n)), [])
+            self.width, self.height = aw, h
+        return self.width, self.height
+
+    def split(self, aw: float, ah: float) -> list[Flowable]:
+        heights = self._heights(aw)
+        left = self._fill(heights, 0, ah)
+        right = self._fill(heights, left, ah)
+        if right == 0:
+            return []  # not even one unit fits here: the next sheet
+        if right >= len(heights):
+            return [self]
+        if len(heights) - right < MIN_UNITS <= right - MIN_UNITS:
+            right = len(heights) - MIN_UNITS  # never a unit or two alone on the next sheet
+            left = min(left, right)
+        first = Columns(self.units[:right], self.gap)
+        first._measured = (self._col_width(aw), heights[:right])
+        first._cols = (list(range(0, left)), list(range(left, right)))
+        first.width = aw
+        first.height = max(self._column_height(heights, 0, left), self._column_height(heights, left, right))
+        first._fixed = True
+        rest = Columns(self.units[right:], self.gap)
+        return [first, rest]
+
+    def draw(self) -> None:
+        cw = self._col_width(self.width)
+        for col, indices in enumerate(self._cols):
+            x = col * (cw + self.gap)
+            y = self.height
+            for j, k in enumerate(indices):
+                for i, f in enumerate(self.units[k]):
+                    _, fh = f.wrap(cw, 1e9)
+                    before, after = _space(f, j == 0 and i == 0)
+                    y -= before + fh
+                    f.drawOn(self.canv, x, y)
+                    y -= after
