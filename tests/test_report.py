@@ -196,19 +196,24 @@ def test_ng_is_shown_plainly(mixed):
 
 
 def test_long_derivation_tables_repeat_their_header(demo):
+    """A derivation table that runs on to the next sheet starts there with its header row again
+    (common typesetting practice, no source): no sheet opens on a bare step row of a derivation
+    the sheet before it already showed, and at least one derivation does run on."""
     _, _, texts = demo
     # the checks table's Step column refers to step numbers; only the derivation tables are read here
     pages = [t.split("Check (note; source)", 1)[0] for t in texts]
-    # a derivation whose steps run over more than one sheet (which one depends on the layout)
-    heads = sorted({h for t in pages for h in re.findall(r"^(\d+\.\d+)\.\d+", t, re.M)})
-    long = [h for h in heads if sum(bool(re.search(rf"^{re.escape(h)}\.\d+", t, re.M)) for t in pages) >= 2]
-    assert long, heads
-    h = long[0]
-    step_pages = [t for t in pages if re.search(rf"^{re.escape(h)}\.\d+", t, re.M)]
-    continued = [t for t in step_pages if re.match(rf"\s*{re.escape(h)}\.\d+", t.split("Source", 1)[-1])]
-    for t in step_pages:
-        assert "No." in t and "Step" in t and "Source" in t
-    assert continued
+    groups = [set(re.findall(r"^(\d+\.\d+)\.\d+", t, re.M)) for t in pages]
+    runs_on = 0
+    for i in range(1, len(pages)):
+        lines = [ln.strip() for ln in pages[i].splitlines() if ln.strip()]
+        if not lines:
+            continue
+        bare = re.match(r"^(\d+\.\d+)\.\d+$", lines[0])
+        assert not (bare and bare.group(1) in groups[i - 1]), (i + 1, lines[:3])
+        if lines[0] == "No." and len(lines) > 3:
+            first = next((m for ln in lines[1:8] if (m := re.match(r"^(\d+\.\d+)\.\d+$", ln))), None)
+            runs_on += bool(first and first.group(1) in groups[i - 1])
+    assert runs_on >= 1
 
 
 def test_a4_template_from_the_job(mixed):

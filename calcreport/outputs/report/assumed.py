@@ -13,7 +13,7 @@ from __future__ import annotations
 import re
 
 from reportlab.lib.styles import ParagraphStyle
-from reportlab.platypus import Paragraph
+from reportlab.platypus import Flowable, Paragraph
 
 from ...solve.results import Assumed
 from .columns import Columns
@@ -157,21 +157,44 @@ def _entries(ctx: Ctx, groups: list[tuple[str, str, list[list]]]) -> list[list]:
 
 def assumed_story(ctx: Ctx) -> list:
     st = ctx.styles
-    out: list = [Paragraph("Assumed values", st.h1)]
+    title = Paragraph("Assumed values", st.h1)
     groups = assumed_groups(ctx)
     count = sum(len(rows) for _, _, rows in groups)
     if not count:
-        out.append(para("None: the job states every value the calculation uses.", st.body))
-        return out
-    out.append(  # a lead: kept with the columns by the page discipline
-        Paragraph(
-            f"<b>{count} values assumed.</b> The job file did not state the values below; the tool used "
-            "them. Each is a choice the engineer of record should confirm or state in the job file with "
-            "the key shown: a shaded heading names a table of keys (and where they are stated), each entry "
-            "below it a key within it, the value used and what it is. An entry is a tool default unless a "
-            "basis is given under it. Read down the left column, then the right.",
-            st.small,
-        )
+        return [title, para("None: the job states every value the calculation uses.", st.body)]
+    lead = Paragraph(
+        f"<b>{count} values assumed.</b> The job file did not state the values below; the tool used "
+        "them. Each is a choice the engineer of record should confirm or state in the job file with "
+        "the key shown: a shaded heading names a table of keys (and where they are stated), each entry "
+        "below it a key within it, the value used and what it is. An entry is a tool default unless a "
+        "basis is given under it. Read down the left column, then the right.",
+        st.small,
     )
-    out.append(Columns(_entries(ctx, groups)))
-    return out
+    # the title and its lead head the columns: they go where the first entries go
+    return [Columns(_entries(ctx, groups), head=_Stack([title, lead]))]
+
+
+class _Stack(Flowable):
+    """Flowables one above the other as one (the head of a :class:`.columns.Columns`)."""
+
+    def __init__(self, parts: list[Flowable]):
+        super().__init__()
+        self.parts = parts
+
+    def wrap(self, aw: float, ah: float) -> tuple[float, float]:
+        self.width = aw
+        self.height = sum(self._h(p, aw, k) for k, p in enumerate(self.parts))
+        return aw, self.height
+
+    @staticmethod
+    def _h(p: Flowable, aw: float, k: int) -> float:
+        _, h = p.wrap(aw, 1e9)
+        return h + (p.getSpaceBefore() if k else 0.0) + (p.getSpaceAfter() if k < 1 else 0.0)
+
+    def draw(self) -> None:
+        y = self.height
+        for k, p in enumerate(self.parts):
+            _, h = p.wrap(self.width, 1e9)
+            y -= (p.getSpaceBefore() if k else 0.0) + h
+            p.drawOn(self.canv, 0, y)
+            y -= p.getSpaceAfter() if k < 1 else 0.0

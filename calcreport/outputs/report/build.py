@@ -16,7 +16,7 @@ from pathlib import Path
 
 from reportlab.lib.utils import TimeStamp
 from reportlab.pdfgen.canvas import Canvas
-from reportlab.platypus import CondPageBreak, KeepTogether, PageBreak
+from reportlab.platypus import KeepTogether, PageBreak
 
 from ... import __version__
 from ...safewrite import write_atomic
@@ -88,8 +88,8 @@ def _story(
         story.append(SectionStart(f"member:{m.id}", sections[i][1], subject))
         story.append(member_title(m, i, ctx))
         story += member_story(m, ctx, i)
-    # the assumed values follow the last member's results on its sheet when a good part of it is left
-    story.append(CondPageBreak(0.45 * ctx.frame_height))
+    # the assumed values follow the last member's results on its sheet (their title and lead go
+    # where their first entries go: outputs/report/columns.py)
     story.append(SectionStart("assumed", "Assumed values", "Assumed values"))
     story += assumed_story(ctx)
     story.append(SectionStart("limits", "Limitations and cautions", "Limitations and cautions"))

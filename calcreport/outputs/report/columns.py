@@ -4,8 +4,9 @@ A :class:`Columns` flowable holds *units* — short lists of flowables set toget
 its first entry, an entry and its notes) — and never splits one. On a sheet it cannot finish it
 fills the left column, then the right, to the foot of the frame and carries the rest to the next
 sheet; on its last sheet it balances the two columns (the shortest height that holds every unit
-in reading order). Heights are those the units' own ``wrap`` gives at the column width, measured
-once per width; the flowable draws nothing of its own.
+in reading order). A ``head`` (a heading across both columns) is set above the first part only,
+and goes where at least :data:`MIN_UNITS` units go with it. Heights are those the units' own
+``wrap`` gives at the column width, measured once per width; the flowable draws nothing of its own.
 """
 
 from __future__ import annotations
@@ -28,10 +29,11 @@ def _space(f: Flowable, first: bool) -> tuple[float, float]:
 class Columns(Flowable):
     """Units set in two columns (see module docstring); ``gap`` between the columns in points."""
 
-    def __init__(self, units: Sequence[Sequence[Flowable]], gap: float = 14.0):
+    def __init__(self, units: Sequence[Sequence[Flowable]], gap: float = 14.0, head: Flowable | None = None):
         super().__init__()
         self.units = [list(u) for u in units if u]
         self.gap = gap
+        self.head = head
         self._measured: tuple[float, list[float]] | None = None
         self._cols: tuple[list[int], list[int]] = ([], [])
         self._fixed = False  # set by split(): this part fills its sheet's columns as laid out
@@ -85,46 +87,64 @@ class Columns(Flowable):
                 best = (cut, h)
         return best
 
+    def _head_height(self, aw: float) -> float:
+        if self.head is None:
+            return 0.0
+        _, h = self.head.wrap(aw, 1e9)
+        return h + float(self.head.getSpaceAfter())
+
+    def getSpaceBefore(self) -> float:  # noqa: N802 - reportlab's name
+        return float(self.head.getSpaceBefore()) if self.head is not None else 0.0
+
     # -- flowable protocol -----------------------------------------------------------------
     def wrap(self, aw: float, ah: float) -> tuple[float, float]:
         if self._fixed:
             return self.width, self.height
         heights = self._heights(aw)
+        top = self._head_height(aw)
         n = len(heights)
         cut, h = self._balanced(heights)
-        if h <= ah + 1e-6:
+        if top + h <= ah + 1e-6:
             self._cols = (list(range(0, cut)), list(range(cut, n)))
-            self.width, self.height = aw, h
         else:  # more than this sheet holds: split() carries the rest on
             self._cols = (list(range(n)), [])
-            self.width, self.height = aw, h
+        self.width, self.height = aw, top + h
         return self.width, self.height
 
     def split(self, aw: float, ah: float) -> list[Flowable]:
         heights = self._heights(aw)
-        left = self._fill(heights, 0, ah)
-        right = self._fill(heights, left, ah)
-        if right == 0:
-            return []  # not even one unit fits here: the next sheet
-        if right >= len(heights):
+        top = self._head_height(aw)
+        n = len(heights)
+        left = self._fill(heights, 0, ah - top)
+        right = self._fill(heights, left, ah - top)
+        if right < min(MIN_UNITS, n):
+            return []  # too little room here for the head and a few units: the next sheet
+        if right >= n:
             return [self]
-        if len(heights) - right < MIN_UNITS <= right - MIN_UNITS:
-            right = len(heights) - MIN_UNITS  # never a unit or two alone on the next sheet
+        if n - right < MIN_UNITS <= right - MIN_UNITS:
+            right = n - MIN_UNITS  # never a unit or two alone on the next sheet
             left = min(left, right)
-        first = Columns(self.units[:right], self.gap)
+        first = Columns(self.units[:right], self.gap, self.head)
         first._measured = (self._col_width(aw), heights[:right])
         first._cols = (list(range(0, left)), list(range(left, right)))
         first.width = aw
-        first.height = max(self._column_height(heights, 0, left), self._column_height(heights, left, right))
+        first.height = top + max(
+            self._column_height(heights, 0, left), self._column_height(heights, left, right)
+        )
         first._fixed = True
         rest = Columns(self.units[right:], self.gap)
         return [first, rest]
 
     def draw(self) -> None:
         cw = self._col_width(self.width)
+        top = 0.0
+        if self.head is not None:
+            _, hh = self.head.wrap(self.width, 1e9)
+            self.head.drawOn(self.canv, 0, self.height - hh)
+            top = hh + float(self.head.getSpaceAfter())
         for col, indices in enumerate(self._cols):
             x = col * (cw + self.gap)
-            y = self.height
+            y = self.height - top
             for j, k in enumerate(indices):
                 for i, f in enumerate(self.units[k]):
                     _, fh = f.wrap(cw, 1e9)

@@ -94,7 +94,7 @@ def para(text: object, style, markup: str = "") -> Flowable:
     return fast_cell(body, style)
 
 
-def heading(text: str, style, need: float = 110.0) -> list:
+def heading(text: str, style, need: float = 60.0) -> list:
     """A heading that starts a new sheet when less than ``need`` points remain (no orphans)."""
     return [CondPageBreak(need), para(text, style)]
 

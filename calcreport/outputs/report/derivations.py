@@ -173,12 +173,16 @@ def _group_body(g: Group, ctx: Ctx, fold: Fold | None) -> list:
     return out
 
 
-def stage_story(groups: list[Group], ctx: Ctx, folds: dict[str, Fold] | None = None) -> list:
-    """The headings and step tables of some groups (already numbered)."""
+def stage_story(
+    groups: list[Group], ctx: Ctx, folds: dict[str, Fold] | None = None, heading_style=None
+) -> list:
+    """The headings and step tables of some groups (already numbered); ``heading_style`` sets
+    their headings in another style (a stage of one group named as the stage: the group's
+    numbered heading stands for both)."""
     st = ctx.styles
     out: list = []
     for g in groups:
-        out += heading(f"{g.number}  {g.title}", st.h3)
+        out += heading(f"{g.number}  {g.title}", heading_style or st.h3)
         out += _group_body(g, ctx, (folds or {}).get(g.gid))
     return out
 

@@ -2,10 +2,14 @@
 closing line, headings stay with what follows.
 
 * :class:`EvenTable` — a table (ours, :func:`.common.grid`) that, when it must split, never leaves
-  fewer than :data:`MIN_ROWS` body rows on either side: it moves whole (when it fits a sheet) or
-  moves rows over so the two parts are nearer in size.
+  a part of fewer than :data:`MIN_ROWS` body rows on either side unless that part is itself at
+  least :data:`MIN_PART` of the frame high (two derivation rows of four lines each are a block,
+  not a lone row; the orphan measure of the layout tests is 10 %): it moves whole (when it fits a
+  sheet) or moves rows over so the two parts are nearer in size.
 * :class:`KeepTail` — a table and the lines that close it (the member's status line): the lines
   are kept with the table's last rows, never set alone on a new sheet.
+* :class:`HeadAtTop` — a table that continues the columns of the one above it without a header
+  row, given its header when it starts a sheet (so no sheet opens on a bare row).
 * :func:`disciplined` — one pass over the story: every table becomes an :class:`EvenTable` and
   headings are kept with the next flowable when that one is short.
 """
@@ -17,10 +21,12 @@ from reportlab.platypus import CondPageBreak, Flowable, KeepTogether, Paragraph,
 from .fastcell import LineCell
 from .pages import MarginMark, OutlineMark, SectionStart
 
-__all__ = ["EvenTable", "KeepHead", "KeepTail", "disciplined", "MIN_ROWS"]
+__all__ = ["EvenTable", "HeadAtTop", "KeepHead", "KeepTail", "disciplined", "MIN_ROWS"]
 
 #: body rows a split table keeps on each side of the break
 MIN_ROWS = 3
+#: ... unless the rows on that side are at least this share of the frame height
+MIN_PART = 0.12
 _HEADINGS = ("h1", "h2", "h3")
 
 
@@ -51,9 +57,10 @@ class EvenTable(Table):
             return super().split(availWidth, availHeight)
         first, rest = cut - head, n - cut
         fresh = self.frame_height and availHeight >= 0.95 * self.frame_height
-        if first < MIN_ROWS and not fresh and body > 0:
+        block = MIN_PART * self.frame_height if self.frame_height else float("inf")
+        if first < MIN_ROWS and sum(heights[head:cut]) < block and not fresh and body > 0:
             return []  # too little room here: the whole table (or its start) moves to the next sheet
-        if rest < MIN_ROWS and body >= 2 * MIN_ROWS:
+        if rest < MIN_ROWS and sum(heights[cut:]) < block and body >= 2 * MIN_ROWS:
             cut = n - MIN_ROWS  # leave MIN_ROWS for the next sheet
             return super().split(availWidth, sum(heights[:cut]) + 0.01)
         return super().split(availWidth, availHeight)
@@ -131,6 +138,38 @@ class KeepHead(Flowable):
         pass
 
 
+class HeadAtTop(Flowable):
+    """``bare`` (rows continuing the table above, no header) where it follows that table on a
+    sheet; ``headed`` (the same rows under their header row) where it starts a fresh sheet."""
+
+    def __init__(self, bare: Table, headed: Table, frame_height: float):
+        super().__init__()
+        self.bare, self.headed, self.frame_height = bare, headed, frame_height
+        self._use: Table = bare
+
+    def _pick(self, ah: float) -> Table:
+        fresh = self.frame_height and ah >= 0.95 * self.frame_height
+        self._use = self.headed if fresh else self.bare
+        return self._use
+
+    def wrap(self, aw, ah):
+        w, h = self._pick(ah).wrap(aw, ah)
+        self.width, self.height = w, h
+        return w, h
+
+    def split(self, aw, ah):
+        return self._pick(ah).split(aw, ah)
+
+    def getSpaceBefore(self):  # noqa: N802 - reportlab's name
+        return self._use.getSpaceBefore()
+
+    def getSpaceAfter(self):  # noqa: N802 - reportlab's name
+        return self._use.getSpaceAfter()
+
+    def drawOn(self, canvas, x, y, _sW=0):  # noqa: N802 - reportlab's name
+        self._use.drawOn(canvas, x, y, _sW)
+
+
 def _even(t: Table, frame_height: float) -> Table:
     if type(t) is Table:
         t.__class__ = EvenTable
@@ -165,6 +204,9 @@ def disciplined(story: list, frame_height: float) -> list:
         elif isinstance(f, KeepTail):
             _even(f.table, frame_height)
             f.frame_height = frame_height
+        elif isinstance(f, HeadAtTop):
+            _even(f.bare, frame_height)
+            _even(f.headed, frame_height)
         elif isinstance(f, KeepTogether):
             for g in f._content:
                 if isinstance(g, Table):
@@ -179,9 +221,19 @@ def disciplined(story: list, frame_height: float) -> list:
             j = i
             while j < len(out) and (_is_heading(out[j]) or _is_lead(out[j])):
                 j += 1
-            if j < len(out) and isinstance(out[j], Table) and j - i <= 8:
+            if j < len(out) and isinstance(out[j], (Table, HeadAtTop)) and j - i <= 8:
                 head = [g for g in out[i:j] if not isinstance(g, CondPageBreak)]  # KeepHead decides
                 done.append(KeepHead(head, out[j], frame_height))
+                i = j + 1
+                continue
+            if (
+                j < len(out)
+                and isinstance(out[j], KeepTogether)
+                and j - i <= 8
+                and any(_is_heading(g) for g in out[i:j])
+            ):  # a heading, the lines under it and a figure kept together: one level, flattened
+                head = [g for g in out[i:j] if not isinstance(g, CondPageBreak)]
+                done.append(KeepTogether([*head, *out[j]._content]))
                 i = j + 1
                 continue
             nxt = out[i + 1] if i + 1 < len(out) else None

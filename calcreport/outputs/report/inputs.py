@@ -228,11 +228,13 @@ def _connectors(m: MemberResult, ctx: Ctx) -> list:
     ]
 
 
-def inputs_story(m: MemberResult, ctx: Ctx) -> list:
+def inputs_story(m: MemberResult, ctx: Ctx, detail: list | None = None) -> list:
+    """The inputs; ``detail`` (the dimensioned section detail) heads the parts it draws."""
     st = ctx.styles
     return [
         *heading("Inputs", st.h2),
         *heading("Parts of the section", st.h3),
+        *(detail or []),
         _parts_table(m.member, ctx),
         *heading("Materials", st.h3),
         _materials_table(m.member, ctx),

@@ -100,7 +100,8 @@ def member_story(m: MemberResult, ctx: Ctx, number: int) -> list:
     out: list = []
     out += description_story(m, ctx)
     out += assumptions_story(m, ctx)
-    out += inputs_story(m, ctx)
+    drawing, caption = section_drawing(m, ctx)  # the detail heads the parts it dimensions
+    out += inputs_story(m, ctx, [KeepTogether([fit_figure(drawing, ctx), para(caption, st.caption)])])
     groups = member_groups(m)
     for k, g in enumerate(groups, 1):
         g.number = f"{number}.{k}"
@@ -116,12 +117,16 @@ def member_story(m: MemberResult, ctx: Ctx, number: int) -> list:
     done_schedules: set[str] = set()
     for sid, title in STAGES:
         body: list = []
+        stage_groups = by_stage.get(sid, [])
+        single = (
+            sid not in ("loads", "section", "analysis", "schedule")
+            and len(stage_groups) == 1
+            and stage_groups[0].title.strip().lower() == title.strip().lower()
+        )
         if sid == "loads":
             body += _loads_figures(m, ctx)
             body += stage_story(by_stage.get(sid, []), ctx, folds)
         elif sid == "section":
-            drawing, caption = section_drawing(m, ctx)
-            body.append(KeepTogether([fit_figure(drawing, ctx), para(caption, st.caption)]))
             body += stage_story(by_stage.get(sid, []), ctx, folds)
         elif sid == "analysis":
             body += stage_story(by_stage.get(sid, []), ctx, folds)
@@ -140,13 +145,15 @@ def member_story(m: MemberResult, ctx: Ctx, number: int) -> list:
                         para(f"Its q(x) chart and zone elevation are those of joint {base}.", st.small)
                     )
         else:
-            body += stage_story(by_stage.get(sid, []), ctx, folds)
+            body += stage_story(stage_groups, ctx, folds, st.h2 if single else None)
         if sid == "schedule":  # a schedule without steps of its own still shows its table
             for j in m.joints:
                 if j.schedule is not None and j.id not in done_schedules:
                     body += _schedule_figures(m, ctx, j.id)
         if body:
-            out += [OutlineMark(title, 1), *heading(title, st.h2, need=160)]
+            out.append(OutlineMark(title, 1))
+            if not single:  # a lone group named as its stage ("1.5 Member checks") heads it
+                out += heading(title, st.h2, need=80)
             if intro is not None and by_stage.get(sid):
                 out.append(intro)
                 intro = None

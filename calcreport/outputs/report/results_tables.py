@@ -29,7 +29,7 @@ __all__ = ["results_story", "checks_rows", "scope_story", "step_numbers", "folde
 _JOINT_KEY = re.compile(r"\.joint\[([^\]]+)\]")
 
 
-def _heading(text: str, style, need: float = 110.0) -> list:
+def _heading(text: str, style, need: float = 60.0) -> list:
     """A heading as a real ``Paragraph`` (so page discipline keeps it with the table after it),
     on a new sheet when less than ``need`` points remain."""
     return [CondPageBreak(need), Paragraph(esc(text), style)]
@@ -58,7 +58,7 @@ def scope_story(m: MemberResult, ctx: Ctx) -> list:
             Paragraph("Every check listed for this kind of member ran.", st.body),
         ]
     # two columns of entries read down the left, then the right, the title kept with the first
-    head = ParagraphStyle("not_checked_title", parent=st.h3, keepWithNext=1)
+    head = st.h3
     entry = ParagraphStyle(
         "not_checked_entry", parent=st.cell, leftIndent=9, firstLineIndent=-9, spaceAfter=2.2
     )
@@ -71,7 +71,7 @@ def scope_story(m: MemberResult, ctx: Ctx) -> list:
         "These are not part of the status above; check them by hand or give the job what they need.",
         st.small,
     )
-    return [CondPageBreak(110.0), Paragraph(esc(title), head), Columns(units), note]
+    return [Columns(units, head=Paragraph(esc(title), head)), note]
 
 
 def _joint_cells(j: JointResult, ctx: Ctx) -> list[str]:

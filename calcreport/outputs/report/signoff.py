@@ -4,8 +4,7 @@ reviewer's sign-off with room for comments (last: signed once everything above i
 from __future__ import annotations
 
 from reportlab.lib import colors
-from reportlab.lib.styles import ParagraphStyle
-from reportlab.platypus import CondPageBreak, KeepTogether, Paragraph, Spacer, Table, TableStyle
+from reportlab.platypus import KeepTogether, Paragraph, Spacer, Table, TableStyle
 
 from .columns import Columns
 from .common import Ctx, heading, para
@@ -163,12 +162,6 @@ def limitations_story(ctx: Ctx) -> list:
     """The numbered cautions, then what the tool does not check for any member, in two columns
     that may run on to the next sheet (each item kept whole, the heading with the first)."""
     st = ctx.styles
-    head = ParagraphStyle("not_checked_head", parent=dense(st).head, keepWithNext=1)
     items = [[Paragraph("• " + esc(item), dense(st).item)] for item in NOT_CHECKED]
-    return [
-        *heading("Limitations and cautions", st.h2),
-        _cautions(ctx),
-        CondPageBreak(80.0),
-        Paragraph("This tool does not check:", head),
-        Columns(items),
-    ]
+    head = Paragraph("This tool does not check:", dense(st).head)
+    return [*heading("Limitations and cautions", st.h2), _cautions(ctx), Columns(items, head=head)]

@@ -16,6 +16,7 @@ from reportlab.lib.styles import ParagraphStyle
 from ...steps import Step
 from .common import GOVERNS_TINT, Ctx, cited, grid, para
 from .fastcell import cell
+from .flow import HeadAtTop
 from .step_cell import StepCell
 from .styles import esc
 
@@ -91,20 +92,24 @@ def steps_table(steps: list[Step], ctx: Ctx, prefix: str, numbers: list[int], he
     ``header`` it continues the columns of a table above it under the same heading."""
     if not steps:
         return []
-    w = ctx.width
+    table = _table(steps, ctx, prefix, numbers, header)
+    if header:
+        return [table]
+    # rows under the table above; headed again where they start a sheet (flow.HeadAtTop)
+    return [HeadAtTop(table, _table(steps, ctx, prefix, numbers, True), ctx.frame_height)]
+
+
+def _table(steps: list[Step], ctx: Ctx, prefix: str, numbers: list[int], header: bool):
     rows, extra = step_rows(steps, ctx, prefix, numbers, header)
-    widths = [k * w for k in STEP_WIDTHS]
-    return [
-        grid(
-            rows,
-            widths,
-            ctx.styles,
-            header_rows=1 if header else 0,
-            extra=[*(TIGHT if header else _TIGHT_ALL), *extra],
-            zebra=False,
-            frame_height=ctx.frame_height,
-        )
-    ]
+    return grid(
+        rows,
+        [k * ctx.width for k in STEP_WIDTHS],
+        ctx.styles,
+        header_rows=1 if header else 0,
+        extra=[*(TIGHT if header else _TIGHT_ALL), *extra],
+        zebra=False,
+        frame_height=ctx.frame_height,
+    )
 
 
 _TIGHT_ALL = tuple((c, (0, 0), b, *v) for c, _a, b, *v in TIGHT)

@@ -35,14 +35,14 @@ class Template:
 
     name: str = "letter (built in)"
     page: str = "letter"
-    margins: tuple[float, float, float, float] = (54.0, 54.0, 40.0, 40.0)  # left, right, top, bottom
+    margins: tuple[float, float, float, float] = (54.0, 43.2, 36.0, 36.0)  # left, right, top, bottom (in pt)
     firm: str = "Consulting Structural Engineers"
     address: tuple[str, ...] = ()
     logo: Path | None = None
     font: Path | None = None
     font_bold: Path | None = None
     font_mono: Path | None = None
-    font_size: float = 9.0
+    font_size: float = 8.5
     accent: str = "#2b5d7d"
     seal_field: str = "engineer-seal"  # the empty signature field reserved in the cover's seal box
     extra: dict = field(default_factory=dict)
