@@ -174,10 +174,27 @@ def test_every_caution_and_limitation_is_printed(built):
 
 
 def test_the_door_header_closing_sheets(built):
-    """Results to the end of the sign-off: three sheets counted from the one the results start on,
-    results starting part-way down a sheet (four and a half whole sheets before this work, four
-    before the closing lists were set in two columns)."""
+    """Results to the end of the limitations: three sheets counted from the one the results start
+    on, results starting part-way down a sheet (four and a half whole sheets before this work, four
+    before the closing lists were set in two columns); the sign-off is on the cover."""
     _, pages = built[DOOR.stem]
     first = next(i for i, t in enumerate(pages) if re.search(r"^Results$", t, re.M) and "Demand q" in t)
-    last = next(i for i, t in enumerate(pages) if "Checker's comments" in t)
+    last = max(i for i, t in enumerate(pages) if "This tool does not check:" in t or "fire resistance" in t)
     assert last - first + 1 <= 3
+    assert "Checker's comments" in pages[0] and "Review and sign-off" in pages[0]
+
+
+@pytest.mark.parametrize("stem", [j.stem for j in JOBS])
+def test_the_signoff_is_on_the_cover_or_closes_the_calculation(built, stem):
+    """Once, whole: on the cover under the contents when it fits there, else after the
+    limitations, before any fabrication sheet (common practice, no source)."""
+    _, pages = built[stem]
+    where = [i for i, t in enumerate(pages) if "Checker's comments" in t]
+    assert len(where) == 1
+    (i,) = where
+    assert "Review and sign-off" in pages[i] and "Prepared by" in pages[i] and "Approved by" in pages[i]
+    calc = [
+        k for k, t in enumerate(pages) if "Fabrication sheet — member" not in t.split("\n", 3)[0] + t[:400]
+    ]
+    limits = max(k for k, t in enumerate(pages) if "stability of the structure as a whole" in t)
+    assert i == 0 or (i >= limits and i == max(calc)), (i, limits)

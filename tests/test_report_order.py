@@ -287,10 +287,10 @@ def test_no_sheet_carries_only_a_closing_line(built, stem):
 
 def test_the_door_header_got_shorter(built):
     """Issue 15: 19 sheets before this work, 13 before the tabulated connector steps and the compacted
-    closing tables, 10 before the condensed face and the closing lists in two columns (measured);
-    the stated target is 8."""
+    closing tables, 10 before the condensed face and the closing lists in two columns, 9 before the
+    sign-off moved onto the cover where it fits (measured); the stated target is 8."""
     _, _, pages = built[DOOR.stem]
-    assert len(pages) <= 9
+    assert len(pages) <= 8
 
 
 def _table(n: int, row_h: float = 20.0) -> EvenTable:

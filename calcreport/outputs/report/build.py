@@ -63,29 +63,73 @@ def _canvasmaker(extra: dict[str, str], stamp: TimeStamp):
     return ReportCanvas
 
 
-def report_sections(result: JobResult) -> list[tuple[str, str]]:
-    """(section id, contents title) in report order."""
+SIGNOFF = ("signoff", "Review and sign-off")
+
+
+def report_sections(result: JobResult, signoff_on_cover: bool = False) -> list[tuple[str, str]]:
+    """(section id, contents title) in report order; the sign-off on the cover when it fits there
+    (:func:`_signoff_fits_cover`), else last."""
     out = [("cover", "Cover: summary, revision history and contents")]
+    if signoff_on_cover:
+        out.append(SIGNOFF)
     for i, m in enumerate(result.members, 1):
         out.append((f"member:{m.id}", f"{i}  Member {m.id} — {m.member.title}"))
-    out += [
-        ("assumed", "Assumed values"),
-        ("limits", "Limitations and cautions"),
-        ("signoff", "Review and sign-off"),
-    ]
+    out += [("assumed", "Assumed values"), ("limits", "Limitations and cautions")]
+    if not signoff_on_cover:
+        out.append(SIGNOFF)
     out += fabrication_sections(result)  # fabrication sheets close the report (outputs/fabrication.py)
     return out
 
 
+def _flat(block: list) -> list:
+    """A KeepTogether inside another always measures as too tall: its content, flattened."""
+    out: list = []
+    for f in block:
+        out += f._content if isinstance(f, KeepTogether) else [f]
+    return out
+
+
+def _measure(flowables: list, width: float, height: float) -> float:
+    total = 0.0
+    for f in flowables:
+        _, h = f.wrap(width, height)
+        total += h + f.getSpaceBefore() + f.getSpaceAfter()
+    return total
+
+
+def _signoff_fits_cover(ctx: Ctx, info: PageInfo, result: JobResult) -> bool:
+    """The sign-off goes on the cover, under the contents, when the cover and it fit one sheet
+    (the cover's own flowables and the block measured at the frame's width, with a line to spare);
+    otherwise it closes the report."""
+    sections = report_sections(result, True)  # same rows as either order: the same height
+    refs = dict(info.refs)  # the trial cover asks for contents cells: forget them afterwards
+    try:
+        cover = _measure(cover_story(ctx, info, sections), ctx.width, ctx.frame_height)
+    finally:
+        info.refs.clear()
+        info.refs.update(refs)
+    block = _measure(_flat(signoff_story(ctx, on_cover=True)), ctx.width, ctx.frame_height)
+    return cover + block + 12.0 <= ctx.frame_height
+
+
 def _story(
-    ctx: Ctx, info: PageInfo, sections: list[tuple[str, str]], fab_sheets: dict[str, int] | None = None
+    ctx: Ctx,
+    info: PageInfo,
+    sections: list[tuple[str, str]],
+    fab_sheets: dict[str, int] | None = None,
+    signoff_on_cover: bool = False,
 ) -> list:
     story: list = [SectionStart("cover", sections[0][1], "Cover and summary")]
     story += cover_story(ctx, info, sections)
+    if signoff_on_cover:
+        story.append(
+            KeepTogether([SectionStart(*SIGNOFF, "Cover and summary"), *_flat(signoff_story(ctx, True))])
+        )
+    offset = 1 if signoff_on_cover else 0  # the sign-off's entry sits before the members'
     for i, m in enumerate(ctx.result.members, 1):
         story.append(PageBreak())
         subject = f"Member {m.id} — {m.member.title}"
-        story.append(SectionStart(f"member:{m.id}", sections[i][1], subject))
+        story.append(SectionStart(f"member:{m.id}", sections[i + offset][1], subject))
         story.append(member_title(m, i, ctx))
         story += member_story(m, ctx, i)
     # the assumed values follow the last member's results on its sheet (their title and lead go
@@ -94,11 +138,10 @@ def _story(
     story += assumed_story(ctx)
     story.append(SectionStart("limits", "Limitations and cautions", "Limitations and cautions"))
     story += limitations_story(ctx)
-    # the sign-off block is set whole, last: signed once everything above it has been read
-    block: list = [SectionStart("signoff", "Review and sign-off", "Review and sign-off")]
-    for f in signoff_story(ctx):  # flattened: a KeepTogether inside another always measures as too tall
-        block += f._content if isinstance(f, KeepTogether) else [f]
-    story.append(KeepTogether(block))
+    if not signoff_on_cover:  # set whole, last: signed once everything above it has been read
+        story.append(
+            KeepTogether([SectionStart(*SIGNOFF, "Review and sign-off"), *_flat(signoff_story(ctx))])
+        )
     story += fabrication_story(ctx, record=fab_sheets)  # one sheet per member, each on a new page
     return story
 
@@ -142,7 +185,6 @@ def render_pdf(
     styles = make_styles(fonts, tpl.accent_color, tpl.font_size)
     display = Display(job.settings.units, job.settings.display)
     info = _page_info(result, tpl)
-    sections = report_sections(result)
     h = job.header
     extra = {
         **job_metadata(job.sha256, "calculation report"),  # the keys `verify` reads (pdfmeta)
@@ -181,7 +223,10 @@ def render_pdf(
     ctx = Ctx(
         result, display, styles, tpl, doc.width, frozenset(changed_keys), revision_mark, doc.frame_height
     )
-    doc.build(disciplined(_story(ctx, info, sections, fab_sheets), ctx.frame_height), canvasmaker=maker)
+    on_cover = _signoff_fits_cover(ctx, info, result)
+    sections = report_sections(result, on_cover)
+    story = _story(ctx, info, sections, fab_sheets, on_cover)
+    doc.build(disciplined(story, ctx.frame_height), canvasmaker=maker)
     pdf = buf.getvalue()
     return pdf
 

@@ -19,6 +19,8 @@ __all__ = ["Columns", "MIN_UNITS"]
 
 #: units carried to the next sheet at least (as a split table carries rows: :data:`.flow.MIN_ROWS`)
 MIN_UNITS = 3
+#: ... and at least this share of the frame height (a sheet with less is an orphan)
+MIN_PART = 0.12
 
 
 def _space(f: Flowable, first: bool) -> tuple[float, float]:
@@ -37,6 +39,7 @@ class Columns(Flowable):
         self._measured: tuple[float, list[float]] | None = None
         self._cols: tuple[list[int], list[int]] = ([], [])
         self._fixed = False  # set by split(): this part fills its sheet's columns as laid out
+        self.frame_height = 0.0  # set by the page discipline (flow.disciplined)
         self.width = self.height = 0.0
 
     # -- measuring -------------------------------------------------------------------------
@@ -123,7 +126,14 @@ class Columns(Flowable):
             return [self]
         if n - right < MIN_UNITS <= right - MIN_UNITS:
             right = n - MIN_UNITS  # never a unit or two alone on the next sheet
-            left = min(left, right)
+        # nor a sliver: the part carried over is at least MIN_PART of the frame high (balanced)
+        while (
+            self.frame_height
+            and right > MIN_UNITS
+            and self._balanced(heights[right:])[1] < (MIN_PART * self.frame_height)
+        ):
+            right -= 1
+        left = min(left, right)
         first = Columns(self.units[:right], self.gap, self.head)
         first._measured = (self._col_width(aw), heights[:right])
         first._cols = (list(range(0, left)), list(range(left, right)))
@@ -133,6 +143,7 @@ class Columns(Flowable):
         )
         first._fixed = True
         rest = Columns(self.units[right:], self.gap)
+        rest.frame_height = self.frame_height
         return [first, rest]
 
     def draw(self) -> None:

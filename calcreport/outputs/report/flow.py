@@ -18,6 +18,7 @@ from __future__ import annotations
 
 from reportlab.platypus import CondPageBreak, Flowable, KeepTogether, Paragraph, Table
 
+from .columns import Columns
 from .fastcell import LineCell
 from .pages import MarginMark, OutlineMark, SectionStart
 
@@ -207,6 +208,8 @@ def disciplined(story: list, frame_height: float) -> list:
         elif isinstance(f, HeadAtTop):
             _even(f.bare, frame_height)
             _even(f.headed, frame_height)
+        elif isinstance(f, Columns):
+            f.frame_height = frame_height
         elif isinstance(f, KeepTogether):
             for g in f._content:
                 if isinstance(g, Table):

@@ -4,7 +4,7 @@ reviewer's sign-off with room for comments (last: signed once everything above i
 from __future__ import annotations
 
 from reportlab.lib import colors
-from reportlab.platypus import KeepTogether, Paragraph, Spacer, Table, TableStyle
+from reportlab.platypus import Paragraph, Spacer, Table, TableStyle
 
 from .columns import Columns
 from .common import Ctx, heading, para
@@ -20,9 +20,13 @@ __all__ = [
     "COMMENT_LINES",
 ]
 
-#: ruled lines for the checker's comments
+#: ruled lines for the checker's comments (beside the signatures, as tall as their table)
 COMMENT_LINES = 4
-COMMENT_LINE_HEIGHT = 17.0
+COMMENT_LINE_HEIGHT = 16.5
+#: height of a signature row
+SIGN_ROW = 22.0
+#: height of the header rows of both tables
+HEAD_ROW = 15.0
 
 CAUTIONS = (
     "This report is a design aid. It is not valid until a licensed professional engineer has reviewed "
@@ -85,7 +89,10 @@ def _signature_table(ctx: Ctx) -> Table:
     ):
         rows.append([para(role, st.cell), para(name or "", st.cell), "", para(date or "", st.cell)])
     t = Table(
-        rows, colWidths=[0.17 * w, 0.30 * w, 0.33 * w, 0.20 * w], rowHeights=[None, 22, 22, 22], hAlign="LEFT"
+        rows,
+        colWidths=[0.14 * w, 0.17 * w, 0.19 * w, 0.11 * w],
+        rowHeights=[HEAD_ROW] + [SIGN_ROW] * 3,
+        hAlign="LEFT",
     )
     t.setStyle(
         TableStyle(
@@ -102,15 +109,16 @@ def _signature_table(ctx: Ctx) -> Table:
     return t
 
 
-def signoff_story(ctx: Ctx) -> list:
-    st, w = ctx.styles, ctx.width
-    comments = Table(
+def _comments_table(ctx: Ctx, width: float) -> Table:
+    st = ctx.styles
+    line = (3 * SIGN_ROW) / COMMENT_LINES  # the ruled lines end level with the signature rows
+    t = Table(
         [[para("Checker's comments", st.cell_bold)]] + [[""] for _ in range(COMMENT_LINES)],
-        colWidths=[w],
-        rowHeights=[None] + [COMMENT_LINE_HEIGHT] * COMMENT_LINES,
-        hAlign="LEFT",
+        colWidths=[width],
+        rowHeights=[HEAD_ROW] + [line] * COMMENT_LINES,
+        hAlign="RIGHT",
     )
-    comments.setStyle(
+    t.setStyle(
         TableStyle(
             [
                 ("BOX", (0, 0), (-1, -1), 0.7, colors.black),
@@ -119,19 +127,48 @@ def signoff_story(ctx: Ctx) -> list:
             ]
         )
     )
-    return [
-        Paragraph("Review and sign-off", st.h1),
+    return t
+
+
+def signoff_story(ctx: Ctx, on_cover: bool = False) -> list:
+    """The sign-off: the signatures and the checker's comments side by side. On the cover (when
+    it fits there, :mod:`.build`) under a cover heading and without the job file's hash, which
+    the cover states; at the end of the report with it."""
+    st, w = ctx.styles, ctx.width
+    pair = Table(
+        [[_signature_table(ctx), _comments_table(ctx, 0.37 * w)]],
+        colWidths=[0.61 * w, 0.39 * w],
+        hAlign="LEFT",
+    )
+    pair.setStyle(
+        TableStyle(
+            [
+                ("VALIGN", (0, 0), (-1, -1), "TOP"),
+                ("LEFTPADDING", (0, 0), (-1, -1), 0),
+                ("RIGHTPADDING", (0, 0), (-1, -1), 0),
+                ("TOPPADDING", (0, 0), (-1, -1), 0),
+                ("BOTTOMPADDING", (0, 0), (-1, -1), 0),
+            ]
+        )
+    )
+    out: list = [
+        Paragraph("Review and sign-off", st.h2 if on_cover else st.h1),
         Paragraph(
             "By signing, the checker confirms that the inputs match the drawings and the brief, the "
             "assumptions are appropriate, and the results have been reviewed.",
             st.small,
         ),
-        KeepTogether([_signature_table(ctx), Spacer(1, 6), comments]),
-        Spacer(1, 4),
-        Paragraph(
-            f'Job file SHA-256: <font name="{st.fonts.mono}">{esc(ctx.result.job.sha256)}</font>', st.small
-        ),
+        pair,
     ]
+    if not on_cover:
+        out += [
+            Spacer(1, 4),
+            Paragraph(
+                f'Job file SHA-256: <font name="{st.fonts.mono}">{esc(ctx.result.job.sha256)}</font>',
+                st.small,
+            ),
+        ]
+    return out
 
 
 def _cautions(ctx: Ctx) -> Table:
