@@ -21,7 +21,7 @@ from reportlab.platypus import Table  # noqa: E402
 from calcreport.outputs.fmt import Display  # noqa: E402
 from calcreport.outputs.json_out import dumps, to_dict  # noqa: E402
 from calcreport.outputs.report.derivations import member_groups, stage_story  # noqa: E402
-from calcreport.outputs.report.flow import MIN_ROWS, EvenTable  # noqa: E402
+from calcreport.outputs.report.flow import MIN_PART, MIN_ROWS, EvenTable, HeadAtTop  # noqa: E402
 from calcreport.outputs.report.folding import fold_groups  # noqa: E402
 from calcreport.pipeline import solve_file  # noqa: E402
 
@@ -315,3 +315,36 @@ def test_a_table_with_too_little_room_moves_whole():
     assert t.split(100, 20 * 3 + 1) == []  # header and two rows fit: move the table instead
     parts = t.split(100, 20 * 6 + 1)
     assert len(parts) == 2 and len(parts[0]._cellvalues) - 1 == 5
+
+
+def test_two_tall_rows_are_a_block_not_lone_rows():
+    """Rows of four lines (yield modes) may leave two on a sheet: they are over MIN_PART of it."""
+    t = _table(8, row_h=50.0)  # 50 pt rows in a 600 pt frame: two rows are 1/6 of the frame
+    parts = t.split(100, 50 * 7 + 1)  # header and six rows fit: two rows left for the next sheet
+    assert len(parts) == 2 and len(parts[1]._cellvalues) - 1 == 2
+    assert 2 * 50.0 >= MIN_PART * 600.0
+
+
+def test_rows_continuing_a_table_take_its_header_at_the_top_of_a_sheet():
+    from reportlab.platypus import Table
+
+    bare = Table([["1.1.9", "a"], ["1.1.14", "b"]])
+    headed = Table([["No.", "Step"], ["1.1.9", "a"], ["1.1.14", "b"]])
+    f = HeadAtTop(bare, headed, 600.0)
+    f.wrap(300, 200)  # under the table above: the bare rows
+    assert f._use is bare
+    f.wrap(300, 600)  # a fresh sheet: the header first
+    assert f._use is headed
+
+
+CLOSING = ("total ", "Steps ", "Its q(x) chart", "These are not part of the status")
+
+
+@pytest.mark.parametrize("stem", [j.stem for j in JOBS])
+def test_no_sheet_opens_on_the_closing_line_of_the_sheet_before(built, stem):
+    """Totals, table captions and remarks stay with the rows they close (common practice, no
+    source): a sheet's first body line is never one of them."""
+    _, _, pages = built[stem]
+    for i, t in enumerate(pages[1:], 2):
+        first = next((ln.strip() for ln in t.splitlines() if ln.strip()), "")
+        assert not first.startswith(CLOSING), (stem, i, first)

@@ -195,11 +195,42 @@ def _is_lead(f: Flowable) -> bool:
     return isinstance(f, (CondPageBreak, OutlineMark, SectionStart, MarginMark))
 
 
+def _is_closing(f: Flowable) -> bool:
+    """A short line of small print that closes what stands above it (a total, a remark)."""
+    return _is_line(f) and not _is_heading(f) and getattr(f.style, "name", "") in ("small", "caption")
+
+
+def _keep_closing_lines(out: list) -> list:
+    """A table or a kept block followed by closing lines (that lead into no table of their own)
+    keeps them: a table's last rows and its lines move together (:class:`KeepTail`)."""
+    done: list = []
+    i = 0
+    while i < len(out):
+        f = out[i]
+        j = i + 1
+        while j < len(out) and j - i <= 3 and _is_closing(out[j]):
+            j += 1
+        after = out[j] if j < len(out) else None
+        leads = isinstance(after, (Table, HeadAtTop, KeepTogether))
+        if j > i + 1 and not leads and (type(f) is Table or isinstance(f, EvenTable)):
+            tail = KeepTail(f, out[i + 1 : j])
+            done.append(tail)
+            i = j
+            continue
+        if j > i + 1 and not leads and type(f) is KeepTogether:
+            done.append(KeepTogether([*f._content, *out[i + 1 : j]]))
+            i = j
+            continue
+        done.append(f)
+        i += 1
+    return done
+
+
 def disciplined(story: list, frame_height: float) -> list:
     """The story with our tables made :class:`EvenTable` and headings kept with a short next
     flowable (a table of a few rows, a paragraph, a figure: whole on the sheet of its heading)."""
     out: list = []
-    for f in story:
+    for f in _keep_closing_lines(story):
         if isinstance(f, Table):
             _even(f, frame_height)
         elif isinstance(f, KeepTail):
