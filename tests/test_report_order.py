@@ -348,3 +348,27 @@ def test_no_sheet_opens_on_the_closing_line_of_the_sheet_before(built, stem):
     for i, t in enumerate(pages[1:], 2):
         first = next((ln.strip() for ln in t.splitlines() if ln.strip()), "")
         assert not first.startswith(CLOSING), (stem, i, first)
+
+
+@pytest.mark.parametrize("stem", [j.stem for j in JOBS])
+def test_the_contents_give_the_sheet_each_section_starts_on(built, stem):
+    """Every contents entry names the sheet its heading is printed on first (a section mark left
+    at the foot of a sheet whose content moved on names the sheet it moved to)."""
+    result, _, pages = built[stem]
+    from calcreport.outputs.report.build import report_sections
+
+    cover = pages[0]
+    titles = [t for _, t in report_sections(result, "Checker's comments" in cover)]
+    lines = [" ".join(ln.split()) for ln in cover.split("Contents", 1)[-1].splitlines()]
+    for title in titles:
+        k = lines.index(" ".join(title.split()))
+        sheet = int(lines[k + 1])
+        heading = squash(title.split("  ", 1)[-1]) if title[:1].isdigit() else squash(title)
+        if heading.startswith("Cover"):
+            assert sheet == 1
+            continue
+        found = [i for i, t in enumerate(pages, 1) if i > 1 and heading in squash(t)]
+        if sheet == 1:
+            assert heading in squash(cover.split("Contents", 1)[-1]).replace(squash(title), "", 1), title
+        else:
+            assert found and found[0] == sheet, (title, sheet, found[:3])

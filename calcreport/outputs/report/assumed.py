@@ -177,9 +177,10 @@ def assumed_story(ctx: Ctx) -> list:
 class _Stack(Flowable):
     """Flowables one above the other as one (the head of a :class:`.columns.Columns`)."""
 
-    def __init__(self, parts: list[Flowable]):
+    def __init__(self, parts: list[Flowable], space_after: float = 4.0):
         super().__init__()
         self.parts = parts
+        self.spaceAfter = space_after  # between the lead and the first entries
 
     def wrap(self, aw: float, ah: float) -> tuple[float, float]:
         self.width = aw

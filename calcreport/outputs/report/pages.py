@@ -160,6 +160,7 @@ class ReportDoc(BaseDocTemplate):
         self.current_subject = info.subject
         self.seen_sections: dict[str, int] = {}
         self._level = -1  # outline level of the last bookmark
+        self._pending: list = []  # section and bookmark marks waiting for the next content
         self._subject_page = 0
         left, right, top, bottom = template.margins
         w, h = template.pagesize
@@ -220,24 +221,35 @@ class ReportDoc(BaseDocTemplate):
     def body_width(self) -> float:
         return self.width
 
-    def _bookmark(self, title: str, level: int) -> None:
-        """An outline entry at the current position (the PDF's bookmarks follow the report order)."""
+    def _bookmark(self, title: str, level: int, top: float) -> None:
+        """An outline entry whose view starts just above ``top`` (the PDF's bookmarks follow the
+        report order)."""
         self._marks = getattr(self, "_marks", 0) + 1
         key = f"crmark{self._marks}"
         c = self.canv
-        c.bookmarkHorizontal(key, 0, self.frame._y + 12)
+        c.bookmarkHorizontal(key, 0, top + 12)
         c.addOutlineEntry(plain(title), key, level=min(level, self._level + 1), closed=level > 0)
         self._level = level
 
     def afterFlowable(self, flowable):
-        if isinstance(flowable, OutlineMark):
-            self._bookmark(flowable.title, flowable.level)
-        if isinstance(flowable, SectionStart):
-            self._bookmark(flowable.title, 0)
-            self.seen_sections.setdefault(flowable.sid, self.page)
-            if self._subject_page != self.page:  # the first section begun on a sheet names it
-                self.current_subject = flowable.subject
-                self._subject_page = self.page
+        # a section or bookmark mark takes effect where the next thing with a height is set: a
+        # mark left at the foot of a sheet whose content moved on names the sheet it moved to
+        if isinstance(flowable, (OutlineMark, SectionStart)):
+            self._pending.append(flowable)
+            return
+        if not self._pending or getattr(flowable, "height", 0) <= 0:
+            return
+        top = self.frame._y + float(getattr(flowable, "height", 0))
+        for mark in self._pending:
+            if isinstance(mark, OutlineMark):
+                self._bookmark(mark.title, mark.level, top)
+            else:
+                self._bookmark(mark.title, 0, top)
+                self.seen_sections.setdefault(mark.sid, self.page)
+                if self._subject_page != self.page:  # the first section begun on a sheet names it
+                    self.current_subject = mark.subject
+                    self._subject_page = self.page
+        self._pending = []
 
     # -- drawing ----------------------------------------------------------------------------
     def _furniture(self, canv, doc):
