@@ -14,6 +14,7 @@ from reportlab.lib import colors
 from reportlab.platypus import CondPageBreak, Paragraph, Table
 
 from ...solve.results import Check, JointResult, MemberResult
+from ..phrases import check_label, check_note
 from ..scope_text import checked_line, status_words
 from .common import Ctx, cited, grid, para
 from .dense import TIGHT, dense
@@ -155,13 +156,13 @@ def _check_sig(jid: str, c: Check, ctx: Ctx) -> tuple:
 
     return (
         generic(c.key),
-        c.label,
+        check_label(c, ctx.display),
         ctx.q(c.demand),
         ctx.q(c.capacity),
         ctx.q(c.ratio, 3),
         c.status,
         cited(c.source),
-        cited(c.note),
+        cited(check_note(c, ctx.display)),
         generic(c.step),
     )
 
@@ -199,9 +200,10 @@ def checks_rows(
         rows.append([para(where, st.cell_bold), "", "", "", "", ""])
         extra += [("SPAN", (0, r), (-1, r)), ("BACKGROUND", (0, r), (-1, r), st.tint)]
         for c, steps in checks:
-            note = esc(cited(c.note)) + "; " if c.note else ""
+            words = check_note(c, ctx.display)
+            note = esc(cited(words)) + "; " if words else ""
             source = f"<i>{esc(cited(c.source) or '—')}</i>"
-            label = [para(c.label, st.cell), cell(note + source, dense(st).note)]
+            label = [para(check_label(c, ctx.display), st.cell), cell(note + source, dense(st).note)]
             refs = [numbers[s] for s in steps if s in numbers]
             rows.append(
                 [
