@@ -250,3 +250,13 @@ def test_predrilled_without_the_ec5_slip_moduli_is_refused(write_job, cli):
         text = _demo_with("predrilled = true\n").replace("slip = true  ", instead, 1)
         code, out, err = cli("check", write_job(text))
         assert code == 2 and "predrilled" in err and "Table 7.1" in err, err
+
+
+def test_predrilled_help_names_everything_it_selects():
+    # the key's help (the schema's description) names each clause the code reads it for:
+    # EN 1995-1-1:2004 eq. (8.15)/(8.16) embedment, Table 8.2 distances, Table 7.1 K_ser row
+    from calcreport.keys.connectors import fields_for
+
+    for kind in ("nail", "wood_screw"):
+        (f,) = [f for f in fields_for(kind) if f.name == "predrilled"]
+        assert all(x in f.help for x in ("8.16", "Table 8.2", "Table 7.1", "K_ser")), f.help
