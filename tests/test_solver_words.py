@@ -184,3 +184,19 @@ def test_cover_plate_weld_note_worded_from_the_lengths():
     assert r.note == "" and r.phrase is not None and r.phrase.kind == "cover_plate_weld"
     assert r.phrase.values["length"].to("inch").magnitude == pytest.approx(24.0)
     assert step_note(r, Display("US")) == "2 edge weld line(s) over a′ = 1.5·w (24 in of edge weld)"
+
+
+def test_dimensionless_figures_in_notes_are_worded_by_the_outputs(solved):
+    # EN 1995-1-1:2004 Table 3.1 (from memory): k_mod = 0.9 for solid timber, service class 1 or 2,
+    # short-term action — the demo's governing combination; the solver's note keeps words only
+    m = solved["boardwalk-nailed-tee-ec5"].members[0]
+    shear = next(c for c in m.checks if c.key.endswith(".shear.neutral_axis"))
+    assert shear.note == "" and "k_mod" not in shear.note
+    assert check_note(shear, Display("SI")).endswith(", k_mod = 0.9")
+    bending = next(c for c in m.checks if c.key.startswith(f"member[{m.id}].bending"))
+    assert bending.phrase is not None and bending.note == "instability (§6.3) not included"
+    assert check_note(bending, Display("SI")).endswith(", k_mod = 0.9; instability (§6.3) not included")
+    # AISC 360-16 §F13.2 (from memory): 0.1 ≤ Iyc/Iy ≤ 0.9; the ratio outside it is worded here
+    c = Check("member[G].girder.proportions", "Proportioning limits", 1.0, 1.0, 1.0, "NG",
+              phrase=Phrase("iyc_ratio", {"ratio": 0.05}))  # fmt: skip
+    assert check_note(c, Display()) == "Iyc/Iy = 0.050 outside 0.1 to 0.9"

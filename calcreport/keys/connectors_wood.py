@@ -184,11 +184,8 @@ EC5_PREDRILLED = Field(
     "predrilled",
     "bool",
     default=False,
-    help="holes pre-drilled. EC5 jobs, nails up to 8 mm and screws up to 6 mm (EN 1995-1-1 §8.3.1.1, "
-    "§8.7.1): timber embedment f_h,k by eq. 8.16 instead of 8.15, the pre-drilled Table 8.2 spacings "
-    "and distances, no §8.3.1.2(6) minimum timber thickness check; nails in a member with slip = true "
-    "on the EN 1995-1-1 moduli, under any method: the Table 7.1 slip modulus K_ser = ρ_m^1.5·d/23 "
-    "instead of ρ_m^1.5·d^0.8/30",
+    help="holes pre-drilled (EN 1995-1-1): EC5 embedment by eq. 8.16, Table 8.2 distances, no "
+    "§8.3.1.2(6) thickness check; a nail's slip modulus K_ser by the pre-drilled row of Table 7.1",
 )
 EC5_NAIL = (
     EC5_FU,

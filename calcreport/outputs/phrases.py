@@ -57,6 +57,22 @@ def _rows_within_note(v: Mapping[str, Any], d: Display) -> str:
     return f"⌊{v['symbol']} / s⌋ with s = {_length(v['s'], d)}"
 
 
+def _k_mod_note(v: Mapping[str, Any], d: Display) -> str:
+    return f"{v['combination']}, k_mod = {v['k_mod']:g}"
+
+
+def _rigid_share_note(v: Mapping[str, Any], d: Display) -> str:
+    return f"rigid V·Q/I: {v['u']:.2f} of the capacity; {v['governs']} governs"
+
+
+def _plate_slenderness_note(v: Mapping[str, Any], d: Display) -> str:
+    return f"limits 0.08E/Fy = {v['lo']:.1f}, 1.9E/Fy = {v['hi']:.1f}"
+
+
+def _iyc_ratio_note(v: Mapping[str, Any], d: Display) -> str:
+    return f"Iyc/Iy = {v['ratio']:.3f} outside 0.1 to 0.9"
+
+
 #: wording of each phrase kind: (label addition, note) — either may be absent
 KINDS: dict[
     str,
@@ -68,6 +84,10 @@ KINDS: dict[
     "bolt_edge_row": (None, _table_row_note),
     "cover_plate_weld": (None, _cover_weld_note),
     "rows_within": (None, _rows_within_note),
+    "k_mod": (None, _k_mod_note),
+    "rigid_share": (None, _rigid_share_note),
+    "plate_slenderness": (None, _plate_slenderness_note),
+    "iyc_ratio": (None, _iyc_ratio_note),
 }
 
 
