@@ -173,6 +173,16 @@ def results_schema() -> dict[str, Any]:
     q_or_null = {"anyOf": [q, {"type": "null"}]}
     value = {"anyOf": [q, {"type": ["number", "string", "boolean", "null"]}]}
     status = {"enum": ["OK", "NG"]}
+    phrase = {
+        "type": "object",
+        "description": "the data the label or note was worded from (a wording's kind and its values)",
+        "properties": {
+            "kind": {"type": "string"},
+            "values": {"type": "object", "additionalProperties": value},
+        },
+        "required": ["kind", "values"],
+        "additionalProperties": False,
+    }
     step = {
         "type": "object",
         "properties": {
@@ -191,6 +201,7 @@ def results_schema() -> dict[str, Any]:
                 "type": "string",
                 "description": "the quantity of its table; no row: the column's total",
             },
+            "phrase": phrase,
         },
         "required": ["key", "label", "symbol", "substituted", "values", "result", "source"],
     }
@@ -206,6 +217,7 @@ def results_schema() -> dict[str, Any]:
             "source": {"type": "string"},
             "note": {"type": "string"},
             "step": {"type": "string", "description": "key of the step stating the check's limit or working"},
+            "phrase": phrase,
         },
         "required": ["key", "label", "status", "source"],
     }

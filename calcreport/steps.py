@@ -9,6 +9,9 @@ A :class:`Step` is data, never text ready to print. It holds
 * ``values`` — the named inputs, as quantities (or plain numbers / words);
 * ``result`` — the value found;
 * ``source`` — the standard and clause, or "mechanics of materials", or "common practice, no source";
+* ``phrase`` — optional: a :class:`Phrase` (a wording's name and the quantities, counts and flags
+  it needs) that the outputs word into the note in the job's units (``outputs/phrases.py``); the
+  solver never writes a number into ``note`` itself;
 * ``key`` — a stable dotted id (``member.B1.joint.top.q``) that the diff lines up across revisions;
 * ``positions`` — names of the values (and ``"result"``) that are positions or lengths along the
   member, which outputs write the way drawings do (feet-inches in US units);
@@ -39,7 +42,18 @@ Value = Quantity | float | int | str
 #: a Quantity a Quantity.
 R = TypeVar("R", bound=Value)
 
-__all__ = ["Step", "Value", "StepLog", "step"]
+__all__ = ["Phrase", "Step", "Value", "StepLog", "step"]
+
+
+@dataclass(frozen=True)
+class Phrase:
+    """Words an output writes from data: ``kind`` names the wording (``outputs/phrases.py`` holds
+    the text of each kind), ``values`` the quantities, counts, flags and word choices it needs.
+    Carried by a :class:`Step` or a :class:`~calcreport.solve.results.Check` whose note (or label)
+    would otherwise hold a formatted number."""
+
+    kind: str
+    values: Mapping[str, Value]
 
 
 @dataclass(frozen=True)
@@ -59,6 +73,7 @@ class Step:
     group: str = ""
     row: str = ""
     column: str = ""
+    phrase: Phrase | None = None
 
 
 def step(
@@ -75,6 +90,7 @@ def step(
     group: str = "",
     row: str = "",
     column: str = "",
+    phrase: Phrase | None = None,
 ) -> Step:
     """Build a :class:`Step`, checking that every slot of ``template`` has a value.
 
@@ -104,6 +120,7 @@ def step(
         group,
         row,
         column,
+        phrase,
     )
 
 
@@ -133,6 +150,7 @@ class StepLog:
         group: str = "",
         row: str = "",
         column: str = "",
+        phrase: Phrase | None = None,
     ) -> R:
         """Append a step keyed ``prefix.name`` and return its result (so code reads as math).
 
@@ -155,6 +173,7 @@ class StepLog:
                 group,
                 row,
                 column,
+                phrase,
             )
         )
         return result

@@ -6,6 +6,7 @@ from __future__ import annotations
 from typing import Any
 
 from .fmt import Display
+from .phrases import check_label, check_note, phrase_json
 
 __all__ = ["along_json", "schedule_json"]
 
@@ -22,13 +23,14 @@ def _opt(v, d: Display):
 def _check(c, d: Display) -> dict[str, Any]:
     return {
         "key": c.key,
-        "label": c.label,
+        "label": check_label(c, d),
         "demand": _opt(c.demand, d),
         "capacity": _opt(c.capacity, d),
         "ratio": _opt(c.ratio, d),
         "status": c.status,
         "source": c.source,
-        "note": c.note,
+        "note": check_note(c, d),
+        **phrase_json(c.phrase, d),
     }
 
 

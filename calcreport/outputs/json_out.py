@@ -18,6 +18,7 @@ from ..steps import Step
 from ..units import Quantity
 from .fmt import Display
 from .json_loads import along_json, schedule_json
+from .phrases import check_label, check_note, phrase_json, step_note
 
 __all__ = ["to_dict", "dumps", "write_results_json", "json_path_for", "SCHEMA_VERSION"]
 
@@ -49,8 +50,9 @@ def _step_fields(s: Step, d: Display) -> dict[str, Any]:
         "values": {k: _scalar(v, d) for k, v in s.values.items()},
         "result": _scalar(s.result, d),
         "source": s.source,
-        "note": s.note,
+        "note": step_note(s, d),
         "governs": s.governs,
+        **phrase_json(s.phrase, d),
     }
 
 
@@ -64,14 +66,15 @@ def _check(c: Check, d: Display) -> dict[str, Any]:
 def _check_fields(c: Check, d: Display) -> dict[str, Any]:
     return {
         "key": c.key,
-        "label": c.label,
+        "label": check_label(c, d),
         "demand": _scalar(c.demand, d),
         "capacity": _scalar(c.capacity, d),
         "ratio": _scalar(c.ratio, d),
         "status": c.status,
         "source": c.source,
-        "note": c.note,
+        "note": check_note(c, d),
         **({"step": c.step} if c.step else {}),
+        **phrase_json(c.phrase, d),
     }
 
 

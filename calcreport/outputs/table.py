@@ -4,6 +4,7 @@ from __future__ import annotations
 
 from ..solve.results import JobResult, MemberResult
 from .fmt import Display
+from .phrases import check_label, check_note
 from .scope_text import checked_line, not_checked_line, status_words
 
 __all__ = ["render_job"]
@@ -49,7 +50,8 @@ def render_member(m: MemberResult, d: Display) -> list[str]:
             lines.append(f"  {j.id}: {reason}")
         for c in j.checks:
             if c.status == "NG":
-                lines.append(f"  {j.id}: {c.label} — NG" + (f": {c.note}" if c.note else ""))
+                note = check_note(c, d)
+                lines.append(f"  {j.id}: {check_label(c, d)} — NG" + (f": {note}" if note else ""))
         if j.schedule is not None:
             lines += _schedule_lines(j.id, j.schedule, d)
     if m.checks:
@@ -57,7 +59,7 @@ def render_member(m: MemberResult, d: Display) -> list[str]:
         for c in m.checks:
             rows.append(
                 [
-                    c.label,
+                    check_label(c, d),
                     d.value(c.demand) if c.demand is not None else "—",
                     d.value(c.capacity) if c.capacity is not None else "—",
                     f"{c.ratio:.2f}" if c.ratio is not None else "—",
@@ -65,7 +67,11 @@ def render_member(m: MemberResult, d: Display) -> list[str]:
                 ]
             )
         lines += ["  " + r for r in _cols(rows, {1, 2, 3})]
-        lines += [f"  {c.label}: {c.note}" for c in m.checks if c.status == "INFO" and c.note]
+        lines += [
+            f"  {check_label(c, d)}: {check_note(c, d)}"
+            for c in m.checks
+            if c.status == "INFO" and check_note(c, d)
+        ]
     return lines
 
 

@@ -8,7 +8,7 @@ from __future__ import annotations
 
 import math
 
-from ..steps import StepLog
+from ..steps import Phrase, StepLog
 from ..units import Q_
 from .results import Check
 from .steel_section import GirderProps
@@ -129,7 +129,7 @@ def web_proportions(key: str, p: GirderProps, E: float, Fy: float, a: float | No
         r,
         "OK" if ok else "NG",
         f"{SRC} §F13.2",
-        note="" if 0.1 <= ratio_y <= 0.9 else f"Iyc/Iy = {ratio_y:.3f} outside 0.1 to 0.9",
+        phrase=None if 0.1 <= ratio_y <= 0.9 else Phrase("iyc_ratio", {"ratio": float(ratio_y)}),
     )
 
 

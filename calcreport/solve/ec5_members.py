@@ -23,7 +23,7 @@ from __future__ import annotations
 import numpy as np
 
 from ..model import Member, Part, Settings
-from ..steps import StepLog
+from ..steps import Phrase, StepLog
 from ..units import Q_
 from .ec5_factors import SOURCE_KMOD, combination_duration, gamma_m, k_mod, product_of
 from .results import Check, SectionResult, SolveError, Unchecked
@@ -206,7 +206,8 @@ def _bending(member: Member, part: Part, props, section: SectionResult, combos, 
         u,
         "OK" if u <= 1.0 + 1e-9 else "NG",
         f"{_EC5} §6.1.6, §6.2.3 (6.17) / §6.2.4 (6.19)",
-        note=f"{name}, k_mod = {km:g}; instability (§6.3) not included",
+        note="instability (§6.3) not included",
+        phrase=Phrase("k_mod", {"combination": name, "k_mod": km}),
     )
 
 
@@ -309,7 +310,7 @@ def _shear(member: Member, section: SectionResult, combos, log: StepLog, key: st
         u,
         "OK" if u <= 1.0 + 1e-9 else "NG",
         f"{_EC5} §6.1.7, eq. (6.13)",
-        note=f"{name}, k_mod = {km:g}",
+        phrase=Phrase("k_mod", {"combination": name, "k_mod": km}),
     )
 
 
@@ -344,6 +345,7 @@ def ec5_member_checks(
                     gov.status,
                     gov.source,
                     gov.note,
+                    phrase=gov.phrase,
                 )
             )
         sh = _shear(member, section, combos, log, "shear.neutral_axis")

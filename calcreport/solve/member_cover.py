@@ -13,7 +13,7 @@ from __future__ import annotations
 import numpy as np
 
 from ..model import Member, Part, Settings
-from ..steps import StepLog
+from ..steps import Phrase, StepLog
 from ..units import Q_
 from .bracing import unbraced_length
 from .checks_steel import OMEGA_B, PHI_B, flexure_strength
@@ -157,7 +157,7 @@ def cover_plate_checks(
                      {"q": q, "a": a, "n": lines, "w": Q_(w, "in")},
                      (q * a + (q / lines * Q_(w, "in") if end_weld else 0 * q * a)).to("kip"),
                      source=f"{SRC} §F13.3; weld strength from the joint's fillet weld (J2.4)",
-                     note=f"{lines} edge weld line(s) over a′ = {k:g}·w ({length:.3g} in of edge weld)")  # fmt: skip
+                     phrase=Phrase("cover_plate_weld", {"lines": lines, "k": k, "length": Q_(length, "in")}))  # fmt: skip
         r = float((F / R).to("").magnitude)
         checks.append(Check(f"{ckey}.termination", f"Cover plate {plate.id}: welds within a′ develop the plate force",
                             F, R, r, "OK" if r <= 1 + 1e-9 else "NG", f"{SRC} §F13.3"))  # fmt: skip

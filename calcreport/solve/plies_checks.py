@@ -13,7 +13,7 @@
 from __future__ import annotations
 
 from ..model import Member, Settings
-from ..steps import StepLog
+from ..steps import Phrase, StepLog
 from ..units import Q_
 from .bracing import unbraced_length
 from .checks_wood import Adjust, adjusted
@@ -173,16 +173,23 @@ def _largest_spacing(joints) -> float | None:
 def _minimum_practice(member: Member, joints, key: str) -> Check:
     """Minimum fastening of plies whatever the load: two rows of 16d common at 12 in for nailed
     2x plies, two rows of bolts at 24 in staggered for bolted plies (common practice, no source)
-    — INFO, never the design result."""
+    — INFO, never the design result. The rule and what was provided travel as a phrase
+    (``ply_minimum``: fastener, rows, spacings, whether met) that the outputs word."""
     f = member.ply_fastening
     s = _largest_spacing(joints)
     bolts = f is not None and f.connector.kind in ("wood_bolt", "lag_screw")
-    rule = "two rows of bolts at 24 in, staggered" if bolts else "two rows of 16d common at 12 in, or equal"
-    meets = f is not None and f.rows >= 2 and s is not None and s <= (24.0 if bolts else 12.0) + 1e-9
-    return Check(f"{key}.ply_minimum", f"Minimum fastening of plies ({rule})", None, None, None, "INFO",
-                 "common practice, no source", note=("provided: " + (f"{f.rows} rows, largest spacing {s:g} in" if f and s else "no schedule")
-                 + ("; meets the rows and spacing of the practice minimum" if meets else "; below the practice minimum in rows or spacing")
-                 + " (a practice rule, not the design result)"))  # fmt: skip
+    s_max = 24.0 if bolts else 12.0
+    meets = f is not None and f.rows >= 2 and s is not None and s <= s_max + 1e-9
+    facts = {
+        "fastener": "bolt" if bolts else "nail",
+        "rows_min": 2,
+        "spacing_max": Q_(s_max, "inch"),
+        "rows": f.rows if f is not None and s else 0,
+        "spacing": Q_(s, "inch") if f is not None and s else "",
+        "meets": meets,
+    }
+    return Check(f"{key}.ply_minimum", "Minimum fastening of plies", None, None, None, "INFO",
+                 "common practice, no source", phrase=Phrase("ply_minimum", facts))  # fmt: skip
 
 
 def ply_checks(

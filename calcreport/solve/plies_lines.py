@@ -24,7 +24,7 @@ import numpy as np
 from ..keys.connectors import fields_for
 from ..model import ConnectorSpec, Joint, Member, Part, PlyFastening, Settings
 from ..outlines import contact_segments
-from ..steps import StepLog
+from ..steps import Phrase, StepLog
 from ..units import Q_, Quantity
 from . import connectors
 from .callout import joint_callout
@@ -294,7 +294,7 @@ def _point_checks(needs: list[PointNeed], sched) -> list[Check]:
         )
         out.append(Check(key, f"Fasteners at {what}",
                          nd.rows, have, nd.rows / have if have else None, "OK" if ok else "NG", SRC_PRACTICE,
-                         note=f"⌊{sym} / s⌋ with s = {s:g} in" if ok else fix))  # fmt: skip
+                         note="" if ok else fix, phrase=Phrase("rows_within", {"symbol": sym, "s": Q_(s, "in")}) if ok else None))  # fmt: skip
     return out
 
 

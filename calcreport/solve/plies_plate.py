@@ -8,6 +8,7 @@ from __future__ import annotations
 
 import math
 
+from ..steps import Phrase
 from ..units import Q_
 from .plies import PlyShare
 from .results import Check, Unchecked
@@ -73,7 +74,8 @@ def steel_ply_checks(
     Mn, eq, lam = plate_flexure(Fy, E, d, t, Lb, Cb)
     slog.add("slender", f"Slenderness of the plate {pid} for lateral-torsional buckling", "Lb·d / t²", "{Lb} × {d} / {t}²",
              {"Lb": Q_(Lb, "inch"), "d": Q_(d, "inch"), "t": Q_(t, "inch")}, round(lam, 1), source=f"{AISC} F11.2",
-             note=f"limits 0.08E/Fy = {0.08 * E / Fy:.1f}, 1.9E/Fy = {1.9 * E / Fy:.1f}; Lb = the largest bolt spacing (braced by the timbers at each bolt)")  # fmt: skip
+             note="Lb = the largest bolt spacing (braced by the timbers at each bolt)",
+             phrase=Phrase("plate_slenderness", {"lo": 0.08 * E / Fy, "hi": 1.9 * E / Fy}))  # fmt: skip
     tpl = {"F11-1": "Mp = Fy·Z = {Fy} × {Z}", "F11-2": "Cb·[1.52 − 0.274·(Lb·d/t²)·Fy/E]·Fy·Sx ≤ Mp, Cb = {Cb}, Sx = {S}",
            "F11-3": "Fcr·Sx, Fcr = 1.9·E·Cb/(Lb·d/t²), Cb = {Cb}, Sx = {S}"}[eq]  # fmt: skip
     Mn_q = slog.add("Mn", f"Nominal flexural strength of the plate {pid}", f"Mn ({eq})", tpl,

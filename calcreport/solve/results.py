@@ -6,7 +6,7 @@ from dataclasses import dataclass
 from typing import Any
 
 from ..model import Job, Member
-from ..steps import Step
+from ..steps import Phrase, Step
 from ..units import Quantity
 
 __all__ = [
@@ -53,6 +53,9 @@ class Check:
     #: key of the step that states the check's limit or working (``member.H1.joint.top.connector.
     #: detail.W_across``), when there is one; outputs refer to it instead of repeating its numbers
     step: str = ""
+    #: data the outputs word into the label and note in the job's units (``outputs/phrases.py``),
+    #: where the wording needs a number; ``label`` and ``note`` then hold words only
+    phrase: Phrase | None = None
 
 
 @dataclass(frozen=True)

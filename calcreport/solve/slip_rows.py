@@ -11,7 +11,7 @@ from __future__ import annotations
 
 from dataclasses import replace
 
-from ..steps import StepLog
+from ..steps import Phrase, StepLog
 from ..units import Q_, Quantity
 from .results import Check
 from .slip_gamma import ei_effective, gammas, row_force
@@ -110,7 +110,7 @@ def joint_rows(member, groups: list[Group], moduli, spacing, joints, st: State, 
         checks.append(Check(f"member[{member.id}].slip.connector.{jid}",
                             f"Connector force with slip, joint {jid}", F, j.capacity, u_slip,
                             _status(u_slip), f"{SRC}, B.5", scope="slip",
-                            note=f"rigid V·Q/I: {u_rigid:.2f} of the capacity; {gov} governs"))  # fmt: skip
+                            phrase=Phrase("rigid_share", {"u": u_rigid, "governs": gov})))  # fmt: skip
     return rows, checks, iters, TOLERANCE
 
 

@@ -7,6 +7,7 @@ import os
 from reportlab.platypus import Flowable, Paragraph, Spacer, Table, TableStyle
 
 from ...solve.results import MemberResult
+from ..phrases import check_label, check_note
 from ..scope_text import checked_line, not_checked_line, status_words
 from .common import Ctx, grid, para
 from .pages import GREY, PageInfo
@@ -92,15 +93,20 @@ def governing_text(m: MemberResult, ctx: Ctx) -> str:
             if c.ratio is not None or c.status == "NG":
                 ck = (c.status == "NG", c.ratio or 0.0)
                 if ck > best[0]:
-                    note = f" — {c.note}" if c.status == "NG" and c.note else ""
-                    best = (ck, f"joint {j.id}: {c.label}, ratio {ctx.q(c.ratio, 3)}{note}")
+                    words = check_note(c, ctx.display)
+                    note = f" — {words}" if c.status == "NG" and words else ""
+                    best = (
+                        ck,
+                        f"joint {j.id}: {check_label(c, ctx.display)}, ratio {ctx.q(c.ratio, 3)}{note}",
+                    )
     for c in m.checks:
         if c.ratio is not None or c.status == "NG":
             ck = (c.status == "NG", c.ratio or 0.0)
             if best is None or ck > best[0]:
                 best = (
                     ck,
-                    f"{c.label}: {ctx.q(c.demand)} against {ctx.q(c.capacity)}, ratio {ctx.q(c.ratio, 3)}",
+                    f"{check_label(c, ctx.display)}: {ctx.q(c.demand)} against {ctx.q(c.capacity)}, "
+                    f"ratio {ctx.q(c.ratio, 3)}",
                 )
     return best[1] if best else "no joints or checks"
 

@@ -19,6 +19,7 @@ from typing import TYPE_CHECKING
 
 from ...steps import Step
 from ..fmt import Display
+from ..phrases import step_note
 
 if TYPE_CHECKING:
     from .derivations import Group
@@ -41,7 +42,7 @@ class Fold:
 
 def step_texts(s: Step, d: Display) -> tuple[str, ...]:
     """What the report prints of a step."""
-    return (s.label, s.symbol, d.substituted(s), d.result(s), s.source, s.note)
+    return (s.label, s.symbol, d.substituted(s), d.result(s), s.source, step_note(s, d))
 
 
 def _suffix(gid: str, key: str) -> str:

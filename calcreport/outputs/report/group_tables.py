@@ -21,6 +21,8 @@ from reportlab.pdfbase.pdfmetrics import stringWidth
 from reportlab.platypus import Spacer
 
 from ...steps import Step
+from ..fmt import Display
+from ..phrases import step_note
 from .common import GOVERNS_TINT, Ctx, cited, grid, para
 from .fastcell import cell
 from .flow import KeepTail
@@ -120,9 +122,9 @@ def _shared_title(rows: dict[str, list[Step]]) -> str:
     return titles.pop() if len(titles) == 1 else ""
 
 
-def _last_text_width(seq: list[Step], style: ParagraphStyle, notes: bool, sources: bool) -> float:
+def _last_text_width(seq: list[Step], style: ParagraphStyle, notes: bool, sources: bool, d: Display) -> float:
     """Width of a row's note and source written on one line (what the last column must hold)."""
-    text = "; ".join(cited(s.note) for s in seq if s.note) if notes else ""
+    text = "; ".join(cited(n) for n in (step_note(s, d) for s in seq) if n) if notes else ""
     src = "; ".join(dict.fromkeys(cited(s.source) for s in seq)) if sources else ""
     return stringWidth(text, style.fontName, style.fontSize) + (
         GAP + stringWidth(src, style.fontName, style.fontSize) if src else 0.0
@@ -187,7 +189,7 @@ def _itemised(steps: list[Step], ctx: Ctx, prefix: str, index: dict[str, int]) -
     cols = _columns(rows)
     single = all(len(seq) == 1 for seq in rows.values())
     tabled = [s for seq in rows.values() for s in seq]
-    notes = {s.note for s in tabled if s.note}
+    notes = {n for n in (step_note(s, d) for s in tabled) if n}
     sources = {s.source for s in tabled}
     note_col, source_col = len(notes) > 1, len(sources) > 1
     heads: dict[str, list[str]] = {c: [] for c in cols}
@@ -218,7 +220,7 @@ def _itemised(steps: list[Step], ctx: Ctx, prefix: str, index: dict[str, int]) -
             (
                 stringWidth(items[rid], st.cell_bold.fontName, size),
                 [stringWidth(t, font, size) for t in formulas[rid]],
-                _last_text_width(seq, note_style, note_col, source_col) if last_col else 0.0,
+                _last_text_width(seq, note_style, note_col, source_col, d) if last_col else 0.0,
             )
             for rid, seq in rows.items()
         ],
@@ -252,7 +254,7 @@ def _itemised(steps: list[Step], ctx: Ctx, prefix: str, index: dict[str, int]) -
             cs = by.get(c)
             line.append(para("—", right) if cs is None else cell(f"<b>{esc(d.result(cs))}</b>", right))
         if last_col:
-            note = "; ".join(cited(s.note) for s in seq if s.note) if note_col else ""
+            note = "; ".join(cited(n) for n in (step_note(s, d) for s in seq) if n) if note_col else ""
             source = "; ".join(dict.fromkeys(cited(s.source) for s in seq)) if source_col else ""
             line.append(StepCell([para(note or "—", note_style)] if note_col else [], source, note_style))
         data.append(line)
@@ -291,13 +293,13 @@ def _parallel(steps: list[Step], ctx: Ctx, prefix: str, index: dict[str, int], h
     cols = _columns(rows)
     worked_id = next(iter(rows))
     worked = rows[worked_id]
-    seen = {(s.column, s.symbol, s.note) for s in worked}
+    seen = {(s.column, s.symbol, step_note(s, d)) for s in worked}
     differ = []
     for rid, seq in rows.items():
         for s in seq:
-            if rid != worked_id and (s.column, s.symbol, s.note) not in seen:
+            if rid != worked_id and (s.column, s.symbol, step_note(s, d)) not in seen:
                 differ.append(s)
-                seen.add((s.column, s.symbol, s.note))
+                seen.add((s.column, s.symbol, step_note(s, d)))
     out.append(
         para(
             f"Worked in full for {word} {worked_id}; the table below gives every {word}, each value the "

@@ -15,6 +15,7 @@ from reportlab.lib.styles import ParagraphStyle
 from reportlab.platypus import CondPageBreak, Paragraph, Table
 
 from ...solve.results import Check, JointResult, MemberResult
+from ..phrases import check_label, check_note
 from ..scope_text import checked_line, status_words
 from .columns import Columns
 from .common import Ctx, cited, grid, para
@@ -124,13 +125,13 @@ def _check_sig(jid: str, c: Check, ctx: Ctx) -> tuple:
 
     return (
         generic(c.key),
-        c.label,
+        check_label(c, ctx.display),
         ctx.q(c.demand),
         ctx.q(c.capacity),
         ctx.q(c.ratio, 3),
         c.status,
         cited(c.source),
-        cited(c.note),
+        cited(check_note(c, ctx.display)),
         generic(c.step),
     )
 
@@ -170,13 +171,14 @@ def checks_rows(
         if checks:  # the group's heading row stays with its first check
             extra.append(("NOSPLIT", (0, r), (-1, r + 2)))
         for c, steps in checks:
-            note = esc(cited(c.note)) + "; " if c.note else ""
+            words = check_note(c, ctx.display)
+            note = esc(cited(words)) + "; " if words else ""
             source = f"<i>{esc(cited(c.source) or '—')}</i>"
             refs = [numbers[s] for s in steps if s in numbers]
             r = len(rows)
             rows.append(
                 [
-                    para(c.label, st.cell),
+                    para(check_label(c, ctx.display), st.cell),
                     ctx.q(c.demand),
                     ctx.q(c.capacity),
                     ctx.q(c.ratio, 3),

@@ -14,6 +14,7 @@ from functools import lru_cache
 from reportlab.lib.styles import ParagraphStyle
 
 from ...steps import Step
+from ..phrases import step_note
 from .common import GOVERNS_TINT, Ctx, cited, grid, para
 from .fastcell import cell
 from .flow import HeadAtTop
@@ -73,8 +74,9 @@ def step_rows(
         body = [
             cell(f"<b>{esc(s.label)}</b>{tag}&nbsp;&nbsp; {esc(s.symbol)}&nbsp;&nbsp; {line}", line_style)
         ]
-        if s.note:
-            body.append(para(cited(s.note), small))
+        note = step_note(s, d)
+        if note:
+            body.append(para(cited(note), small))
         no = numbers[i - 1] if numbers is not None else i
         num = ctx.mark(s.key) + [para(f"{number_prefix}{no}", line_style)]
         source = cited(s.source) or "—"

@@ -4,7 +4,7 @@ Units inside: in (floats); steps carry quantities."""
 
 from __future__ import annotations
 
-from ...steps import StepLog
+from ...steps import Phrase, StepLog
 from ...units import Q_, Quantity
 from ..results import Check
 from .shear_plane import across_check
@@ -126,7 +126,7 @@ def bolt_limits(
             {"e": Q_(e_min, "in")},
             Q_(e_min, "in"),
             source=f"{SRC} Table J3.4",
-            note=f"bolt diameter {d:g} in (the next larger tabulated diameter between rows of the table)",
+            phrase=Phrase("bolt_edge_row", {"d": dq}),
         )
     checks = [
         Check(
