@@ -23,6 +23,8 @@ from calcreport.outputs.json_out import dumps, to_dict  # noqa: E402
 from calcreport.outputs.report.derivations import member_groups, stage_story  # noqa: E402
 from calcreport.outputs.report.flow import MIN_PART, MIN_ROWS, EvenTable, HeadAtTop  # noqa: E402
 from calcreport.outputs.report.folding import fold_groups  # noqa: E402
+from calcreport.outputs.report.pages import FOOTER_H, GAP, TITLE_H  # noqa: E402
+from calcreport.outputs.report.template import DEFAULT  # noqa: E402
 from calcreport.pipeline import solve_file  # noqa: E402
 
 ROOT = Path(__file__).resolve().parent.parent
@@ -276,7 +278,8 @@ def test_no_sheet_carries_only_a_closing_line(built, stem):
     result, pdf, pages = built[stem]
     reader = pypdf.PdfReader(str(pdf))
     h = float(reader.pages[0].mediabox.height)
-    top_cut, bottom_cut = h - 0.56 * 72 - 70 - 4, 0.56 * 72 + 22 + 2
+    _, _, top, bottom = DEFAULT.margins  # the frame of the built-in template (demos name none)
+    top_cut, bottom_cut = h - top - TITLE_H - GAP, bottom + FOOTER_H + 4
     frame = top_cut - bottom_cut
     for i, page in enumerate(reader.pages, 1):
         assert _body_extent(page, top_cut, bottom_cut) >= 0.1 * frame, f"sheet {i} of {stem} is nearly empty"
