@@ -26,6 +26,8 @@ from dataclasses import dataclass, field
 
 import numpy as np
 
+from .memo import ByteMemo, float_key, freeze
+
 __all__ = [
     "FESupport",
     "FELoad",
@@ -37,7 +39,12 @@ __all__ = [
     "stiffness",
     "hermite",
     "StructureError",
+    "geometry_key",
 ]
+
+#: Stiffness by geometry, shared by members laid out alike (solve/memo.py); a 241-node mesh
+#: takes about 2 MB.
+_STIFFNESS = ByteMemo(32 * 2**20)
 
 
 class StructureError(ValueError):
@@ -229,7 +236,8 @@ class FESolution:
 
 def stiffness(mesh: Mesh) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
     """Global stiffness K (EI = 1), the element matrices (elements, 4, 4) and the free degrees of
-    freedom; built once per mesh (kept on it, read-only).
+    freedom; built once per mesh (kept on it, read-only) and shared by meshes of the same
+    geometry (:func:`geometry_key`).
 
     Raises:
         StructureError: if the supports do not hold the beam (K of the free DOFs not positive
@@ -237,6 +245,11 @@ def stiffness(mesh: Mesh) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
     """
     if "stiffness" in mesh._cache:
         return mesh._cache["stiffness"]
+    key = geometry_key(mesh)
+    hit = _STIFFNESS.get(key)
+    if hit is not None:
+        mesh._cache["stiffness"] = hit
+        return hit
     n = len(mesh.x)
     ndof = 2 * n
     h = np.diff(mesh.x)
@@ -262,11 +275,17 @@ def stiffness(mesh: Mesh) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
         np.linalg.cholesky(K[np.ix_(free, free)])
     except np.linalg.LinAlgError:
         raise StructureError("the supports do not hold the beam (it is a mechanism)") from None
-    K.flags.writeable = False  # shared by every caller of this mesh
-    ks.flags.writeable = False
-    free.flags.writeable = False
+    freeze(K, ks, free)  # shared by every caller of this mesh and of meshes alike
     mesh._cache["stiffness"] = (K, ks, free)
+    _STIFFNESS.put(key, (K, ks, free), K.nbytes + ks.nbytes + free.nbytes)
     return K, ks, free
+
+
+def geometry_key(mesh: Mesh) -> tuple:
+    """What the stiffness and the influence lines of a mesh depend on, exactly: node positions
+    (every bit), length, supports (position, fixity) and their nodes — never the loads."""
+    supports = tuple((float_key(s.x), bool(s.fixed)) for s in mesh.supports)
+    return (mesh.x.dtype.str, mesh.x.tobytes(), float_key(mesh.length), supports, mesh.support_nodes)
 
 
 def solve(mesh: Mesh, loadsets: list[list[FELoad]]) -> FESolution:

@@ -90,7 +90,10 @@ class Influence:
             k = np.arange(4)
             m0 = self.C @ (1.0 / (k + 1))
             m1 = self.C @ (1.0 / (k + 2))
-            self._cache["moments"] = (m0, m1, _one_sign(self.C))
+            one = _one_sign(self.C)
+            for a in (m0, m1, one):  # shared with every member of the same geometry (placement.py)
+                a.flags.writeable = False
+            self._cache["moments"] = (m0, m1, one)
         return self._cache["moments"]
 
     def at(self, xi: float, side: int = 1) -> np.ndarray:
