@@ -1,7 +1,9 @@
 """Solver speed on the many-member job of ``render_speed.py``, printed side by side in one run:
 
 1. the generated job (N members with loads along them: span, supports, uniform and point loads;
-   beam analysis, envelopes, influence lines, zoned schedules in every member) solved in a fresh
+   beam analysis, envelopes, influence lines, zoned schedules in every member; six layouts
+   repeated) and the same job with every member's span its own (no layout repeats, so nothing is
+   shared through the solver's geometry memo, solve/memo.py) solved in a fresh
    process per round (``pipeline.solve_file``, after one warm-up solve of a demo job), on the
    cold processes' footing (one BLAS thread, bytecode read: benchmarks/footing.py); solve time in
    all and per member, min and median over the rounds. Several ``--src`` trees are timed
@@ -38,7 +40,7 @@ for _var in ("OPENBLAS_NUM_THREADS", "OMP_NUM_THREADS", "MKL_NUM_THREADS"):
     os.environ.setdefault(_var, "1")
 
 from footing import footing_env  # noqa: E402  # the cold processes' footing (benchmarks/ is on sys.path)
-from render_speed import job_text  # noqa: E402  # the same generated job (benchmarks/ is on sys.path)
+from render_speed import HEAD, MEMBER, job_text  # noqa: E402  # the generated job (benchmarks/ on sys.path)
 
 ROOT = Path(__file__).resolve().parent.parent
 DEMO = ROOT / "jobs" / "boathouse-door-header.toml"
@@ -56,6 +58,26 @@ print(json.dumps({"wall": time.perf_counter() - t0, "cpu": time.process_time() -
 """
 
 
+def distinct_job_text(members: int) -> str:
+    """The same job with every member's span (so its mesh, stiffness and influence lines) its
+    own: render_speed's job repeats six layouts, which the solver's geometry memo shares."""
+    out = []
+    for i in range(members):
+        span = 10 + (i % 6) * 2 + (i // 6) / 12  # one more inch for every six members
+        out.append(
+            MEMBER.format(
+                i=i + 1,
+                span=round(span, 4),
+                wd=30 + (i % 5) * 10,
+                wl=60 + (i % 4) * 20,
+                p=200 + (i % 3) * 150,
+                at=round(span * (0.25 + 0.1 * (i % 3)), 2),
+                d=7.25 + (i % 4) * 2,
+            )
+        )
+    return HEAD + "".join(out)
+
+
 def loadavg() -> str:
     try:
         return " ".join(Path("/proc/loadavg").read_text().split()[:3])
@@ -67,6 +89,7 @@ def solve_once(src: Path, job: Path) -> dict:
     out = subprocess.run(
         [sys.executable, "-c", _CHILD, str(job), str(DEMO)],
         env=footing_env(src),
+        cwd=src,  # ``python -c`` puts the working folder first on sys.path: it must be the tree timed
         capture_output=True,
         text=True,
         check=True,
@@ -117,30 +140,35 @@ def main() -> None:
     args = ap.parse_args()
     srcs = [s.resolve() for s in (args.src or [ROOT])]
     med = statistics.median
-    times: dict[Path, list[dict]] = {s: [] for s in srcs}
+    kinds = {"as render_speed.py (6 layouts)": job_text, "every layout distinct": distinct_job_text}
+    times: dict[tuple[str, Path], list[dict]] = {(k, s): [] for k in kinds for s in srcs}
     load0 = loadavg()
     with tempfile.TemporaryDirectory() as tmp:
-        job = Path(tmp) / f"bench-{args.members}.toml"
-        job.write_text(job_text(args.members), encoding="utf-8")
+        jobs = {}
+        for k, make in kinds.items():
+            jobs[k] = Path(tmp) / f"bench-{len(jobs)}-{args.members}.toml"
+            jobs[k].write_text(make(args.members), encoding="utf-8")
         for _ in range(args.rounds):
-            for s in srcs:
-                times[s].append(solve_once(s, job))
+            for k in kinds:
+                for s in srcs:
+                    times[k, s].append(solve_once(s, jobs[k]))
     load1 = loadavg()
     print(f"{args.members} members, loads along them; fresh process per round, one BLAS thread")
     print(f"load average before / after the timed rounds: {load0} / {load1}")
-    print(f"{'tree':44} {'solve min/median (s)':>22} {'CPU min (s)':>12} {'ms per member':>14}")
-    for s in srcs:
-        w = [t["wall"] for t in times[s]]
-        c = [t["cpu"] for t in times[s]]
+    print(f"{'job':31} {'tree':36} {'solve min/median (s)':>21} {'CPU min (s)':>11} {'ms/member':>9}")
+    for k, s in times:
+        w = [t["wall"] for t in times[k, s]]
+        c = [t["cpu"] for t in times[k, s]]
         print(
-            f"{str(s)[-44:]:44} {min(w):10.2f} /{med(w):9.2f} {min(c):12.2f} {1000 * min(w) / args.members:14.1f}"
+            f"{k:31} {str(s)[-36:]:36} {min(w):10.2f} /{med(w):9.2f} {min(c):11.2f}"
+            f" {1000 * min(w) / args.members:9.1f}"
         )
     if args.bare:
         bt, pages = bare_seconds(args.members)
-        best = min(t["wall"] for t in times[srcs[-1]])
-        print(
-            f"bare reportlab, {pages} pages at the report's density: {bt:.2f} s; solve / bare = {best / bt:.2f}"
-        )
+        print(f"bare reportlab, {pages} pages at the report's density: {bt:.2f} s (the target's reference)")
+        for k in kinds:
+            best = min(t["wall"] for t in times[k, srcs[-1]])
+            print(f"  solve / bare, {k}, {srcs[-1].name}: {best / bt:.2f}")
     if args.profile_members:
         total, rows = shares(args.profile_members)
         print(
