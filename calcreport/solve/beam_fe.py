@@ -44,7 +44,7 @@ __all__ = [
 
 #: Stiffness by geometry, shared by members laid out alike (solve/memo.py); a 241-node mesh
 #: takes about 2 MB.
-_STIFFNESS = ByteMemo(32 * 2**20)
+_STIFFNESS = ByteMemo(16 * 2**20)
 
 
 class StructureError(ValueError):

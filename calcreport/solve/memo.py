@@ -5,8 +5,11 @@ again. The values kept are the ones a fresh computation gives (same inputs, same
 operations), and their arrays are made read-only, since every member that hits the entry shares
 them.
 
-Bounded by bytes (least recently used first out), so a job of large meshes keeps no more than the
-limit alive after their members are solved. Plain floats only; no quantities, no text.
+A value is kept only when its key comes round a second time (the first sighting records the
+key's hash alone), so a job whose members are all laid out differently keeps nothing and pays
+nothing beyond the keys; bounded by bytes (least recently used first out), so a job of large
+meshes keeps no more than the limit alive after their members are solved. Plain floats only; no
+quantities, no text.
 """
 
 from __future__ import annotations
@@ -34,12 +37,15 @@ def freeze(*arrays: np.ndarray) -> None:
 
 class ByteMemo:
     """Values by key, at most ``limit`` bytes in all (as the caller sizes each entry); an entry
-    larger than the limit is not kept."""
+    larger than the limit is not kept, nor one whose key is seen for the first time."""
+
+    SEEN = 4096  # hashes of keys seen once, remembered (a few tens of kB)
 
     def __init__(self, limit: int) -> None:
         self.limit = limit
         self._items: OrderedDict[Hashable, tuple[Any, int]] = OrderedDict()
         self._bytes = 0
+        self._seen: OrderedDict[int, None] = OrderedDict()
 
     def get(self, key: Hashable) -> Any | None:
         hit = self._items.get(key)
@@ -51,6 +57,12 @@ class ByteMemo:
     def put(self, key: Hashable, value: Any, nbytes: int) -> None:
         if nbytes > self.limit or key in self._items:
             return
+        h = hash(key)
+        if h not in self._seen:  # first sighting: remember the key only
+            self._seen[h] = None
+            if len(self._seen) > self.SEEN:
+                self._seen.popitem(last=False)
+            return
         self._items[key] = (value, nbytes)
         self._bytes += nbytes
         while self._bytes > self.limit:
@@ -59,6 +71,7 @@ class ByteMemo:
 
     def clear(self) -> None:
         self._items.clear()
+        self._seen.clear()
         self._bytes = 0
 
     def __len__(self) -> int:
