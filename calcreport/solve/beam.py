@@ -323,9 +323,36 @@ def _envelope(x_q, basis, combinations):
     hi_abs = np.abs(HV[r, ka]) >= np.abs(LV[r, ka])
 
     def by(q, ks, high):
-        return tuple(
-            label(q, int(j), s, bool(h)) for s, (j, h) in enumerate(zip(ks, np.broadcast_to(high, ks.shape)))
-        )
+        """label() at every station. label() reads a station only through the partial flags of
+        the placed cases of its combination, so the stations of one combination, direction and
+        set of flags share one call (the first of them)."""
+        ks = np.asarray(ks)
+        hs = np.broadcast_to(np.asarray(high, dtype=bool), ks.shape)
+        out = [""] * len(ks)
+        for j in sorted(set(ks.tolist())):
+            cb = combinations[j]
+            for h in (True, False):
+                sel = np.flatnonzero((ks == j) & (hs == h))
+                if not len(sel):
+                    continue
+                cols = [
+                    place[c].partial_hi[q] if h == (f > 0) else place[c].partial_lo[q]
+                    for c, f in cb.factors.items()
+                    if c in place and f != 0
+                ]
+                if len(cols) > 62:  # more flags than bits of a code: one call a station
+                    for s in sel.tolist():
+                        out[s] = label(q, j, s, h)
+                    continue
+                code = np.zeros(len(sel), dtype=np.int64)
+                for bit, col in enumerate(cols):
+                    code |= np.asarray(col, dtype=bool)[sel].astype(np.int64) << bit
+                for v in set(code.tolist()):
+                    alike = sel[code == v].tolist()
+                    text = label(q, j, alike[0], h)
+                    for s in alike:
+                        out[s] = text
+        return tuple(out)
 
     env = Envelope(
         x_q,

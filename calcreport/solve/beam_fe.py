@@ -22,9 +22,11 @@ Everything here is float arithmetic in one consistent unit system chosen by the 
 from __future__ import annotations
 
 from collections.abc import Sequence
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 
 import numpy as np
+
+from .memo import ByteMemo, float_key, freeze
 
 __all__ = [
     "FESupport",
@@ -37,7 +39,12 @@ __all__ = [
     "stiffness",
     "hermite",
     "StructureError",
+    "geometry_key",
 ]
+
+#: Stiffness by geometry, shared by members laid out alike (solve/memo.py); a 241-node mesh
+#: takes about 2 MB.
+_STIFFNESS = ByteMemo(16 * 2**20)
 
 
 class StructureError(ValueError):
@@ -68,6 +75,9 @@ class Mesh:
     supports: tuple[FESupport, ...]
     support_nodes: tuple[int, ...]
     jump_nodes: frozenset[int]  # interior nodes where V may jump (supports, point loads)
+    # the stiffness of this mesh, built once (the analysis and the deflection influence lines
+    # both factor the same K); filled by :func:`stiffness`, never part of equality
+    _cache: dict = field(default_factory=dict, compare=False, repr=False)
 
 
 def _snap(values: list[float], length: float) -> list[float]:
@@ -125,19 +135,27 @@ def build_mesh(
     return Mesh(x, length, tuple(supports), sup_nodes, jump)
 
 
-def _element_k(h: float) -> np.ndarray:
-    """Stiffness of an Euler-Bernoulli element of length h with EI = 1 (matrix structural analysis)."""
-    return (
-        np.array(
-            [
-                [12.0, 6 * h, -12.0, 6 * h],
-                [6 * h, 4 * h * h, -6 * h, 2 * h * h],
-                [-12.0, -6 * h, 12.0, -6 * h],
-                [6 * h, 2 * h * h, -6 * h, 4 * h * h],
-            ]
-        )
-        / h**3
-    )
+def _element_k(h: np.ndarray) -> np.ndarray:
+    """Stiffness of Euler-Bernoulli elements of lengths h with EI = 1, array (elements, 4, 4)
+    (matrix structural analysis):
+
+        k = [[12, 6h, −12, 6h], [6h, 4h², −6h, 2h²], [−12, −6h, 12, −6h], [6h, 2h², −6h, 4h²]] / h³.
+
+    Every entry is the same sequence of float operations per element as a one-element build
+    (``6·h``, ``(4·h)·h``, then ``/ h³`` with h³ taken as a scalar power), so K is the same to
+    the last bit whichever way it is assembled."""
+    h = np.asarray(h, dtype=float)
+    h3 = np.array([v**3 for v in h], dtype=float)  # np.float64 scalar powers, as one element at a time
+    six, four, two = 6 * h, 4 * h * h, 2 * h * h
+    twelve = np.full(len(h), 12.0)
+    rows = [
+        [twelve, six, -twelve, six],
+        [six, four, -six, two],
+        [-twelve, -six, twelve, -six],
+        [six, two, -six, four],
+    ]
+    k = np.stack([np.stack(r, axis=-1) for r in rows], axis=-2)  # (E, 4, 4)
+    return k / h3[:, None, None]
 
 
 def hermite(h: np.ndarray) -> np.ndarray:
@@ -198,8 +216,10 @@ def load_vector(mesh: Mesh, loads: list[FELoad]) -> tuple[np.ndarray, np.ndarray
         ],
         axis=1,
     )
-    for e in range(n - 1):
-        f[2 * e : 2 * e + 4] += fe[e]
+    # element by element, each node takes the element on its left, then the one on its right
+    # (the order of the sums as one element at a time): all lefts, then all rights
+    f[2:] += fe[:, 2:].reshape(-1)
+    f[:-2] += fe[:, :2].reshape(-1)
     return f, wa, wb
 
 
@@ -214,20 +234,35 @@ class FESolution:
     reactions: np.ndarray  # (supports, 2, m): upward force, and moment (clockwise on the beam)
 
 
-def stiffness(mesh: Mesh) -> tuple[np.ndarray, list[np.ndarray], np.ndarray]:
-    """Global stiffness K (EI = 1), the element matrices and the free degrees of freedom.
+def stiffness(mesh: Mesh) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
+    """Global stiffness K (EI = 1), the element matrices (elements, 4, 4) and the free degrees of
+    freedom; built once per mesh (kept on it, read-only) and shared by meshes of the same
+    geometry (:func:`geometry_key`).
 
     Raises:
         StructureError: if the supports do not hold the beam (K of the free DOFs not positive
             definite).
     """
+    if "stiffness" in mesh._cache:
+        return mesh._cache["stiffness"]
+    key = geometry_key(mesh)
+    hit = _STIFFNESS.get(key)
+    if hit is not None:
+        mesh._cache["stiffness"] = hit
+        return hit
     n = len(mesh.x)
     ndof = 2 * n
     h = np.diff(mesh.x)
     K = np.zeros((ndof, ndof))
-    ks = [_element_k(he) for he in h]
-    for e, k in enumerate(ks):
-        K[2 * e : 2 * e + 4, 2 * e : 2 * e + 4] += k
+    ks = _element_k(h)
+    # assembly: element e adds its 4×4 block at DOFs 2e…2e+3; blocks of even elements do not
+    # overlap each other, nor do those of odd ones, so two passes add every block at once. An
+    # entry receives at most two terms (0 + a + b = a + b in any order): the same K to the bit.
+    r = np.arange(4)
+    for first in (0, 1):
+        e = np.arange(first, len(h), 2)
+        dof = 2 * e[:, None] + r[None, :]  # (elements, 4)
+        K[dof[:, :, None], dof[:, None, :]] += ks[e]
     fixed_dofs: list[int] = []
     for s, nd in zip(mesh.supports, mesh.support_nodes):
         fixed_dofs.append(2 * nd)
@@ -240,7 +275,17 @@ def stiffness(mesh: Mesh) -> tuple[np.ndarray, list[np.ndarray], np.ndarray]:
         np.linalg.cholesky(K[np.ix_(free, free)])
     except np.linalg.LinAlgError:
         raise StructureError("the supports do not hold the beam (it is a mechanism)") from None
+    freeze(K, ks, free)  # shared by every caller of this mesh and of meshes alike
+    mesh._cache["stiffness"] = (K, ks, free)
+    _STIFFNESS.put(key, (K, ks, free), K.nbytes + ks.nbytes + free.nbytes)
     return K, ks, free
+
+
+def geometry_key(mesh: Mesh) -> tuple:
+    """What the stiffness and the influence lines of a mesh depend on, exactly: node positions
+    (every bit), length, supports (position, fixity) and their nodes — never the loads."""
+    supports = tuple((float_key(s.x), bool(s.fixed)) for s in mesh.supports)
+    return (mesh.x.dtype.str, mesh.x.tobytes(), float_key(mesh.length), supports, mesh.support_nodes)
 
 
 def solve(mesh: Mesh, loadsets: list[list[FELoad]]) -> FESolution:
@@ -262,26 +307,28 @@ def solve(mesh: Mesh, loadsets: list[list[FELoad]]) -> FESolution:
     D = np.zeros((ndof, m))
     D[free] = np.linalg.solve(K[np.ix_(free, free)], F[free])
     R = K @ D - F  # nodal forces the supports must supply, in the DOF directions (down, clockwise)
-    # element end forces: k d - f_eq
+    # element end forces k·d − f_eq of every element (rows: element, DOF 0..3, load set); the
+    # consistent load vector as in load_vector, elementwise; k·d one element at a time (the same
+    # 4×4 product as ever, so the same bits)
+    he = h[:, None]
+    feq = np.stack(
+        [
+            he * (21 * WA + 9 * WB) / 60,
+            he * he * (3 * WA + 2 * WB) / 60,
+            he * (9 * WA + 21 * WB) / 60,
+            -he * he * (2 * WA + 3 * WB) / 60,
+        ],
+        axis=1,
+    )
+    kd = np.stack([k @ D[2 * e : 2 * e + 4] for e, k in enumerate(ks)])
+    Fe = kd - feq
     Vl = np.zeros((n, m))
     Vr = np.zeros((n, m))
     M = np.zeros((n, m))
-    for e, k in enumerate(ks):
-        he = h[e]
-        wa, wb = WA[e], WB[e]
-        feq = np.stack(
-            [
-                he * (21 * wa + 9 * wb) / 60,
-                he * he * (3 * wa + 2 * wb) / 60,
-                he * (9 * wa + 21 * wb) / 60,
-                -he * he * (2 * wa + 3 * wb) / 60,
-            ]
-        )
-        Fe = k @ D[2 * e : 2 * e + 4] - feq
-        Vr[e] = -Fe[0]
-        M[e] = Fe[1]
-        Vl[e + 1] = Fe[2]
-        M[e + 1] = -Fe[3]
+    Vr[:-1] = -Fe[:, 0]
+    Vl[1:] = Fe[:, 2]
+    M[:-1] = Fe[:, 1]  # a node's moment from the element on its right …
+    M[-1] = -Fe[-1, 3]  # … the last node's from the element on its left
     Vl[0] = Vr[0]
     Vr[-1] = Vl[-1]
     reac = np.zeros((len(mesh.supports), 2, m))

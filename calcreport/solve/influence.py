@@ -90,11 +90,10 @@ class Influence:
             k = np.arange(4)
             m0 = self.C @ (1.0 / (k + 1))
             m1 = self.C @ (1.0 / (k + 2))
-            d1, d2 = _quad_roots(3 * self.C[..., 3], 2 * self.C[..., 2], self.C[..., 1])
-            T = np.stack([np.zeros_like(d1), d1, d2, np.ones_like(d1)], axis=-1)
-            f = _poly(self.C[..., None, :], T)
-            one_sign = np.all(f >= 0, axis=-1) | np.all(f <= 0, axis=-1)
-            self._cache["moments"] = (m0, m1, one_sign)
+            one = _one_sign(self.C)
+            for a in (m0, m1, one):  # shared with every member of the same geometry (placement.py)
+                a.flags.writeable = False
+            self._cache["moments"] = (m0, m1, one)
         return self._cache["moments"]
 
     def at(self, xi: float, side: int = 1) -> np.ndarray:
@@ -103,6 +102,27 @@ class Influence:
         e = min(max(e, 0), len(self.h) - 1)
         t = (xi - self.x[e]) / self.h[e]
         return self.C[:, e, :] @ np.array([1.0, t, t * t, t**3])
+
+
+def _one_sign(C: np.ndarray) -> np.ndarray:
+    """Whether each cubic C (…, 4) keeps one sign on [0, 1]: its values at t = 0, at the roots of
+    η′ in (0, 1) and at t = 1 are all ≥ 0 or all ≤ 0 (a cubic is monotonic between those points).
+
+    With finite coefficients η(0) = c₀ + 0·(…) has the sign tests of c₀ and η(1) = c₀ + 1·(c₁ +
+    1·(c₂ + 1·c₃)) is c₀ + (c₁ + (c₂ + c₃)) to the bit, so only the two roots need a full Horner
+    evaluation; a non-finite coefficient takes the plain route (every point by Horner)."""
+    c0, c1, c2, c3 = np.moveaxis(C, -1, 0).copy()  # contiguous coefficient planes
+    d1, d2 = _quad_roots(3 * c3, 2 * c2, c1)
+    if not np.isfinite(C).all():
+        T = np.stack([np.zeros_like(d1), d1, d2, np.ones_like(d1)], axis=-1)
+        f = _poly(C[..., None, :], T)
+        return np.all(f >= 0, axis=-1) | np.all(f <= 0, axis=-1)
+    f1 = c0 + (c1 + (c2 + c3))
+    fa = c0 + d1 * (c1 + d1 * (c2 + d1 * c3))
+    fb = c0 + d2 * (c1 + d2 * (c2 + d2 * c3))
+    pos = (c0 >= 0) & (fa >= 0) & (fb >= 0) & (f1 >= 0)
+    neg = (c0 <= 0) & (fa <= 0) & (fb <= 0) & (f1 <= 0)
+    return pos | neg
 
 
 def _coarse_reactions(coarse: Mesh) -> tuple[np.ndarray, list[tuple[int, bool]]]:

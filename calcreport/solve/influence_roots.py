@@ -17,20 +17,33 @@ def poly(c: np.ndarray, t: np.ndarray) -> np.ndarray:
 
 
 def quad_roots(a: np.ndarray, b: np.ndarray, c: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
-    """Real roots of a·t² + b·t + c in (0, 1); 0 where there is none (a harmless extra cut)."""
+    """Real roots of a·t² + b·t + c in (0, 1); 0 where there is none (a harmless extra cut).
+
+    Scaled by the largest coefficient; the root of smaller magnitude as c / q with
+    q = −(b + sign(b)·√(b² − 4ac)) / 2 and the other as q / a, the numerically stable pair
+    (Press et al., Numerical Recipes, 3rd ed., §5.6); −c / b when a is negligible.
+    """
     scale = np.maximum(np.maximum(np.abs(a), np.abs(b)), np.abs(c))
     scale = np.where(scale > 0, scale, 1.0)
     a, b, c = a / scale, b / scale, c / scale
     quad = np.abs(a) > 1e-13
-    disc = b * b - 4 * a * c
-    sq = np.sqrt(np.where(disc > 0, disc, 0.0))
+    disc = b * b
+    disc -= 4 * a * c
+    sq = np.where(disc > 0, disc, 0.0)
+    np.sqrt(sq, out=sq)
+    q = np.where(b >= 0, sq, -sq)
+    q += b
+    q *= -0.5
     with np.errstate(divide="ignore", invalid="ignore"):
-        q = -0.5 * (b + np.where(b >= 0, sq, -sq))
-        r1 = np.where(quad, np.where(q != 0, c / q, 0.0), np.where(b != 0, -c / b, 0.0))
-        r2 = np.where(quad & (disc > 0), q / a, 0.0)
-    ok1 = np.isfinite(r1) & (r1 > 0) & (r1 < 1) & (quad & (disc >= 0) | ~quad)
-    ok2 = np.isfinite(r2) & (r2 > 0) & (r2 < 1)
-    return np.where(ok1, r1, 0.0), np.where(ok2, r2, 0.0)
+        den = np.where(quad, q, -b)  # c / (−b) is (−c) / b to the bit
+        r1 = c / den
+        r1[den == 0] = 0.0
+        r2 = q / a
+    r2[~(quad & (disc > 0))] = 0.0
+    # a root in (0, 1) is finite; a quadratic's first root needs a real pair
+    r1[~((r1 > 0) & (r1 < 1) & (~quad | (disc >= 0)))] = 0.0
+    r2[~((r2 > 0) & (r2 < 1))] = 0.0
+    return r1, r2
 
 
 def cuts(c: np.ndarray, w0: np.ndarray, w1: np.ndarray) -> np.ndarray:

@@ -15,10 +15,16 @@ import numpy as np
 
 from . import beam_fe as fe
 from . import influence as il
+from .memo import ByteMemo, freeze
 
-__all__ = ["MovingSet", "CaseExtremes", "Placement", "place"]
+__all__ = ["MovingSet", "CaseExtremes", "Placement", "place", "influences"]
 
 QUANTITIES = ("V", "M", "v", "R")
+
+#: Influence lines by geometry (fine and coarse mesh, output stations): they depend on no load,
+#: so members laid out alike share them (solve/memo.py). A 241-node member with deflection lines
+#: takes about 9.5 MB, so ten layouts fit; more than that, taken in turn, evict each other (LRU).
+_INFLUENCE = ByteMemo(96 * 2**20)
 
 
 @dataclass(frozen=True)
@@ -84,6 +90,37 @@ def _point_ordinates(
     return np.where(at_node_left, eta_r, eta_l)
 
 
+def influences(
+    fine: fe.Mesh, coarse: fe.Mesh, idx: np.ndarray, side: np.ndarray, deflection: bool
+) -> tuple[dict[str, il.Influence], list[tuple[int, bool]]]:
+    """Influence lines of V, M and the reactions at the stations (``idx``, ``side``), and of the
+    deflection when ``deflection`` (only when something is placed); shared by members of the
+    same geometry (read-only arrays)."""
+    idx, side = np.asarray(idx), np.asarray(side)
+    key = (
+        fe.geometry_key(fine),
+        fe.geometry_key(coarse),
+        idx.dtype.str,
+        idx.tobytes(),
+        side.dtype.str,
+        side.tobytes(),
+        deflection,
+    )
+    hit = _INFLUENCE.get(key)
+    if hit is not None:
+        return hit
+    V, M, R, meta = il.statics_rows(fine, coarse, idx, side)
+    infl = {"V": V, "M": M, "R": R}
+    if deflection:
+        infl["v"] = il.build(fine, il.deflection_rows(fine, idx))
+    size = 0
+    for inf in infl.values():
+        freeze(inf.x, inf.h, inf.C, inf.A)
+        size += inf.C.nbytes * 3 // 2 + inf.A.nbytes  # C, and its moments (m0, m1, one sign) once used
+    _INFLUENCE.put(key, (infl, meta), size)
+    return infl, meta
+
+
 def place(
     fine: fe.Mesh,
     coarse: fe.Mesh,
@@ -97,10 +134,7 @@ def place(
     the other cases get their values as written (``full``, V and M only)."""
     variable = set(loads) | set(moving) if variable is None else set(variable)
     variable &= set(loads) | set(moving)
-    V, M, R, meta = il.statics_rows(fine, coarse, idx, side)
-    infl = {"V": V, "M": M, "R": R}
-    if variable:  # deflection ordinates only when something is placed
-        infl["v"] = il.build(fine, il.deflection_rows(fine, idx))
+    infl, meta = influences(fine, coarse, idx, side, bool(variable))
     n = len(fine.x)
     out: dict[str, CaseExtremes] = {}
     for case in list(dict.fromkeys(list(loads) + list(moving))):
