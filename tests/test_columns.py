@@ -17,7 +17,7 @@ pypdf = pytest.importorskip("pypdf")
 from reportlab.lib.styles import ParagraphStyle  # noqa: E402
 from reportlab.platypus import Paragraph, SimpleDocTemplate  # noqa: E402
 
-from calcreport.outputs.report.columns import MIN_UNITS, Columns  # noqa: E402
+from calcreport.outputs.report.columns import MIN_PART, MIN_UNITS, Columns  # noqa: E402
 
 STYLE = ParagraphStyle("t", fontName="Helvetica", fontSize=8, leading=10, spaceAfter=2)
 
@@ -84,3 +84,49 @@ def test_a_document_of_columns_prints_every_item_once_in_order():
     for page in reader.pages:
         seen += [t for t in page.extract_text().split() if t.startswith("item")]
     assert seen == [f"item{k:03d}" for k in range(150)]
+
+
+def _doc_pages(flowables, size=(460, 500)) -> list[str]:
+    buf = io.BytesIO()
+    doc = SimpleDocTemplate(buf, pagesize=size)
+    for f in flowables:
+        if isinstance(f, Columns):
+            f.frame_height = doc.height
+    doc.build(flowables)
+    return [p.extract_text() for p in pypdf.PdfReader(buf).pages]
+
+
+def test_units_taller_than_a_third_of_a_sheet_still_set_one_by_one():
+    """Fewer than MIN_UNITS fit a whole sheet: a fresh sheet takes what fits instead of looping."""
+    units = [[Paragraph(f"big{k} " + "word " * 70, STYLE)] for k in range(5)]  # ~40 % of a sheet each
+    pages = _doc_pages([Columns(units, gap=10)])
+    text = " ".join(pages)
+    assert [w for w in text.split() if w.startswith("big")] == [f"big{k}" for k in range(5)]
+
+
+def test_a_unit_taller_than_a_column_is_set_by_its_flowables():
+    unit = [Paragraph(f"part{k} " + "word " * 40, STYLE) for k in range(12)]  # taller than a column
+    pages = _doc_pages([Columns([unit], gap=10)])
+    assert len(pages) >= 2
+    seen = [w for t in pages for w in t.split() if w.startswith("part")]
+    assert seen == [f"part{k}" for k in range(12)]
+
+
+def test_a_head_taller_than_the_room_goes_alone_and_the_list_follows():
+    head = Paragraph("HEAD " + "word " * 370, STYLE)  # most of a sheet: no room for three units
+    pages = _doc_pages([Columns(_units(6), gap=10, head=head)])
+    flat = " ".join(pages)
+    assert flat.index("HEAD") < flat.index("item000")
+
+
+def test_the_part_carried_over_is_titled_continued_and_never_a_sliver():
+    units = [[Paragraph(f"line{k:02d} word", STYLE)] for k in range(90)]
+    cont = Paragraph("LIST (continued)", STYLE)
+    cols = Columns(units, gap=10, head=Paragraph("LIST", STYLE), cont=cont)
+    cols.frame_height = 600.0
+    hu = _unit_height(units[0], 200.0)
+    first, rest = cols.split(410, 44 * hu)  # room for all but a few short lines
+    assert rest.head is cont
+    cw_heights = [_unit_height(u, 200.0) for u in rest.units]
+    assert max(sum(cw_heights[: len(cw_heights) // 2 + 1]), 0) >= MIN_PART * 600.0 - 2 * hu
+    assert len(rest.units) >= MIN_UNITS

@@ -375,3 +375,35 @@ def test_the_contents_give_the_sheet_each_section_starts_on(built, stem):
             assert heading in squash(cover.split("Contents", 1)[-1]).replace(squash(title), "", 1), title
         else:
             assert found and found[0] == sheet, (title, sheet, found[:3])
+
+
+@pytest.mark.parametrize("stem", [j.stem for j in JOBS])
+def test_no_sheet_opens_on_a_bare_row_of_a_derivation_run_on(built, stem):
+    """A derivation table that runs on to the next sheet (whole or split) starts there under its
+    header row again (common typesetting practice, no source)."""
+    _, _, texts = built[stem]
+    pages = [t.split("Check (note; source)", 1)[0] for t in texts]
+    groups = [set(re.findall(r"^(\d+\.\d+)\.\d+", t, re.M)) for t in pages]
+    for i in range(1, len(pages)):
+        lines = [ln.strip() for ln in pages[i].splitlines() if ln.strip()]
+        bare = re.match(r"^(\d+\.\d+)\.\d+$", lines[0]) if lines else None
+        assert not (bare and bare.group(1) in groups[i - 1]), (stem, i + 1, lines[:3])
+
+
+HEADINGS = re.compile(
+    r"^(\d+\.\d+\s+[A-Z][a-z]+ .*|\d+\s+Member .*|Results|Checks|Inputs|Description|Assumptions|Materials|Connectors"
+    r"|Parts of the section|Design shear and settings|Section properties|Analysis|Connector design"
+    r"|Spacing and schedule|Member checks|Loads and load combinations|Not checked \(\d+\)|Assumed values"
+    r"|Limitations and cautions|Review and sign-off|This tool does not check:)$"
+)
+
+
+@pytest.mark.parametrize("stem", [j.stem for j in JOBS])
+def test_no_sheet_ends_on_a_heading(built, stem):
+    """A heading goes with what follows it (common typesetting practice, no source): the last body
+    line of a sheet is never a heading."""
+    _, _, texts = built[stem]
+    for i, t in enumerate(texts[:-1], 1):
+        body = t.split("Consulting Structural Engineers", 1)[0]  # the title block's text follows
+        lines = [ln.strip() for ln in body.splitlines() if ln.strip()]
+        assert lines and not HEADINGS.match(lines[-1]), (stem, i, lines[-2:])

@@ -171,7 +171,8 @@ def assumed_story(ctx: Ctx) -> list:
         st.small,
     )
     # the title and its lead head the columns: they go where the first entries go
-    return [Columns(_entries(ctx, groups), head=_Stack([title, lead]))]
+    cont = Paragraph("Assumed values (continued)", st.h3)
+    return [Columns(_entries(ctx, groups), head=_Stack([title, lead]), cont=cont)]
 
 
 class _Stack(Flowable):

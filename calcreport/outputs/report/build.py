@@ -99,7 +99,8 @@ def _measure(flowables: list, width: float, height: float) -> float:
 
 def _signoff_fits_cover(ctx: Ctx, info: PageInfo, result: JobResult) -> bool:
     """The sign-off goes on the cover, under the contents, when the cover and it fit one sheet
-    (the cover's own flowables and the block measured at the frame's width, with a line to spare);
+    (the cover's own flowables and the block measured at the frame's width, 3 pt to spare; the measure
+    counts every space before and after, so it errs on the safe side);
     otherwise it closes the report."""
     sections = report_sections(result, True)  # same rows as either order: the same height
     refs = dict(info.refs)  # the trial cover asks for contents cells: forget them afterwards
@@ -109,7 +110,7 @@ def _signoff_fits_cover(ctx: Ctx, info: PageInfo, result: JobResult) -> bool:
         info.refs.clear()
         info.refs.update(refs)
     block = _measure(_flat(signoff_story(ctx, on_cover=True)), ctx.width, ctx.frame_height)
-    return cover + block + 12.0 <= ctx.frame_height
+    return cover + block + 3.0 <= ctx.frame_height
 
 
 def _story(

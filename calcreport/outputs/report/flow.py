@@ -18,7 +18,7 @@ from __future__ import annotations
 
 from reportlab.platypus import CondPageBreak, Flowable, KeepTogether, Paragraph, Table
 
-from .columns import Columns
+from .columns import MIN_PART, Columns
 from .fastcell import LineCell
 from .pages import MarginMark, OutlineMark, SectionStart
 
@@ -26,8 +26,7 @@ __all__ = ["EvenTable", "HeadAtTop", "KeepHead", "KeepTail", "disciplined", "MIN
 
 #: body rows a split table keeps on each side of the break
 MIN_ROWS = 3
-#: ... unless the rows on that side are at least this share of the frame height
-MIN_PART = 0.12
+#: ... unless the rows on that side are at least this share of the frame height (columns.MIN_PART)
 _HEADINGS = ("h1", "h2", "h3")
 
 
@@ -61,9 +60,12 @@ class EvenTable(Table):
         block = MIN_PART * self.frame_height if self.frame_height else float("inf")
         if first < MIN_ROWS and sum(heights[head:cut]) < block and not fresh and body > 0:
             return []  # too little room here: the whole table (or its start) moves to the next sheet
-        if rest < MIN_ROWS and sum(heights[cut:]) < block and body >= 2 * MIN_ROWS:
-            cut = n - MIN_ROWS  # leave MIN_ROWS for the next sheet
-            return super().split(availWidth, sum(heights[:cut]) + 0.01)
+        if rest < MIN_ROWS and sum(heights[cut:]) < block:
+            if body >= 2 * MIN_ROWS:
+                cut = n - MIN_ROWS  # leave MIN_ROWS for the next sheet
+                return super().split(availWidth, sum(heights[:cut]) + 0.01)
+            if not fresh:
+                return []  # too short to split evenly: the table moves whole
         return super().split(availWidth, availHeight)
 
 
@@ -159,7 +161,19 @@ class HeadAtTop(Flowable):
         return w, h
 
     def split(self, aw, ah):
-        return self._pick(ah).split(aw, ah)
+        use = self._pick(ah)
+        parts = use.split(aw, ah)
+        if use is self.headed or len(parts) != 2:
+            return parts
+        # the rows carried to the next sheet start there under the header: the headed table cut
+        # after the same rows (its header repeats on the second part)
+        kept = len(parts[0]._cellvalues)
+        self.headed.wrap(aw, ah)
+        heights = list(self.headed._rowHeights)
+        cut = Table.split(self.headed, aw, sum(heights[: kept + 1]) + 0.01)
+        if len(cut) != 2 or len(cut[1]._cellvalues) != len(self.headed._cellvalues) - kept:
+            return parts
+        return [parts[0], cut[1]]
 
     def getSpaceBefore(self):  # noqa: N802 - reportlab's name
         return self._use.getSpaceBefore()
@@ -255,7 +269,7 @@ def disciplined(story: list, frame_height: float) -> list:
             j = i
             while j < len(out) and (_is_heading(out[j]) or _is_lead(out[j])):
                 j += 1
-            if j < len(out) and isinstance(out[j], (Table, HeadAtTop)) and j - i <= 8:
+            if j < len(out) and isinstance(out[j], (Table, HeadAtTop, KeepTail)) and j - i <= 8:
                 head = [g for g in out[i:j] if not isinstance(g, CondPageBreak)]  # KeepHead decides
                 done.append(KeepHead(head, out[j], frame_height))
                 i = j + 1

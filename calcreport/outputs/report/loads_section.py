@@ -106,7 +106,7 @@ def schedule_figures(j: JointResult, ctx: Ctx, member_id: str = "") -> list[Flow
     mark = ctx.mark(schedule_key(member_id, j.id)) if member_id else []
     rows = zone_rows(j.schedule, ctx)
     widths = [0.07 * w, 0.15 * w, 0.15 * w, 0.14 * w, 0.09 * w, 0.40 * w]
-    out: list[Flowable] = [KeepTogether([*mark, title, grid(rows, widths, st)])]
+    block: list[Flowable] = [*mark, title, grid(rows, widths, st)]
     total = getattr(j.schedule, "count", None)
     status = getattr(j.schedule, "status", None)
     note = []
@@ -114,9 +114,9 @@ def schedule_figures(j: JointResult, ctx: Ctx, member_id: str = "") -> list[Flow
         note.append(f"total {ctx.q(total)} connector rows")
     if status:
         note.append(f"status {status}")
-    if note:
-        out.append(para("; ".join(note), st.small))
-    return out
+    if note:  # the total closes the table: kept with it
+        block.append(para("; ".join(note), st.small))
+    return [KeepTogether(block)]
 
 
 def beam_figures(m: MemberResult, ctx: Ctx) -> list[Flowable]:

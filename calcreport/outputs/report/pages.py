@@ -13,7 +13,8 @@ from __future__ import annotations
 from dataclasses import dataclass, field
 
 from reportlab.lib import colors
-from reportlab.platypus import BaseDocTemplate, Flowable, Frame, PageTemplate
+from reportlab.platypus import BaseDocTemplate, CondPageBreak, Flowable, Frame, PageTemplate, Spacer
+from reportlab.platypus.doctemplate import ActionFlowable
 
 from .styles import Styles, draw_text, fit_text, plain
 from .template import Template
@@ -162,6 +163,7 @@ class ReportDoc(BaseDocTemplate):
         self._level = -1  # outline level of the last bookmark
         self._pending: list = []  # section and bookmark marks waiting for the next content
         self._subject_page = 0
+        self._last_subject = info.subject  # the section in effect (the last one begun)
         left, right, top, bottom = template.margins
         w, h = template.pagesize
         super().__init__(
@@ -232,24 +234,42 @@ class ReportDoc(BaseDocTemplate):
         self._level = level
 
     def afterFlowable(self, flowable):
-        # a section or bookmark mark takes effect where the next thing with a height is set: a
-        # mark left at the foot of a sheet whose content moved on names the sheet it moved to
+        # a section or bookmark mark takes effect where the next content is set: a mark left at the
+        # foot of a sheet whose content moved on names the sheet it moved to
         if isinstance(flowable, (OutlineMark, SectionStart)):
             self._pending.append(flowable)
             return
-        if not self._pending or getattr(flowable, "height", 0) <= 0:
+        if isinstance(flowable, (CondPageBreak, Spacer, ActionFlowable)):
+            return  # a break that fired is set on the sheet it leaves; space carries nothing
+        height = float(getattr(flowable, "height", 0) or getattr(flowable, "_height", 0) or 0)
+        if height <= 0:
             return
-        top = self.frame._y + float(getattr(flowable, "height", 0))
+        first_here = self._subject_page != self.page
+        if first_here:  # a sheet is named by the section in effect at its top
+            self.current_subject = self._last_subject
+            self._subject_page = self.page
+        self._resolve(self.frame._y + height, first_here)
+
+    def _resolve(self, top: float, first_here: bool) -> None:
+        """Place the pending marks at ``top`` on this sheet; a section begun by the sheet's first
+        content names the sheet."""
+        named = False
         for mark in self._pending:
             if isinstance(mark, OutlineMark):
                 self._bookmark(mark.title, mark.level, top)
-            else:
-                self._bookmark(mark.title, 0, top)
-                self.seen_sections.setdefault(mark.sid, self.page)
-                if self._subject_page != self.page:  # the first section begun on a sheet names it
-                    self.current_subject = mark.subject
-                    self._subject_page = self.page
+                continue
+            self._bookmark(mark.title, 0, top)
+            self.seen_sections.setdefault(mark.sid, self.page)
+            self._last_subject = mark.subject
+            if first_here and not named:
+                self.current_subject = mark.subject
+                named = True
         self._pending = []
+
+    def handle_documentEnd(self):  # noqa: N802 - reportlab's name
+        if self._pending:  # marks after the last content: on the last sheet
+            self._resolve(self.frame._y, False)
+        super().handle_documentEnd()
 
     # -- drawing ----------------------------------------------------------------------------
     def _furniture(self, canv, doc):

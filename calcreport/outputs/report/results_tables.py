@@ -66,13 +66,14 @@ def scope_story(m: MemberResult, ctx: Ctx) -> list:
     units: list[list] = []
     for u in m.not_checked:
         label = esc(u.label[0].upper() + u.label[1:])
-        clause = f' <font size="{st.caption.fontSize:g}" color="#444444">({esc(cited(u.clause))})</font>'
+        clause = f' <font size="{st.caption.fontSize:g}" color="#333333">({esc(cited(u.clause))})</font>'
         units.append([Paragraph(f"<b>{label}</b>{clause} — {esc(cited(u.reason))}", entry)])
     note = Paragraph(
         "These are not part of the status above; check them by hand or give the job what they need.",
         st.small,
     )
-    return [Columns(units, head=Paragraph(esc(title), head)), note]
+    cont = Paragraph(esc(f"Not checked ({len(m.not_checked)}, continued)"), head)
+    return [Columns(units, head=Paragraph(esc(title), head), cont=cont), note]
 
 
 def _joint_cells(j: JointResult, ctx: Ctx) -> list[str]:
@@ -244,13 +245,14 @@ def results_story(m: MemberResult, ctx: Ctx) -> list:
                 frame_height=ctx.frame_height,
             )
         )
+    line = ParagraphStyle("status_line", parent=st.body, spaceBefore=3)  # clear of the rule above
     status = (
-        Paragraph(f"Member {esc(m.id)}: <b>{esc(status_words(m))}</b> ({esc(checked_line(m))})", st.body)
+        Paragraph(f"Member {esc(m.id)}: <b>{esc(status_words(m))}</b> ({esc(checked_line(m))})", line)
         if m.status == "OK"
         else Paragraph(
             f'<font color="#b3261e"><b>Member {esc(m.id)}: NG — the member or its connection does not '
             "satisfy the checks above as detailed.</b></font>",
-            st.body,
+            line,
         )
     )
     # the status line closes the checks (kept with their last rows); what was not checked follows it

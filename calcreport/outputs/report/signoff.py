@@ -27,6 +27,8 @@ COMMENT_LINE_HEIGHT = 16.5
 SIGN_ROW = 22.0
 #: height of the header rows of both tables
 HEAD_ROW = 15.0
+#: the comment lines' spacing where the box runs across the sheet (end of the report)
+END_COMMENT_LINE = 17.0
 
 CAUTIONS = (
     "This report is a design aid. It is not valid until a licensed professional engineer has reviewed "
@@ -71,9 +73,9 @@ NOT_CHECKED = (
 )
 
 
-def _signature_table(ctx: Ctx) -> Table:
+def _signature_table(ctx: Ctx, w: float) -> Table:
+    """Role, name, signature line and date of each signer, ``w`` wide."""
     st, h = ctx.styles, ctx.result.job.header
-    w = ctx.width
     rows = [
         [
             para("Role", st.cell_bold),
@@ -90,7 +92,7 @@ def _signature_table(ctx: Ctx) -> Table:
         rows.append([para(role, st.cell), para(name or "", st.cell), "", para(date or "", st.cell)])
     t = Table(
         rows,
-        colWidths=[0.14 * w, 0.17 * w, 0.19 * w, 0.11 * w],
+        colWidths=[0.23 * w, 0.28 * w, 0.31 * w, 0.18 * w],
         rowHeights=[HEAD_ROW] + [SIGN_ROW] * 3,
         hAlign="LEFT",
     )
@@ -109,14 +111,14 @@ def _signature_table(ctx: Ctx) -> Table:
     return t
 
 
-def _comments_table(ctx: Ctx, width: float) -> Table:
+def _comments_table(ctx: Ctx, width: float, line: float) -> Table:
+    """A box of :data:`COMMENT_LINES` ruled lines ``line`` apart for the checker's comments."""
     st = ctx.styles
-    line = (3 * SIGN_ROW) / COMMENT_LINES  # the ruled lines end level with the signature rows
     t = Table(
         [[para("Checker's comments", st.cell_bold)]] + [[""] for _ in range(COMMENT_LINES)],
         colWidths=[width],
         rowHeights=[HEAD_ROW] + [line] * COMMENT_LINES,
-        hAlign="RIGHT",
+        hAlign="LEFT",
     )
     t.setStyle(
         TableStyle(
@@ -131,26 +133,37 @@ def _comments_table(ctx: Ctx, width: float) -> Table:
 
 
 def signoff_story(ctx: Ctx, on_cover: bool = False) -> list:
-    """The sign-off: the signatures and the checker's comments side by side. On the cover (when
-    it fits there, :mod:`.build`) under a cover heading and without the job file's hash, which
-    the cover states; at the end of the report with it."""
+    """The sign-off. On the cover (when it fits there, :mod:`.build`): the signatures and the
+    checker's comments side by side under a cover heading, without the job file's hash, which the
+    cover states. At the end of the report: the comments across the sheet under the signatures,
+    then the hash."""
     st, w = ctx.styles, ctx.width
-    pair = Table(
-        [[_signature_table(ctx), _comments_table(ctx, 0.37 * w)]],
-        colWidths=[0.61 * w, 0.39 * w],
-        hAlign="LEFT",
-    )
-    pair.setStyle(
-        TableStyle(
+    if on_cover:  # side by side, the ruled lines level with the signature rows
+        gap = 0.02 * w
+        block: Table = Table(
             [
-                ("VALIGN", (0, 0), (-1, -1), "TOP"),
-                ("LEFTPADDING", (0, 0), (-1, -1), 0),
-                ("RIGHTPADDING", (0, 0), (-1, -1), 0),
-                ("TOPPADDING", (0, 0), (-1, -1), 0),
-                ("BOTTOMPADDING", (0, 0), (-1, -1), 0),
-            ]
+                [
+                    _signature_table(ctx, 0.61 * w),
+                    _comments_table(ctx, 0.39 * w - gap, 3 * SIGN_ROW / COMMENT_LINES),
+                ]
+            ],
+            colWidths=[0.61 * w + gap, 0.39 * w - gap],
+            hAlign="LEFT",
         )
-    )
+        block.setStyle(
+            TableStyle(
+                [
+                    ("VALIGN", (0, 0), (-1, -1), "TOP"),
+                    ("LEFTPADDING", (0, 0), (-1, -1), 0),
+                    ("RIGHTPADDING", (0, 0), (-1, -1), 0),
+                    ("TOPPADDING", (0, 0), (-1, -1), 0),
+                    ("BOTTOMPADDING", (0, 0), (-1, -1), 0),
+                ]
+            )
+        )
+        parts: list = [block]
+    else:  # at the end, with room: the comments across the sheet under the signatures
+        parts = [_signature_table(ctx, w), Spacer(1, 6), _comments_table(ctx, w, END_COMMENT_LINE)]
     out: list = [
         Paragraph("Review and sign-off", st.h2 if on_cover else st.h1),
         Paragraph(
@@ -158,7 +171,7 @@ def signoff_story(ctx: Ctx, on_cover: bool = False) -> list:
             "assumptions are appropriate, and the results have been reviewed.",
             st.small,
         ),
-        pair,
+        *parts,
     ]
     if not on_cover:
         out += [
@@ -201,4 +214,5 @@ def limitations_story(ctx: Ctx) -> list:
     st = ctx.styles
     items = [[Paragraph("• " + esc(item), dense(st).item)] for item in NOT_CHECKED]
     head = Paragraph("This tool does not check:", dense(st).head)
-    return [*heading("Limitations and cautions", st.h2), _cautions(ctx), Columns(items, head=head)]
+    cont = Paragraph("This tool does not check (continued):", dense(st).head)
+    return [*heading("Limitations and cautions", st.h2), _cautions(ctx), Columns(items, head=head, cont=cont)]

@@ -279,6 +279,6 @@ def make_styles(fonts: Fonts, accent: colors.Color, size: float = 9.0) -> Styles
             spaceAfter=size * 0.3,
         ),
         caption=derive(
-            "caption", fontSize=size - 1.5, leading=(size - 1.5) * 1.3, textColor=colors.HexColor("#444444")
+            "caption", fontSize=size - 1.5, leading=(size - 1.5) * 1.3, textColor=colors.HexColor("#333333")
         ),
     )
