@@ -109,25 +109,27 @@ def _env(src: Path) -> dict:
     return footing_env(src)  # one BLAS thread, bytecode compiled and read (benchmarks/footing.py)
 
 
-def _wall(cmd: list[str], env: dict) -> float:
+def _wall(cmd: list[str], env: dict, cwd: Path) -> float:
     t = time.perf_counter()
-    p = subprocess.run(cmd, stdout=subprocess.DEVNULL, stderr=subprocess.DEVNULL, env=env)
+    p = subprocess.run(cmd, stdout=subprocess.DEVNULL, stderr=subprocess.DEVNULL, env=env, cwd=cwd)
     if p.returncode not in (0, 1):
         raise SystemExit(f"failed: {' '.join(cmd)}")
     return time.perf_counter() - t
 
 
 def cold_build(src: Path, rounds: int) -> tuple[list[float], list[float], list[float]]:
-    """Floor and build times and the pair-by-pair ratios of cold processes."""
+    """Floor and build times and the pair-by-pair ratios of cold processes, run in ``src``
+    (``python -m`` puts the working folder ahead of ``PYTHONPATH``: run from another tree, the
+    child would import that tree's calcreport instead of ``src``'s)."""
     env = _env(src)
     with tempfile.TemporaryDirectory() as out:
         build = [sys.executable, "-m", "calcreport", "build", str(ROOT / "jobs" / LARGEST), "-o", out + "/"]
         floor = [sys.executable, "-c", FLOOR]
         for cmd in (build, floor):  # compile bytecode, warm the file cache and pint's cache
-            _wall(cmd, env)
+            _wall(cmd, env, src)
         fl, bu, ratio = [], [], []
         for _ in range(rounds):
-            f, b = _wall(floor, env), _wall(build, env)
+            f, b = _wall(floor, env, src), _wall(build, env, src)
             fl.append(f)
             bu.append(b)
             ratio.append(b / f)
@@ -175,6 +177,7 @@ def ours(src: Path, job: Path, rounds: int, count: bool = True) -> dict:
     out = subprocess.run(
         [sys.executable, "-c", _CHILD, str(job), demo, str(rounds), "count" if count else "-"],
         env=_env(src),
+        cwd=src,  # ``-c`` and ``-m`` put the working folder first on sys.path: it must be ``src``
         capture_output=True,
         text=True,
         check=True,
