@@ -2,19 +2,21 @@
 
 1. cold ``calcreport build`` of the largest demo job against the import floor, on the same footing
    (pint's registry from its cache, one BLAS thread, bytecode written by a warm-up run and read by
-   the timed ones: benchmarks/footing.py), pair by
-   pair — target ≤ 1.5 ×;
+   the timed ones: benchmarks/footing.py), pair by pair — target ≤ 1.5 ×;
 2. a generated job of 200 members with loads along the member (span, supports, uniform and point
    loads: beam analysis, envelopes, plots and zoned schedules in every member) solved and rendered
-   in this process, against a bare reportlab script laying out the same number of pages of
-   comparable density — the same embedded fonts, a title block on every page, and tables with the
-   report's own mean cells per table and characters per page (counted from our story and our PDF)
-   — target ≤ 2.0 ×;
+   in a fresh process per round, each round followed by a round of a bare reportlab script laying
+   out the same number of pages of comparable density — the same embedded fonts, a title block
+   on every page, and tables with the report's own mean cells per table and characters per page
+   (counted from our story and our PDF) — target ≤ 2.0 ×;
 3. pages per second of both.
 
 The machine is shared (2 cores, other work running): every figure is the minimum over the rounds
-(median beside it); compare the minimum. ``--src DIR`` times another source tree (e.g. an
-earlier commit unpacked with ``git archive``) with the same script, for before/after figures.
+(median beside it); compare the minimum. The report-alone ratio is also given pair by pair (each
+round of ours against the bare round right after it), as the bare script's own time moves by
+±30 % between runs, and in CPU time (``time.process_time`` of the render and of the bare
+layout), which other load on the machine disturbs less than wall time. ``--src DIR`` times another source tree (e.g. an earlier commit unpacked
+with ``git archive``) with the same script, for before/after figures.
 
 Run:  PYTHONPATH=$PWD python benchmarks/render_speed.py [--rounds N] [--members N] [--src DIR]
 """
@@ -107,25 +109,27 @@ def _env(src: Path) -> dict:
     return footing_env(src)  # one BLAS thread, bytecode compiled and read (benchmarks/footing.py)
 
 
-def _wall(cmd: list[str], env: dict) -> float:
+def _wall(cmd: list[str], env: dict, cwd: Path) -> float:
     t = time.perf_counter()
-    p = subprocess.run(cmd, stdout=subprocess.DEVNULL, stderr=subprocess.DEVNULL, env=env)
+    p = subprocess.run(cmd, stdout=subprocess.DEVNULL, stderr=subprocess.DEVNULL, env=env, cwd=cwd)
     if p.returncode not in (0, 1):
         raise SystemExit(f"failed: {' '.join(cmd)}")
     return time.perf_counter() - t
 
 
 def cold_build(src: Path, rounds: int) -> tuple[list[float], list[float], list[float]]:
-    """Floor and build times and the pair-by-pair ratios of cold processes."""
+    """Floor and build times and the pair-by-pair ratios of cold processes, run in ``src``
+    (``python -m`` puts the working folder ahead of ``PYTHONPATH``: run from another tree, the
+    child would import that tree's calcreport instead of ``src``'s)."""
     env = _env(src)
     with tempfile.TemporaryDirectory() as out:
         build = [sys.executable, "-m", "calcreport", "build", str(ROOT / "jobs" / LARGEST), "-o", out + "/"]
         floor = [sys.executable, "-c", FLOOR]
         for cmd in (build, floor):  # compile bytecode, warm the file cache and pint's cache
-            _wall(cmd, env)
+            _wall(cmd, env, src)
         fl, bu, ratio = [], [], []
         for _ in range(rounds):
-            f, b = _wall(floor, env), _wall(build, env)
+            f, b = _wall(floor, env, src), _wall(build, env, src)
             fl.append(f)
             bu.append(b)
             ratio.append(b / f)
@@ -147,30 +151,33 @@ best = None
 for _ in range(int(sys.argv[3])):
     t0 = time.perf_counter()
     result = solve_file(sys.argv[1])
-    t1 = time.perf_counter()
+    t1, c1 = time.perf_counter(), time.process_time()
     pdf = render_pdf(result)
-    t2 = time.perf_counter()
+    t2, c2 = time.perf_counter(), time.process_time()
     if best is None or t2 - t0 < best["solve"] + best["report"]:
-        best = {"solve": t1 - t0, "report": t2 - t1, "pdf": len(pdf)}
-tables.Table.__init__ = _counting  # count tables and cells on one more (untimed) render
-render_pdf(result)
-tables.Table.__init__ = _init
-from pypdf import PdfReader
-reader = PdfReader(io.BytesIO(pdf))
-chars = sum(len(p.extract_text() or "") for p in reader.pages)
-best.update(pages=len(reader.pages), chars=chars, tables=len(counts), cells=sum(counts))
+        best = {"solve": t1 - t0, "report": t2 - t1, "report_cpu": c2 - c1, "pdf": len(pdf)}
+if sys.argv[4] == "count":
+    tables.Table.__init__ = _counting  # count tables and cells on one more (untimed) render
+    render_pdf(result)
+    tables.Table.__init__ = _init
+    from pypdf import PdfReader
+    reader = PdfReader(io.BytesIO(pdf))
+    chars = sum(len(p.extract_text() or "") for p in reader.pages)
+    best.update(pages=len(reader.pages), chars=chars, tables=len(counts), cells=sum(counts))
 print(json.dumps(best))
 """
 
 
-def ours(src: Path, job: Path, rounds: int) -> dict:
-    """Solve and render the generated job in a fresh process of ``src`` (min over the rounds)."""
+def ours(src: Path, job: Path, rounds: int, count: bool = True) -> dict:
+    """Solve and render the generated job in a fresh process of ``src`` (min over the rounds);
+    ``count``: also the pages, characters, tables and cells of the PDF (one more render)."""
     import json
 
     demo = str(ROOT / "jobs" / "boathouse-door-header.toml")
     out = subprocess.run(
-        [sys.executable, "-c", _CHILD, str(job), demo, str(rounds)],
+        [sys.executable, "-c", _CHILD, str(job), demo, str(rounds), "count" if count else "-"],
         env=_env(src),
+        cwd=src,  # ``-c`` and ``-m`` put the working folder first on sys.path: it must be ``src``
         capture_output=True,
         text=True,
         check=True,
@@ -178,10 +185,11 @@ def ours(src: Path, job: Path, rounds: int) -> dict:
     return json.loads(out.stdout.strip().splitlines()[-1])
 
 
-def bare_reportlab(pages: int, rows_per_page: int, cells_per_table: float) -> tuple[float, int, bytes]:
+def bare_reportlab(pages: int, rows_per_page: int, cells_per_table: float) -> tuple[float, int, bytes, float]:
     """Lay out ``pages`` pages of a heading and ruled tables of paragraph cells with reportlab
     alone: ``rows_per_page`` rows per page, in tables of about ``cells_per_table`` cells (three
-    columns, like a derivation table). Returns the layout time, the page count and the PDF."""
+    columns, like a derivation table). Returns the layout time, the page count, the PDF and the
+    layout's CPU time."""
     from reportlab.lib import colors
     from reportlab.lib.pagesizes import LETTER
     from reportlab.lib.styles import getSampleStyleSheet
@@ -230,10 +238,10 @@ def bare_reportlab(pages: int, rows_per_page: int, cells_per_table: float) -> tu
         c.restoreState()
 
     buf = io.BytesIO()
-    t0 = time.perf_counter()
+    t0, c0 = time.perf_counter(), time.process_time()
     doc = SimpleDocTemplate(buf, pagesize=LETTER, topMargin=130)
     doc.build(story, onFirstPage=furniture, onLaterPages=furniture)
-    return time.perf_counter() - t0, doc.page, buf.getvalue()
+    return time.perf_counter() - t0, doc.page, buf.getvalue(), time.process_time() - c0
 
 
 def chars_per_page(pdf: bytes) -> float:
@@ -248,7 +256,7 @@ def matched_rows(target_chars: float, cells_per_table: float) -> int:
     few pages, never more than fit on one page)."""
     rows = 8
     for _ in range(6):
-        _, got_pages, pdf = bare_reportlab(3, rows, cells_per_table)
+        _, got_pages, pdf, _ = bare_reportlab(3, rows, cells_per_table)
         if got_pages > 3:  # overflowed a page
             rows = max(2, int(rows * 0.8))
             continue
@@ -271,13 +279,20 @@ def main() -> None:
     with tempfile.TemporaryDirectory() as tmp:
         job = Path(tmp) / "bench-200.toml"
         job.write_text(job_text(args.members), encoding="utf-8")
-        r = ours(src, job, args.job_rounds)
-    pages = r["pages"]
-    cells = r["cells"] / max(1, r["tables"])
-    rows = matched_rows(r["chars"] / pages, cells)
-    bare = [bare_reportlab(pages, rows, cells) for _ in range(args.job_rounds)]
-    bare_t = min(t for t, _, _ in bare)
+        r = ours(src, job, 1)
+        pages = r["pages"]
+        cells = r["cells"] / max(1, r["tables"])
+        rows = matched_rows(r["chars"] / pages, cells)
+        # pair by pair: each round of ours is followed by a round of the bare script
+        mine, bare = [r], [bare_reportlab(pages, rows, cells)]
+        for _ in range(args.job_rounds - 1):
+            mine.append(ours(src, job, 1, count=False))
+            bare.append(bare_reportlab(pages, rows, cells))
+    bare_t = min(b[0] for b in bare)
     bare_chars = chars_per_page(bare[0][2])
+    paired = [m["report"] / b[0] for m, b in zip(mine, bare)]
+    paired_cpu = [m["report_cpu"] / b[3] for m, b in zip(mine, bare)]
+    r = dict(r, solve=min(m["solve"] for m in mine), report=min(m["report"] for m in mine))
     total = r["solve"] + r["report"]
     print(f"source tree: {src}")
     print(
@@ -293,6 +308,15 @@ def main() -> None:
         f" {bare_t:14.3f} {total / bare_t:7.2f}  ≤ 2.00"
     )
     print(f"{'  report alone (s)':58} {r['report']:14.3f} {bare_t:14.3f} {r['report'] / bare_t:7.2f}")
+    print(
+        f"{'  report alone / bare, pair by pair (min / median)':58} {'':14} {'':14} "
+        f"{min(paired):4.2f}/{med(paired):4.2f}"
+    )
+    cpu, bare_cpu = min(m["report_cpu"] for m in mine), min(b[3] for b in bare)
+    print(
+        f"{'  report alone, CPU time (s; ratio pair by pair min / median)':58} {cpu:14.3f} {bare_cpu:14.3f} "
+        f"{min(paired_cpu):4.2f}/{med(paired_cpu):4.2f}"
+    )
     print(f"{'  pages per second (solve+report / bare)':58} {pages / total:14.1f} {pages / bare_t:14.1f}")
     print(
         f"density: {pages} pages (bare {bare[0][1]}), {r['chars'] / pages:.0f} characters per page (bare "

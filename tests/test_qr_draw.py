@@ -64,3 +64,16 @@ def test_drawn_as_one_filled_path_in_its_square():
     assert len(rects) > 50
     for x, y, w, h in (map(float, r) for r in rects):
         assert 100 <= x < x + w <= 192.01 and 200 <= y < y + h <= 292.01
+
+
+@pytest.mark.parametrize("level", ["L", "M", "Q", "H"])
+def test_codewords_equal_reportlabs(level):
+    # data and error-correction codewords, interleaved, as reportlab's createData makes them
+    from calcreport.outputs.qr_draw import _code_words
+
+    for text in PAYLOADS + SHORT:
+        code = qrencoder.QRCode(None, getattr(qrencoder.QRErrorCorrectLevel, level))
+        code.addData(text)
+        version = code.calculate_version()
+        ours = _code_words(qrencoder, version, code.errorCorrectLevel, code.dataList)
+        assert ours == qrencoder.QRCode.createData(version, code.errorCorrectLevel, code.dataList)

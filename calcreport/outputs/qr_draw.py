@@ -14,7 +14,7 @@ from __future__ import annotations
 import importlib.util
 import sys
 from functools import lru_cache
-from itertools import groupby
+from itertools import groupby, zip_longest
 from types import ModuleType
 
 import numpy as np
@@ -62,6 +62,7 @@ def qr_modules(text: str, level: str = "M") -> list[list[bool]]:
     code.addData(enc.QR8bitByte(text) if plain_8bit else text)
     try:
         code.version = code.calculate_version()
+        code.dataCache = _code_words(enc, code.version, code.errorCorrectLevel, code.dataList)
         best, sym = _best_mask(code, enc)
         # the symbol make() ends with (makeImpl(False, best)): the masked data as scored, with
         # the format (and version) information of the chosen mask written in
@@ -74,6 +75,79 @@ def qr_modules(text: str, level: str = "M") -> list[list[bool]]:
         code.addData(text)
         code.make()
     return [[bool(m) for m in row] for row in code.modules]
+
+
+def _code_words(enc, version: int, level: int, segments) -> list[int]:
+    """The symbol's codewords, as reportlab's ``QRCode.createData`` makes them: the segments, the
+    terminator, the bit padding and the pad bytes 0xEC/0x11 (ISO/IEC 18004:2015 §7.4.9-10), split
+    into reportlab's blocks, each block's error-correction codewords appended by
+    :func:`_ec_words`, data and error-correction codewords interleaved block by block (§7.6).
+    The encoder's own ``createBytes`` divides polynomials with recursive list copies and builds
+    each block's generator anew (about 10 ms a code)."""
+    blocks = enc.QRRSBlock.getRSBlocks(version, level)
+    buffer = enc.QRBitBuffer()
+    for segment in segments:
+        segment.write(buffer, version)
+    capacity = 8 * sum(b.dataCount for b in blocks)
+    if buffer.getLengthInBits() > capacity:
+        raise ValueError(f"code length overflow. ({buffer.getLengthInBits()} > {capacity})")
+    if buffer.getLengthInBits() + 4 <= capacity:
+        buffer.put(0, 4)
+    while buffer.getLengthInBits() % 8:
+        buffer.putBit(False)
+    pad = (enc.QRCode.PAD0, enc.QRCode.PAD1)
+    k = 0
+    while buffer.getLengthInBits() < capacity:
+        buffer.put(pad[k % 2], 8)
+        k += 1
+    data, ec, offset = [], [], 0
+    for b in blocks:
+        words = list(buffer.buffer[offset : offset + b.dataCount])
+        offset += b.dataCount
+        data.append(words)
+        ec.append(_ec_words(words, b.totalCount - b.dataCount))
+    out = [w for column in zip_longest(*data) for w in column if w is not None]
+    return out + [w for column in zip_longest(*ec) for w in column if w is not None]
+
+
+_EXP = [0] * 510  # α^i in GF(256) with the QR field polynomial x⁸ + x⁴ + x³ + x² + 1 (§7.5.2)
+_LOG = [0] * 256
+_v = 1
+for _i in range(255):
+    _EXP[_i] = _EXP[_i + 255] = _v
+    _LOG[_v] = _i
+    _v <<= 1
+    if _v & 0x100:
+        _v ^= 0x11D
+
+
+@lru_cache(maxsize=64)
+def _generator(n: int) -> tuple[int, ...]:
+    """Logs of the coefficients after the leading 1 of Π (x − α^i), i = 0 … n − 1 (§7.5.2)."""
+    g = [1]
+    for i in range(n):
+        nxt = g + [0]
+        for j, c in enumerate(g):  # nxt = g·x + α^i·g
+            if c:
+                nxt[j + 1] ^= _EXP[_LOG[c] + i]
+        g = nxt
+    return tuple(_LOG[c] if c else -1 for c in g[1:])
+
+
+def _ec_words(data: list[int], n: int) -> list[int]:
+    """The ``n`` error-correction codewords of one block: the remainder of data(x)·xⁿ divided by
+    the generator polynomial (§7.5.2), by the usual shift-register division."""
+    gen = _generator(n)
+    rem = [0] * n
+    for word in data:
+        factor = word ^ rem[0]
+        rem = rem[1:] + [0]
+        if factor:
+            lf = _LOG[factor]
+            for j, lg in enumerate(gen):
+                if lg >= 0:
+                    rem[j] ^= _EXP[lf + lg]
+    return rem
 
 
 def _best_mask(code, enc) -> tuple[int, np.ndarray]:

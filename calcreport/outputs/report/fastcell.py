@@ -30,6 +30,8 @@ from reportlab.lib.styles import ParagraphStyle
 from reportlab.pdfbase.pdfmetrics import getAscentDescent, stringWidth
 from reportlab.platypus import Flowable, Paragraph
 
+from .fasttext import draw_line, memoise_fonts
+
 __all__ = ["cell", "LineCell", "OnceParagraph", "runs_of"]
 
 _TOKEN = re.compile(r"<(/?)([a-z]+)((?:\s+[a-z]+=\"[^\"<>]*\")*)\s*>|([^<]+)")
@@ -103,7 +105,9 @@ def _runs(markup: str, font: str, colour: Color) -> tuple[Run, ...] | None:
             return None
     if pos != len(markup) or len(stack) != 1:
         return None
-    return _collapse(runs)
+    out = _collapse(runs)
+    memoise_fonts(*{f for _, f, _ in out})  # their strings are then encoded once per document
+    return out
 
 
 def _collapse(runs: list[Run]) -> tuple[Run, ...]:
@@ -165,16 +169,12 @@ _PARSED_MAX = 8192
 
 class OnceParagraph(Paragraph):
     """A paragraph that parses its markup once per text and style and breaks its lines once per
-    width.
-
-    A table wraps each cell for its row heights, again when it splits across pages and again to
-    draw it; the second and third time the same width gives the same lines (``availHeight`` plays
-    no part in a paragraph's wrap). And the report repeats the same text in the same style many
-    times (the source of a kind of step, a caption, a column heading): the parser's fragments
-    of the first are handed to the next (``Paragraph``'s own ``frags`` argument; a paragraph
-    never changes the fragments it is given — line breaking and splitting work on clones), so
-    the HTML parser runs once per distinct text. The cache holds its styles, so a key's style
-    id cannot be reused while cached; it is emptied when full."""
+    width. A table wraps each cell for its row heights, for a split and to draw it: the same
+    width gives the same lines (``availHeight`` plays no part). Repeated texts in the same style
+    (sources, captions, column heads) take the first one's parsed fragments (``Paragraph``'s own
+    ``frags`` argument; a paragraph never changes the fragments it is given — line breaking and
+    splitting work on clones). The cache holds its styles, so a key's style id cannot be reused
+    while cached; it is emptied when full."""
 
     _wrapped: tuple[float, tuple[float, float], object] | None = None
 
@@ -368,6 +368,8 @@ class LineCell(Flowable):
         align = _ALIGN[self.style.alignment]
         x = 0.0 if align == 0 else (self.width - self._line_width) * (0.5 if align == 1 else 1.0)
         offset = self._size if rl_config.paraFontSizeHeightOffset else self._ascent()
+        if draw_line(c, x0, y0 + self.height - offset, x, self._runs, self._size, self._leading):
+            return  # the operators below, written directly (fasttext.draw_line)
         c.saveState()
         t = c.beginText(x0, y0 + self.height - offset)
         if x:  # moved to the line's start as a paragraph moves there (readers see the same)

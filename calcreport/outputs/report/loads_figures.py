@@ -7,7 +7,7 @@ only arithmetic here is scaling to the page.
 
 from __future__ import annotations
 
-from reportlab.graphics.shapes import Drawing, Line, Polygon, Rect, String
+from reportlab.graphics.shapes import Drawing, Line, Path, Polygon, Rect, String
 from reportlab.lib import colors
 
 from ...model import Member
@@ -58,16 +58,26 @@ def _support(dr: Drawing, x: float, y: float, kind: str) -> None:
 
 
 def _arrow(dr: Drawing, x: float, y_top: float, y_tip: float, colour=LOAD_INK, width: float = 0.7) -> None:
-    dr.add(Line(x, y_top, x, y_tip, strokeColor=colour, strokeWidth=width))
+    _arrows(dr, [x], y_top, y_tip, colour, width)
+
+
+def _arrows(dr: Drawing, xs: list[float], y_top: float, y_tip: float, colour, width: float) -> None:
+    """Arrows at ``xs`` from ``y_top`` to their tips at ``y_tip``, all of one colour: the shafts as
+    one stroked path, the heads (filled triangles, outlined 0.3 pt) as another — the same marks as
+    a line and a triangle per arrow, two shapes for the drawing to render instead of two per
+    arrow (a uniform load draws up to 35 arrows)."""
     d = 2.5 if y_top > y_tip else -2.5
-    dr.add(
-        Polygon(
-            [x, y_tip, x - 1.8, y_tip + d, x + 1.8, y_tip + d],
-            strokeColor=colour,
-            fillColor=colour,
-            strokeWidth=0.3,
-        )
-    )
+    shafts = Path(strokeColor=colour, strokeWidth=width, fillColor=None)
+    heads = Path(strokeColor=colour, fillColor=colour, strokeWidth=0.3, autoclose="pdf")
+    for x in xs:
+        shafts.moveTo(x, y_top)
+        shafts.lineTo(x, y_tip)
+        heads.moveTo(x, y_tip)
+        heads.lineTo(x - 1.8, y_tip + d)
+        heads.lineTo(x + 1.8, y_tip + d)
+        heads.closePath()
+    dr.add(shafts)
+    dr.add(heads)
 
 
 def _dim(dr: Drawing, x0: float, x1: float, y: float, text: str, font: str, size: float = 6.5) -> None:
@@ -196,8 +206,9 @@ def loading_diagram(
                 )
             )
             n = max(2, int((x1 - x0) / 14))
-            for k in range(n + 1):
-                _arrow(dr, x0 + (x1 - x0) * k / n, base + min(h0, h1) * 0.6, base, col, 0.4)
+            _arrows(
+                dr, [x0 + (x1 - x0) * k / n for k in range(n + 1)], base + min(h0, h1) * 0.6, base, col, 0.4
+            )
             label = plain(text + _load_label(ld.label))
             dr.add(
                 String(
@@ -263,8 +274,11 @@ def zone_elevation(j: JointResult, member: Member, fmt_q, fmt_pos, fonts, width:
         while a + (k - 1) * s < b - 1e-6:  # rows at a + s, a + 2s, …, the last one at the zone's end
             rows.append(min(a + k * s, b))
             k += 1
+        ticks = Path(strokeColor=col, strokeWidth=0.35, fillColor=None)  # one path: a tick per row
         for x in rows:
-            dr.add(Line(left + x * sx, y0 + 3, left + x * sx, y0 + h - 3, strokeColor=col, strokeWidth=0.35))
+            ticks.moveTo(left + x * sx, y0 + 3)
+            ticks.lineTo(left + x * sx, y0 + h - 3)
+        dr.add(ticks)
         _dim(dr, left + a * sx, left + b * sx, y0 + h + 8, f"@ {fmt_q(z.spacing, 3)}", fonts.regular, 6)
         _dim(dr, left + a * sx, left + b * sx, 12, fmt_pos(Q_(b - a, "inch")), fonts.regular, 6)
         dr.add(

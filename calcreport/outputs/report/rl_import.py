@@ -15,6 +15,13 @@ for the patterns named in :data:`_LAZY` only: it compiles the same pattern with 
 first time any attribute (``match``, ``search``…) is asked for. Every other pattern compiles as
 before, and nothing changes in what reportlab does or draws. When reportlab was imported already,
 or a version writes the patterns differently, the patterns are simply compiled as usual.
+
+The same finder loads ``reportlab.graphics.shapes`` with ``rl_config.shapeChecking`` off while
+the module runs: the shape classes are then defined without their per-attribute validator (a
+``__setattr__`` that looks every assignment up in the class's attribute map — "a big help when
+developing", by reportlab's own note, and about 60,000 calls in the drawings of ten members).
+The setting is restored at once, so widgets and everything else still check as configured;
+shapes hold and draw the same values.
 """
 
 from __future__ import annotations
@@ -30,7 +37,9 @@ _LAZY = (
     ("reportlab.platypus.paragraph", "(^(?:[a-z0-9\\.\\-\\+]*)://)", re.IGNORECASE),
     ("reportlab.lib.PyFontify", "", 0),
 )
-_LOCK = threading.Lock()
+#: modules run with ``rl_config.shapeChecking`` off (their classes skip the per-attribute validator)
+_UNCHECKED = frozenset({"reportlab.graphics.shapes"})
+_LOCK = threading.RLock()  # re-entrant: a module loaded here may import another one
 
 
 class LazyPattern:
@@ -72,10 +81,18 @@ class _Loader:
                 return real(pattern, flags)
 
             re.compile = compile_
+            unchecked = module.__name__ in _UNCHECKED
+            if unchecked:
+                from reportlab import rl_config
+
+                checking = rl_config.shapeChecking
+                rl_config.shapeChecking = 0
             try:
                 self._loader.exec_module(module)
             finally:
                 re.compile = real
+                if unchecked:
+                    rl_config.shapeChecking = checking
 
     def __getattr__(self, name: str):  # get_code, get_source, is_package… as the loader has them
         return getattr(self._loader, name)
@@ -98,7 +115,7 @@ class _Finder:
         return None
 
 
-_MODULES = frozenset(m for m, _, _ in _LAZY)
+_MODULES = frozenset(m for m, _, _ in _LAZY) | _UNCHECKED
 _FINDER = _Finder()
 
 

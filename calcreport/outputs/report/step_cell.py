@@ -10,12 +10,14 @@ under the step. The texts are the step's own; nothing is computed.
 
 from __future__ import annotations
 
+from functools import lru_cache
+
 from reportlab.lib.enums import TA_RIGHT
 from reportlab.lib.styles import ParagraphStyle
 from reportlab.pdfbase.pdfmetrics import stringWidth
 from reportlab.platypus import Flowable, Paragraph
 
-from .fastcell import LineCell
+from .fastcell import LineCell, OnceParagraph
 from .styles import esc
 
 __all__ = ["StepCell", "GAP"]
@@ -36,6 +38,12 @@ def _last_width(f: Flowable, aw: float) -> float:
     last = lines[-1]
     extra = last[0] if isinstance(last, tuple) else getattr(last, "extraSpace", 0.0)
     return aw - float(extra or 0.0)
+
+
+@lru_cache(maxsize=8)
+def _right(style: ParagraphStyle) -> ParagraphStyle:
+    """``style`` set flush right (one style object per style, so its parse is shared)."""
+    return ParagraphStyle("src_r", parent=style, alignment=TA_RIGHT)
 
 
 class StepCell(Flowable):
@@ -70,7 +78,7 @@ class StepCell(Flowable):
         elif sw <= aw:
             mode, extra = "line", st.leading
         else:
-            para = Paragraph(esc(self.source), ParagraphStyle("src_r", parent=st, alignment=TA_RIGHT))
+            para = OnceParagraph(esc(self.source), _right(st))
             extra = para.wrap(aw, availHeight)[1]
             mode = ("para", para)
         self._layout = (aw, heights, mode)
