@@ -1,9 +1,8 @@
 """One-line table cells without a full paragraph parse (issue 15 item 8).
 
-Most cells of the report's tables (derivation rows, input and result tables) are one short line:
-a label, a formula, a number with its unit. A reportlab ``Paragraph`` parses its markup with an
-HTML parser, then breaks lines on every ``wrap`` — and a table wraps each cell two or three times
-(row heights, splitting across pages, drawing). :func:`cell` is the one factory the table and
+Most table cells are one short line (a label, a formula, a number with its unit); a reportlab
+``Paragraph`` parses its markup with an HTML parser and breaks lines on each of the two or three
+``wrap`` calls a table makes of it. :func:`cell` is the one factory the table and
 derivation code calls instead of ``Paragraph(markup, style)``: it reads the small markup subset
 the report writes itself (``<b>``, ``<font color=…>``, ``<font name=…>``, the escapes of
 :func:`..styles.esc`), measures the line once, and returns a :class:`LineCell` that draws the
@@ -11,9 +10,8 @@ runs as one line when they fit the width it is given. Anything else — other ta
 indents, borders or a background, text wider than the column — is a ``Paragraph`` as before
 (built only when needed), so the fast path never changes what is printed, only how fast.
 
-The line is laid out as the paragraph would lay it out: white space collapsed to single spaces
-and stripped at the ends, one line of ``style.leading`` whose baseline sits ``fontSize`` below its
-top (reportlab's ``paraFontSizeHeightOffset``), left, centred or right aligned.
+The line is laid out as the paragraph would: white space collapsed and stripped, one line of
+``style.leading``, baseline ``fontSize`` below its top (reportlab's ``paraFontSizeHeightOffset``).
 """
 
 from __future__ import annotations
