@@ -30,6 +30,7 @@ import subprocess
 import sys
 import tempfile
 import time
+from collections.abc import Callable
 from pathlib import Path
 
 from footing import footing_env  # the cold processes' footing (benchmarks/ is on sys.path)
@@ -86,11 +87,12 @@ at = "{at} ft"
 MEMBER += PARTS
 
 
-def job_text(members: int) -> str:
-    """``members`` stringers with dead and live load along them (uniform and a point load)."""
+def job_text(members: int, span_of: Callable[[int], float] | None = None) -> str:
+    """``members`` stringers with dead and live load along them (uniform and a point load);
+    ``span_of(i)`` (ft) in place of the six repeated spans."""
     out = []
     for i in range(members):
-        span = 10 + (i % 6) * 2
+        span = span_of(i) if span_of is not None else 10 + (i % 6) * 2
         out.append(
             MEMBER.format(
                 i=i + 1,

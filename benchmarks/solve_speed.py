@@ -40,7 +40,7 @@ for _var in ("OPENBLAS_NUM_THREADS", "OMP_NUM_THREADS", "MKL_NUM_THREADS"):
     os.environ.setdefault(_var, "1")
 
 from footing import footing_env  # noqa: E402  # the cold processes' footing (benchmarks/ is on sys.path)
-from render_speed import HEAD, MEMBER, job_text  # noqa: E402  # the generated job (benchmarks/ on sys.path)
+from render_speed import job_text  # noqa: E402  # the generated job (benchmarks/ on sys.path)
 
 ROOT = Path(__file__).resolve().parent.parent
 DEMO = ROOT / "jobs" / "boathouse-door-header.toml"
@@ -61,21 +61,8 @@ print(json.dumps({"wall": time.perf_counter() - t0, "cpu": time.process_time() -
 def distinct_job_text(members: int) -> str:
     """The same job with every member's span (so its mesh, stiffness and influence lines) its
     own: render_speed's job repeats six layouts, which the solver's geometry memo shares."""
-    out = []
-    for i in range(members):
-        span = 10 + (i % 6) * 2 + (i // 6) / 12  # one more inch for every six members
-        out.append(
-            MEMBER.format(
-                i=i + 1,
-                span=round(span, 4),
-                wd=30 + (i % 5) * 10,
-                wl=60 + (i % 4) * 20,
-                p=200 + (i % 3) * 150,
-                at=round(span * (0.25 + 0.1 * (i % 3)), 2),
-                d=7.25 + (i % 4) * 2,
-            )
-        )
-    return HEAD + "".join(out)
+    # one more inch for every six members
+    return job_text(members, span_of=lambda i: round(10 + (i % 6) * 2 + (i // 6) / 12, 4))
 
 
 def loadavg() -> str:
