@@ -96,7 +96,7 @@ def job_text(members: int, span_of: Callable[[int], float] | None = None) -> str
         out.append(
             MEMBER.format(
                 i=i + 1,
-                span=span,
+                span=round(span, 4),
                 wd=30 + (i % 5) * 10,
                 wl=60 + (i % 4) * 20,
                 p=200 + (i % 3) * 150,

@@ -62,7 +62,7 @@ def distinct_job_text(members: int) -> str:
     """The same job with every member's span (so its mesh, stiffness and influence lines) its
     own: render_speed's job repeats six layouts, which the solver's geometry memo shares."""
     # one more inch for every six members
-    return job_text(members, span_of=lambda i: round(10 + (i % 6) * 2 + (i // 6) / 12, 4))
+    return job_text(members, span_of=lambda i: 10 + (i % 6) * 2 + (i // 6) / 12)
 
 
 def loadavg() -> str:
