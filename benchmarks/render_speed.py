@@ -198,19 +198,24 @@ def bare_reportlab(pages: int, rows_per_page: int, cells_per_table: float) -> tu
     from reportlab.platypus import PageBreak, Paragraph, SimpleDocTemplate, Table, TableStyle
 
     sys.path.insert(0, str(ROOT))
+    from calcreport.outputs.report.pages import FOOTER_H, GAP, TITLE_H
     from calcreport.outputs.report.styles import register_fonts
+    from calcreport.outputs.report.template import DEFAULT
 
     fonts = register_fonts()  # the same embedded TrueType fonts as the report
+    size = DEFAULT.font_size - 1  # the report's table cells (derivation rows at its leading)
     ss = getSampleStyleSheet()
     for name in ("Heading2", "BodyText"):
         ss[name].fontName = fonts.bold if name == "Heading2" else fonts.regular
-        ss[name].fontSize, ss[name].leading = (11, 14) if name == "Heading2" else (8, 10)
+        ss[name].fontSize, ss[name].leading = (11, 14) if name == "Heading2" else (size, size * 1.17)
         ss[name].spaceBefore = ss[name].spaceAfter = 0
     cell = ss["BodyText"]
     label, symbol = "Shear flow at the interface of joint cap-web", "q = V·Q / I"
     sub = "= 1,500 lbf × 22.10 in³ / 410.0 in⁴ = 80.85 lbf/in"
     source = "mechanics of materials (shear flow, built-up members)"
     per_table = max(2, round(cells_per_table / 3))
+    left_m, right_m, top_m, bottom_m = DEFAULT.margins  # the report's frame on a Letter sheet
+    width = LETTER[0] - left_m - right_m
     story = []
     for p in range(pages):
         story.append(Paragraph(f"Section {p + 1}", ss["Heading2"]))
@@ -227,21 +232,28 @@ def bare_reportlab(pages: int, rows_per_page: int, cells_per_table: float) -> tu
                 ]
                 for k in range(n - 1)
             ]
-            t = Table(rows, colWidths=[48, 300, 156])
+            t = Table(rows, colWidths=[0.08 * width, 0.6 * width, 0.32 * width])
             t.setStyle(TableStyle([("GRID", (0, 0), (-1, -1), 0.3, colors.grey)]))
             story.append(t)
         story.append(PageBreak())
 
     def furniture(c, doc):
         c.saveState()
-        c.rect(54, 690, 504, 70)
+        c.rect(left_m, LETTER[1] - top_m - TITLE_H, width, TITLE_H)
         c.setFont(fonts.bold, 9)
         c.drawString(60, 745, f"Benchmark project — sheet {doc.page} of {pages}")
         c.restoreState()
 
     buf = io.BytesIO()
     t0, c0 = time.perf_counter(), time.process_time()
-    doc = SimpleDocTemplate(buf, pagesize=LETTER, topMargin=130)
+    doc = SimpleDocTemplate(
+        buf,
+        pagesize=LETTER,
+        leftMargin=left_m,
+        rightMargin=right_m,
+        topMargin=top_m + TITLE_H + GAP,
+        bottomMargin=bottom_m + FOOTER_H + 4,
+    )
     doc.build(story, onFirstPage=furniture, onLaterPages=furniture)
     return time.perf_counter() - t0, doc.page, buf.getvalue(), time.process_time() - c0
 
