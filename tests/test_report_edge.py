@@ -248,3 +248,47 @@ def test_shipped_templates_load(tmp_path):
     for name in ("letter", "a4"):
         tpl = load_template(name, str(tmp_path / "job.toml"))
         assert tpl.page == name
+
+
+def test_escaping_whole_texts_equals_the_character_by_character_rule():
+    """The shortcuts for printable text in the body font give what escaping character by character
+    gives (the rule they stand for): controls dropped, tabs and breaks as spaces, markup escaped,
+    characters the body face lacks set in the fallback font."""
+    import unicodedata
+
+    from calcreport.outputs.report import styles as S
+
+    def by_char(text: str, font: str) -> str:
+        text = unicodedata.normalize("NFC", text)
+        text = "".join(
+            " " if c in "\t\r\n" else c for c in text if c in "\t\r\n" or unicodedata.category(c)[0] != "C"
+        )
+        covered = S._covered(font)
+        out, run = [], []
+        for c in text:
+            if ord(c) in covered or c == " ":
+                if run:
+                    out.append(f'<font name="{S.FALLBACK_FONT}">{S.escape("".join(run))}</font>')
+                    run = []
+                out.append(S.escape(c))
+            else:
+                run.append(c)
+        if run:
+            out.append(f'<font name="{S.FALLBACK_FONT}">{S.escape("".join(run))}</font>')
+        return "".join(out)
+
+    S.register_fonts()
+    font = S._BODY[0]
+    for text in (
+        "q = V·Q / I = 93.59 lbf/in",
+        "a <b>bold</b> & more",
+        "tab\there\r\nline",
+        "nul\x00 and bell\x07",
+        "桁 beam 梁 & <x>",
+        "nbsp\u00a0and\u2028separator",
+        "",
+        "   ",
+        "e\u0301 (decomposed é)",
+    ):
+        S._esc.cache_clear()
+        assert S._esc(text, font) == by_char(text, font), text

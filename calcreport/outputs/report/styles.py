@@ -104,6 +104,8 @@ def _covered(font_name: str) -> frozenset[int]:
 def _clean(text: object) -> str:
     """Drop control characters (keep tabs as spaces); NFC-normalise."""
     text = unicodedata.normalize("NFC", str(text))
+    if text.isprintable():  # no control character, no tab or line break (nearly every text)
+        return text
     return "".join(
         " " if c in "\t\r\n" else c for c in text if c in "\t\r\n" or unicodedata.category(c)[0] != "C"
     )
@@ -123,6 +125,8 @@ def _esc(text: str, body_font: str) -> str:  # report text repeats a lot (labels
     try:
         covered = _covered(body_font)
     except KeyError:
+        return escape(text)
+    if covered.issuperset(map(ord, text.replace(" ", ""))):  # every character in the body font
         return escape(text)
     out: list[str] = []
     run: list[str] = []
