@@ -70,7 +70,8 @@ _HELD_BUILD = textwrap.dedent(
     real = safewrite._write_fd
     def slow(fd, data):
         real(fd, data[: len(data) // 2])
-        print("writing", flush=True)
+        sys.stdout.write("writing\\n")  # one write: two workers' lines never interleave in the pipe
+        sys.stdout.flush()
         time.sleep(60)
     safewrite._write_fd = slow
     from calcreport.cli import main
