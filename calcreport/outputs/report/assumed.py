@@ -13,7 +13,7 @@ from __future__ import annotations
 import re
 
 from reportlab.lib.styles import ParagraphStyle
-from reportlab.platypus import Flowable, Paragraph
+from reportlab.platypus import Paragraph
 
 from ...solve.results import Assumed
 from .columns import Columns
@@ -168,35 +168,8 @@ def assumed_story(ctx: Ctx) -> list:
         "the key shown: a shaded heading names a table of keys (and where they are stated), each entry "
         "below it a key within it, the value used and what it is. An entry is a tool default unless a "
         "basis is given under it. Read down the left column, then the right.",
-        st.small,
+        ParagraphStyle("assumed_lead", parent=st.small, spaceAfter=4.0),  # 4 pt above the entries
     )
     # the title and its lead head the columns: they go where the first entries go
     cont = Paragraph("Assumed values (continued)", st.h3)
-    return [Columns(_entries(ctx, groups), head=_Stack([title, lead]), cont=cont)]
-
-
-class _Stack(Flowable):
-    """Flowables one above the other as one (the head of a :class:`.columns.Columns`)."""
-
-    def __init__(self, parts: list[Flowable], space_after: float = 4.0):
-        super().__init__()
-        self.parts = parts
-        self.spaceAfter = space_after  # between the lead and the first entries
-
-    def wrap(self, aw: float, ah: float) -> tuple[float, float]:
-        self.width = aw
-        self.height = sum(self._h(p, aw, k) for k, p in enumerate(self.parts))
-        return aw, self.height
-
-    @staticmethod
-    def _h(p: Flowable, aw: float, k: int) -> float:
-        _, h = p.wrap(aw, 1e9)
-        return h + (p.getSpaceBefore() if k else 0.0) + (p.getSpaceAfter() if k < 1 else 0.0)
-
-    def draw(self) -> None:
-        y = self.height
-        for k, p in enumerate(self.parts):
-            _, h = p.wrap(self.width, 1e9)
-            y -= (p.getSpaceBefore() if k else 0.0) + h
-            p.drawOn(self.canv, 0, y)
-            y -= p.getSpaceAfter() if k < 1 else 0.0
+    return [Columns(_entries(ctx, groups), head=[title, lead], cont=cont)]

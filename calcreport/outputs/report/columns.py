@@ -5,7 +5,8 @@ its first entry, an entry and its notes) — and never splits one. On a sheet it
 fills the left column, then the right, to the foot of the frame and carries the rest to the next
 sheet, under ``cont`` (a "(continued)" heading) when one is given; on its last sheet it balances
 the two columns (the shortest height that holds every unit in reading order). A ``head`` (a
-heading across both columns) is set above the first part only, and goes where at least
+heading across both columns, or a heading and its lead: flowables one above the other) is set
+above the first part only, and goes where at least
 :data:`MIN_UNITS` units go with it. The part carried over is never fewer than :data:`MIN_UNITS`
 units nor less than :data:`MIN_PART` of the frame high (a sheet with less is an orphan). On a
 fresh sheet any unit that fits goes; a unit taller than a column is set as units of its own
@@ -36,13 +37,14 @@ class Columns(Flowable):
         self,
         units: Sequence[Sequence[Flowable]],
         gap: float = 14.0,
-        head: Flowable | None = None,
+        head: Flowable | Sequence[Flowable] | None = None,
         cont: Flowable | None = None,
     ):
         super().__init__()
         self.units = [list(u) for u in units if u]
         self.gap = gap
         self.head, self.cont = head, cont
+        self._heads: list[Flowable] = [head] if isinstance(head, Flowable) else list(head or [])
         self._measured: tuple[float, list[list[float]]] | None = None  # width, flowable heights
         self._cols: tuple[list[int], list[int]] = ([], [])
         self._fixed = False  # set by split(): this part fills its sheet's columns as laid out
@@ -97,14 +99,21 @@ class Columns(Flowable):
                 best = (cut, h)
         return best
 
+    def _head_spans(self, aw: float) -> list[tuple[Flowable, float, float]]:
+        """(flowable, its height, the space above it) of each head flowable, at full width."""
+        heads = self._heads
+        return [
+            (f, f.wrap(aw, 1e9)[1], float(heads[k - 1].getSpaceAfter() + f.getSpaceBefore()) if k else 0.0)
+            for k, f in enumerate(heads)
+        ]
+
     def _head_height(self, aw: float) -> float:
-        if self.head is None:
+        if not self._heads:
             return 0.0
-        _, h = self.head.wrap(aw, 1e9)
-        return h + float(self.head.getSpaceAfter())
+        return sum(h + above for _, h, above in self._head_spans(aw)) + float(self._heads[-1].getSpaceAfter())
 
     def getSpaceBefore(self) -> float:  # noqa: N802 - reportlab's name
-        return float(self.head.getSpaceBefore()) if self.head is not None else 0.0
+        return float(self._heads[0].getSpaceBefore()) if self._heads else 0.0
 
     def _fresh(self, ah: float) -> bool:
         return bool(self.frame_height) and ah >= FRESH * self.frame_height
@@ -132,10 +141,10 @@ class Columns(Flowable):
         left = self._fill(heights, 0, room)
         right = self._fill(heights, left, room)
         fresh = self._fresh(ah)
-        if right == 0 and fresh and self.head is not None:  # a head that leaves no room: on its own
+        if right == 0 and fresh and self._heads:  # a head that leaves no room: on its own
             bare = Columns(self.units, self.gap, None, self.cont)
             bare.frame_height = self.frame_height
-            return [self.head, bare]
+            return [*self._heads, bare]
         if right == 0 and fresh and n and heights[0] - self._lead(0) > room:
             return self._unbundled(aw, ah)  # a unit taller than a column: its flowables one by one
         if right < min(MIN_UNITS, n) and not (fresh and right >= 1):
@@ -184,10 +193,11 @@ class Columns(Flowable):
         cw = self._col_width(self.width)
         sizes = self._sizes(self.width)
         top = 0.0
-        if self.head is not None:
-            _, hh = self.head.wrap(self.width, 1e9)
-            self.head.drawOn(self.canv, 0, self.height - hh)
-            top = hh + float(self.head.getSpaceAfter())
+        if self._heads:
+            for f, h, above in self._head_spans(self.width):
+                top += above + h
+                f.drawOn(self.canv, 0, self.height - top)
+            top += float(self._heads[-1].getSpaceAfter())
         for col, indices in enumerate(self._cols):
             x = col * (cw + self.gap)
             y = self.height - top

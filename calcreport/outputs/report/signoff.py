@@ -22,7 +22,6 @@ __all__ = [
 
 #: ruled lines for the checker's comments (beside the signatures, as tall as their table)
 COMMENT_LINES = 4
-COMMENT_LINE_HEIGHT = 16.5
 #: height of a signature row
 SIGN_ROW = 22.0
 #: height of the header rows of both tables
